@@ -1,0 +1,51 @@
+/**
+ * Errors of the record model. Each has a stable `code`, the offending `value` and, where there is one, the
+ * `field` it came from, so a screen can point at the input and a log line can be searched for.
+ */
+
+export type LogErrorCode =
+  | 'record-invalid'
+  | 'reason-required'
+  | 'raw-immutable'
+  | 'record-deleted'
+  | 'id-missing'
+  | 'device-mismatch';
+
+export class LogError extends Error {
+  constructor(
+    readonly code: LogErrorCode,
+    readonly value: unknown,
+    message: string,
+    readonly field: string | null = null,
+  ) {
+    super(message);
+    this.name = 'LogError';
+  }
+}
+
+/** One thing wrong with a record: where, what it was, and the rule it broke. */
+export interface Problem {
+  /** Dotted path inside the record body, e.g. "shape.diameter_m" or "raw.timestamps_ms[1]". */
+  path: string;
+  value: unknown;
+  /** The rule in plain words, e.g. "must be > 0 and ≤ 1000 kg". */
+  rule: string;
+  /** The whole sentence for a person: "mass_kg: 0 is out of range: must be > 0 and ≤ 1000 kg". */
+  message: string;
+}
+
+/** A record refused before any write, with every problem found (not just the first). */
+export class LogValidationError extends LogError {
+  constructor(
+    readonly problems: Problem[],
+    readonly kind: string,
+  ) {
+    super(
+      'record-invalid',
+      problems.map((p) => p.value),
+      `invalid ${kind}: ${problems.map((p) => p.message).join('; ')}`,
+      problems[0]?.path ?? null,
+    );
+    this.name = 'LogValidationError';
+  }
+}

@@ -1,0 +1,490 @@
+/**
+ * Validation of record bodies and whole records. Every write goes through here first; nothing invalid is
+ * stored. A problem names the field, the value and the rule, in words a person can act on.
+ *
+ * The ranges are physical bounds, wide enough for any real field day and narrow enough to catch a slip of
+ * units (hPa typed as Pa, grams as kilograms, millimetres as metres). Where a bound comes from a known
+ * extreme the source is given beside it.
+ */
+import { LogValidationError, type Problem } from './errors';
+import { parseHlc } from './hlc';
+import { isUuid } from './uuid';
+import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
+
+/** A closed or open interval with the unit a person reads it in. */
+export interface Limit {
+  min: number;
+  /** True when the minimum itself is allowed (≥), false for > . */
+  minIncluded: boolean;
+  max: number;
+  unit: string;
+  /** Shown after the range, e.g. "(station pressure)". */
+  note?: string;
+}
+
+const atLeast = (min: number, max: number, unit: string, note?: string): Limit => ({ min, minIncluded: true, max, unit, note });
+const above = (min: number, max: number, unit: string, note?: string): Limit => ({ min, minIncluded: false, max, unit, note });
+
+/** The ranges every body field is checked against, for the screens to show beside their inputs too. */
+export const LIMITS = {
+  latitude_deg: atLeast(-90, 90, '°'),
+  longitude_deg: atLeast(-180, 180, '°'),
+  // Lowest dry land, the Dead Sea shore, about −430 m; Everest 8849 m (from memory). A margin on each side.
+  elevation_m: atLeast(-500, 9000, 'm'),
+  // From a seed (well under a gram, but above zero) to a heavy payload a crane can drop.
+  mass_kg: above(0, 1000, 'kg'),
+  // Lengths of a specimen: seeds of a fraction of a millimetre up to a large canopy.
+  length_m: above(0, 20, 'm'),
+  area_m2: above(0, 1000, 'm²'),
+  volume_m3: above(0, 1000, 'm³'),
+  // Bluff bodies lie near 0.4–2; a canopy referred to its own area up to about 2.5 (common practice).
+  reference_drag_coefficient: above(0, 5, ''),
+  // Surface records −89.2 °C (Vostok 1983) and 56.7 °C (Death Valley 1913), WMO extremes archive (from memory).
+  temperature_C: atLeast(-90, 60, '°C'),
+  u_temperature_C: atLeast(0, 10, '°C'),
+  // Station pressure: Everest summit reads about 33.7 kPa, the highest sea-level pressure measured about
+  // 108.4 kPa (from memory). Reduced to sea level the lowest measured is 87.0 kPa, typhoon Tip (from memory).
+  station_pressure_Pa: atLeast(30_000, 110_000, 'Pa', '(station pressure)'),
+  sea_level_pressure_Pa: atLeast(85_000, 110_000, 'Pa', '(reduced to sea level)'),
+  u_pressure_Pa: atLeast(0, 5000, 'Pa'),
+  relative_humidity_pct: atLeast(0, 100, '%'),
+  u_relative_humidity_pct: atLeast(0, 100, '%'),
+  dew_point_C: atLeast(-90, 60, '°C'),
+  u_dew_point_C: atLeast(0, 10, '°C'),
+  // Beyond hurricane force nobody drops anything; the bound catches km/h typed as m/s only above 75.
+  wind_speed_m_s: atLeast(0, 75, 'm/s'),
+  // A drop tower or a tethered balloon at most; drones are held to 120 m in most places.
+  height_m: above(0, 1000, 'm'),
+  u_time_s: atLeast(0, 10, 's'),
+  target_relative_uncertainty: above(0, 1, ''),
+  // A slow seed from a high release can take minutes; an hour is not a drop any more.
+  time_s: above(0, 3600, 's'),
+  sample_rate_Hz: above(0, 384_000, 'Hz'),
+  frame_rate_Hz: above(0, 1_000_000, 'Hz'),
+} as const satisfies Record<string, Limit>;
+
+/** Text lengths in characters. */
+const NAME_MAX = 200;
+const NOTES_MAX = 10_000;
+const TYPED_MAX = 100;
+const CREW_MAX = 50;
+const CAPTURE_MAX = 10_000;
+/** Dew point may read a little above the air temperature through instrument error, never much. */
+const DEW_POINT_MARGIN_C = 1;
+
+export const BODY_FIELDS: { readonly [K in RecordKind]: readonly (keyof BodyOf[K] & string)[] } = {
+  site: ['name', 'latitude_deg', 'longitude_deg', 'elevation_m', 'elevation_source', 'notes'],
+  specimen: ['name', 'mass_kg', 'u_mass_kg', 'shape', 'reference_drag_coefficient', 'notes'],
+  day: ['site_id', 'date', 'crew', 'notes'],
+  reading: [
+    'day_id',
+    'taken_at',
+    'temperature_C',
+    'u_temperature_C',
+    'pressure_Pa',
+    'u_pressure_Pa',
+    'pressure_reference',
+    'humidity',
+    'wind_speed_m_s',
+    'instrument',
+    'notes',
+  ],
+  series: [
+    'day_id',
+    'specimen_id',
+    'height_m',
+    'u_height_m',
+    'height_method',
+    'timing_method',
+    'u_time_s',
+    'target_relative_uncertainty',
+    'reading_id',
+    'timing_offset',
+    'started_at',
+    'notes',
+  ],
+  drop: ['series_id', 'seq', 'raw', 'time_s', 'height_m', 'excluded', 'exclusion_reason', 'note', 'captured_at'],
+};
+
+export const ENVELOPE_FIELDS = ['id', 'kind', 'created_at', 'updated_at', 'rev', 'device', 'deleted', 'history'] as const;
+
+const SHAPE_FIELDS: Record<string, readonly string[]> = {
+  sphere: ['diameter_m'],
+  cylinder: ['diameter_m', 'length_m'],
+  disc: ['diameter_m', 'thickness_m'],
+  box: ['length_m', 'width_m', 'height_m'],
+};
+
+function show(value: unknown): string {
+  if (typeof value === 'string') return JSON.stringify(value);
+  if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined) return String(value);
+  const text = JSON.stringify(value) ?? String(value);
+  return text.length > 60 ? `${text.slice(0, 57)}...` : text;
+}
+
+function limitRule(limit: Limit): string {
+  const unit = limit.unit ? ` ${limit.unit}` : '';
+  const note = limit.note ? ` ${limit.note}` : '';
+  return `must be ${limit.minIncluded ? '≥' : '>'} ${limit.min} and ≤ ${limit.max}${unit}${note}`;
+}
+
+const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const isFiniteNumber = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+const within = (v: number, limit: Limit) => (limit.minIncluded ? v >= limit.min : v > limit.min) && v <= limit.max;
+
+const INSTANT_PATTERN = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d{1,3})?Z$/;
+const DATE_PATTERN = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+export function isIsoInstant(value: unknown): value is string {
+  if (typeof value !== 'string' || !INSTANT_PATTERN.test(value)) return false;
+  const ms = Date.parse(value);
+  // Date.parse rolls 2026-02-30 over to March; comparing the date part back catches it.
+  return Number.isFinite(ms) && new Date(ms).toISOString().slice(0, 19) === value.slice(0, 19);
+}
+
+export function isIsoDate(value: unknown): value is string {
+  if (typeof value !== 'string') return false;
+  const m = DATE_PATTERN.exec(value);
+  if (!m) return false;
+  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  if (y < 1900 || y > 2200) return false;
+  const date = new Date(Date.UTC(y, mo - 1, d));
+  return date.getUTCFullYear() === y && date.getUTCMonth() === mo - 1 && date.getUTCDate() === d;
+}
+
+/** Collects problems; each check returns whether the value passed, so dependent checks can be skipped. */
+class Checker {
+  readonly problems: Problem[] = [];
+
+  /** `shown` replaces the value in the message where the value itself is too long to read (a list, a text). */
+  add(path: string, value: unknown, rule: string, what: string, shown = show(value)): false {
+    const message = value === undefined ? `${path}: missing: ${rule}` : `${path}: ${shown} ${what}${rule ? `: ${rule}` : ''}`;
+    this.problems.push({ path, value, rule, message });
+    return false;
+  }
+
+  number(path: string, value: unknown, limit: Limit): value is number {
+    const rule = limitRule(limit);
+    if (value === undefined) return this.add(path, value, rule, '');
+    if (!isFiniteNumber(value)) return this.add(path, value, rule, 'is not a finite number');
+    if (!within(value, limit)) return this.add(path, value, rule, 'is out of range');
+    return true;
+  }
+
+  nullableNumber(path: string, value: unknown, limit: Limit): boolean {
+    return value === null || this.number(path, value, limit);
+  }
+
+  /** A standard uncertainty: not negative, and not larger than the quantity it belongs to. */
+  uncertainty(path: string, value: unknown, ofPath: string, of: unknown, unit: string): boolean {
+    const known = isFiniteNumber(of) && of > 0;
+    const rule = `must be ≥ 0 and ≤ ${ofPath}${known ? ` (${of} ${unit})` : ''}`;
+    if (value === undefined) return this.add(path, value, rule, '');
+    if (!isFiniteNumber(value)) return this.add(path, value, rule, 'is not a finite number');
+    if (value < 0 || (known && value > of)) return this.add(path, value, rule, 'is out of range');
+    return true;
+  }
+
+  integer(path: string, value: unknown, min: number): boolean {
+    const rule = `must be a whole number ≥ ${min}`;
+    if (value === undefined) return this.add(path, value, rule, '');
+    if (!Number.isInteger(value) || (value as number) < min) return this.add(path, value, rule, 'is out of range');
+    return true;
+  }
+
+  text(path: string, value: unknown, max: number, required: boolean): boolean {
+    const rule = required ? `must be 1 to ${max} characters` : `must be at most ${max} characters`;
+    if (value === undefined) return this.add(path, value, rule, '');
+    if (typeof value !== 'string') return this.add(path, value, rule, 'is not text');
+    if (required && value.trim() === '') return this.add(path, value, rule, 'is empty');
+    if (value.length > max) return this.add(path, value, rule, 'is too long', `${show(value.slice(0, 20))}… (${value.length} characters)`);
+    return true;
+  }
+
+  oneOf<T extends string>(path: string, value: unknown, options: readonly T[]): value is T {
+    if (typeof value === 'string' && (options as readonly string[]).includes(value)) return true;
+    const rule = `must be one of: ${options.join(', ')}`;
+    if (value === undefined) return this.add(path, value, rule, '');
+    return this.add(path, value, options.join(', '), 'is not one of');
+  }
+
+  boolean(path: string, value: unknown): value is boolean {
+    if (typeof value === 'boolean') return true;
+    return this.add(path, value, 'must be true or false', 'is not true or false');
+  }
+
+  id(path: string, value: unknown, nullable = false): boolean {
+    if (isUuid(value) || (nullable && value === null)) return true;
+    return this.add(path, value, `must be a UUID${nullable ? ' or null' : ''}`, 'is not a record id');
+  }
+
+  instant(path: string, value: unknown): boolean {
+    if (isIsoInstant(value)) return true;
+    return this.add(path, value, 'must be ISO 8601 in UTC, e.g. 2026-06-14T09:12:03.412Z', 'is not an instant');
+  }
+
+  date(path: string, value: unknown): boolean {
+    if (isIsoDate(value)) return true;
+    return this.add(path, value, 'must be YYYY-MM-DD between 1900 and 2200', 'is not a calendar date');
+  }
+
+  object(path: string, value: unknown, what: string): value is Record<string, unknown> {
+    if (isObject(value)) return true;
+    return this.add(path, value, `${what} must be an object of fields`, 'is not an object');
+  }
+
+  onlyFields(prefix: string, value: Record<string, unknown>, allowed: readonly string[], what: string): void {
+    for (const key of Object.keys(value)) {
+      if (!allowed.includes(key)) this.add(join(prefix, key), value[key], '', `is not a field of ${what}`);
+    }
+  }
+
+  /** A list of numbers in time order: at least two entries (the release and the impact). */
+  series(path: string, value: unknown, check: (p: string, v: unknown) => boolean): boolean {
+    const rule = 'a capture needs at least 2 (release and impact)';
+    if (!Array.isArray(value)) return this.add(path, value, `must be a list of at least 2 numbers`, 'is not a list');
+    const count = `${show(value)} (${value.length} ${value.length === 1 ? 'entry' : 'entries'})`;
+    if (value.length < 2) return this.add(path, value, rule, 'is too short', count);
+    if (value.length > CAPTURE_MAX) return this.add(path, value, `at most ${CAPTURE_MAX} entries`, 'is too long', count);
+    let ok = true;
+    value.forEach((v, i) => {
+      const at = `${path}[${i}]`;
+      if (!check(at, v)) ok = false;
+      else if (i > 0 && isFiniteNumber(value[i - 1]) && (v as number) < value[i - 1]) {
+        ok = this.add(at, v, `must not be before ${path}[${i - 1}] (${value[i - 1]})`, 'is out of order');
+      }
+    });
+    return ok;
+  }
+}
+
+const join = (prefix: string, key: string) => (prefix ? `${prefix}.${key}` : key);
+const article = (kind: string) => (/^[aeiou]/.test(kind) ? `an ${kind}` : `a ${kind}`);
+
+function checkShape(c: Checker, shape: unknown): void {
+  if (!c.object('shape', shape, 'a shape')) return;
+  const kinds = ['sphere', 'cylinder', 'disc', 'box', 'custom'] as const;
+  if (!c.oneOf('shape.kind', shape.kind, kinds)) return;
+  if (shape.kind === 'custom') {
+    c.number('shape.area_m2', shape.area_m2, LIMITS.area_m2);
+    c.uncertainty('shape.u_area_m2', shape.u_area_m2, 'shape.area_m2', shape.area_m2, 'm²');
+    c.number('shape.volume_m3', shape.volume_m3, LIMITS.volume_m3);
+    c.uncertainty('shape.u_volume_m3', shape.u_volume_m3, 'shape.volume_m3', shape.volume_m3, 'm³');
+    c.onlyFields('shape', shape, ['kind', 'area_m2', 'u_area_m2', 'volume_m3', 'u_volume_m3'], 'a custom shape');
+    return;
+  }
+  const dims = SHAPE_FIELDS[shape.kind]!;
+  for (const dim of dims) {
+    c.number(`shape.${dim}`, shape[dim], LIMITS.length_m);
+    c.uncertainty(`shape.u_${dim}`, shape[`u_${dim}`], `shape.${dim}`, shape[dim], 'm');
+  }
+  c.onlyFields('shape', shape, ['kind', ...dims.flatMap((d) => [d, `u_${d}`])], article(shape.kind));
+}
+
+function checkHumidity(c: Checker, humidity: unknown, temperature: unknown): void {
+  if (!c.object('humidity', humidity, 'humidity')) return;
+  if (!c.oneOf('humidity.kind', humidity.kind, ['relative', 'dew_point'] as const)) return;
+  if (humidity.kind === 'relative') {
+    c.number('humidity.relative_humidity_pct', humidity.relative_humidity_pct, LIMITS.relative_humidity_pct);
+    c.number('humidity.u_relative_humidity_pct', humidity.u_relative_humidity_pct, LIMITS.u_relative_humidity_pct);
+    c.onlyFields('humidity', humidity, ['kind', 'relative_humidity_pct', 'u_relative_humidity_pct'], 'a relative humidity');
+    return;
+  }
+  const dew = humidity.dew_point_C;
+  const tKnown = isFiniteNumber(temperature) && within(temperature, LIMITS.temperature_C);
+  if (tKnown && isFiniteNumber(dew) && within(dew, LIMITS.dew_point_C) && dew > temperature + DEW_POINT_MARGIN_C) {
+    const ceiling = Math.round((temperature + DEW_POINT_MARGIN_C) * 1000) / 1000;
+    c.add(
+      'humidity.dew_point_C',
+      dew,
+      `must be ≥ ${LIMITS.dew_point_C.min} °C and not above temperature_C + ${DEW_POINT_MARGIN_C} (${ceiling} °C)`,
+      'is out of range',
+    );
+  } else {
+    c.number('humidity.dew_point_C', dew, LIMITS.dew_point_C);
+  }
+  c.number('humidity.u_dew_point_C', humidity.u_dew_point_C, LIMITS.u_dew_point_C);
+  c.onlyFields('humidity', humidity, ['kind', 'dew_point_C', 'u_dew_point_C'], 'a dew point');
+}
+
+function checkRaw(c: Checker, raw: unknown): void {
+  if (!c.object('raw', raw, 'a raw capture')) return;
+  if (!c.oneOf('raw.kind', raw.kind, ['typed', 'taps', 'sound', 'frames'] as const)) return;
+  const finiteAtLeastZero = (p: string, v: unknown) =>
+    isFiniteNumber(v) && v >= 0 ? true : c.add(p, v, 'must be a finite number ≥ 0', 'is not a time');
+  const wholeAtLeastZero = (p: string, v: unknown) =>
+    Number.isInteger(v) && (v as number) >= 0 ? true : c.add(p, v, '', 'is not a whole number');
+  switch (raw.kind) {
+    case 'typed': {
+      if (typeof raw.text === 'string' && raw.text.trim() === '') {
+        c.add('raw.text', raw.text, `must hold the value as typed (1 to ${TYPED_MAX} characters)`, 'is empty');
+      } else c.text('raw.text', raw.text, TYPED_MAX, true);
+      c.onlyFields('raw', raw, ['kind', 'text'], 'a typed capture');
+      return;
+    }
+    case 'taps':
+      c.series('raw.timestamps_ms', raw.timestamps_ms, finiteAtLeastZero);
+      c.onlyFields('raw', raw, ['kind', 'timestamps_ms'], 'a tap capture');
+      return;
+    case 'sound':
+      c.series('raw.onsets_s', raw.onsets_s, finiteAtLeastZero);
+      c.number('raw.sample_rate_Hz', raw.sample_rate_Hz, LIMITS.sample_rate_Hz);
+      c.onlyFields('raw', raw, ['kind', 'onsets_s', 'sample_rate_Hz'], 'a sound capture');
+      return;
+    case 'frames':
+      c.series('raw.frames', raw.frames, wholeAtLeastZero);
+      c.number('raw.frame_rate_Hz', raw.frame_rate_Hz, LIMITS.frame_rate_Hz);
+      c.onlyFields('raw', raw, ['kind', 'frames', 'frame_rate_Hz'], 'a frame capture');
+      return;
+  }
+}
+
+function checkCrew(c: Checker, crew: unknown): void {
+  if (!Array.isArray(crew)) {
+    c.add('crew', crew, 'must be a list of names', 'is not a list');
+    return;
+  }
+  if (crew.length > CREW_MAX) c.add('crew', crew, `at most ${CREW_MAX} names`, 'is too long', `${crew.length} names`);
+  crew.forEach((name, i) => c.text(`crew[${i}]`, name, NAME_MAX, true));
+}
+
+const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => void } = {
+  site(c, b) {
+    c.text('name', b.name, NAME_MAX, true);
+    c.number('latitude_deg', b.latitude_deg, LIMITS.latitude_deg);
+    c.number('longitude_deg', b.longitude_deg, LIMITS.longitude_deg);
+    c.number('elevation_m', b.elevation_m, LIMITS.elevation_m);
+    c.oneOf('elevation_source', b.elevation_source, ['survey', 'map', 'gps', 'other'] as const);
+    c.text('notes', b.notes, NOTES_MAX, false);
+  },
+  specimen(c, b) {
+    c.text('name', b.name, NAME_MAX, true);
+    c.number('mass_kg', b.mass_kg, LIMITS.mass_kg);
+    c.uncertainty('u_mass_kg', b.u_mass_kg, 'mass_kg', b.mass_kg, 'kg');
+    checkShape(c, b.shape);
+    c.nullableNumber('reference_drag_coefficient', b.reference_drag_coefficient, LIMITS.reference_drag_coefficient);
+    c.text('notes', b.notes, NOTES_MAX, false);
+  },
+  day(c, b) {
+    c.id('site_id', b.site_id);
+    c.date('date', b.date);
+    checkCrew(c, b.crew);
+    c.text('notes', b.notes, NOTES_MAX, false);
+  },
+  reading(c, b) {
+    c.id('day_id', b.day_id);
+    c.instant('taken_at', b.taken_at);
+    c.number('temperature_C', b.temperature_C, LIMITS.temperature_C);
+    c.number('u_temperature_C', b.u_temperature_C, LIMITS.u_temperature_C);
+    const seaLevel = b.pressure_reference === 'sea_level';
+    c.number('pressure_Pa', b.pressure_Pa, seaLevel ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa);
+    c.number('u_pressure_Pa', b.u_pressure_Pa, LIMITS.u_pressure_Pa);
+    c.oneOf('pressure_reference', b.pressure_reference, ['station', 'sea_level'] as const);
+    checkHumidity(c, b.humidity, b.temperature_C);
+    c.nullableNumber('wind_speed_m_s', b.wind_speed_m_s, LIMITS.wind_speed_m_s);
+    c.text('instrument', b.instrument, NAME_MAX, false);
+    c.text('notes', b.notes, NOTES_MAX, false);
+  },
+  series(c, b) {
+    c.id('day_id', b.day_id);
+    c.id('specimen_id', b.specimen_id);
+    c.number('height_m', b.height_m, LIMITS.height_m);
+    c.uncertainty('u_height_m', b.u_height_m, 'height_m', b.height_m, 'm');
+    c.oneOf('height_method', b.height_method, ['tape', 'laser', 'survey', 'marked', 'other'] as const);
+    c.oneOf('timing_method', b.timing_method, ['typed', 'stopwatch', 'tap', 'sound', 'video', 'gates'] as const);
+    c.number('u_time_s', b.u_time_s, LIMITS.u_time_s);
+    c.number('target_relative_uncertainty', b.target_relative_uncertainty, LIMITS.target_relative_uncertainty);
+    c.id('reading_id', b.reading_id, true);
+    c.oneOf('timing_offset', b.timing_offset, ['none', 'fit'] as const);
+    c.instant('started_at', b.started_at);
+    c.text('notes', b.notes, NOTES_MAX, false);
+  },
+  drop(c, b) {
+    c.id('series_id', b.series_id);
+    c.integer('seq', b.seq, 1);
+    checkRaw(c, b.raw);
+    c.number('time_s', b.time_s, LIMITS.time_s);
+    c.nullableNumber('height_m', b.height_m, LIMITS.height_m);
+    if (c.boolean('excluded', b.excluded)) {
+      if (b.excluded) {
+        if (typeof b.exclusion_reason !== 'string' || b.exclusion_reason.trim() === '') {
+          c.add('exclusion_reason', b.exclusion_reason ?? null, 'an excluded drop needs a reason', 'is missing');
+        } else c.text('exclusion_reason', b.exclusion_reason, NAME_MAX, true);
+      } else if (b.exclusion_reason !== null) {
+        c.add('exclusion_reason', b.exclusion_reason, '', 'must be null when the drop is not excluded');
+      }
+    }
+    c.text('note', b.note, NOTES_MAX, false);
+    c.instant('captured_at', b.captured_at);
+  },
+};
+
+/** Every problem with a record body of the given kind; an empty list means it may be stored. */
+export function validateBody(kind: RecordKind, body: unknown): Problem[] {
+  const c = new Checker();
+  if (!RECORD_KINDS.includes(kind)) {
+    c.add('(kind)', kind, RECORD_KINDS.join(', '), 'is not one of');
+    return c.problems;
+  }
+  if (!c.object('(body)', body, article(kind))) return c.problems;
+  CHECKS[kind](c, body);
+  c.onlyFields('', body, BODY_FIELDS[kind], article(kind));
+  return c.problems;
+}
+
+/** Throws LogValidationError (code 'record-invalid') unless the body is valid. */
+export function assertValidBody<K extends RecordKind>(kind: K, body: unknown): asserts body is BodyOf[K] {
+  const problems = validateBody(kind, body);
+  if (problems.length > 0) throw new LogValidationError(problems, kind);
+}
+
+function checkStamp(c: Checker, path: string, value: unknown): void {
+  try {
+    if (typeof value !== 'string') throw new Error();
+    parseHlc(value);
+  } catch {
+    c.add(path, value, 'must be ms-counter-device', 'is not a clock stamp');
+  }
+}
+
+function checkDevice(c: Checker, path: string, value: unknown): void {
+  if (typeof value !== 'string' || !/^[A-Za-z0-9_.:]+$/.test(value)) {
+    c.add(path, value, 'must be letters, digits, _ . : only', 'is not a device id');
+  }
+}
+
+/**
+ * Every problem with a whole record as stored or exported: its envelope, its body, and the envelope of each
+ * earlier version in its history (the bodies of earlier versions are kept as they were and not re-checked).
+ */
+export function validateRecord(record: unknown): Problem[] {
+  const c = new Checker();
+  if (!c.object('(record)', record, 'a record')) return c.problems;
+  const kind = record.kind;
+  if (!c.oneOf('kind', kind, RECORD_KINDS)) return c.problems;
+  c.id('id', record.id);
+  c.instant('created_at', record.created_at);
+  c.instant('updated_at', record.updated_at);
+  checkStamp(c, 'rev', record.rev);
+  checkDevice(c, 'device', record.device);
+  c.boolean('deleted', record.deleted);
+  if (!Array.isArray(record.history)) {
+    c.add('history', record.history, 'must be a list of earlier versions', 'is not a list');
+  } else {
+    record.history.forEach((entry: unknown, i: number) => {
+      const at = `history[${i}]`;
+      if (!c.object(at, entry, 'an earlier version')) return;
+      checkStamp(c, `${at}.rev`, entry.rev);
+      checkDevice(c, `${at}.device`, entry.device);
+      c.instant(`${at}.updated_at`, entry.updated_at);
+      if (entry.reason !== null && typeof entry.reason !== 'string') c.add(`${at}.reason`, entry.reason, 'must be text or null', 'is not text');
+      c.boolean(`${at}.deleted`, entry.deleted);
+      c.object(`${at}.body`, entry.body, 'the body of an earlier version');
+    });
+  }
+  const body: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(record)) {
+    if (!(ENVELOPE_FIELDS as readonly string[]).includes(key)) body[key] = value;
+  }
+  return [...c.problems, ...validateBody(kind, body)];
+}
