@@ -1,0 +1,97 @@
+/**
+ * Canonical JSON text: RFC 8785, JSON Canonicalization Scheme (JCS).
+ *
+ * The same value always gives the same bytes, so two exports of the same log are identical files and a file's
+ * hash says whether anything in it changed. JCS is: no whitespace; object properties sorted by their names as
+ * UTF-16 code units; strings and numbers written exactly as ECMAScript's JSON.stringify writes them (RFC 8785
+ * §3.2.2 defines them that way), over the I-JSON subset (RFC 7493: no lone surrogates, finite numbers only).
+ */
+
+export type CanonicalJsonErrorCode = 'canonical-not-finite' | 'canonical-lone-surrogate' | 'canonical-not-json';
+
+export class CanonicalJsonError extends Error {
+  constructor(
+    readonly code: CanonicalJsonErrorCode,
+    /** Where in the value, e.g. "records[3].time_s" ("(root)" for the value itself). */
+    readonly path: string,
+    readonly value: unknown,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'CanonicalJsonError';
+  }
+}
+
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+const at = (path: string) => path || '(root)';
+
+function writeString(text: string, path: string): string {
+  const json = JSON.stringify(text);
+  // JSON.stringify writes a lone surrogate as \udXXX; only then is the slower exact check needed.
+  if (json.includes('\\ud') && LONE_SURROGATE.test(text)) {
+    throw new CanonicalJsonError(
+      'canonical-lone-surrogate',
+      at(path),
+      text,
+      `${at(path)}: text holds a lone UTF-16 surrogate, which JSON files may not carry (RFC 7493 §2.1)`,
+    );
+  }
+  return json;
+}
+
+function write(value: unknown, path: string): string {
+  switch (typeof value) {
+    case 'string':
+      return writeString(value, path);
+    case 'number':
+      if (!Number.isFinite(value)) {
+        throw new CanonicalJsonError(
+          'canonical-not-finite',
+          at(path),
+          value,
+          `${at(path)}: ${String(value)} is not a finite number; JSON can only hold finite numbers`,
+        );
+      }
+      // ECMAScript Number::toString, which RFC 8785 §3.2.2.3 adopts; it writes -0 as 0.
+      return JSON.stringify(value);
+    case 'boolean':
+      return value ? 'true' : 'false';
+    case 'object': {
+      if (value === null) return 'null';
+      if (Array.isArray(value)) {
+        let out = '[';
+        for (let i = 0; i < value.length; i++) {
+          if (i > 0) out += ',';
+          out += write(value[i], `${path}[${i}]`);
+        }
+        return out + ']';
+      }
+      const object = value as Record<string, unknown>;
+      // Array.prototype.sort without a comparator orders strings by UTF-16 code units (RFC 8785 §3.2.3).
+      const keys = Object.keys(object).sort();
+      let out = '{';
+      let first = true;
+      for (const key of keys) {
+        const item = object[key];
+        if (item === undefined) continue;
+        if (!first) out += ',';
+        first = false;
+        out += writeString(key, path) + ':' + write(item, path ? `${path}.${key}` : key);
+      }
+      return out + '}';
+    }
+    default:
+      throw new CanonicalJsonError(
+        'canonical-not-json',
+        at(path),
+        value,
+        `${at(path)}: a ${typeof value} has no JSON form`,
+      );
+  }
+}
+
+/** The RFC 8785 canonical text of a JSON value. Throws CanonicalJsonError for anything JSON cannot hold. */
+export function canonicalJson(value: unknown): string {
+  return write(value, '');
+}
