@@ -1,0 +1,182 @@
+/**
+ * Reading a log file: JSON, then the published schema (ajv's ahead-of-time validator), then the record model's
+ * own rules, then one record per id. The first thing wrong is reported with the field, the value and the rule,
+ * e.g. `records[12].time_s (drop 4f…) is -1.6: must be > 0`.
+ */
+import type { LogFile } from './export';
+import { LOG_FORMAT, LOG_FORMAT_VERSION } from './schema';
+import { validate as validateSchema } from './schema-validator';
+import { validateRecord } from './validate';
+import type { LogRecord } from './types';
+
+export type LogFileErrorCode =
+  | 'log-not-json'
+  | 'log-not-a-log'
+  | 'log-format-too-new'
+  | 'log-schema'
+  | 'log-record-invalid'
+  | 'log-duplicate-id';
+
+export class LogFileError extends Error {
+  constructor(
+    readonly code: LogFileErrorCode,
+    /** Where in the file, e.g. "records[12].time_s"; "(file)" for the file as a whole. */
+    readonly field: string,
+    readonly value: unknown,
+    /** The rule broken, in words, e.g. "must be > 0". */
+    readonly rule: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = 'LogFileError';
+  }
+}
+
+interface AjvError {
+  instancePath: string;
+  schemaPath: string;
+  keyword: string;
+  params: Record<string, unknown>;
+  message?: string;
+}
+type Validator = ((data: unknown) => boolean) & { errors?: AjvError[] | null };
+
+const validator = validateSchema as unknown as Validator;
+
+/** "/records/3/shape/diameter_m" → ["records", 3, "shape", "diameter_m"] (JSON Pointer, RFC 6901). */
+function pointerParts(pointer: string): (string | number)[] {
+  if (!pointer) return [];
+  return pointer
+    .slice(1)
+    .split('/')
+    .map((p) => p.replace(/~1/g, '/').replace(/~0/g, '~'))
+    .map((p) => (/^\d+$/.test(p) ? Number(p) : p));
+}
+
+function fieldName(parts: (string | number)[]): string {
+  let out = '';
+  for (const p of parts) out += typeof p === 'number' ? `[${p}]` : out ? `.${p}` : p;
+  return out || '(file)';
+}
+
+function valueAt(data: unknown, parts: (string | number)[]): unknown {
+  let here: unknown = data;
+  for (const p of parts) {
+    if (here === null || typeof here !== 'object') return undefined;
+    here = (here as Record<string | number, unknown>)[p];
+  }
+  return here;
+}
+
+function show(value: unknown): string {
+  if (value === undefined) return 'missing';
+  const text = JSON.stringify(value) ?? String(value);
+  return text.length > 60 ? `${text.slice(0, 57)}...` : text;
+}
+
+/** Which record a field belongs to, for the message: ` (drop 4f0c…)`. */
+function recordLabel(data: unknown, parts: (string | number)[]): string {
+  if (parts[0] !== 'records' || typeof parts[1] !== 'number') return '';
+  const record = valueAt(data, parts.slice(0, 2)) as Partial<LogRecord> | undefined;
+  if (!record || typeof record !== 'object') return '';
+  return ` (${typeof record.kind === 'string' ? record.kind : 'record'}${typeof record.id === 'string' ? ` ${record.id}` : ''})`;
+}
+
+/** The pattern of each named definition, in words. */
+const PATTERN_RULES: Record<string, string> = {
+  id: 'must be a record id (a UUID such as 0b7e2d4c-5f1a-4c3e-9d2b-8a6f4e1c7b90)',
+  instant: 'must be an ISO 8601 instant in UTC such as 2026-06-14T09:12:03.412Z',
+  date: 'must be a calendar date YYYY-MM-DD',
+  device: 'must be a device id of letters, digits, _ . : only',
+  rev: 'must be a clock stamp "<ms, 15 digits>-<counter, 6 digits>-<device>"',
+};
+
+function patternRule(schemaPath: string): string | null {
+  const m = /^#\/\$defs\/([^/]+)\/pattern$/.exec(schemaPath);
+  return m ? (PATTERN_RULES[m[1]!] ?? null) : null;
+}
+
+function schemaError(data: unknown, errors: AjvError[]): LogFileError {
+  // With if/then unions ajv adds an "if" error after the one that matters.
+  const error = errors.find((e) => e.keyword !== 'if') ?? errors[0]!;
+  let parts = pointerParts(error.instancePath);
+  let rule = (error.message ?? error.keyword).replace('<=', '≤').replace('>=', '≥');
+  if (error.keyword === 'required') {
+    parts = [...parts, String(error.params.missingProperty)];
+    rule = 'is required';
+  } else if (error.keyword === 'additionalProperties') {
+    parts = [...parts, String(error.params.additionalProperty)];
+    const owner = valueAt(data, parts.slice(0, -1)) as { kind?: unknown } | undefined;
+    rule = `is not a field of ${typeof owner?.kind === 'string' ? `a ${owner.kind}` : 'this object'} in format ${LOG_FORMAT_VERSION}`;
+  } else if (error.keyword === 'enum') {
+    rule = `must be one of: ${(error.params.allowedValues as unknown[]).join(', ')}`;
+  } else if (error.keyword === 'const') {
+    rule = `must be ${JSON.stringify(error.params.allowedValue)}`;
+  } else if (error.keyword === 'pattern') {
+    rule = patternRule(error.schemaPath) ?? rule;
+  }
+  const field = fieldName(parts);
+  const value = valueAt(data, parts);
+  const label = `${field}${recordLabel(data, parts)}`;
+  const message = value === undefined ? `${label} is missing; it is required` : `${label} is ${show(value)}: ${rule}`;
+  return new LogFileError('log-schema', field, value, rule, message);
+}
+
+/** Reads and checks a log file's text. Throws LogFileError for the first thing wrong. */
+export function readLogFile(text: string): LogFile {
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch (error) {
+    throw new LogFileError(
+      'log-not-json',
+      '(file)',
+      text.slice(0, 40),
+      'must be JSON (RFC 8259)',
+      `the file is not JSON (${(error as Error).message}); a Plummet log is a .json file`,
+    );
+  }
+  const head = data as { format?: unknown; format_version?: unknown } | null;
+  if (head === null || typeof head !== 'object' || Array.isArray(head) || head.format !== LOG_FORMAT) {
+    const value = head && typeof head === 'object' ? head.format : data;
+    throw new LogFileError(
+      'log-not-a-log',
+      'format',
+      value,
+      `must be "${LOG_FORMAT}"`,
+      `this JSON file is not a Plummet log (its "format" is ${show(value)}, a log says "${LOG_FORMAT}")`,
+    );
+  }
+  if (typeof head.format_version === 'number' && head.format_version > LOG_FORMAT_VERSION) {
+    throw new LogFileError(
+      'log-format-too-new',
+      'format_version',
+      head.format_version,
+      `must be ${LOG_FORMAT_VERSION} or older`,
+      `this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
+    );
+  }
+  if (!validator(data)) throw schemaError(data, validator.errors ?? []);
+  const file = data as LogFile;
+  const seen = new Map<string, number>();
+  file.records.forEach((record, i) => {
+    const problems = validateRecord(record);
+    if (problems.length > 0) {
+      const p = problems[0]!;
+      const field = `records[${i}].${p.path}`;
+      throw new LogFileError('log-record-invalid', field, p.value, p.rule, `records[${i}] (${record.kind} ${record.id}): ${p.message}`);
+    }
+    const earlier = seen.get(record.id);
+    if (earlier !== undefined) {
+      throw new LogFileError(
+        'log-duplicate-id',
+        `records[${i}].id`,
+        record.id,
+        'each record appears once',
+        `records[${i}].id ${record.id} is the id of records[${earlier}] too; a file holds each record once`,
+      );
+    }
+    seen.set(record.id, i);
+  });
+  return file;
+}

@@ -1,0 +1,259 @@
+/**
+ * The JSON Schema (draft 2020-12) of the log file, format version 1.
+ *
+ * This object is the one source: public/schema/plummet-log-1.schema.json is written from it, and so is the
+ * validator in schema-validator.ts (ajv's standalone code, generated ahead of time so the app never compiles
+ * code at run time: no `new Function`, which a strict Content-Security-Policy forbids, and no ajv compiler in
+ * the bundle). Regenerate both with `npx tsx test/log/schema-generate.ts`; a test fails while either is stale.
+ *
+ * The ranges are the record model's own (LIMITS in validate.ts), so a file is never refused for a value the
+ * app would have stored. What a schema cannot say (an uncertainty no larger than its quantity, a dew point not
+ * above the air temperature) validate.ts checks after the schema, on import.
+ */
+import { LIMITS, type Limit } from './validate';
+import { RECORD_KINDS, type RecordKind } from './types';
+
+export const LOG_FORMAT = 'plummet-log';
+export const LOG_FORMAT_VERSION = 1;
+/** Where the app serves the schema (the file lives in public/schema/). */
+export const LOG_SCHEMA_PATH = '/schema/plummet-log-1.schema.json';
+export const LOG_SCHEMA_ID = 'https://plummet.invalid/schema/plummet-log-1.schema.json';
+
+type Schema = Record<string, unknown>;
+
+const range = (limit: Limit, description?: string): Schema => ({
+  type: 'number',
+  [limit.minIncluded ? 'minimum' : 'exclusiveMinimum']: limit.min,
+  maximum: limit.max,
+  ...(description ? { description } : {}),
+});
+const nonNegative: Schema = { type: 'number', minimum: 0 };
+const text: Schema = { type: 'string' };
+const ref = (name: string): Schema => ({ $ref: `#/$defs/${name}` });
+const nullable = (schema: Schema): Schema => ({ anyOf: [schema, { type: 'null' }] });
+const oneOfStrings = (values: readonly string[]): Schema => ({ type: 'string', enum: [...values] });
+
+function object(properties: Record<string, Schema>, description?: string): Schema {
+  return {
+    type: 'object',
+    ...(description ? { description } : {}),
+    required: Object.keys(properties),
+    properties,
+    additionalProperties: false,
+  };
+}
+
+/** A tagged union on `kind`: if/then keeps ajv's error about the branch that was meant, not about every branch. */
+function tagged(variants: Record<string, Record<string, Schema>>, description: string): Schema {
+  return {
+    type: 'object',
+    description,
+    required: ['kind'],
+    properties: { kind: oneOfStrings(Object.keys(variants)) },
+    allOf: Object.entries(variants).map(([kind, properties]) => ({
+      if: { properties: { kind: { const: kind } }, required: ['kind'] },
+      then: object({ kind: { const: kind }, ...properties }),
+    })),
+  };
+}
+
+const length = range(LIMITS.length_m);
+
+const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
+  site: {
+    name: text,
+    latitude_deg: range(LIMITS.latitude_deg),
+    longitude_deg: range(LIMITS.longitude_deg),
+    elevation_m: range(LIMITS.elevation_m),
+    elevation_source: oneOfStrings(['survey', 'map', 'gps', 'other']),
+    notes: text,
+  },
+  specimen: {
+    name: text,
+    mass_kg: range(LIMITS.mass_kg),
+    u_mass_kg: nonNegative,
+    shape: tagged(
+      {
+        sphere: { diameter_m: length, u_diameter_m: nonNegative },
+        cylinder: { diameter_m: length, u_diameter_m: nonNegative, length_m: length, u_length_m: nonNegative },
+        disc: { diameter_m: length, u_diameter_m: nonNegative, thickness_m: length, u_thickness_m: nonNegative },
+        box: {
+          length_m: length,
+          u_length_m: nonNegative,
+          width_m: length,
+          u_width_m: nonNegative,
+          height_m: length,
+          u_height_m: nonNegative,
+        },
+        custom: {
+          area_m2: range(LIMITS.area_m2),
+          u_area_m2: nonNegative,
+          volume_m3: range(LIMITS.volume_m3),
+          u_volume_m3: nonNegative,
+        },
+      },
+      'The body: a sphere, an upright cylinder, a flat disc, a box (length × width face down), or custom area and volume.',
+    ),
+    reference_drag_coefficient: nullable(range(LIMITS.reference_drag_coefficient)),
+    notes: text,
+  },
+  day: {
+    site_id: ref('id'),
+    date: ref('date'),
+    crew: { type: 'array', items: text },
+    notes: text,
+  },
+  reading: {
+    day_id: ref('id'),
+    taken_at: ref('instant'),
+    temperature_C: range(LIMITS.temperature_C),
+    u_temperature_C: range(LIMITS.u_temperature_C),
+    pressure_Pa: { type: 'number', description: 'Station or sea-level pressure, as pressure_reference says.' },
+    u_pressure_Pa: range(LIMITS.u_pressure_Pa),
+    pressure_reference: oneOfStrings(['station', 'sea_level']),
+    humidity: tagged(
+      {
+        relative: {
+          relative_humidity_pct: range(LIMITS.relative_humidity_pct),
+          u_relative_humidity_pct: range(LIMITS.u_relative_humidity_pct),
+        },
+        dew_point: { dew_point_C: range(LIMITS.dew_point_C), u_dew_point_C: range(LIMITS.u_dew_point_C) },
+      },
+      'Relative humidity or dew point.',
+    ),
+    wind_speed_m_s: nullable(range(LIMITS.wind_speed_m_s)),
+    instrument: text,
+    notes: text,
+  },
+  series: {
+    day_id: ref('id'),
+    specimen_id: ref('id'),
+    height_m: range(LIMITS.height_m, 'Release height above the landing surface.'),
+    u_height_m: nonNegative,
+    height_method: oneOfStrings(['tape', 'laser', 'survey', 'marked', 'other']),
+    timing_method: oneOfStrings(['typed', 'stopwatch', 'tap', 'sound', 'video', 'gates']),
+    u_time_s: range(LIMITS.u_time_s, 'Standard uncertainty of one drop time from random causes.'),
+    target_relative_uncertainty: range(LIMITS.target_relative_uncertainty),
+    reading_id: nullable(ref('id')),
+    timing_offset: oneOfStrings(['none', 'fit']),
+    started_at: ref('instant'),
+    notes: text,
+  },
+  drop: {
+    series_id: ref('id'),
+    seq: { type: 'integer', minimum: 1 },
+    raw: tagged(
+      {
+        typed: { text },
+        taps: { timestamps_ms: { type: 'array', minItems: 2, items: nonNegative } },
+        sound: { onsets_s: { type: 'array', minItems: 2, items: nonNegative }, sample_rate_Hz: range(LIMITS.sample_rate_Hz) },
+        frames: {
+          frames: { type: 'array', minItems: 2, items: { type: 'integer', minimum: 0 } },
+          frame_rate_Hz: range(LIMITS.frame_rate_Hz),
+        },
+      },
+      'The capture exactly as it came from the phone or the keyboard.',
+    ),
+    time_s: range(LIMITS.time_s),
+    height_m: nullable(range(LIMITS.height_m)),
+    excluded: { type: 'boolean' },
+    exclusion_reason: nullable(text),
+    note: text,
+    captured_at: ref('instant'),
+  },
+};
+
+/** Pressure ranges differ for station and sea-level values. */
+function pressureRule(): Schema {
+  return {
+    if: { properties: { pressure_reference: { const: 'sea_level' } }, required: ['pressure_reference'] },
+    then: { properties: { pressure_Pa: range(LIMITS.sea_level_pressure_Pa) } },
+    else: { properties: { pressure_Pa: range(LIMITS.station_pressure_Pa) } },
+  };
+}
+
+function recordSchema(kind: RecordKind): Schema {
+  const schema = object({
+    id: ref('id'),
+    kind: { const: kind },
+    created_at: ref('instant'),
+    updated_at: ref('instant'),
+    rev: ref('rev'),
+    device: ref('device'),
+    deleted: { type: 'boolean', description: 'A deleted record stays as a tombstone so the deletion travels.' },
+    history: { type: 'array', items: ref('revision'), description: 'Earlier versions, oldest first.' },
+    ...BODY_PROPERTIES[kind],
+  });
+  return kind === 'reading' ? { ...schema, ...pressureRule() } : schema;
+}
+
+export const LOG_SCHEMA = {
+  $schema: 'https://json-schema.org/draft/2020-12/schema',
+  $id: LOG_SCHEMA_ID,
+  title: 'Plummet log file, format 1',
+  description:
+    'A whole test log or a chosen part of it, written as canonical JSON (RFC 8785). SI units, the unit in each ' +
+    'field name; a standard uncertainty of x_unit is u_x_unit. Records are never replaced on import: each is ' +
+    'merged by its revision (a hybrid logical clock stamp; the higher is the newer).',
+  type: 'object',
+  required: ['format', 'format_version', 'app_version', 'device', 'selection', 'records'],
+  properties: {
+    format: { const: LOG_FORMAT },
+    format_version: { const: LOG_FORMAT_VERSION },
+    app_version: text,
+    device: ref('device'),
+    selection: nullable(
+      object(
+        {
+          day_ids: { type: 'array', items: ref('id') },
+          specimen_ids: { type: 'array', items: ref('id') },
+          site_ids: { type: 'array', items: ref('id') },
+          kinds: { type: 'array', items: oneOfStrings(RECORD_KINDS) },
+        },
+        'What part of the log was chosen; null for the whole log. Records the chosen ones refer to are included.',
+      ),
+    ),
+    records: { type: 'array', items: ref('record') },
+  },
+  additionalProperties: false,
+  $defs: {
+    id: {
+      type: 'string',
+      pattern: '^[0-9A-Fa-f]{8}-[0-9A-Fa-f]{4}-[0-9A-Fa-f]{4}-[0-9A-Fa-f]{4}-[0-9A-Fa-f]{12}$',
+      description: 'A record id: a UUID (RFC 9562).',
+    },
+    instant: {
+      type: 'string',
+      pattern: '^\\d{4}-\\d{2}-\\d{2}T\\d{2}:\\d{2}:\\d{2}(\\.\\d{1,3})?Z$',
+      description: 'ISO 8601 instant in UTC, e.g. 2026-06-14T09:12:03.412Z.',
+    },
+    date: { type: 'string', pattern: '^\\d{4}-\\d{2}-\\d{2}$', description: 'A calendar date, YYYY-MM-DD.' },
+    device: { type: 'string', pattern: '^[A-Za-z0-9_.:]+$', description: 'The id of the phone that made it.' },
+    rev: {
+      type: 'string',
+      pattern: '^\\d{15}-\\d{6}-[A-Za-z0-9_.:]+$',
+      description: 'Hybrid logical clock stamp "<ms, 15 digits>-<counter, 6 digits>-<device>"; sorts as text.',
+    },
+    revision: object(
+      {
+        rev: ref('rev'),
+        device: ref('device'),
+        updated_at: ref('instant'),
+        reason: nullable(text),
+        deleted: { type: 'boolean' },
+        body: { type: 'object', description: "The record's own fields as they were in this version." },
+      },
+      'An earlier version of a record.',
+    ),
+    record: {
+      type: 'object',
+      required: ['kind'],
+      properties: { kind: oneOfStrings(RECORD_KINDS) },
+      allOf: RECORD_KINDS.map((kind) => ({
+        if: { properties: { kind: { const: kind } }, required: ['kind'] },
+        then: ref(`${kind}_record`),
+      })),
+    },
+    ...Object.fromEntries(RECORD_KINDS.map((kind) => [`${kind}_record`, recordSchema(kind)])),
+  },
+} as const;
