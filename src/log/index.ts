@@ -1,0 +1,12 @@
+// The record model of a test log: pure data and functions, no storage, no network, no DOM.
+export * from './types';
+export * from './hlc';
+export * from './errors';
+export * from './uuid';
+export * from './validate';
+export * from './records';
+export * from './canonical';
+export * from './schema';
+export * from './export';
+export * from './export-parse';
+export * from './merge';

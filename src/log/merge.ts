@@ -1,0 +1,197 @@
+/**
+ * Merging logs from several phones and from the office. Pure: values in, values out.
+ *
+ * Each record is the set of its versions (the current one and those in its history). Merging two copies of a
+ * record takes the union of their versions; the version with the highest clock stamp (hlc.ts) is current, all
+ * others form the history, oldest first. A union of sets with a fixed rule for the current one is commutative,
+ * associative and idempotent, so phones can merge in any order, any number of times, and agree. A deletion is
+ * just a version with `deleted: true` (a tombstone), so it travels and wins or loses like any other edit.
+ *
+ * Two versions are concurrent when neither holds the other in its history: two phones edited the same record
+ * from a common earlier version without seeing each other's edit. The newer stamp still becomes current (so
+ * every phone agrees), the other stays in the history (so nothing is lost), and the pair is reported as a
+ * conflict for a person to look at. Conflicts are a phone's own notices, kept beside the log (see
+ * src/sync/import-log.ts); the records themselves carry everything needed to resolve one.
+ */
+import { canonicalJson } from './canonical';
+import { compareHlc } from './hlc';
+import { bodyOf, REASON_REQUIRED_FIELDS, sameValue } from './records';
+import { sortRecords } from './export';
+import type { LogRecord, RecordKind, Revision } from './types';
+
+type AnyRevision = Revision<Record<string, unknown>>;
+
+export interface Conflict {
+  id: string;
+  kind: RecordKind;
+  /** The version that is current after the merge (the newer stamp). */
+  kept_rev: string;
+  kept_device: string;
+  /** The concurrent version that lost; it is in the record's history. */
+  other_rev: string;
+  other_device: string;
+  /** Body fields (and "deleted") whose values differ between the two, sorted. */
+  fields: string[];
+  /** True when a measured value, an exclusion or the deletion itself differs (not only names or notes). */
+  measured: boolean;
+}
+
+export interface MergePreview {
+  /** Records the local log does not have. */
+  added: LogRecord[];
+  /** Records that would change, with the local version before and the merged one after. */
+  updated: { before: LogRecord; after: LogRecord }[];
+  /** How many incoming records change nothing. */
+  unchanged: number;
+  conflicts: Conflict[];
+  /** What to write: the added and the updated records, in one transaction. */
+  changes: LogRecord[];
+}
+
+function revisionOf(record: LogRecord): AnyRevision {
+  return {
+    rev: record.rev,
+    device: record.device,
+    updated_at: record.updated_at,
+    reason: null,
+    deleted: record.deleted,
+    body: bodyOf(record) as unknown as Record<string, unknown>,
+  };
+}
+
+/**
+ * Of two copies of the same version, the one to keep: the one with the reason it was replaced (a copy made
+ * when it lost a conflict has none), else the greater canonical text. A total order, so the choice does not
+ * depend on which copy came first.
+ */
+function preferred(a: AnyRevision, b: AnyRevision): AnyRevision {
+  if (sameValue(a, b)) return a;
+  if ((a.reason === null) !== (b.reason === null)) return a.reason !== null ? a : b;
+  return canonicalJson(a) >= canonicalJson(b) ? a : b;
+}
+
+function addVersion(versions: Map<string, AnyRevision>, revision: AnyRevision): void {
+  const seen = versions.get(revision.rev);
+  versions.set(revision.rev, seen ? preferred(seen, revision) : revision);
+}
+
+/** The union of two copies of one record. Returns `a` itself when the copies are the same. */
+export function mergeRecord<R extends LogRecord>(a: R, b: R): R {
+  if (a === b || sameValue(a, b)) return a;
+  const versions = new Map<string, AnyRevision>();
+  for (const h of a.history as AnyRevision[]) addVersion(versions, h);
+  for (const h of b.history as AnyRevision[]) addVersion(versions, h);
+  // The current versions go in last; a copy of the same version in a history keeps its reason.
+  const currents = new Map<string, AnyRevision>();
+  for (const r of [a, b]) {
+    const own = revisionOf(r);
+    const seen = currents.get(own.rev);
+    currents.set(own.rev, seen ? preferred(seen, own) : own);
+  }
+  let top: AnyRevision | undefined;
+  for (const v of [...versions.values(), ...currents.values()]) if (!top || compareHlc(v.rev, top.rev) > 0) top = v;
+  const current = currents.get(top!.rev) ?? top!;
+  for (const v of currents.values()) if (v.rev !== current.rev) addVersion(versions, v);
+  versions.delete(current.rev);
+  const history = [...versions.values()].sort((x, y) => compareHlc(x.rev, y.rev));
+  return {
+    ...current.body,
+    id: a.id,
+    kind: a.kind,
+    created_at: a.created_at <= b.created_at ? a.created_at : b.created_at,
+    updated_at: current.updated_at,
+    rev: current.rev,
+    device: current.device,
+    deleted: current.deleted,
+    history,
+  } as unknown as R;
+}
+
+/** Both logs merged, record by record; records only one side has are taken as they are. Sorted (export order). */
+export function mergeLogs(a: readonly LogRecord[], b: readonly LogRecord[]): LogRecord[] {
+  const byId = new Map<string, LogRecord>();
+  for (const r of [...a, ...b]) {
+    const seen = byId.get(r.id);
+    byId.set(r.id, seen ? mergeRecord(seen, r) : r);
+  }
+  return sortRecords([...byId.values()]);
+}
+
+
+/** The conflict between two copies of a record, or null when one was made from the other or they agree. */
+export function conflictBetween(a: LogRecord, b: LogRecord): Conflict | null {
+  if (a.id !== b.id || a.rev === b.rev) return null;
+  if (b.history.some((h) => h.rev === a.rev) || a.history.some((h) => h.rev === b.rev)) return null;
+  const bodyA = bodyOf(a) as unknown as Record<string, unknown>;
+  const bodyB = bodyOf(b) as unknown as Record<string, unknown>;
+  const fields = Object.keys({ ...bodyA, ...bodyB }).filter((k) => !sameValue(bodyA[k], bodyB[k]));
+  if (a.deleted !== b.deleted) fields.push('deleted');
+  if (fields.length === 0) return null;
+  fields.sort();
+  const measuredFields = new Set<string>([...(REASON_REQUIRED_FIELDS[a.kind] ?? []), 'raw', 'deleted']);
+  const [kept, other] = compareHlc(a.rev, b.rev) > 0 ? [a, b] : [b, a];
+  return {
+    id: a.id,
+    kind: a.kind,
+    kept_rev: kept.rev,
+    kept_device: kept.device,
+    other_rev: other.rev,
+    other_device: other.device,
+    fields,
+    measured: fields.some((f) => measuredFields.has(f)),
+  };
+}
+
+/** What merging `incoming` into `local` would do, without doing it. */
+export function previewMerge(local: readonly LogRecord[], incoming: readonly LogRecord[]): MergePreview {
+  const mine = new Map(local.map((r) => [r.id, r]));
+  const theirs = new Map<string, LogRecord>();
+  for (const r of incoming) {
+    const seen = theirs.get(r.id);
+    theirs.set(r.id, seen ? mergeRecord(seen, r) : r);
+  }
+  const preview: MergePreview = { added: [], updated: [], unchanged: 0, conflicts: [], changes: [] };
+  for (const record of theirs.values()) {
+    const before = mine.get(record.id);
+    if (!before) {
+      preview.added.push(record);
+      continue;
+    }
+    const after = mergeRecord(before, record);
+    if (after === before || sameValue(after, before)) preview.unchanged++;
+    else preview.updated.push({ before, after });
+    const conflict = conflictBetween(before, record);
+    if (conflict) preview.conflicts.push(conflict);
+  }
+  preview.changes = [...preview.added, ...preview.updated.map((u) => u.after)];
+  return preview;
+}
+
+const conflictKey = (c: Conflict) => `${c.id} ${c.other_rev}`;
+
+/** The list with the newly found conflicts added, each (record, losing version) once. */
+export function addConflicts(existing: readonly Conflict[], found: readonly Conflict[]): Conflict[] {
+  const byKey = new Map(existing.map((c) => [conflictKey(c), c]));
+  for (const c of found) {
+    const seen = byKey.get(conflictKey(c));
+    // The same loser may be found again against a newer winner: the newer report replaces the older.
+    if (!seen || compareHlc(c.kept_rev, seen.kept_rev) > 0) byKey.set(conflictKey(c), c);
+  }
+  return [...byKey.values()].sort((x, y) => (conflictKey(x) < conflictKey(y) ? -1 : 1));
+}
+
+/**
+ * The conflicts still to show. One is settled when this phone has edited the record since (a person here has
+ * looked at it and chosen); a newer version from elsewhere does not settle it, since that phone may never have
+ * seen the losing edit.
+ */
+export function openConflicts(conflicts: readonly Conflict[], records: Iterable<LogRecord>, device: string): Conflict[] {
+  const byId = new Map<string, LogRecord>();
+  for (const r of records) byId.set(r.id, r);
+  return conflicts.filter((c) => {
+    const record = byId.get(c.id);
+    if (!record) return true;
+    const newest = compareHlc(c.kept_rev, c.other_rev) > 0 ? c.kept_rev : c.other_rev;
+    return !(record.device === device && compareHlc(record.rev, newest) > 0);
+  });
+}
