@@ -79,8 +79,8 @@ function addVersion(versions: Map<string, AnyRevision>, revision: AnyRevision): 
 export function mergeRecord<R extends LogRecord>(a: R, b: R): R {
   if (a === b || sameValue(a, b)) return a;
   const versions = new Map<string, AnyRevision>();
-  for (const h of a.history as AnyRevision[]) addVersion(versions, h);
-  for (const h of b.history as AnyRevision[]) addVersion(versions, h);
+  for (const h of a.history as unknown as AnyRevision[]) addVersion(versions, h);
+  for (const h of b.history as unknown as AnyRevision[]) addVersion(versions, h);
   // The current versions go in last; a copy of the same version in a history keeps its reason.
   const currents = new Map<string, AnyRevision>();
   for (const r of [a, b]) {

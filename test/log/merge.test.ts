@@ -97,7 +97,7 @@ describe('the preview of an import', () => {
     const onB = revise(drop, { time_s: 1.71 }, T, 'phoneB', 'retyped');
     const preview = previewMerge([onA], [onB]);
     expect(preview.conflicts[0]).toMatchObject({ kept_rev: onA.rev, other_rev: onB.rev });
-    expect(preview.updated[0]!.after.time_s).toBe(1.7);
+    expect((preview.updated[0]!.after as DropRecord).time_s).toBe(1.7);
     expect(preview.updated[0]!.after.history.map((h) => h.rev)).toContain(onB.rev);
   });
 
