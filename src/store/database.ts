@@ -1,0 +1,94 @@
+/**
+ * The IndexedDB schema of the log, as one idb DBSchema from which every store, value and index type derives,
+ * and the opening of the database through the versioned upgrades in upgrades.ts.
+ *
+ * Platform traps, for whoever changes this file:
+ * - Booleans are not valid IndexedDB keys: an index over `deleted` (or any key path reaching a boolean)
+ *   silently leaves those records out. Tombstones are filtered after reading.
+ * - A tab still running the old version holds the database open and blocks the upgrade in a new tab; the
+ *   old tab closes its connection when asked (onversionchange) and must reload.
+ * - Opening with a version lower than the stored one fails (VersionError): an app rolled back after an
+ *   upgrade cannot read the newer database. That is reported as 'database-newer', never "fixed" by deleting.
+ */
+import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
+import type { DayRecord, DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log/types';
+import { StoreError } from './errors';
+import type { DaySummary, DraftEntry } from './types';
+import { UPGRADES } from './upgrades';
+
+export interface LogDB extends DBSchema {
+  site: { key: string; value: SiteRecord };
+  specimen: { key: string; value: SpecimenRecord };
+  day: { key: string; value: DayRecord; indexes: { by_date: string; by_site: string } };
+  reading: { key: string; value: ReadingRecord; indexes: { by_day: string } };
+  series: { key: string; value: SeriesRecord; indexes: { by_day: string; by_specimen: string } };
+  drop: { key: string; value: DropRecord; indexes: { by_series: string } };
+  /** Unsaved form input, by form key. */
+  draft: { key: string; value: DraftEntry };
+  /** Device id, clock stamp, persistence answer, storage estimate, last export, unsent count, settings. */
+  meta: { key: string; value: { key: string; value: unknown } };
+  /** Since version 2: counts per day, so the list of days opens without reading every drop. */
+  day_summary: { key: string; value: DaySummary };
+}
+
+/** The version this code writes: one more than the last upgrade's index. */
+export const DB_VERSION = UPGRADES.length;
+export const DEFAULT_DB_NAME = 'plummet-log';
+
+export interface OpenLogDatabaseOptions {
+  /** Open at an older version (tests of the upgrade path); the current version otherwise. */
+  version?: number;
+  /** Another tab runs an older version and holds the database open; this open waits for it. */
+  onBlocked?: () => void;
+  /** Another tab wants a newer version: this connection has been closed and the page must reload. */
+  onVersionChange?: () => void;
+  /** The browser closed the connection (storage cleared, disk error). */
+  onTerminated?: () => void;
+}
+
+export async function openLogDatabase(name: string, options: OpenLogDatabaseOptions = {}): Promise<IDBPDatabase<LogDB>> {
+  const version = options.version ?? DB_VERSION;
+  let upgradeError: unknown;
+  try {
+    const db = await openDB<LogDB>(name, version, {
+      upgrade(database, oldVersion, newVersion, transaction) {
+        const steps = UPGRADES.slice(oldVersion, newVersion ?? version);
+        // Each step may read what the one before wrote; an async step keeps the upgrade transaction alive by
+        // having requests pending (it awaits nothing but requests of this transaction).
+        const run = async () => {
+          for (const step of steps) {
+            const pending = step(database, transaction);
+            if (pending) await pending;
+          }
+        };
+        run().catch((error: unknown) => {
+          upgradeError = error;
+          try {
+            transaction.abort();
+          } catch {
+            // already finished: the open request reports the failure
+          }
+        });
+      },
+      blocked: () => options.onBlocked?.(),
+      blocking(_current, _blocked, event) {
+        (event.target as IDBDatabase).close();
+        options.onVersionChange?.();
+      },
+      terminated: () => options.onTerminated?.(),
+    });
+    return db;
+  } catch (error) {
+    if ((error as { name?: string }).name === 'VersionError') {
+      throw new StoreError(
+        'database-newer',
+        version,
+        `the log on this phone was written by a newer version of Plummet than this one (schema ${version}); update the app`,
+        { cause: error },
+      );
+    }
+    throw new StoreError('open-failed', name, `the log database "${name}" could not be opened: ${String((upgradeError ?? error) as Error)}`, {
+      cause: upgradeError ?? error,
+    });
+  }
+}

@@ -1,0 +1,48 @@
+/** Errors of the store. Each has a stable code and the offending value; `cause` keeps the platform's own error. */
+
+export type StoreErrorCode =
+  /** The browser refused to store more (QuotaExceededError). Nothing of the action was written. */
+  | 'storage-full'
+  | 'not-found'
+  | 'already-exists'
+  /** A record points at another record that does not exist (or is deleted). */
+  | 'reference-missing'
+  /** A record that live records still point at cannot be deleted. */
+  | 'record-in-use'
+  /** The store was closed: by close(), by a newer version of the app in another tab, or by the browser. */
+  | 'store-closed'
+  /** The database on this phone was written by a newer version of the app than the one running. */
+  | 'database-newer'
+  | 'open-failed'
+  | 'transaction-failed';
+
+export class StoreError extends Error {
+  constructor(
+    readonly code: StoreErrorCode,
+    readonly value: unknown,
+    message: string,
+    options?: { cause?: unknown },
+  ) {
+    super(message, options);
+    this.name = 'StoreError';
+  }
+}
+
+export const STORAGE_FULL_MESSAGE =
+  'The storage this browser gives Plummet is full. Nothing from this action was saved; everything saved before is ' +
+  'kept and your unsaved input stays in the form. Export or sync the log and free space on the phone, then save again.';
+
+export function isQuotaError(error: unknown): boolean {
+  if (error instanceof StoreError) return error.code === 'storage-full';
+  const name = (error as { name?: unknown } | null)?.name;
+  // Old WebKit used code 22 and the name QUOTA_EXCEEDED_ERR; Firefox also reports NS_ERROR_DOM_QUOTA_REACHED.
+  return (
+    name === 'QuotaExceededError' ||
+    name === 'NS_ERROR_DOM_QUOTA_REACHED' ||
+    (error as { code?: unknown } | null)?.code === 22
+  );
+}
+
+export function storageFull(cause: unknown): StoreError {
+  return new StoreError('storage-full', (cause as { name?: unknown } | null)?.name ?? null, STORAGE_FULL_MESSAGE, { cause });
+}

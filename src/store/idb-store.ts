@@ -1,0 +1,172 @@
+/**
+ * The log store on IndexedDB (through idb).
+ *
+ * Every request, transaction error and abort ends in a settled promise: idb rejects a request's promise on
+ * its error event and `tx.done` on error or abort; this adapter always awaits `done`, aborts the transaction
+ * when the work inside it throws, and turns the platform's errors into StoreErrors (a QuotaExceededError,
+ * whether on a request or at commit, becomes 'storage-full'). Nothing half-written is ever committed.
+ */
+import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
+import type { LogRecord, RecordKind, RecordOf } from '../log/types';
+import { LogError } from '../log/errors';
+import type { IndexedKind, IndexName, StoreBackend, StoreTx, WriteTxOptions } from './backend';
+import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
+import { DEFAULT_DB_NAME, openLogDatabase, type LogDB, type OpenLogDatabaseOptions } from './database';
+import { StoreError, isQuotaError, storageFull } from './errors';
+import type { LogStore } from './log-store';
+import type { DaySummary, DraftEntry, StoreEnvironment } from './types';
+
+type Names = StoreNames<LogDB>[];
+type AnyTx = IDBPTransaction<LogDB, Names, 'readonly' | 'readwrite'>;
+
+class IdbTx implements StoreTx {
+  constructor(private readonly tx: AnyTx) {}
+
+  get<K extends RecordKind>(kind: K, id: string): Promise<RecordOf[K] | undefined> {
+    return this.tx.objectStore(kind).get(id) as Promise<RecordOf[K] | undefined>;
+  }
+
+  getAll<K extends RecordKind>(kind: K): Promise<RecordOf[K][]> {
+    return this.tx.objectStore(kind).getAll() as Promise<RecordOf[K][]>;
+  }
+
+  getAllByIndex<K extends IndexedKind>(kind: K, index: IndexName<K>, key?: string): Promise<RecordOf[K][]> {
+    const store = this.tx.objectStore(kind) as unknown as { index(name: string): { getAll(key?: string): Promise<unknown[]> } };
+    return store.index(index).getAll(key) as Promise<RecordOf[K][]>;
+  }
+
+  async putRecords(records: readonly LogRecord[]): Promise<void> {
+    // All requests go out at once and are awaited together: one round trip per request would make a bulk
+    // import wait on the disk thousands of times.
+    const tx = this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>;
+    await Promise.all(records.map((r) => (tx.objectStore(r.kind) as unknown as { put(v: LogRecord): Promise<unknown> }).put(r)));
+  }
+
+  getSummary(dayId: string): Promise<DaySummary | undefined> {
+    return this.tx.objectStore('day_summary').get(dayId);
+  }
+
+  getAllSummaries(): Promise<DaySummary[]> {
+    return this.tx.objectStore('day_summary').getAll();
+  }
+
+  async putSummary(summary: DaySummary): Promise<void> {
+    await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('day_summary').put(summary);
+  }
+
+  async deleteSummary(dayId: string): Promise<void> {
+    await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('day_summary').delete(dayId);
+  }
+
+  async getMeta(key: string): Promise<unknown> {
+    return (await this.tx.objectStore('meta').get(key))?.value;
+  }
+
+  async putMeta(key: string, value: unknown): Promise<void> {
+    await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('meta').put({ key, value });
+  }
+
+  getDraft(key: string): Promise<DraftEntry | undefined> {
+    return this.tx.objectStore('draft').get(key);
+  }
+
+  async putDraft(entry: DraftEntry): Promise<void> {
+    await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('draft').put(entry);
+  }
+
+  async deleteDraft(key: string): Promise<void> {
+    await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('draft').delete(key);
+  }
+}
+
+/** Our own errors pass through; the platform's become StoreErrors with the original as `cause`. */
+function translate(error: unknown): unknown {
+  if (error instanceof StoreError || error instanceof LogError) return error;
+  if (isQuotaError(error)) return storageFull(error);
+  const name = (error as { name?: string } | null)?.name ?? 'Error';
+  if (name === 'InvalidStateError') return new StoreError('store-closed', name, 'the log database connection is closed; reload the app', { cause: error });
+  return new StoreError('transaction-failed', name, `the log database refused the change (${name}): ${String((error as Error)?.message ?? error)}`, {
+    cause: error,
+  });
+}
+
+class IdbBackend implements StoreBackend {
+  closed = false;
+  private readonly names: Names;
+
+  constructor(private readonly db: IDBPDatabase<LogDB>) {
+    this.names = [...db.objectStoreNames];
+  }
+
+  private async run<T>(mode: 'readonly' | 'readwrite', fn: (tx: StoreTx) => Promise<T>, durability: 'strict' | 'relaxed' | 'default'): Promise<T> {
+    if (this.closed) throw new StoreError('store-closed', null, 'the log store is closed; reload the app to open it again');
+    let tx: AnyTx;
+    try {
+      tx = this.db.transaction(this.names, mode, { durability });
+    } catch (error) {
+      throw translate(error);
+    }
+    const done = tx.done;
+    // Attached at once so an abort that happens while `fn` still runs is never an unhandled rejection.
+    done.catch(() => undefined);
+    let result: T;
+    try {
+      result = await fn(new IdbTx(tx));
+    } catch (error) {
+      try {
+        tx.abort();
+      } catch {
+        // already aborted by the failed request, or finished
+      }
+      await done.catch(() => undefined);
+      throw translate(error);
+    }
+    try {
+      await done;
+    } catch (error) {
+      throw translate(tx.error ?? error);
+    }
+    return result;
+  }
+
+  read<T>(fn: (tx: StoreTx) => Promise<T>): Promise<T> {
+    return this.run('readonly', fn, 'default');
+  }
+
+  write<T>(fn: (tx: StoreTx) => Promise<T>, options: WriteTxOptions): Promise<T> {
+    return this.run('readwrite', fn, options.durability);
+  }
+
+  close(): void {
+    this.closed = true;
+    this.db.close();
+  }
+
+  markClosed(): void {
+    this.closed = true;
+  }
+}
+
+export interface OpenLogStoreOptions extends CreateLogStoreOptions, Omit<OpenLogDatabaseOptions, 'version'> {
+  /** Browser facilities: browserEnvironment() in the app, a fake in tests. */
+  environment: StoreEnvironment;
+  /** The database name; tests give each store its own. */
+  name?: string;
+}
+
+export async function openLogStore(options: OpenLogStoreOptions): Promise<LogStore> {
+  let backend: IdbBackend | undefined;
+  const db = await openLogDatabase(options.name ?? DEFAULT_DB_NAME, {
+    onBlocked: options.onBlocked,
+    onVersionChange() {
+      backend?.markClosed();
+      options.onVersionChange?.();
+    },
+    onTerminated() {
+      backend?.markClosed();
+      options.onTerminated?.();
+    },
+  });
+  backend = new IdbBackend(db);
+  return createLogStore(backend, options.environment, options);
+}

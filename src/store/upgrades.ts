@@ -1,0 +1,67 @@
+/**
+ * Schema upgrades, one function per version. UPGRADES[n] takes a database from version n to n + 1.
+ *
+ * An upgrade is history: once shipped it never changes, and it uses no code of the app that may change
+ * later (it reads and writes the stores directly), so a phone that skipped versions replays exactly what the
+ * others ran. It awaits nothing but requests of the upgrade transaction.
+ */
+import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
+import type { LogDB } from './database';
+
+export type Upgrade = (
+  db: IDBPDatabase<LogDB>,
+  tx: IDBPTransaction<LogDB, StoreNames<LogDB>[], 'versionchange'>,
+) => void | Promise<void>;
+
+/** Version 1: one store per kind of record, with the indexes the screens look things up by; drafts; meta. */
+export const upgradeToV1: Upgrade = (db) => {
+  db.createObjectStore('site', { keyPath: 'id' });
+  db.createObjectStore('specimen', { keyPath: 'id' });
+  const day = db.createObjectStore('day', { keyPath: 'id' });
+  day.createIndex('by_date', 'date');
+  day.createIndex('by_site', 'site_id');
+  db.createObjectStore('reading', { keyPath: 'id' }).createIndex('by_day', 'day_id');
+  const series = db.createObjectStore('series', { keyPath: 'id' });
+  series.createIndex('by_day', 'day_id');
+  series.createIndex('by_specimen', 'specimen_id');
+  db.createObjectStore('drop', { keyPath: 'id' }).createIndex('by_series', 'series_id');
+  db.createObjectStore('draft', { keyPath: 'key' });
+  db.createObjectStore('meta', { keyPath: 'key' });
+};
+
+/** Drops are read this many at a time while counting, to keep memory low on a phone with a long log. */
+const PAGE = 2000;
+
+/**
+ * Version 2: counts per day (readings, series, drops; deleted ones left out), so the list of days no longer
+ * reads every drop of the log. Filled here from the records already stored.
+ */
+export const upgradeToV2: Upgrade = async (db, tx) => {
+  db.createObjectStore('day_summary', { keyPath: 'day_id' });
+  const [days, readings, series] = await Promise.all([
+    tx.objectStore('day').getAll(),
+    tx.objectStore('reading').getAll(),
+    tx.objectStore('series').getAll(),
+  ]);
+  const dropsInSeries = new Map<string, number>();
+  const drops = tx.objectStore('drop');
+  let after: string | null = null;
+  for (;;) {
+    const page = await drops.getAll(after === null ? null : IDBKeyRange.lowerBound(after, true), PAGE);
+    for (const drop of page) if (!drop.deleted) dropsInSeries.set(drop.series_id, (dropsInSeries.get(drop.series_id) ?? 0) + 1);
+    if (page.length < PAGE) break;
+    after = page[page.length - 1]!.id;
+  }
+  const summaries = new Map(days.filter((d) => !d.deleted).map((d) => [d.id, { day_id: d.id, reading_count: 0, series_count: 0, drop_count: 0 }]));
+  for (const r of readings) if (!r.deleted) summaries.get(r.day_id) && summaries.get(r.day_id)!.reading_count++;
+  for (const s of series) {
+    const summary = summaries.get(s.day_id);
+    if (s.deleted || !summary) continue;
+    summary.series_count++;
+    summary.drop_count += dropsInSeries.get(s.id) ?? 0;
+  }
+  const store = tx.objectStore('day_summary');
+  await Promise.all([...summaries.values()].map((s) => store.put(s)));
+};
+
+export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2];
