@@ -10,3 +10,5 @@ export * from './schema';
 export * from './export';
 export * from './export-parse';
 export * from './merge';
+export * from './csv';
+export * from './csv-tables';

@@ -1,0 +1,316 @@
+/**
+ * The two CSV tables of a log: one row per drop and one row per series, with the series, specimen and air
+ * reading beside each, and the computed results. Units are in the column names (SI).
+ *
+ * The results come from a function handed in (`ComputeSeries`), so the record model does not depend on the
+ * physics: the screens and the office command pass one built on the physics' analyzeSeries. Deleted records
+ * are left out; excluded drops are listed (excluded = true) but are not handed to the computation.
+ */
+import { toCsv, type CsvOptions, type CsvValue } from './csv';
+import type { DayRecord, DropRecord, LogRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from './types';
+
+/** Everything the computation of one series needs, taken from the log. */
+export interface SeriesInput {
+  series: SeriesRecord;
+  day: DayRecord | null;
+  site: SiteRecord | null;
+  specimen: SpecimenRecord | null;
+  /** The series' own reading, or the day's reading nearest in time to the series start. */
+  reading: ReadingRecord | null;
+  /** The drops to analyse: live, not excluded, in order of seq. */
+  drops: DropRecord[];
+}
+
+/** Results for one drop, in the order of SeriesInput.drops. Missing values are left blank in the table. */
+export interface DropResult {
+  drag_coefficient?: number | null;
+  predicted_time_s?: number | null;
+  residual_s?: number | null;
+  vacuum_time_s?: number | null;
+  impact_speed_m_s?: number | null;
+  impact_energy_J?: number | null;
+  reynolds_number?: number | null;
+}
+
+export interface SeriesResult {
+  air_density_kg_m3?: number | null;
+  gravity_m_s2?: number | null;
+  drag_coefficient?: number | null;
+  drag_coefficient_standard_uncertainty?: number | null;
+  drag_coefficient_interval_95?: readonly [number, number] | null;
+  timing_offset_s?: number | null;
+  terminal_velocity_m_s?: number | null;
+  drops?: readonly DropResult[];
+  warnings?: readonly { code: string; message: string }[];
+  /** Set when the series could not be computed; the row then carries the code and the message. */
+  error?: { code: string; message: string } | null;
+}
+
+export type ComputeSeries = (input: SeriesInput) => SeriesResult;
+
+export const DROP_COLUMNS = [
+  'day_date',
+  'site_name',
+  'series_id',
+  'series_started_at',
+  'specimen_id',
+  'specimen_name',
+  'drop_id',
+  'seq',
+  'captured_at',
+  'height_m',
+  'time_s',
+  'timing_method',
+  'excluded',
+  'exclusion_reason',
+  'note',
+  'reading_id',
+  'temperature_C',
+  'pressure_Pa',
+  'pressure_reference',
+  'relative_humidity_pct',
+  'dew_point_C',
+  'wind_speed_m_s',
+  'air_density_kg_m3',
+  'gravity_m_s2',
+  'drag_coefficient',
+  'predicted_time_s',
+  'residual_s',
+  'vacuum_time_s',
+  'impact_speed_m_s',
+  'impact_energy_J',
+  'reynolds_number',
+] as const;
+
+export const SERIES_COLUMNS = [
+  'day_date',
+  'site_name',
+  'latitude_deg',
+  'elevation_m',
+  'series_id',
+  'started_at',
+  'specimen_id',
+  'specimen_name',
+  'mass_kg',
+  'shape',
+  'height_m',
+  'u_height_m',
+  'height_method',
+  'timing_method',
+  'u_time_s',
+  'timing_offset',
+  'drops_total',
+  'drops_used',
+  'reading_id',
+  'temperature_C',
+  'u_temperature_C',
+  'pressure_Pa',
+  'u_pressure_Pa',
+  'pressure_reference',
+  'relative_humidity_pct',
+  'dew_point_C',
+  'wind_speed_m_s',
+  'air_density_kg_m3',
+  'gravity_m_s2',
+  'drag_coefficient',
+  'u_drag_coefficient',
+  'drag_coefficient_95_low',
+  'drag_coefficient_95_high',
+  'timing_offset_s',
+  'terminal_velocity_m_s',
+  'warnings',
+  'error_code',
+  'error_message',
+] as const;
+
+/** The reading a series uses: its own when named and present, else the day's reading nearest its start. */
+export function readingForSeries(series: SeriesRecord, readings: readonly ReadingRecord[]): ReadingRecord | null {
+  if (series.reading_id) {
+    const own = readings.find((r) => r.id === series.reading_id);
+    if (own) return own;
+  }
+  const start = Date.parse(series.started_at);
+  let best: ReadingRecord | null = null;
+  let bestGap = Infinity;
+  for (const r of readings) {
+    if (r.day_id !== series.day_id) continue;
+    const gap = Math.abs(Date.parse(r.taken_at) - start);
+    if (gap < bestGap || (gap === bestGap && best !== null && r.id < best.id)) {
+      best = r;
+      bestGap = gap;
+    }
+  }
+  return best;
+}
+
+interface Row {
+  input: SeriesInput;
+  /** Every live drop of the series, excluded ones too, in order of seq. */
+  allDrops: DropRecord[];
+  result: SeriesResult;
+}
+
+function live<R extends LogRecord>(records: readonly LogRecord[], kind: R['kind']): R[] {
+  return records.filter((r) => r.kind === kind && !r.deleted) as R[];
+}
+
+/** The inputs of every live series, ordered by day, start time and id. */
+export function seriesInputs(records: readonly LogRecord[]): (SeriesInput & { allDrops: DropRecord[] })[] {
+  const byId = new Map(records.filter((r) => !r.deleted).map((r) => [r.id, r]));
+  const readings = live<ReadingRecord>(records, 'reading');
+  const dropsBySeries = new Map<string, DropRecord[]>();
+  for (const d of live<DropRecord>(records, 'drop')) {
+    const list = dropsBySeries.get(d.series_id) ?? [];
+    list.push(d);
+    dropsBySeries.set(d.series_id, list);
+  }
+  const inputs = live<SeriesRecord>(records, 'series').map((series) => {
+    const day = (byId.get(series.day_id) as DayRecord | undefined) ?? null;
+    const allDrops = (dropsBySeries.get(series.id) ?? []).sort((a, b) => a.seq - b.seq || (a.id < b.id ? -1 : 1));
+    return {
+      series,
+      day,
+      site: day ? ((byId.get(day.site_id) as SiteRecord | undefined) ?? null) : null,
+      specimen: (byId.get(series.specimen_id) as SpecimenRecord | undefined) ?? null,
+      reading: readingForSeries(series, readings),
+      drops: allDrops.filter((d) => !d.excluded),
+      allDrops,
+    };
+  });
+  const key = (i: SeriesInput) => `${i.day?.date ?? ''} ${i.series.started_at} ${i.series.id}`;
+  return inputs.sort((a, b) => (key(a) < key(b) ? -1 : 1));
+}
+
+function computeAll(records: readonly LogRecord[], compute: ComputeSeries): Row[] {
+  return seriesInputs(records).map(({ allDrops, ...input }) => {
+    let result: SeriesResult;
+    try {
+      result = compute(input);
+    } catch (error) {
+      const e = error as { code?: unknown; message?: unknown };
+      result = { error: { code: typeof e.code === 'string' ? e.code : 'compute-failed', message: String(e.message ?? error) } };
+    }
+    return { input, allDrops, result };
+  });
+}
+
+function humidityCells(reading: ReadingRecord | null): [CsvValue, CsvValue] {
+  if (!reading) return [null, null];
+  return reading.humidity.kind === 'relative' ? [reading.humidity.relative_humidity_pct, null] : [null, reading.humidity.dew_point_C];
+}
+
+function dropRows(rows: Row[]): CsvValue[][] {
+  const out: CsvValue[][] = [];
+  for (const { input, allDrops, result } of rows) {
+    const { series, day, site, specimen, reading } = input;
+    const [rh, dew] = humidityCells(reading);
+    for (const drop of allDrops) {
+      const index = input.drops.indexOf(drop);
+      const r: DropResult = index >= 0 ? (result.drops?.[index] ?? {}) : {};
+      const used = index >= 0 && !result.error;
+      out.push([
+        day?.date,
+        site?.name,
+        series.id,
+        series.started_at,
+        series.specimen_id,
+        specimen?.name,
+        drop.id,
+        drop.seq,
+        drop.captured_at,
+        drop.height_m ?? series.height_m,
+        drop.time_s,
+        series.timing_method,
+        drop.excluded,
+        drop.exclusion_reason,
+        drop.note,
+        reading?.id,
+        reading?.temperature_C,
+        reading?.pressure_Pa,
+        reading?.pressure_reference,
+        rh,
+        dew,
+        reading?.wind_speed_m_s,
+        used ? result.air_density_kg_m3 : null,
+        used ? result.gravity_m_s2 : null,
+        used ? r.drag_coefficient : null,
+        used ? r.predicted_time_s : null,
+        used ? r.residual_s : null,
+        used ? r.vacuum_time_s : null,
+        used ? r.impact_speed_m_s : null,
+        used ? r.impact_energy_J : null,
+        used ? r.reynolds_number : null,
+      ]);
+    }
+  }
+  return out;
+}
+
+function seriesRows(rows: Row[]): CsvValue[][] {
+  return rows.map(({ input, allDrops, result }) => {
+    const { series, day, site, specimen, reading } = input;
+    const [rh, dew] = humidityCells(reading);
+    const interval = result.drag_coefficient_interval_95 ?? null;
+    return [
+      day?.date,
+      site?.name,
+      site?.latitude_deg,
+      site?.elevation_m,
+      series.id,
+      series.started_at,
+      series.specimen_id,
+      specimen?.name,
+      specimen?.mass_kg,
+      specimen?.shape.kind,
+      series.height_m,
+      series.u_height_m,
+      series.height_method,
+      series.timing_method,
+      series.u_time_s,
+      series.timing_offset,
+      allDrops.length,
+      input.drops.length,
+      reading?.id,
+      reading?.temperature_C,
+      reading?.u_temperature_C,
+      reading?.pressure_Pa,
+      reading?.u_pressure_Pa,
+      reading?.pressure_reference,
+      rh,
+      dew,
+      reading?.wind_speed_m_s,
+      result.air_density_kg_m3,
+      result.gravity_m_s2,
+      result.drag_coefficient,
+      result.drag_coefficient_standard_uncertainty,
+      interval?.[0],
+      interval?.[1],
+      result.timing_offset_s,
+      result.terminal_velocity_m_s,
+      (result.warnings ?? []).map((w) => `${w.code}: ${w.message}`).join('; ') || null,
+      result.error?.code,
+      result.error?.message,
+    ];
+  });
+}
+
+export interface LogCsv {
+  /** One row per drop. */
+  drops: string;
+  /** One row per series. */
+  series: string;
+}
+
+/** Both tables, computing each series once. */
+export function logCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): LogCsv {
+  const rows = computeAll(records, compute);
+  return { drops: toCsv(DROP_COLUMNS, dropRows(rows), options), series: toCsv(SERIES_COLUMNS, seriesRows(rows), options) };
+}
+
+export function dropsCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): string {
+  return toCsv(DROP_COLUMNS, dropRows(computeAll(records, compute)), options);
+}
+
+export function seriesCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): string {
+  return toCsv(SERIES_COLUMNS, seriesRows(computeAll(records, compute)), options);
+}

@@ -1,0 +1,156 @@
+import { describe, expect, it } from 'vitest';
+import { DROP_COLUMNS, SERIES_COLUMNS, logCsv, readingForSeries, type ComputeSeries, type SeriesInput } from '../../src/log/csv-tables';
+import { byKind, idMaker, revise, sampleLog, tombstone } from '../sync/sample-log';
+import { parseCsv } from './csv-reader';
+import type { ReadingRecord } from '../../src/log/types';
+
+const T = Date.UTC(2026, 6, 1);
+
+/** A stand-in computation that echoes what it was given, so the tests can see the wiring. */
+const echo: ComputeSeries = (input) => ({
+  air_density_kg_m3: 1.15,
+  gravity_m_s2: 9.806,
+  drag_coefficient: 0.5,
+  drag_coefficient_standard_uncertainty: 0.02,
+  drag_coefficient_interval_95: [0.46, 0.54],
+  terminal_velocity_m_s: 30,
+  drops: input.drops.map((d) => ({ drag_coefficient: d.seq / 10, residual_s: -0.004, predicted_time_s: d.time_s + 0.004 })),
+  warnings: [{ code: 'density-out-of-range', message: 'outside 15–27 °C' }],
+});
+
+function table(text: string): Record<string, string>[] {
+  const [header, ...rows] = parseCsv(text.replace(/^\ufeff/, ''));
+  return rows.map((r) => Object.fromEntries(header!.map((h, i) => [h, r[i]!])));
+}
+
+// Columns that are numbers without a unit: counts, ordinals and ratios.
+const DIMENSIONLESS = new Set(['seq', 'drag_coefficient', 'u_drag_coefficient', 'drag_coefficient_95_low', 'drag_coefficient_95_high', 'reynolds_number', 'drops_total', 'drops_used']);
+const UNIT = /_(m|s|kg|C|Pa|pct|deg|m_s|m_s2|kg_m3|J|Hz)$/;
+
+describe('the drops and series tables', () => {
+  const log = sampleLog({ days: 1, seriesPerDay: 2, dropsPerSeries: 3 });
+
+  it('have a unit in the name of every quantity column', () => {
+    const quantities = (cols: readonly string[]) =>
+      cols.filter((c) => !/(_id|_date|_at|_name|_method|_reference|excluded|reason|note|shape|timing_offset|warnings|error_code|error_message)$/.test(c));
+    for (const c of [...quantities(DROP_COLUMNS), ...quantities(SERIES_COLUMNS)]) {
+      expect(UNIT.test(c) || DIMENSIONLESS.has(c), c).toBe(true);
+    }
+  });
+
+  it('give one row per drop with its series, specimen, air reading and results', () => {
+    const rows = table(logCsv(log, echo).drops);
+    expect(rows).toHaveLength(6);
+    const drop = byKind(log, 'drop')[0]!;
+    const row = rows.find((r) => r.drop_id === drop.id)!;
+    expect(row).toMatchObject({
+      series_id: drop.series_id,
+      specimen_name: 'steel ball 25 mm',
+      site_name: 'North quarry wall',
+      height_m: '12',
+      time_s: String(drop.time_s),
+      temperature_C: '17.5',
+      pressure_Pa: '96120',
+      pressure_reference: 'station',
+      relative_humidity_pct: '55',
+      dew_point_C: '',
+      air_density_kg_m3: '1.15',
+      drag_coefficient: '0.1',
+      residual_s: '-0.004',
+      excluded: 'false',
+    });
+  });
+
+  it('give one row per series with the fitted drag coefficient and its interval', () => {
+    const rows = table(logCsv(log, echo).series);
+    expect(rows).toHaveLength(2);
+    expect(rows[0]).toMatchObject({
+      drops_total: '3',
+      drops_used: '3',
+      drag_coefficient: '0.5',
+      u_drag_coefficient: '0.02',
+      drag_coefficient_95_low: '0.46',
+      drag_coefficient_95_high: '0.54',
+      warnings: 'density-out-of-range: outside 15–27 °C',
+      error_code: '',
+    });
+  });
+
+  it('list an excluded drop without handing it to the computation', () => {
+    const excluded = revise(byKind(log, 'drop')[1]!, { excluded: true, exclusion_reason: 'hit the wall' }, T, 'phoneA', 'hit the wall');
+    const records = log.map((r) => (r.id === excluded.id ? excluded : r));
+    const seen: SeriesInput[] = [];
+    const rows = table(logCsv(records, (i) => (seen.push(i), echo(i))).drops);
+    const row = rows.find((r) => r.drop_id === excluded.id)!;
+    expect(row).toMatchObject({ excluded: 'true', exclusion_reason: 'hit the wall', drag_coefficient: '', residual_s: '' });
+    expect(seen.flatMap((i) => i.drops).some((d) => d.id === excluded.id)).toBe(false);
+    // The results of the other drops stay aligned with their own drops.
+    const third = rows.find((r) => r.drop_id === byKind(log, 'drop')[2]!.id)!;
+    expect(third.drag_coefficient).toBe('0.3');
+  });
+
+  it('leave out deleted drops and deleted series', () => {
+    const goneDrop = tombstone(byKind(log, 'drop')[0]!, T, 'phoneA');
+    const goneSeries = tombstone(byKind(log, 'series')[1]!, T, 'phoneA');
+    const records = log.map((r) => (r.id === goneDrop.id ? goneDrop : r.id === goneSeries.id ? goneSeries : r));
+    const csv = logCsv(records, echo);
+    expect(table(csv.drops).map((r) => r.drop_id)).not.toContain(goneDrop.id);
+    expect(table(csv.drops)).toHaveLength(2);
+    expect(table(csv.series)).toHaveLength(1);
+  });
+
+  it('report a series that could not be computed and carry on with the others', () => {
+    let calls = 0;
+    const failing: ComputeSeries = (i) => {
+      if (calls++ === 0) throw Object.assign(new Error('faster than free fall: check the height and the timing'), { code: 'faster-than-free-fall' });
+      return echo(i);
+    };
+    const rows = table(logCsv(log, failing).series);
+    expect(rows[0]).toMatchObject({ error_code: 'faster-than-free-fall', drag_coefficient: '' });
+    expect(rows[0]!.error_message).toMatch(/faster than free fall/);
+    expect(rows[1]!.drag_coefficient).toBe('0.5');
+  });
+
+  it('neutralise a specimen name that a spreadsheet would run as a formula (OWASP)', () => {
+    const specimen = revise(byKind(log, 'specimen')[0]!, { name: '=HYPERLINK("http://example.invalid")' }, T, 'phoneA', null);
+    const records = log.map((r) => (r.id === specimen.id ? specimen : r));
+    const csv = logCsv(records, echo);
+    expect(table(csv.drops)[0]!.specimen_name).toBe(`'=HYPERLINK("http://example.invalid")`);
+    expect(table(csv.series)[0]!.specimen_name.startsWith("'=")).toBe(true);
+  });
+
+  it('are RFC 4180 text: CRLF line ends and a UTF-8 byte order mark', () => {
+    const { drops } = logCsv(log, echo);
+    expect(drops.startsWith('\ufeffday_date,')).toBe(true);
+    expect(drops.split('\r\n')).toHaveLength(8);
+    expect(drops.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
+  });
+});
+
+describe('the air reading a series uses', () => {
+  const log = sampleLog();
+  const series = byKind(log, 'series')[0]!;
+  const day = byKind(log, 'day')[0]!;
+  const nextId = idMaker(99);
+  const at = (ms: number, id = nextId()): ReadingRecord => ({ ...byKind(log, 'reading')[0]!, id, taken_at: new Date(ms).toISOString() });
+  const start = Date.parse(series.started_at);
+
+  it('is the one the series names', () => {
+    const named = at(start - 3_600_000);
+    const near = at(start);
+    expect(readingForSeries({ ...series, reading_id: named.id }, [near, named])).toBe(named);
+  });
+
+  it('is otherwise the reading of the day nearest in time to the start of the series', () => {
+    const early = at(start - 600_000);
+    const late = at(start + 120_000);
+    const otherDay = { ...at(start), day_id: nextId() };
+    expect(readingForSeries(series, [early, late, otherDay])).toBe(late);
+    expect(day.id).toBe(series.day_id);
+  });
+
+  it('is none when the day has no reading', () => {
+    expect(readingForSeries(series, [])).toBeNull();
+  });
+});
+
