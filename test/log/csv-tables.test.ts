@@ -116,7 +116,7 @@ describe('the drops and series tables', () => {
     const records = log.map((r) => (r.id === specimen.id ? specimen : r));
     const csv = logCsv(records, echo);
     expect(table(csv.drops)[0]!.specimen_name).toBe(`'=HYPERLINK("http://example.invalid")`);
-    expect(table(csv.series)[0]!.specimen_name.startsWith("'=")).toBe(true);
+    expect(table(csv.series)[0]!.specimen_name!.startsWith("'=")).toBe(true);
   });
 
   it('are RFC 4180 text: CRLF line ends and a UTF-8 byte order mark', () => {
