@@ -7,6 +7,8 @@
  *   silently leaves those records out. Tombstones are filtered after reading.
  * - A tab still running the old version holds the database open and blocks the upgrade in a new tab; the
  *   old tab closes its connection when asked (onversionchange) and must reload.
+ * - idb creates a transaction's `done` promise the moment it wraps the transaction: a transaction that aborts
+ *   with nobody awaiting `done` is an unhandled rejection. Every transaction here has a handler on `done`.
  * - Opening with a version lower than the stored one fails (VersionError): an app rolled back after an
  *   upgrade cannot read the newer database. That is reported as 'database-newer', never "fixed" by deleting.
  */
@@ -14,7 +16,7 @@ import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { DayRecord, DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log/types';
 import { StoreError } from './errors';
 import type { DaySummary, DraftEntry } from './types';
-import { UPGRADES } from './upgrades';
+import { UPGRADES, type Upgrade } from './upgrades';
 
 export interface LogDB extends DBSchema {
   site: { key: string; value: SiteRecord };
@@ -38,6 +40,8 @@ export const DEFAULT_DB_NAME = 'plummet-log';
 export interface OpenLogDatabaseOptions {
   /** Open at an older version (tests of the upgrade path); the current version otherwise. */
   version?: number;
+  /** The upgrade steps; UPGRADES unless a test tries a step that fails or one still to come. */
+  upgrades?: readonly Upgrade[];
   /** Another tab runs an older version and holds the database open; this open waits for it. */
   onBlocked?: () => void;
   /** Another tab wants a newer version: this connection has been closed and the page must reload. */
@@ -47,12 +51,16 @@ export interface OpenLogDatabaseOptions {
 }
 
 export async function openLogDatabase(name: string, options: OpenLogDatabaseOptions = {}): Promise<IDBPDatabase<LogDB>> {
-  const version = options.version ?? DB_VERSION;
+  const upgrades = options.upgrades ?? UPGRADES;
+  const version = options.version ?? upgrades.length;
   let upgradeError: unknown;
   try {
     const db = await openDB<LogDB>(name, version, {
       upgrade(database, oldVersion, newVersion, transaction) {
-        const steps = UPGRADES.slice(oldVersion, newVersion ?? version);
+        // idb makes `done` as soon as it wraps a transaction; if the upgrade aborts and nobody listens, that is
+        // an unhandled rejection. The failure itself reaches the caller through the open request.
+        transaction.done.catch(() => undefined);
+        const steps = upgrades.slice(oldVersion, newVersion ?? version);
         // Each step may read what the one before wrote; an async step keeps the upgrade transaction alive by
         // having requests pending (it awaits nothing but requests of this transaction).
         const run = async () => {

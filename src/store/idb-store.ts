@@ -147,7 +147,7 @@ class IdbBackend implements StoreBackend {
   }
 }
 
-export interface OpenLogStoreOptions extends CreateLogStoreOptions, Omit<OpenLogDatabaseOptions, 'version'> {
+export interface OpenLogStoreOptions extends CreateLogStoreOptions, Omit<OpenLogDatabaseOptions, 'version' | 'upgrades'> {
   /** Browser facilities: browserEnvironment() in the app, a fake in tests. */
   environment: StoreEnvironment;
   /** The database name; tests give each store its own. */

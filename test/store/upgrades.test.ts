@@ -1,0 +1,195 @@
+import 'fake-indexeddb/auto';
+import { afterEach, describe, expect, it } from 'vitest';
+import { deleteDB, openDB, type IDBPDatabase } from 'idb';
+import { webcrypto } from 'node:crypto';
+import { HybridLogicalClock } from '../../src/log/hlc';
+import { createRecord, deleteRecord, reviseRecord } from '../../src/log/records';
+import type { LogRecord } from '../../src/log/types';
+import { DB_VERSION, StoreError, UPGRADES, openLogDatabase, openLogStore, type LogDB, type Upgrade } from '../../src/store';
+import * as demo from '../log/demo-bodies';
+import { fakeEnvironment } from './fake-environment';
+
+const DEVICE = '0011223344556677';
+let n = 0;
+const names: string[] = [];
+const freshName = () => {
+  const name = `plummet-upgrade-${++n}`;
+  names.push(name);
+  return name;
+};
+
+afterEach(async () => {
+  while (names.length) await deleteDB(names.pop()!);
+});
+
+/**
+ * A log as version 1 stored it: 3 days (one deleted), readings, 7 series (one deleted), 2 600 drops
+ * (more than one page of the v2 step's counting; some deleted, some revised), a draft and the meta entries.
+ */
+function versionOneLog() {
+  const clock = new HybridLogicalClock(DEVICE);
+  let t = Date.UTC(2026, 3, 1, 8, 0, 0);
+  const ctx = () => ({ device: DEVICE, clock, now: (t += 1000), random: (b: Uint8Array) => webcrypto.getRandomValues(b) });
+  const site = createRecord('site', demo.site(), ctx());
+  const specimen = createRecord('specimen', demo.steelBall(), ctx());
+  const records: LogRecord[] = [site, specimen];
+  const expected = new Map<string, { reading_count: number; series_count: number; drop_count: number }>();
+  ['2026-04-01', '2026-04-02', '2026-04-03'].forEach((date, d) => {
+    let day = createRecord('day', { ...demo.day(), site_id: site.id, date }, ctx());
+    const counts = { reading_count: 0, series_count: 0, drop_count: 0 };
+    for (let r = 0; r < 2; r++) {
+      records.push(createRecord('reading', { ...demo.reading(), day_id: day.id, taken_at: `${date}T0${8 + r}:00:00.000Z` }, ctx()));
+      counts.reading_count++;
+    }
+    for (let s = 0; s < (d === 1 ? 3 : 2); s++) {
+      let series = createRecord('series', { ...demo.series(), day_id: day.id, specimen_id: specimen.id }, ctx());
+      const deletedSeries = d === 1 && s === 2;
+      for (let k = 1; k <= 370; k++) {
+        let drop = createRecord('drop', { ...demo.drop(k), series_id: series.id, time_s: 1.1 + (k % 7) / 100 }, ctx());
+        if (k % 50 === 0) drop = deleteRecord(drop, { ...ctx(), reason: 'released by hand' });
+        else if (k % 45 === 0) drop = reviseRecord(drop, { time_s: 1.15 }, { ...ctx(), reason: 'read off the video' });
+        records.push(drop);
+        if (!drop.deleted && !deletedSeries) counts.drop_count++;
+      }
+      if (deletedSeries) series = deleteRecord(series, { ...ctx(), reason: 'wrong specimen' });
+      else counts.series_count++;
+      records.push(series);
+    }
+    if (d === 2) day = deleteRecord(day, { ...ctx(), reason: 'rained off' });
+    else expected.set(day.id, counts);
+    records.push(day);
+  });
+  return { records, expected, clock };
+}
+
+async function fillVersionOne(name: string) {
+  const log = versionOneLog();
+  const db = await openLogDatabase(name, { version: 1 });
+  expect(db.version).toBe(1);
+  expect([...db.objectStoreNames]).not.toContain('day_summary');
+  const tx = db.transaction(['site', 'specimen', 'day', 'reading', 'series', 'drop', 'draft', 'meta'], 'readwrite');
+  await Promise.all([
+    ...log.records.map((r) => (tx.objectStore(r.kind) as unknown as { put(v: unknown): Promise<unknown> }).put(r)),
+    tx.objectStore('draft').put({ key: 'drop-form', value: { typed: '1.1' }, saved_at: '2026-04-03T10:00:00.000Z' }),
+    tx.objectStore('meta').put({ key: 'device_id', value: DEVICE }),
+    tx.objectStore('meta').put({ key: 'clock', value: log.clock.latest }),
+    tx.objectStore('meta').put({ key: 'unsent_changes', value: 17 }),
+    tx.done,
+  ]);
+  db.close();
+  return log;
+}
+
+function structureOf(db: IDBPDatabase<LogDB>) {
+  const names = [...db.objectStoreNames].sort();
+  const tx = db.transaction(names);
+  return names.map((name) => {
+    const store = tx.objectStore(name);
+    return {
+      name,
+      keyPath: store.keyPath,
+      indexes: [...store.indexNames].sort().map((i) => [i, store.index(i as never).keyPath, store.index(i as never).unique]),
+    };
+  });
+}
+
+const byKindAndId = (a: LogRecord, b: LogRecord) => (a.kind + a.id < b.kind + b.id ? -1 : 1);
+
+describe('schema upgrades', () => {
+  it('ships one upgrade function per version, and the current version is the last', () => {
+    expect(UPGRADES).toHaveLength(2);
+    expect(DB_VERSION).toBe(2);
+  });
+
+  it('opens a database filled by version 1 under version 2 with every record, draft and meta entry intact', async () => {
+    const name = freshName();
+    const { records, expected } = await fillVersionOne(name);
+    const fake = fakeEnvironment();
+    const store = await openLogStore({ name, environment: fake.environment });
+    expect([...(await store.allRecords())].sort(byKindAndId)).toEqual([...records].sort(byKindAndId));
+    expect((await store.getDraft('drop-form'))?.value).toEqual({ typed: '1.1' });
+    expect(await store.deviceId()).toBe(DEVICE);
+    expect((await store.status()).unsentChanges).toBe(17);
+    store.close();
+    const db = await openDB<LogDB>(name);
+    expect(db.version).toBe(2);
+    db.close();
+  });
+
+  it('fills the day counts of version 2 from what version 1 stored, leaving deleted records out', async () => {
+    const name = freshName();
+    const { expected } = await fillVersionOne(name);
+    const db = await openLogDatabase(name);
+    const summaries = await db.getAll('day_summary');
+    db.close();
+    expect(Object.fromEntries(summaries.map(({ day_id, ...counts }) => [day_id, counts]))).toEqual(Object.fromEntries(expected));
+    const store = await openLogStore({ name, environment: fakeEnvironment().environment });
+    // Per live series 370 drops less the 7 deleted (every 50th) = 363; the third day is deleted, and so is
+    // the third series of the second day.
+    expect((await store.listDays()).map((d) => [d.date, d.reading_count, d.series_count, d.drop_count])).toEqual([
+      ['2026-04-02', 2, 2, 726],
+      ['2026-04-01', 2, 2, 726],
+    ]);
+    store.close();
+  });
+
+  it('gives an upgraded database the same stores and indexes as a new one', async () => {
+    const upgraded = freshName();
+    await fillVersionOne(upgraded);
+    const fresh = freshName();
+    const a = await openLogDatabase(upgraded);
+    const b = await openLogDatabase(fresh);
+    expect(structureOf(a)).toEqual(structureOf(b));
+    expect(structureOf(b).map((s) => s.name)).toEqual(['day', 'day_summary', 'draft', 'drop', 'meta', 'reading', 'series', 'site', 'specimen']);
+    a.close();
+    b.close();
+  });
+
+  it('leaves the database at the old version with everything in it when an upgrade step fails', async () => {
+    const name = freshName();
+    const { records } = await fillVersionOne(name);
+    const broken: Upgrade = () => {
+      throw new Error('a step that cannot work');
+    };
+    let error: unknown;
+    try {
+      await openLogDatabase(name, { upgrades: [UPGRADES[0]!, broken] });
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(StoreError);
+    expect((error as StoreError).code).toBe('open-failed');
+    expect(((error as StoreError).cause as Error).message).toBe('a step that cannot work');
+    const db = await openLogDatabase(name, { version: 1 });
+    expect(db.version).toBe(1);
+    expect(await db.count('drop')).toBe(records.filter((r) => r.kind === 'drop').length);
+    db.close();
+  });
+
+  it('refuses a database written by a newer version of the app and says so', async () => {
+    const name = freshName();
+    const noop: Upgrade = () => undefined;
+    (await openLogDatabase(name, { upgrades: [...UPGRADES, noop] })).close();
+    let error: unknown;
+    try {
+      await openLogStore({ name, environment: fakeEnvironment().environment });
+    } catch (e) {
+      error = e;
+    }
+    expect((error as StoreError).code).toBe('database-newer');
+  });
+
+  it('gives way to a newer version opened in another tab and refuses further calls', async () => {
+    const name = freshName();
+    let told = 0;
+    const store = await openLogStore({ name, environment: fakeEnvironment().environment, onVersionChange: () => told++ });
+    await store.create('site', demo.site());
+    const noop: Upgrade = () => undefined;
+    const newer = await openLogDatabase(name, { upgrades: [...UPGRADES, noop] });
+    expect(newer.version).toBe(3);
+    expect(told).toBe(1);
+    await expect(store.list('site')).rejects.toMatchObject({ code: 'store-closed' });
+    expect(await newer.count('site')).toBe(1);
+    newer.close();
+  });
+});
