@@ -1,0 +1,193 @@
+/**
+ * Shapes a crew can log, and what the fall model needs from each: frontal area, volume, the
+ * length used in the Reynolds number, the length along the fall, and the default added-mass
+ * coefficient. Orientation is fixed by the shape: a cylinder falls axis vertical, a disc flat,
+ * a box with its length × width face down.
+ */
+import { equivalentSpheroidAddedMassCoefficient } from './addedMassCoefficient';
+import { checkNumber, checkOptionalNumber } from './checkNumber';
+import { PhysicsInputError } from './physicsInputError';
+
+interface SpecimenCommon {
+  mass_kg: number;
+  /** A drag coefficient known beforehand (a handbook value, an earlier test); used for predictions. */
+  reference_drag_coefficient?: number;
+}
+export interface SphereSpecimen extends SpecimenCommon {
+  shape: 'sphere';
+  diameter_m: number;
+}
+/** Axis vertical: falls end first. */
+export interface CylinderSpecimen extends SpecimenCommon {
+  shape: 'cylinder';
+  diameter_m: number;
+  length_m: number;
+}
+/** Falls flat. */
+export interface DiscSpecimen extends SpecimenCommon {
+  shape: 'disc';
+  diameter_m: number;
+  thickness_m: number;
+}
+/** Falls with its length × width face down; thickness is the vertical extent. */
+export interface BoxSpecimen extends SpecimenCommon {
+  shape: 'box';
+  length_m: number;
+  width_m: number;
+  thickness_m: number;
+}
+/** Anything else, described by its frontal area and volume. */
+export interface CustomSpecimen extends SpecimenCommon {
+  shape: 'custom';
+  area_m2: number;
+  volume_m3: number;
+  /** For the Reynolds number; defaults to the diameter of a circle of the frontal area. */
+  characteristic_length_m?: number;
+}
+export type SpecimenInput = SphereSpecimen | CylinderSpecimen | DiscSpecimen | BoxSpecimen | CustomSpecimen;
+export type SpecimenShape = SpecimenInput['shape'];
+
+/** The dimension fields of each shape, in a fixed order (also the names of their uncertainties). */
+export const SHAPE_DIMENSIONS = {
+  sphere: ['diameter_m'],
+  cylinder: ['diameter_m', 'length_m'],
+  disc: ['diameter_m', 'thickness_m'],
+  box: ['length_m', 'width_m', 'thickness_m'],
+  custom: ['area_m2', 'volume_m3'],
+} as const satisfies Record<SpecimenShape, readonly string[]>;
+
+export const SPECIMEN_LIMITS = {
+  mass_kg: { min: 0, minExclusive: true, max: 1000, text: 'above 0 and at most 1000 kg' },
+  length: { min: 0, minExclusive: true, max: 10, text: 'above 0 and at most 10 m' },
+  area_m2: { min: 0, minExclusive: true, max: 100, text: 'above 0 and at most 100 m²' },
+  volume_m3: { min: 0, max: 100, text: '0 to 100 m³' },
+  reference_drag_coefficient: { min: 0, minExclusive: true, max: 100, text: 'above 0 and at most 100' },
+} as const;
+
+export interface SpecimenGeometry {
+  shape: SpecimenShape;
+  area_m2: number;
+  volume_m3: number;
+  /** Reynolds-number length: the diameter, or the frontal area's equivalent diameter. */
+  characteristic_length_m: number;
+  /** Extent along the fall (null for a custom shape). */
+  length_along_fall_m: number | null;
+  /** Potential-flow estimate (see addedMassCoefficient.ts); 0 for a custom shape. */
+  default_added_mass_coefficient: number;
+}
+
+/** Geometry from a shape and its dimensions in SHAPE_DIMENSIONS order (used for perturbed inputs too). */
+export function geometryFromDimensions(
+  shape: SpecimenShape,
+  dims: ArrayLike<number>,
+  characteristicLength?: number,
+): SpecimenGeometry {
+  const d0 = dims[0]!;
+  const d1 = dims[1]!;
+  switch (shape) {
+    case 'sphere': {
+      return {
+        shape,
+        area_m2: (Math.PI * d0 * d0) / 4,
+        volume_m3: (Math.PI * d0 * d0 * d0) / 6,
+        characteristic_length_m: d0,
+        length_along_fall_m: d0,
+        default_added_mass_coefficient: 0.5,
+      };
+    }
+    case 'cylinder':
+    case 'disc': {
+      const area = (Math.PI * d0 * d0) / 4;
+      const volume = area * d1;
+      return {
+        shape,
+        area_m2: area,
+        volume_m3: volume,
+        characteristic_length_m: d0,
+        length_along_fall_m: d1,
+        default_added_mass_coefficient: equivalentSpheroidAddedMassCoefficient(area, d1, volume),
+      };
+    }
+    case 'box': {
+      const area = d0 * d1;
+      const t = dims[2]!;
+      const volume = area * t;
+      return {
+        shape,
+        area_m2: area,
+        volume_m3: volume,
+        characteristic_length_m: Math.sqrt((4 * area) / Math.PI),
+        length_along_fall_m: t,
+        default_added_mass_coefficient: equivalentSpheroidAddedMassCoefficient(area, t, volume),
+      };
+    }
+    case 'custom': {
+      return {
+        shape,
+        area_m2: d0,
+        volume_m3: d1,
+        characteristic_length_m: characteristicLength ?? Math.sqrt((4 * d0) / Math.PI),
+        length_along_fall_m: null,
+        default_added_mass_coefficient: 0,
+      };
+    }
+  }
+}
+
+export interface CheckedSpecimen {
+  input: SpecimenInput;
+  mass_kg: number;
+  dimensions: number[];
+  dimension_names: readonly string[];
+  geometry: SpecimenGeometry;
+  reference_drag_coefficient: number | null;
+}
+
+/** Validate a specimen (untrusted shape) and derive its geometry. */
+export function checkSpecimen(specimen: unknown, field = 'specimen'): CheckedSpecimen {
+  if (typeof specimen !== 'object' || specimen === null || Array.isArray(specimen)) {
+    throw new PhysicsInputError({ code: 'wrong-type', field, value: specimen, allowed: 'an object' });
+  }
+  const s = specimen as Record<string, unknown>;
+  const shape = s['shape'];
+  if (typeof shape !== 'string' || !(shape in SHAPE_DIMENSIONS)) {
+    throw new PhysicsInputError({
+      code: shape === undefined ? 'missing-field' : 'out-of-range',
+      field: `${field}.shape`,
+      value: shape,
+      allowed: Object.keys(SHAPE_DIMENSIONS).map((k) => `"${k}"`).join(', '),
+    });
+  }
+  const typedShape = shape as SpecimenShape;
+  const names = SHAPE_DIMENSIONS[typedShape];
+  const known = new Set<string>(['shape', 'mass_kg', 'reference_drag_coefficient', ...names]);
+  if (typedShape === 'custom') known.add('characteristic_length_m');
+  for (const key of Object.keys(s)) {
+    if (!known.has(key)) {
+      throw new PhysicsInputError({
+        code: 'unknown-field',
+        field: `${field}.${key}`,
+        value: s[key],
+        allowed: `for shape "${typedShape}": ${[...known].join(', ')}`,
+      });
+    }
+  }
+  const mass = checkNumber(`${field}.mass_kg`, s['mass_kg'], SPECIMEN_LIMITS.mass_kg);
+  const dims = names.map((name) => {
+    const range =
+      name === 'area_m2' ? SPECIMEN_LIMITS.area_m2 : name === 'volume_m3' ? SPECIMEN_LIMITS.volume_m3 : SPECIMEN_LIMITS.length;
+    return checkNumber(`${field}.${name}`, s[name], range);
+  });
+  const characteristic = checkOptionalNumber(`${field}.characteristic_length_m`, s['characteristic_length_m'], SPECIMEN_LIMITS.length);
+  const reference =
+    checkOptionalNumber(`${field}.reference_drag_coefficient`, s['reference_drag_coefficient'], SPECIMEN_LIMITS.reference_drag_coefficient) ??
+    null;
+  return {
+    input: specimen as SpecimenInput,
+    mass_kg: mass,
+    dimensions: dims,
+    dimension_names: names,
+    geometry: geometryFromDimensions(typedShape, dims, characteristic),
+    reference_drag_coefficient: reference,
+  };
+}
