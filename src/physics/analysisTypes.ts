@@ -1,0 +1,172 @@
+/**
+ * The request and result of one series' analysis: the JSON shapes the office command reads
+ * and prints and the screens pass around. SI throughout, the unit in every field name.
+ * A field may be added; none may change meaning.
+ */
+import type { AirInput } from './airProperties';
+import type { SiteInput } from './normalGravity';
+import type { PhysicsWarning } from './physicsWarning';
+import type { SpecimenInput } from './specimenGeometry';
+
+export interface DropInput {
+  /** Release height above the point where the time stops, m. */
+  height_m: number;
+  /** Measured fall time from release, s. */
+  time_s: number;
+}
+
+export interface TimingInput {
+  /** Standard uncertainty of one drop's time from random causes, s (shrinks with more drops). */
+  standard_uncertainty_s: number;
+  /** "fit": fit a constant start/stop delay together with C_d (needs three distinct heights). */
+  offset?: 'none' | 'fit';
+}
+
+/** Standard uncertainties of the inputs, in the inputs' own units. Missing ones count as zero (with a warning). */
+export interface UncertaintyInput {
+  height_m?: number;
+  mass_kg?: number;
+  diameter_m?: number;
+  length_m?: number;
+  width_m?: number;
+  thickness_m?: number;
+  area_m2?: number;
+  volume_m3?: number;
+  temperature_C?: number;
+  pressure_Pa?: number;
+  relative_humidity_pct?: number;
+  dew_point_C?: number;
+  density_kg_m3?: number;
+  gravity_m_s2?: number;
+}
+
+export interface AnalysisOptions {
+  /** Default true. */
+  buoyancy?: boolean;
+  /** Default by shape: 0.5 for a sphere (potential flow), a spheroid estimate for cylinder, disc and box, 0 for custom. */
+  added_mass_coefficient?: number;
+  /** Monte Carlo draws; default 20 000. */
+  monte_carlo_draws?: number;
+  /** Seed of the Monte Carlo generator; a fixed default keeps results reproducible. */
+  seed?: number;
+}
+
+export interface AnalysisRequest {
+  site: SiteInput;
+  air: AirInput;
+  specimen: SpecimenInput;
+  drops: DropInput[];
+  timing: TimingInput;
+  uncertainty?: UncertaintyInput;
+  options?: AnalysisOptions;
+}
+
+export interface DropResult {
+  height_m: number;
+  time_s: number;
+  /** This drop's own C_d (the one that makes the model reproduce its time); null when its time is below the drag-free time. */
+  drag_coefficient: number | null;
+  /** √(2h/g): no air at all. */
+  vacuum_time_s: number;
+  /** From the reference C_d, or for a sphere from the Morrison correlation; null without either. */
+  predicted_time_s: number | null;
+  /** The fitted series model's time (offset included when fitted). */
+  fitted_time_s: number;
+  /** Measured minus fitted. */
+  residual_s: number;
+  /** From the fitted model. */
+  impact_speed_m_s: number;
+  impact_energy_J: number;
+  /** At impact, from the fitted model. */
+  reynolds_number: number;
+}
+
+export interface HeightResult {
+  height_m: number;
+  count: number;
+  mean_time_s: number;
+  standard_deviation_s: number | null;
+  standard_error_s: number | null;
+  t_interval_95_s: [number, number] | null;
+  /** Null below three drops. Flags only: no drop is ever left out because of it. */
+  grubbs: { statistic: number; critical_value: number; alpha: number; suspect_drop_index: number; outlier: boolean } | null;
+}
+
+export interface BudgetRow {
+  input: string;
+  standard_uncertainty: number;
+  sensitivity: number;
+  contribution: number;
+  evaluation: 'A' | 'B';
+  description: string;
+  degrees_of_freedom: number | null;
+}
+
+export interface AnalysisResult {
+  air: {
+    density_kg_m3: number;
+    station_pressure_Pa: number | null;
+    dynamic_viscosity_Pa_s: number;
+    speed_of_sound_m_s: number;
+    density_source: 'cipm-2007' | 'override';
+    cipm_density_kg_m3: number | null;
+    sea_level_pressure_Pa: number | null;
+    vapour_mole_fraction: number | null;
+    compressibility_factor: number | null;
+  };
+  gravity_m_s2: number;
+  gravity_source: 'wgs84-normal-gravity' | 'override';
+  /** Null when drag is not resolved (see drag_resolved and drag_coefficient_upper_bound_95). */
+  drag_coefficient: number | null;
+  /** The least-squares value itself, even when not resolved (may then be slightly negative). */
+  drag_coefficient_estimate: number;
+  drag_coefficient_standard_uncertainty: number;
+  /** Monte Carlo coverage interval; [0, upper bound] when drag is not resolved. */
+  drag_coefficient_interval_95: [number, number];
+  drag_resolved: boolean;
+  /** Only when drag is not resolved: C_d is below this with 95 % probability. */
+  drag_coefficient_upper_bound_95?: number;
+  /** Only when fitted: measured minus true time, s (a timer that stops late reads positive). */
+  timing_offset_s?: number;
+  timing_offset_standard_uncertainty_s?: number;
+  timing_offset_interval_95_s?: [number, number];
+  /** Null when drag is not resolved. */
+  terminal_velocity_m_s: number | null;
+  /** Only when drag is not resolved. */
+  terminal_velocity_lower_bound_m_s?: number;
+  drops: DropResult[];
+  heights: HeightResult[];
+  budget: BudgetRow[];
+  gum: {
+    combined_standard_uncertainty: number;
+    effective_degrees_of_freedom: number | null;
+    coverage_factor: number;
+    interval_95: [number, number];
+  };
+  monte_carlo: {
+    draws: number;
+    failed_draws: number;
+    seed: number;
+    mean: number;
+    standard_deviation: number;
+    interval_95: [number, number];
+    upper_bound_95: number;
+  };
+  prediction: {
+    method: 'reference-drag-coefficient' | 'morrison-sphere-correlation' | 'none';
+    reference_drag_coefficient: number | null;
+  };
+  model: {
+    buoyancy: boolean;
+    added_mass_coefficient: number;
+    area_m2: number;
+    volume_m3: number;
+    characteristic_length_m: number;
+    effective_mass_kg: number;
+    effective_gravity_m_s2: number;
+    timing_offset: 'none' | 'fit';
+    scatter_standard_deviation_s: number | null;
+    scatter_degrees_of_freedom: number;
+  };
+  warnings: PhysicsWarning[];
+}

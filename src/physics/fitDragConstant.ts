@@ -1,0 +1,183 @@
+/**
+ * Least-squares fit of the drag constant k (and optionally a constant timing offset δ) to the
+ * mean fall times of drops from one or more heights:
+ *
+ *   minimise  Σ_j n_j·( t̄_j − T(h_j; k) − δ )²,   T(h; k) = √(2h/g_e)·Φ(k·h)
+ *
+ * Grouping drops by height loses nothing: the sum over single drops differs from this one by a
+ * constant. With one height (and no offset) the minimum is where T(h; k) equals the mean time,
+ * so it is solved directly by a bracketed Newton iteration on Φ. With several heights the
+ * Gauss–Newton iteration runs on k alone; the optimal δ for a given k is the weighted mean
+ * residual, so it is eliminated exactly (variable projection, Golub & Pereyra 1973).
+ *
+ * Every path is bracketed and counted, so it always ends: with a value, or with a status that
+ * says why there is none (a mean time below any drag-free fall, or one no finite drag reaches).
+ */
+import { fallTimeFactor, fallTimeFactorDerivative } from './fallModel';
+
+/** Lowest k·h searched: Φ(−20) ≈ 0.25, i.e. times down to a quarter of the drag-free time. */
+export const MIN_DRAG_X = -20;
+/** Highest k·h searched: Φ(1e9) ≈ 22 000 drag-free times. */
+export const MAX_DRAG_X = 1e9;
+
+export type DragFitStatus = 'ok' | 'faster-than-free-fall' | 'drag-unexplained' | 'not-converged';
+
+export interface DragFit {
+  status: DragFitStatus;
+  drag_constant_per_m: number;
+  offset_s: number;
+  iterations: number;
+}
+
+/**
+ * Solve Φ(x) = target for x in [MIN_DRAG_X, MAX_DRAG_X], starting near x0.
+ * Returns NaN-free results: the bound itself with a status when the target is outside.
+ */
+export function solveFallTimeFactor(target: number, x0?: number): { x: number; status: DragFitStatus; iterations: number } {
+  if (!(target > fallTimeFactor(MIN_DRAG_X))) return { x: MIN_DRAG_X, status: 'faster-than-free-fall', iterations: 0 };
+  if (!(target < fallTimeFactor(MAX_DRAG_X))) return { x: MAX_DRAG_X, status: 'drag-unexplained', iterations: 0 };
+  let lo = MIN_DRAG_X;
+  let hi = MAX_DRAG_X;
+  let x = x0 !== undefined && x0 > lo && x0 < hi ? x0 : initialGuess(target);
+  for (let i = 1; i <= 200; i++) {
+    const f = fallTimeFactor(x) - target;
+    if (f === 0) return { x, status: 'ok', iterations: i };
+    if (f < 0) lo = x;
+    else hi = x;
+    let next = x - f / fallTimeFactorDerivative(x);
+    if (!(next > lo && next < hi)) {
+      // Newton left the bracket: bisect (geometrically when the bracket spans decades).
+      next = lo > 0 && hi / lo > 4 ? Math.sqrt(lo * hi) : 0.5 * (lo + hi);
+    }
+    if (Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) || hi - lo <= 1e-15 * Math.max(1, Math.abs(x))) {
+      return { x: next, status: 'ok', iterations: i };
+    }
+    x = next;
+  }
+  return { x, status: 'not-converged', iterations: 200 };
+}
+
+/** Starting point: Φ ≈ 1 + x/6 for small x, Φ ≈ (x + ln 2)/√(2x) for large x. */
+function initialGuess(target: number): number {
+  if (target < 1.3) return 6 * (target - 1);
+  const b = Math.SQRT2 * target;
+  const s = 0.5 * (b + Math.sqrt(Math.max(b * b - 4 * Math.LN2, 0)));
+  return s * s;
+}
+
+/**
+ * Fit k (and δ when `fitOffset`) to groups of drops.
+ * heights, meanTimes and counts have one entry per distinct height.
+ */
+export function fitDragConstant(
+  effectiveGravity_m_s2: number,
+  heights_m: ArrayLike<number>,
+  meanTimes_s: ArrayLike<number>,
+  counts: ArrayLike<number>,
+  fitOffset: boolean,
+  startDragConstant?: number,
+): DragFit {
+  const J = heights_m.length;
+  const g = effectiveGravity_m_s2;
+  if (J === 1 && !fitOffset) {
+    const h = heights_m[0]!;
+    const target = meanTimes_s[0]! / Math.sqrt((2 * h) / g);
+    const solved = solveFallTimeFactor(target, startDragConstant !== undefined ? startDragConstant * h : undefined);
+    return { status: solved.status, drag_constant_per_m: solved.x / h, offset_s: 0, iterations: solved.iterations };
+  }
+
+  let hMax = 0;
+  let jMax = 0;
+  let total = 0;
+  let timeScale = 0;
+  for (let j = 0; j < J; j++) {
+    const h = heights_m[j]!;
+    if (h > hMax) {
+      hMax = h;
+      jMax = j;
+    }
+    total += counts[j]!;
+    timeScale = Math.max(timeScale, meanTimes_s[j]!);
+  }
+  const kLo = MIN_DRAG_X / hMax;
+  const kHi = MAX_DRAG_X / hMax;
+  let k: number;
+  if (startDragConstant !== undefined && startDragConstant > kLo && startDragConstant < kHi) {
+    k = startDragConstant;
+  } else {
+    // Start from the tallest height's own solution: it carries the most drag information.
+    const target = meanTimes_s[jMax]! / Math.sqrt((2 * hMax) / g);
+    const solved = solveFallTimeFactor(target);
+    k = Math.min(Math.max(solved.x / hMax, kLo), kHi);
+  }
+
+  const scale = new Float64Array(J);
+  for (let j = 0; j < J; j++) scale[j] = Math.sqrt((2 * heights_m[j]!) / g);
+  const model = new Float64Array(J);
+  const slope = new Float64Array(J);
+  let offset = 0;
+  // Evaluate the (projected) residual sum of squares and the Gauss–Newton step at k.
+  let S = 0;
+  let step = 0;
+  let maxSlope = 0;
+  const evaluate = (kk: number): boolean => {
+    let sumR = 0;
+    let sumD = 0;
+    for (let j = 0; j < J; j++) {
+      const h = heights_m[j]!;
+      const x = kk * h;
+      model[j] = scale[j]! * fallTimeFactor(x);
+      slope[j] = scale[j]! * h * fallTimeFactorDerivative(x);
+      sumR += counts[j]! * (meanTimes_s[j]! - model[j]!);
+      sumD += counts[j]! * slope[j]!;
+    }
+    offset = fitOffset ? sumR / total : 0;
+    const meanSlope = fitOffset ? sumD / total : 0;
+    S = 0;
+    let num = 0;
+    let den = 0;
+    maxSlope = 0;
+    for (let j = 0; j < J; j++) {
+      const r = meanTimes_s[j]! - model[j]! - offset;
+      const d = slope[j]! - meanSlope;
+      const n = counts[j]!;
+      S += n * r * r;
+      num += n * d * r;
+      den += n * d * d;
+      if (Math.abs(d) > maxSlope) maxSlope = Math.abs(d);
+    }
+    if (!(den > 0)) return false;
+    step = num / den;
+    return true;
+  };
+
+  const boundStatus = (value: number): DragFitStatus =>
+    value <= kLo ? 'faster-than-free-fall' : value >= kHi ? 'drag-unexplained' : 'ok';
+  const result = (status: DragFitStatus, kk: number, iterations: number): DragFit => {
+    evaluate(kk); // leaves δ consistent with the returned k
+    return { status, drag_constant_per_m: kk, offset_s: offset, iterations };
+  };
+
+  if (!evaluate(k)) return result('not-converged', k, 0);
+  for (let iteration = 1; iteration <= 200; iteration++) {
+    const currentS = S;
+    let trialStep = step;
+    let next = Math.min(Math.max(k + trialStep, kLo), kHi);
+    trialStep = next - k;
+    if (Math.abs(trialStep) * maxSlope <= 1e-13 * timeScale) return result(boundStatus(next), next, iteration);
+    // Accept the step if it does not increase S; otherwise halve it (at most 40 times).
+    let accepted = false;
+    for (let halving = 0; halving < 40; halving++) {
+      if (evaluate(next) && S <= currentS * (1 + 1e-12)) {
+        accepted = true;
+        break;
+      }
+      trialStep *= 0.5;
+      next = k + trialStep;
+      if (Math.abs(trialStep) * maxSlope <= 1e-14 * timeScale) break;
+    }
+    if (!accepted) return result(boundStatus(k), k, iteration);
+    k = next;
+  }
+  return result('not-converged', k, 200);
+}

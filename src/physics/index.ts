@@ -1,0 +1,72 @@
+/**
+ * The physics core's public face. Pure TypeScript: no DOM, storage, network or Node APIs.
+ * SI inside; every field that leaves the core carries its unit in its name.
+ */
+
+// The analysis of a series: used by the screens and the office command.
+export { analyzeSeries, DEFAULT_MONTE_CARLO_DRAWS, DRAG_CRISIS_REYNOLDS, CREEPING_FLOW_REYNOLDS } from './analyzeSeries';
+export { validateAnalysisRequest } from './validateAnalysisRequest';
+export type {
+  AnalysisRequest,
+  AnalysisResult,
+  AnalysisOptions,
+  BudgetRow,
+  DropInput,
+  DropResult,
+  HeightResult,
+  TimingInput,
+  UncertaintyInput,
+} from './analysisTypes';
+export { PhysicsInputError, type PhysicsInputErrorCode } from './physicsInputError';
+export type { PhysicsWarning } from './physicsWarning';
+
+// Planning a test.
+export { planDrop, type DropPlan, type DropPlanRequest, type DropAtHeight } from './planDrop';
+
+// Air.
+export { airProperties, AIR_LIMITS, CIPM_VALID_RANGE, type AirInput, type AirProperties, type PressureReference } from './airProperties';
+export {
+  moistAirDensity,
+  compressibilityFactor,
+  dryAirMolarMass,
+  vapourMoleFractionFromRelativeHumidity,
+  vapourMoleFractionFromDewPoint,
+} from './moistAirDensity';
+export { saturationVapourPressure, enhancementFactor } from './saturationVapourPressure';
+export { stationPressureFromSeaLevel, seaLevelPressureFromStation, standardAtmosphereDensity } from './standardAtmosphere';
+export { airViscosity } from './airViscosity';
+export { speedOfSound } from './speedOfSound';
+
+// Gravity.
+export { normalGravity, localGravity, type SiteInput, type SiteGravity } from './normalGravity';
+
+// Specimens.
+export { checkSpecimen, geometryFromDimensions, SHAPE_DIMENSIONS, type SpecimenInput, type SpecimenShape, type SpecimenGeometry } from './specimenGeometry';
+export { spheroidAddedMassCoefficient, equivalentSpheroidAddedMassCoefficient } from './addedMassCoefficient';
+
+// The fall.
+export {
+  fallParameters,
+  fallTime,
+  fallDistance,
+  fallSpeedAtTime,
+  fallSpeedAtHeight,
+  timeBetweenHeights,
+  terminalVelocity,
+  distanceToTerminalFraction,
+  type FallBody,
+  type FallParameters,
+} from './fallModel';
+export { fallWithVariableDrag, type VariableDragBody, type VariableDragFall } from './fallWithVariableDrag';
+export { integrateDormandPrince, type OdeRightHandSide, type DormandPrinceOptions, type DormandPrinceResult } from './integrateDormandPrince';
+export { morrisonSphereDragCoefficient, MORRISON_VALID_MAX_REYNOLDS } from './sphereDragCoefficient';
+
+// Drag from times.
+export { dragCoefficientFromTime } from './dragCoefficientFromTime';
+export { fitDragConstant, type DragFit, type DragFitStatus } from './fitDragConstant';
+
+// Statistics.
+export { mean, standardDeviation, standardError, seriesStatistics, type SeriesStatistics } from './seriesStatistics';
+export { studentTQuantile, studentTCdf, studentTDensity } from './studentT';
+export { grubbsTest, grubbsCriticalValue, type GrubbsResult } from './grubbsTest';
+export { createRandom, DEFAULT_SEED, type RandomSource } from './createRandom';

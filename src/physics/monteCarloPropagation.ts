@@ -1,0 +1,136 @@
+/**
+ * Propagation of distributions by Monte Carlo (JCGM 101:2008): draw every input from its
+ * distribution, evaluate the full measurement model (fit included) for each draw, and read the
+ * coverage interval off the sorted results (probabilistically symmetric, JCGM 101 7.7).
+ *
+ * Inputs are normal (Type B, or a declared timing uncertainty). The scatter between drops,
+ * when it exceeds the declared timing uncertainty, is a Type A input with ν = N − p degrees of
+ * freedom: following JCGM 101 6.4.9 its scale is not taken as known but drawn, s²·ν/χ²_ν, once
+ * per draw, which makes the mean of a single height exactly a scaled-and-shifted t-distribution
+ * and extends the same reasoning to several heights. Conditional on that draw, each height's mean
+ * time is normal with variance (u_timing² + s_excess²·ν/χ²)/n_j, so one normal per height is
+ * enough and the loop stays short.
+ */
+import { createRandom } from './createRandom';
+import type { SeriesModel } from './seriesModel';
+
+export interface NormalInput {
+  index: number;
+  /** Standard uncertainty in model units. */
+  u: number;
+  min?: number;
+  max?: number;
+}
+
+export interface MonteCarloSpec {
+  draws: number;
+  seed: number;
+  normals: NormalInput[];
+  /** A dew point drawn above the drawn air temperature is clipped to it. */
+  dewPoint?: { index: number; temperatureIndex: number };
+  times: {
+    indices: number[];
+    counts: number[];
+    /** Declared per-drop timing standard uncertainty, s. */
+    declared_s: number;
+    /** Scatter in excess of it (Type A), s; 0 when none. */
+    excess_s: number;
+    /** Degrees of freedom of the scatter. */
+    degrees_of_freedom: number;
+  };
+}
+
+export interface MonteCarloSummary {
+  draws: number;
+  /** Draws whose model evaluation failed (no value); they are left out. */
+  failed: number;
+  mean: number;
+  standard_deviation: number;
+  interval_95: [number, number];
+  /** One-sided 95 % upper bound (the 95th percentile). */
+  upper_bound_95: number;
+}
+
+export interface MonteCarloResult {
+  dragCoefficient: MonteCarloSummary;
+  /** Same for the fitted timing offset, when there is one. */
+  offset: MonteCarloSummary | null;
+  /** The successful draws, sorted. */
+  sortedValues: Float64Array;
+}
+
+export function monteCarloPropagation(
+  model: SeriesModel,
+  x0: Float64Array,
+  spec: MonteCarloSpec,
+  withOffset: boolean,
+): MonteCarloResult {
+  const random = createRandom(spec.seed);
+  const values = new Float64Array(spec.draws);
+  const offsets = withOffset ? new Float64Array(spec.draws) : null;
+  const x = Float64Array.from(x0);
+  const { normals, times, dewPoint } = spec;
+  const declaredVariance = times.declared_s * times.declared_s;
+  const excessVariance = times.excess_s * times.excess_s;
+  const dof = times.degrees_of_freedom;
+  let ok = 0;
+  let failed = 0;
+  for (let draw = 0; draw < spec.draws; draw++) {
+    for (let i = 0; i < normals.length; i++) {
+      const input = normals[i]!;
+      let value = x0[input.index]! + input.u * random.normal();
+      if (input.min !== undefined && value < input.min) value = input.min;
+      if (input.max !== undefined && value > input.max) value = input.max;
+      x[input.index] = value;
+    }
+    if (dewPoint && x[dewPoint.index]! > x[dewPoint.temperatureIndex]!) x[dewPoint.index] = x[dewPoint.temperatureIndex]!;
+    const variance = excessVariance > 0 ? declaredVariance + (excessVariance * dof) / random.chiSquare(dof) : declaredVariance;
+    for (let j = 0; j < times.indices.length; j++) {
+      const index = times.indices[j]!;
+      x[index] = x0[index]! + Math.sqrt(variance / times.counts[j]!) * random.normal();
+    }
+    const cd = model.evaluate(x);
+    if (model.status === 'ok' && Number.isFinite(cd)) {
+      values[ok] = cd;
+      if (offsets) offsets[ok] = model.offset_s;
+      ok++;
+    } else {
+      failed++;
+    }
+  }
+  model.evaluate(x0); // leave the model at its nominal point
+  const used = values.subarray(0, ok).sort();
+  return {
+    dragCoefficient: summarise(used, spec.draws, failed),
+    offset: offsets ? summarise(offsets.subarray(0, ok).sort(), spec.draws, failed) : null,
+    sortedValues: used,
+  };
+}
+
+/** Linear interpolation between order statistics, p in [0, 1]. */
+export function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
+  const n = sorted.length;
+  if (n === 0) return NaN;
+  const position = p * (n - 1);
+  const lower = Math.floor(position);
+  const upper = Math.min(lower + 1, n - 1);
+  const fraction = position - lower;
+  return sorted[lower]! + fraction * (sorted[upper]! - sorted[lower]!);
+}
+
+function summarise(sorted: Float64Array, draws: number, failed: number): MonteCarloSummary {
+  const n = sorted.length;
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += sorted[i]!;
+  const m = n > 0 ? sum / n : NaN;
+  let ss = 0;
+  for (let i = 0; i < n; i++) ss += (sorted[i]! - m) ** 2;
+  return {
+    draws,
+    failed,
+    mean: m,
+    standard_deviation: n > 1 ? Math.sqrt(ss / (n - 1)) : NaN,
+    interval_95: [sortedQuantile(sorted, 0.025), sortedQuantile(sorted, 0.975)],
+    upper_bound_95: sortedQuantile(sorted, 0.95),
+  };
+}

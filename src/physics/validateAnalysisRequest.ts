@@ -1,0 +1,187 @@
+/**
+ * Checks an untrusted JSON value (a file, a stored record) before it is analysed, and turns it
+ * into a typed AnalysisRequest. Every problem is a PhysicsInputError naming the field as a JSON
+ * path, the value found and the allowed range. Unknown fields are errors too: a misspelt or
+ * unit-less name ("temperature" for "temperature_C") would otherwise be silently ignored.
+ */
+import { airProperties, type AirInput } from './airProperties';
+import type { AnalysisOptions, AnalysisRequest, DropInput, TimingInput, UncertaintyInput } from './analysisTypes';
+import { checkNumber, checkOptionalNumber } from './checkNumber';
+import { localGravity, type SiteInput } from './normalGravity';
+import { PhysicsInputError } from './physicsInputError';
+import { checkSpecimen, SHAPE_DIMENSIONS } from './specimenGeometry';
+
+export const DROP_LIMITS = {
+  count: { min: 1, max: 10_000, text: '1 to 10 000 drops' },
+  height_m: { min: 0, minExclusive: true, max: 1000, text: 'above 0 and at most 1000 m' },
+  time_s: { min: 0, minExclusive: true, max: 1000, text: 'above 0 and at most 1000 s' },
+  standard_uncertainty_s: { min: 0, minExclusive: true, max: 10, text: 'above 0 and at most 10 s' },
+} as const;
+
+export const OPTION_LIMITS = {
+  added_mass_coefficient: { min: 0, max: 100, text: '0 to 100' },
+  monte_carlo_draws: { min: 200, max: 1_000_000, text: 'a whole number from 200 to 1 000 000' },
+  seed: { min: 0, max: 4_294_967_295, text: 'a whole number from 0 to 4 294 967 295' },
+} as const;
+
+/** Largest standard uncertainty accepted for each input (beyond these the input is not measured at all). */
+const UNCERTAINTY_LIMITS: Record<keyof UncertaintyInput, { max: number; text: string }> = {
+  height_m: { max: 10, text: '0 to 10 m' },
+  mass_kg: { max: 100, text: '0 to 100 kg' },
+  diameter_m: { max: 1, text: '0 to 1 m' },
+  length_m: { max: 1, text: '0 to 1 m' },
+  width_m: { max: 1, text: '0 to 1 m' },
+  thickness_m: { max: 1, text: '0 to 1 m' },
+  area_m2: { max: 10, text: '0 to 10 m²' },
+  volume_m3: { max: 10, text: '0 to 10 m³' },
+  temperature_C: { max: 20, text: '0 to 20 °C' },
+  pressure_Pa: { max: 5000, text: '0 to 5000 Pa' },
+  relative_humidity_pct: { max: 50, text: '0 to 50 %' },
+  dew_point_C: { max: 20, text: '0 to 20 °C' },
+  density_kg_m3: { max: 0.5, text: '0 to 0.5 kg/m³' },
+  gravity_m_s2: { max: 0.05, text: '0 to 0.05 m/s²' },
+};
+
+function asObject(value: unknown, field: string): Record<string, unknown> {
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw new PhysicsInputError({
+      code: value === undefined ? 'missing-field' : 'wrong-type',
+      field,
+      value,
+      allowed: 'an object',
+    });
+  }
+  return value as Record<string, unknown>;
+}
+
+function rejectUnknown(object: Record<string, unknown>, field: string, known: readonly string[]): void {
+  for (const key of Object.keys(object)) {
+    if (!known.includes(key)) {
+      throw new PhysicsInputError({
+        code: 'unknown-field',
+        field: field === '' ? key : `${field}.${key}`,
+        value: object[key],
+        allowed: known.join(', '),
+      });
+    }
+  }
+}
+
+function checkInteger(field: string, value: unknown, range: { min: number; max: number; text: string }): number {
+  const n = checkNumber(field, value, range);
+  if (!Number.isInteger(n)) throw new PhysicsInputError({ code: 'out-of-range', field, value, allowed: range.text });
+  return n;
+}
+
+/** Validate and type an untrusted analysis request. */
+export function validateAnalysisRequest(json: unknown): AnalysisRequest {
+  const root = asObject(json, '(request)');
+  rejectUnknown(root, '', ['site', 'air', 'specimen', 'drops', 'timing', 'uncertainty', 'options']);
+
+  const siteObject = asObject(root['site'], 'site');
+  rejectUnknown(siteObject, 'site', ['latitude_deg', 'elevation_m', 'gravity_m_s2']);
+  const site = siteObject as SiteInput;
+  localGravity(site);
+  if (site.elevation_m !== undefined) checkNumber('site.elevation_m', site.elevation_m, { min: -500, max: 9000, text: '-500 to 9000 m' });
+
+  const airObject = asObject(root['air'], 'air');
+  rejectUnknown(airObject, 'air', [
+    'temperature_C',
+    'pressure_Pa',
+    'pressure_reference',
+    'relative_humidity_pct',
+    'dew_point_C',
+    'co2_mole_fraction',
+    'density_kg_m3',
+  ]);
+  const air = airObject as unknown as AirInput;
+  airProperties(air, site.elevation_m);
+
+  const specimen = checkSpecimen(root['specimen']);
+
+  const dropsValue = root['drops'];
+  if (!Array.isArray(dropsValue)) {
+    throw new PhysicsInputError({
+      code: dropsValue === undefined ? 'missing-field' : 'wrong-type',
+      field: 'drops',
+      value: dropsValue,
+      allowed: `an array of { "height_m", "time_s" }, ${DROP_LIMITS.count.text}`,
+    });
+  }
+  if (dropsValue.length < DROP_LIMITS.count.min || dropsValue.length > DROP_LIMITS.count.max) {
+    throw new PhysicsInputError({ code: 'out-of-range', field: 'drops', value: `${dropsValue.length} drops`, allowed: DROP_LIMITS.count.text });
+  }
+  const drops: DropInput[] = dropsValue.map((d, i) => {
+    const field = `drops[${i}]`;
+    const drop = asObject(d, field);
+    rejectUnknown(drop, field, ['height_m', 'time_s']);
+    return {
+      height_m: checkNumber(`${field}.height_m`, drop['height_m'], DROP_LIMITS.height_m),
+      time_s: checkNumber(`${field}.time_s`, drop['time_s'], DROP_LIMITS.time_s),
+    };
+  });
+
+  const timingObject = asObject(root['timing'], 'timing');
+  rejectUnknown(timingObject, 'timing', ['standard_uncertainty_s', 'offset']);
+  const timing: TimingInput = {
+    standard_uncertainty_s: checkNumber('timing.standard_uncertainty_s', timingObject['standard_uncertainty_s'], DROP_LIMITS.standard_uncertainty_s),
+  };
+  const offset = timingObject['offset'];
+  if (offset !== undefined) {
+    if (offset !== 'none' && offset !== 'fit') {
+      throw new PhysicsInputError({ code: 'out-of-range', field: 'timing.offset', value: offset, allowed: '"none" or "fit"' });
+    }
+    timing.offset = offset;
+    if (offset === 'fit') {
+      const distinct = new Set(drops.map((d) => d.height_m)).size;
+      if (distinct < 3) {
+        throw new PhysicsInputError({
+          code: 'offset-needs-three-heights',
+          field: 'timing.offset',
+          value: offset,
+          allowed: `"none", or "fit" with drops from at least 3 distinct heights (these drops have ${distinct})`,
+        });
+      }
+    }
+  }
+
+  const request: AnalysisRequest = { site, air, specimen: specimen.input, drops, timing };
+
+  if (root['uncertainty'] !== undefined) {
+    const u = asObject(root['uncertainty'], 'uncertainty');
+    const allowed: string[] = ['height_m', 'mass_kg', ...SHAPE_DIMENSIONS[specimen.input.shape]];
+    if (air.density_kg_m3 !== undefined) allowed.push('density_kg_m3');
+    allowed.push('temperature_C');
+    if (air.pressure_Pa !== undefined) allowed.push('pressure_Pa');
+    if (air.relative_humidity_pct !== undefined) allowed.push('relative_humidity_pct');
+    if (air.dew_point_C !== undefined) allowed.push('dew_point_C');
+    allowed.push('gravity_m_s2');
+    rejectUnknown(u, 'uncertainty', allowed);
+    const uncertainty: UncertaintyInput = {};
+    for (const key of Object.keys(u) as (keyof UncertaintyInput)[]) {
+      const limit = UNCERTAINTY_LIMITS[key];
+      uncertainty[key] = checkNumber(`uncertainty.${key}`, u[key], { min: 0, max: limit.max, text: limit.text });
+    }
+    request.uncertainty = uncertainty;
+  }
+
+  if (root['options'] !== undefined) {
+    const o = asObject(root['options'], 'options');
+    rejectUnknown(o, 'options', ['buoyancy', 'added_mass_coefficient', 'monte_carlo_draws', 'seed']);
+    const options: AnalysisOptions = {};
+    if (o['buoyancy'] !== undefined) {
+      if (typeof o['buoyancy'] !== 'boolean') {
+        throw new PhysicsInputError({ code: 'wrong-type', field: 'options.buoyancy', value: o['buoyancy'], allowed: 'true or false' });
+      }
+      options.buoyancy = o['buoyancy'];
+    }
+    const ca = checkOptionalNumber('options.added_mass_coefficient', o['added_mass_coefficient'], OPTION_LIMITS.added_mass_coefficient);
+    if (ca !== undefined) options.added_mass_coefficient = ca;
+    if (o['monte_carlo_draws'] !== undefined) {
+      options.monte_carlo_draws = checkInteger('options.monte_carlo_draws', o['monte_carlo_draws'], OPTION_LIMITS.monte_carlo_draws);
+    }
+    if (o['seed'] !== undefined) options.seed = checkInteger('options.seed', o['seed'], OPTION_LIMITS.seed);
+    request.options = options;
+  }
+  return request;
+}
