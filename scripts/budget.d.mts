@@ -1,0 +1,5 @@
+export const BUDGETS: { initialJsGzip: number; cssGzip: number; precache: number };
+export function measure(
+  dist: string,
+  budgets?: Partial<typeof BUDGETS>,
+): { figures: typeof BUDGETS; over: string[]; files: { initialJs: string[]; styles: string[]; precached: string[] } };

@@ -1,0 +1,193 @@
+/**
+ * The record model of a test log: the one place where the shape of every stored and exported record is defined.
+ *
+ * Field names are the names the records carry at every edge (IndexedDB, the JSON log file, CSV headers):
+ * snake_case with the unit in the name, SI throughout. A standard uncertainty of a quantity `x_unit` is
+ * `u_x_unit` (GUM, JCGM 100:2008, 2.3.1: one standard deviation).
+ */
+
+/** The kinds of record a log holds. */
+export type RecordKind = 'site' | 'specimen' | 'day' | 'reading' | 'series' | 'drop';
+
+/** ISO 8601 instant in UTC, e.g. "2026-06-14T09:12:03.412Z". */
+export type IsoInstant = string;
+/** Calendar date, "YYYY-MM-DD". */
+export type IsoDate = string;
+
+/**
+ * One earlier version of a record, kept in its history when the record is edited.
+ * `body` is the record's fields as they were (without the envelope and without the history itself).
+ */
+export interface Revision<B> {
+  rev: string;
+  device: string;
+  updated_at: IsoInstant;
+  /** Why this version was replaced; required when a measured value or an exclusion changed. */
+  reason: string | null;
+  deleted: boolean;
+  body: B;
+}
+
+/**
+ * What every record carries besides its own fields.
+ * `rev` is a hybrid logical clock stamp (see hlc.ts); the higher stamp is the newer revision everywhere.
+ */
+export interface Envelope<K extends RecordKind, B> {
+  id: string;
+  kind: K;
+  created_at: IsoInstant;
+  updated_at: IsoInstant;
+  rev: string;
+  device: string;
+  /** A deleted record stays as a tombstone so the deletion travels to other phones. */
+  deleted: boolean;
+  /** Previous versions, oldest first. */
+  history: Revision<B>[];
+}
+
+export type PressureReference = 'station' | 'sea_level';
+
+export interface SiteBody {
+  name: string;
+  latitude_deg: number;
+  longitude_deg: number;
+  elevation_m: number;
+  /** Where the elevation came from: GPS elevation is rough, a surveyed or map value is better. */
+  elevation_source: 'survey' | 'map' | 'gps' | 'other';
+  notes: string;
+}
+
+export type SpecimenShape =
+  | { kind: 'sphere'; diameter_m: number; u_diameter_m: number }
+  /** A cylinder falling with its axis vertical. */
+  | { kind: 'cylinder'; diameter_m: number; u_diameter_m: number; length_m: number; u_length_m: number }
+  /** A flat disc falling face down. */
+  | { kind: 'disc'; diameter_m: number; u_diameter_m: number; thickness_m: number; u_thickness_m: number }
+  /** A box falling with its length × width face down. */
+  | {
+      kind: 'box';
+      length_m: number;
+      u_length_m: number;
+      width_m: number;
+      u_width_m: number;
+      height_m: number;
+      u_height_m: number;
+    }
+  /** Any other body: its frontal area and its volume given directly. */
+  | { kind: 'custom'; area_m2: number; u_area_m2: number; volume_m3: number; u_volume_m3: number };
+
+export type ShapeKind = SpecimenShape['kind'];
+
+export interface SpecimenBody {
+  name: string;
+  mass_kg: number;
+  u_mass_kg: number;
+  shape: SpecimenShape;
+  /** A drag coefficient known from elsewhere (a handbook, a wind tunnel); used to predict fall times. */
+  reference_drag_coefficient: number | null;
+  notes: string;
+}
+
+export interface DayBody {
+  site_id: string;
+  date: IsoDate;
+  crew: string[];
+  notes: string;
+}
+
+export type Humidity =
+  | { kind: 'relative'; relative_humidity_pct: number; u_relative_humidity_pct: number }
+  | { kind: 'dew_point'; dew_point_C: number; u_dew_point_C: number };
+
+export interface ReadingBody {
+  day_id: string;
+  taken_at: IsoInstant;
+  temperature_C: number;
+  u_temperature_C: number;
+  pressure_Pa: number;
+  u_pressure_Pa: number;
+  pressure_reference: PressureReference;
+  humidity: Humidity;
+  wind_speed_m_s: number | null;
+  instrument: string;
+  notes: string;
+}
+
+export type HeightMethod = 'tape' | 'laser' | 'survey' | 'marked' | 'other';
+export type TimingMethod = 'typed' | 'stopwatch' | 'tap' | 'sound' | 'video' | 'gates';
+
+export interface SeriesBody {
+  day_id: string;
+  specimen_id: string;
+  /** The release height above the landing surface. A drop may override it (a series over several heights). */
+  height_m: number;
+  u_height_m: number;
+  height_method: HeightMethod;
+  timing_method: TimingMethod;
+  /** Standard uncertainty of one drop's time from random causes. */
+  u_time_s: number;
+  /** Relative standard uncertainty of C_d the crew aims for (0.05 = 5 %). */
+  target_relative_uncertainty: number;
+  /** The air reading the analysis uses; null means the reading nearest in time to the series start. */
+  reading_id: string | null;
+  /** Fit a constant start/stop delay together with C_d (needs at least three distinct heights). */
+  timing_offset: 'none' | 'fit';
+  started_at: IsoInstant;
+  notes: string;
+}
+
+/** A capture exactly as it came from the phone or the keyboard; never overwritten. */
+export type RawCapture =
+  | { kind: 'typed'; text: string }
+  /** Release and impact taps, milliseconds on the page's monotonic clock. */
+  | { kind: 'taps'; timestamps_ms: number[] }
+  /** Detected sound onsets in seconds from the start of the recording. */
+  | { kind: 'sound'; onsets_s: number[]; sample_rate_Hz: number }
+  /** Video frame numbers of release and impact. */
+  | { kind: 'frames'; frames: number[]; frame_rate_Hz: number };
+
+export interface DropBody {
+  series_id: string;
+  /** 1, 2, 3… in the order the drops were made. */
+  seq: number;
+  raw: RawCapture;
+  /** The fall time derived from the raw capture. */
+  time_s: number;
+  /** Overrides the series' release height for this drop; null means the series height. */
+  height_m: number | null;
+  excluded: boolean;
+  exclusion_reason: string | null;
+  note: string;
+  captured_at: IsoInstant;
+}
+
+export type SiteRecord = Envelope<'site', SiteBody> & SiteBody;
+export type SpecimenRecord = Envelope<'specimen', SpecimenBody> & SpecimenBody;
+export type DayRecord = Envelope<'day', DayBody> & DayBody;
+export type ReadingRecord = Envelope<'reading', ReadingBody> & ReadingBody;
+export type SeriesRecord = Envelope<'series', SeriesBody> & SeriesBody;
+export type DropRecord = Envelope<'drop', DropBody> & DropBody;
+
+export type LogRecord = SiteRecord | SpecimenRecord | DayRecord | ReadingRecord | SeriesRecord | DropRecord;
+
+/** The body type of each kind, for generic code. */
+export interface BodyOf {
+  site: SiteBody;
+  specimen: SpecimenBody;
+  day: DayBody;
+  reading: ReadingBody;
+  series: SeriesBody;
+  drop: DropBody;
+}
+
+/** The record type of each kind, for generic code. */
+export interface RecordOf {
+  site: SiteRecord;
+  specimen: SpecimenRecord;
+  day: DayRecord;
+  reading: ReadingRecord;
+  series: SeriesRecord;
+  drop: DropRecord;
+}
+
+export const RECORD_KINDS: readonly RecordKind[] = ['site', 'specimen', 'day', 'reading', 'series', 'drop'];

@@ -1,0 +1,61 @@
+import { useEffect, useState } from 'preact/hooks';
+import { Nav } from './Nav';
+import { UpdateNotice } from './UpdateNotice';
+import { routeHref, useRoute, type ScreenName } from './router';
+import type { UpdateHandle } from './service-worker';
+import { DayScreen } from './screens/DayScreen';
+import { PlanScreen } from './screens/PlanScreen';
+import { SpecimensScreen } from './screens/SpecimensScreen';
+import { LogScreen } from './screens/LogScreen';
+import { SendScreen } from './screens/SendScreen';
+import { SettingsScreen } from './screens/SettingsScreen';
+
+const TITLES: Record<ScreenName, string> = {
+  day: 'Test day',
+  plan: 'Planner',
+  specimens: 'Specimens',
+  log: 'Log',
+  send: 'Send to the office',
+  settings: 'Settings',
+};
+
+export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) => void): void } }) {
+  const route = useRoute();
+  const [update, setUpdate] = useState<UpdateHandle | null>(null);
+  useEffect(() => updates.subscribe(setUpdate), [updates]);
+  useEffect(() => {
+    document.title = `${TITLES[route.screen]} · Plummet`;
+  }, [route.screen]);
+
+  return (
+    <div class="shell">
+      <header class="topbar">
+        <a class="brand" href={routeHref('day')}>
+          <img src="/icons/icon.svg" alt="" width="28" height="28" />
+          <span>Plummet</span>
+        </a>
+        <h1 class="screen-title">{TITLES[route.screen]}</h1>
+        <a
+          class={`settings-link ${route.screen === 'settings' ? 'tab-on' : ''}`}
+          href={routeHref('settings')}
+          aria-label="Settings"
+          aria-current={route.screen === 'settings' ? 'page' : undefined}
+        >
+          <svg viewBox="0 0 24 24" width="26" height="26" aria-hidden="true">
+            <path d="M12 8.5a3.5 3.5 0 1 1 0 7a3.5 3.5 0 1 1 0-7zM12 2v3M12 19v3M2 12h3M19 12h3M4.9 4.9l2.1 2.1M17 17l2.1 2.1M4.9 19.1L7 17M17 7l2.1-2.1" />
+          </svg>
+        </a>
+      </header>
+      <main id="main" class="screen">
+        {route.screen === 'day' && <DayScreen params={route.params} />}
+        {route.screen === 'plan' && <PlanScreen />}
+        {route.screen === 'specimens' && <SpecimensScreen params={route.params} />}
+        {route.screen === 'log' && <LogScreen />}
+        {route.screen === 'send' && <SendScreen />}
+        {route.screen === 'settings' && <SettingsScreen />}
+      </main>
+      {update ? <UpdateNotice update={update} onDismiss={() => setUpdate(null)} /> : null}
+      <Nav current={route.screen} unsent={0} />
+    </div>
+  );
+}

@@ -1,0 +1,30 @@
+import { Workbox } from 'workbox-window';
+
+export interface UpdateHandle {
+  /** Switch to the waiting version: the worker takes over and the page reloads once it controls it. */
+  apply(): void;
+}
+
+/**
+ * Registers the service worker with workbox-window. `onUpdateReady` is called when a new version has
+ * installed and waits; nothing switches until `apply()` is called (the user tapped the notice).
+ * Development builds skip registration (the dev server has no precache manifest).
+ */
+export function registerServiceWorker(onUpdateReady: (update: UpdateHandle) => void): Workbox | null {
+  if (import.meta.env.DEV || !('serviceWorker' in navigator)) return null;
+  const wb = new Workbox(`${import.meta.env.BASE_URL}sw.js`);
+  wb.addEventListener('waiting', () => {
+    onUpdateReady({
+      apply() {
+        wb.addEventListener('controlling', () => window.location.reload());
+        wb.messageSkipWaiting();
+      },
+    });
+  });
+  wb.addEventListener('message', (event) => {
+    const data = event.data as { type?: string } | null;
+    if (data?.type === 'SYNC_NOW') window.dispatchEvent(new CustomEvent('plummet-sync-now'));
+  });
+  void wb.register();
+  return wb;
+}

@@ -1,0 +1,17 @@
+// Lets Preact screens use the Lit widgets as JSX elements with typed properties.
+// Preact treats any prop starting with "on" as an event listener, so no widget property starts with "on".
+import type { HTMLAttributes } from 'preact';
+import type { QuantityInput } from './quantity-input';
+
+type WidgetProps<E, P extends keyof E> = Omit<HTMLAttributes<E>, 'value' | 'label' | 'min' | 'max'> & Partial<Pick<E, P>>;
+
+declare module 'preact' {
+  namespace JSX {
+    interface IntrinsicElements {
+      'pl-quantity': WidgetProps<
+        QuantityInput,
+        'label' | 'quantity' | 'unit' | 'value' | 'text' | 'min' | 'max' | 'minExclusive' | 'required' | 'delta' | 'hint' | 'decimalComma' | 'compact'
+      > & { 'onquantity-change'?: (event: CustomEvent) => void };
+    }
+  }
+}

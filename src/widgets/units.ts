@@ -1,0 +1,175 @@
+/**
+ * Display units for each kind of quantity. Stored values are always SI; these convert at the screen's edge.
+ * Factors are exact by definition (international foot, inch and pound, 1959) except the conventional
+ * inch and millimetre of mercury (NIST SP 811, appendix B.8: 3386.389 Pa and 133.3224 Pa).
+ */
+
+export type QuantityKind =
+  | 'length'
+  | 'smallLength'
+  | 'temperature'
+  | 'pressure'
+  | 'mass'
+  | 'time'
+  | 'speed'
+  | 'energy'
+  | 'density'
+  | 'area'
+  | 'volume'
+  | 'percent'
+  | 'angle'
+  | 'ratio';
+
+export interface UnitDef {
+  /** Symbol shown after the number. */
+  symbol: string;
+  /** Spoken and written name, for screen readers and messages. */
+  name: string;
+  /** SI value of one unit. */
+  scale: number;
+  /** SI value of the unit's zero (temperatures only). */
+  offset?: number;
+  /** Decimal places that suit the usual readings in this unit. */
+  decimals: number;
+}
+
+export const UNITS: Record<QuantityKind, readonly UnitDef[]> = {
+  length: [
+    { symbol: 'm', name: 'metres', scale: 1, decimals: 3 },
+    { symbol: 'ft', name: 'feet', scale: 0.3048, decimals: 2 },
+  ],
+  smallLength: [
+    { symbol: 'mm', name: 'millimetres', scale: 1e-3, decimals: 2 },
+    { symbol: 'in', name: 'inches', scale: 0.0254, decimals: 3 },
+  ],
+  temperature: [
+    { symbol: '°C', name: 'degrees Celsius', scale: 1, decimals: 1 },
+    { symbol: '°F', name: 'degrees Fahrenheit', scale: 5 / 9, offset: -32 * (5 / 9), decimals: 1 },
+  ],
+  pressure: [
+    { symbol: 'hPa', name: 'hectopascals', scale: 100, decimals: 1 },
+    { symbol: 'kPa', name: 'kilopascals', scale: 1000, decimals: 2 },
+    { symbol: 'inHg', name: 'inches of mercury', scale: 3386.389, decimals: 2 },
+    { symbol: 'mmHg', name: 'millimetres of mercury', scale: 133.322387415, decimals: 1 },
+  ],
+  mass: [
+    { symbol: 'g', name: 'grams', scale: 1e-3, decimals: 1 },
+    { symbol: 'kg', name: 'kilograms', scale: 1, decimals: 4 },
+    { symbol: 'oz', name: 'ounces', scale: 0.45359237 / 16, decimals: 2 },
+    { symbol: 'lb', name: 'pounds', scale: 0.45359237, decimals: 3 },
+  ],
+  time: [{ symbol: 's', name: 'seconds', scale: 1, decimals: 3 }],
+  speed: [
+    { symbol: 'm/s', name: 'metres per second', scale: 1, decimals: 2 },
+    { symbol: 'ft/s', name: 'feet per second', scale: 0.3048, decimals: 1 },
+  ],
+  energy: [
+    { symbol: 'J', name: 'joules', scale: 1, decimals: 1 },
+    { symbol: 'ft·lbf', name: 'foot-pounds', scale: 1.3558179483314004, decimals: 1 },
+  ],
+  density: [{ symbol: 'kg/m³', name: 'kilograms per cubic metre', scale: 1, decimals: 4 }],
+  area: [
+    { symbol: 'cm²', name: 'square centimetres', scale: 1e-4, decimals: 2 },
+    { symbol: 'in²', name: 'square inches', scale: 0.0254 ** 2, decimals: 2 },
+  ],
+  volume: [
+    { symbol: 'cm³', name: 'cubic centimetres', scale: 1e-6, decimals: 1 },
+    { symbol: 'in³', name: 'cubic inches', scale: 0.0254 ** 3, decimals: 2 },
+  ],
+  percent: [{ symbol: '%', name: 'percent', scale: 1, decimals: 1 }],
+  angle: [{ symbol: '°', name: 'degrees', scale: 1, decimals: 5 }],
+  ratio: [{ symbol: '', name: '', scale: 1, decimals: 3 }],
+};
+
+/** Which unit each kind shows when nothing is chosen. */
+export const DEFAULT_UNITS: Record<QuantityKind, string> = {
+  length: 'm',
+  smallLength: 'mm',
+  temperature: '°C',
+  pressure: 'hPa',
+  mass: 'g',
+  time: 's',
+  speed: 'm/s',
+  energy: 'J',
+  density: 'kg/m³',
+  area: 'cm²',
+  volume: 'cm³',
+  percent: '%',
+  angle: '°',
+  ratio: '',
+};
+
+/** The quantities whose unit the settings screen lets the crew choose. */
+export const CHOOSABLE: readonly QuantityKind[] = [
+  'length',
+  'smallLength',
+  'temperature',
+  'pressure',
+  'mass',
+  'speed',
+  'energy',
+  'area',
+  'volume',
+];
+
+export type UnitChoice = Partial<Record<QuantityKind, string>>;
+
+export function unitFor(kind: QuantityKind, symbol?: string): UnitDef {
+  const list = UNITS[kind];
+  return list.find((u) => u.symbol === (symbol ?? DEFAULT_UNITS[kind])) ?? list[0]!;
+}
+
+/** A reading in the display unit to SI. */
+export function toSI(value: number, unit: UnitDef): number {
+  return value * unit.scale + (unit.offset ?? 0);
+}
+
+/** An SI value to the display unit. */
+export function fromSI(value: number, unit: UnitDef): number {
+  return (value - (unit.offset ?? 0)) / unit.scale;
+}
+
+/** A difference or an uncertainty: scale only, never the offset (1 °C of uncertainty is 1.8 °F, not 33.8). */
+export function deltaToSI(value: number, unit: UnitDef): number {
+  return value * unit.scale;
+}
+
+export function deltaFromSI(value: number, unit: UnitDef): number {
+  return value / unit.scale;
+}
+
+/**
+ * Reads a number as typed on a phone: a decimal point or a decimal comma (where the locale uses it),
+ * a leading minus or the typographic minus sign, surrounding spaces. Returns null for anything else.
+ */
+export function parseDecimal(text: string): number | null {
+  let t = text.trim().replace(/\u2212/g, '-').replace(/\s+/g, '');
+  if (t === '') return null;
+  if (t.includes(',')) {
+    if (t.includes('.') || t.indexOf(',') !== t.lastIndexOf(',')) return null;
+    t = t.replace(',', '.');
+  }
+  if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(t)) return null;
+  const v = Number(t);
+  return Number.isFinite(v) ? v : null;
+}
+
+/** Formats a display value with the unit's usual decimals, using a decimal comma when asked. */
+export function formatNumber(value: number, decimals: number, decimalComma = false): string {
+  if (!Number.isFinite(value)) return '—';
+  const text = value.toFixed(decimals).replace(/^-(0\.?0*)$/, '$1');
+  return decimalComma ? text.replace('.', ',') : text;
+}
+
+/** "12.34 m" style text for an SI value in the chosen unit. */
+export function formatQuantity(
+  valueSI: number | null | undefined,
+  kind: QuantityKind,
+  choice: UnitChoice = {},
+  options: { decimals?: number; decimalComma?: boolean } = {},
+): string {
+  if (valueSI === null || valueSI === undefined || !Number.isFinite(valueSI)) return '—';
+  const unit = unitFor(kind, choice[kind]);
+  const text = formatNumber(fromSI(valueSI, unit), options.decimals ?? unit.decimals, options.decimalComma);
+  return unit.symbol ? `${text} ${unit.symbol}` : text;
+}

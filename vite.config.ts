@@ -1,0 +1,82 @@
+import { defineConfig } from 'vitest/config';
+import preact from '@preact/preset-vite';
+import { VitePWA } from 'vite-plugin-pwa';
+import { readFileSync } from 'node:fs';
+
+const pkg = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string };
+
+// PLUMMET_BUILD_ID lets the browser tests produce two builds that differ, to exercise the update notice.
+const buildId = process.env.PLUMMET_BUILD_ID ?? pkg.version;
+
+export default defineConfig({
+  define: {
+    __APP_VERSION__: JSON.stringify(pkg.version),
+    __BUILD_ID__: JSON.stringify(buildId),
+    __DEV_CHECKS__: JSON.stringify(process.env.NODE_ENV !== 'production'),
+  },
+  plugins: [
+    preact(),
+    VitePWA({
+      strategies: 'injectManifest',
+      srcDir: 'sw',
+      filename: 'sw.ts',
+      injectRegister: false,
+      // The web manifest and icons are added to the precache by the plugin itself;
+      // a wider glob would list them twice.
+      injectManifest: { globPatterns: ['**/*.{js,css,html}'], rollupFormat: 'iife', minify: true },
+      includeAssets: ['icons/icon.svg', 'robots.txt', 'schema/*.json'],
+      manifest: {
+        name: 'Plummet field log',
+        short_name: 'Plummet',
+        description: 'Log timed drop tests offline and compute air density and the effective drag coefficient on the phone.',
+        id: '/',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        orientation: 'portrait',
+        theme_color: '#0b3d2e',
+        background_color: '#f7f5ee',
+        lang: 'en',
+        categories: ['utilities', 'productivity'],
+        icons: [
+          { src: 'icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+          { src: 'icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+          { src: 'icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+          { src: 'icons/icon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' },
+        ],
+      },
+      devOptions: { enabled: false },
+    }),
+  ],
+  build: {
+    target: 'es2022',
+    sourcemap: false,
+    reportCompressedSize: false,
+  },
+  preview: { host: '127.0.0.1', port: 4173, strictPort: true },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          include: ['test/**/*.test.{ts,tsx}'],
+          exclude: ['test/browser/**', 'node_modules/**'],
+          environment: 'node',
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'browser',
+          include: ['test/browser/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['test/browser/global-setup.ts'],
+          fileParallelism: false,
+          testTimeout: 90_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+});
