@@ -71,7 +71,8 @@ export function fallParameters(body: FallBody): FallParameters {
   }
   const effectiveMass = body.mass_kg + Ca * displaced;
   return {
-    effective_gravity_m_s2: (body.gravity_m_s2 * weightMass) / effectiveMass,
+    // The ratio first: it is exactly 1 without buoyancy and added mass, so g_e is exactly g.
+    effective_gravity_m_s2: body.gravity_m_s2 * (weightMass / effectiveMass),
     drag_constant_per_m: (body.density_kg_m3 * body.drag_coefficient * body.area_m2) / (2 * effectiveMass),
     effective_mass_kg: effectiveMass,
   };

@@ -130,7 +130,7 @@ export class SeriesModel {
     const m = x[L.mass_kg]!;
     const displaced = rho * geometry.volume_m3;
     const effectiveMass = m + Ca * displaced;
-    const effectiveGravity = (x[L.gravity_m_s2]! * (m - (this.setup.buoyancy ? displaced : 0))) / effectiveMass;
+    const effectiveGravity = x[L.gravity_m_s2]! * ((m - (this.setup.buoyancy ? displaced : 0)) / effectiveMass);
     this.lastDensity = rho;
     this.lastEffectiveGravity = effectiveGravity;
     this.lastEffectiveMass = effectiveMass;
