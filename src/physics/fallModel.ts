@@ -22,8 +22,8 @@
  *   v(t) = g_e·t·tanh(s)/s
  *   v(h) = √(2·g_e·h·R(2kh)), R(y) = −expm1(−y)/y
  *
- * with Taylor series near zero (coefficients derived symbolically and checked against the
- * direct forms) and ln cosh(s) = s − ln 2 + log1p(e^{−2s}) for large s. No step takes an
+ * with Taylor series near zero (coefficients derived symbolically, checked against the closed
+ * forms where both are accurate) and ln cosh(s) = s − ln 2 + log1p(e^{−2s}) for large s. No step takes an
  * exponential of a growing argument, so a 10 km fall of a feather is as safe as a short one.
  *
  * The fit also needs Φ for small negative x: the same ODE with the drag sign reversed gives
@@ -78,40 +78,89 @@ export function fallParameters(body: FallBody): FallParameters {
   };
 }
 
+/** Below this, distance and speed use their own short series (their closed forms cancel there). */
 const SERIES_LIMIT = 2e-3;
+
+/**
+ * Taylor coefficients of Φ(x) = arccosh(e^x)/√(2x) about 0 (exact rationals, derived with a
+ * computer-algebra system from w² = arccosh(e^x)², which is analytic). Φ's nearest singularity
+ * is at x = ±iπ, so at |x| ≤ ½ the first omitted term is below 3e-20: the series is exact to
+ * rounding there, and cheaper than the exponentials and logarithms of the closed form.
+ */
+const PHI_SERIES = [
+  1,
+  1 / 6,
+  1 / 120,
+  -1 / 336,
+  -1 / 5760,
+  19 / 126720,
+  79 / 12579840,
+  -11 / 1161216,
+  -2339 / 7896268800,
+  11813 / 17650483200,
+  677 / 40874803200,
+  -2117 / 41783132160,
+  -308963 / 297568567296000,
+  64604977 / 16068702633984000,
+  131301607 / 1863969505542144000,
+  -263101079 / 797007650645606400,
+  -5614643 / 1110015775604736000,
+  1768132943 / 63573630784634880000,
+  46949081169401 / 123886951488110544814080000,
+  -9606907803497 / 4017955183398179831808000,
+];
+const PHI_SERIES_LIMIT = 0.5;
+
+const phiScratch = new Float64Array(2);
 
 /**
  * Φ(x) = t(h)/t_0(h) with x = k·h: the fall time over the drag-free time √(2h/g_e).
  * Φ(0) = 1, increasing in x; defined for every real x (x < 0 is the continuation used by fits).
  */
 export function fallTimeFactor(x: number): number {
-  if (Math.abs(x) < SERIES_LIMIT) {
-    // Φ = 1 + x/6 + x²/120 − x³/336 − x⁴/5760 + 19x⁵/126720 + O(x⁶)
-    return 1 + x * (1 / 6 + x * (1 / 120 + x * (-1 / 336 + x * (-1 / 5760 + x * (19 / 126720)))));
-  }
-  if (x > 0) {
-    const w = x + Math.log1p(Math.sqrt(-Math.expm1(-2 * x)));
-    return w / Math.sqrt(2 * x);
-  }
-  const q = -x;
-  const u = -Math.expm1(-q); // 1 − e^{−q}
-  const arccos = 2 * Math.asin(Math.sqrt(u / 2)); // arccos(1 − u) without cancellation
-  return arccos / Math.sqrt(2 * q);
+  fallTimeFactorWithDerivative(x, phiScratch);
+  return phiScratch[0]!;
 }
 
 /** dΦ/dx, for Newton steps and sensitivities. */
 export function fallTimeFactorDerivative(x: number): number {
-  if (Math.abs(x) < SERIES_LIMIT) {
-    return 1 / 6 + x * (1 / 60 + x * (-1 / 112 + x * (-1 / 1440 + x * (19 / 25344))));
+  fallTimeFactorWithDerivative(x, phiScratch);
+  return phiScratch[1]!;
+}
+
+/**
+ * Φ(x) and Φ′(x) together, sharing their exponentials and roots (the fits call this in their
+ * inner loops): writes Φ to out[0] and Φ′ to out[1].
+ */
+export function fallTimeFactorWithDerivative(x: number, out: Float64Array): void {
+  if (Math.abs(x) < PHI_SERIES_LIMIT) {
+    // Horner for Φ and Φ′ at once.
+    const n = PHI_SERIES.length - 1;
+    let value = PHI_SERIES[n]!;
+    let derivative = 0;
+    for (let i = n - 1; i >= 0; i--) {
+      derivative = derivative * x + value;
+      value = value * x + PHI_SERIES[i]!;
+    }
+    out[0] = value;
+    out[1] = derivative;
+    return;
   }
   if (x > 0) {
-    const w = x + Math.log1p(Math.sqrt(-Math.expm1(-2 * x)));
-    return (1 / Math.sqrt(-Math.expm1(-2 * x)) - w / (2 * x)) / Math.sqrt(2 * x);
+    const oneMinus = -Math.expm1(-2 * x);
+    const root = Math.sqrt(oneMinus);
+    const w = x + Math.log1p(root);
+    const r2x = Math.sqrt(2 * x);
+    out[0] = w / r2x;
+    out[1] = (1 / root - w / (2 * x)) / r2x;
+    return;
   }
   const q = -x;
   const u = -Math.expm1(-q);
   const arccos = 2 * Math.asin(Math.sqrt(u / 2));
-  return (arccos / (2 * q) - 1 / Math.sqrt(Math.expm1(2 * q))) / Math.sqrt(2 * q);
+  const r2q = Math.sqrt(2 * q);
+  out[0] = arccos / r2q;
+  out[1] = (arccos / (2 * q) - 1 / Math.sqrt(Math.expm1(2 * q))) / r2q;
 }
 
 /** Time to fall `height_m` from rest. */

@@ -13,7 +13,7 @@
  * Every path is bracketed and counted, so it always ends: with a value, or with a status that
  * says why there is none (a mean time below any drag-free fall, or one no finite drag reaches).
  */
-import { fallTimeFactor, fallTimeFactorDerivative } from './fallModel';
+import { fallTimeFactor, fallTimeFactorWithDerivative } from './fallModel';
 
 /** Lowest k·h searched: Φ(−20) ≈ 0.25, i.e. times down to a quarter of the drag-free time. */
 export const MIN_DRAG_X = -20;
@@ -34,28 +34,37 @@ export interface DragFit {
  * Returns NaN-free results: the bound itself with a status when the target is outside.
  */
 export function solveFallTimeFactor(target: number, x0?: number): { x: number; status: DragFitStatus; iterations: number } {
-  if (!(target > fallTimeFactor(MIN_DRAG_X))) return { x: MIN_DRAG_X, status: 'faster-than-free-fall', iterations: 0 };
-  if (!(target < fallTimeFactor(MAX_DRAG_X))) return { x: MAX_DRAG_X, status: 'drag-unexplained', iterations: 0 };
+  if (!(target > PHI_AT_MIN)) return { x: MIN_DRAG_X, status: 'faster-than-free-fall', iterations: 0 };
+  if (!(target < PHI_AT_MAX)) return { x: MAX_DRAG_X, status: 'drag-unexplained', iterations: 0 };
   let lo = MIN_DRAG_X;
   let hi = MAX_DRAG_X;
   let x = x0 !== undefined && x0 > lo && x0 < hi ? x0 : initialGuess(target);
+  const phi = scratch;
   for (let i = 1; i <= 200; i++) {
-    const f = fallTimeFactor(x) - target;
+    fallTimeFactorWithDerivative(x, phi);
+    const f = phi[0]! - target;
     if (f === 0) return { x, status: 'ok', iterations: i };
     if (f < 0) lo = x;
     else hi = x;
-    let next = x - f / fallTimeFactorDerivative(x);
+    const step = f / phi[1]!;
+    let next = x - step;
     if (!(next > lo && next < hi)) {
       // Newton left the bracket: bisect (geometrically when the bracket spans decades).
       next = lo > 0 && hi / lo > 4 ? Math.sqrt(lo * hi) : 0.5 * (lo + hi);
-    }
-    if (Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) || hi - lo <= 1e-15 * Math.max(1, Math.abs(x))) {
+    } else if (Math.abs(step) <= 1e-7 * Math.max(Math.abs(x), 1e-6)) {
+      // Newton converges quadratically here: the error left after this step is about
+      // |Φ″/2Φ′|·step² ≤ 0.1·step², far below rounding, so no further evaluation is needed.
       return { x: next, status: 'ok', iterations: i };
     }
+    if (hi - lo <= 1e-15 * Math.max(1, Math.abs(x))) return { x: next, status: 'ok', iterations: i };
     x = next;
   }
   return { x, status: 'not-converged', iterations: 200 };
 }
+
+const scratch = new Float64Array(2);
+const PHI_AT_MIN = fallTimeFactor(MIN_DRAG_X);
+const PHI_AT_MAX = fallTimeFactor(MAX_DRAG_X);
 
 /** Starting point: Φ ≈ 1 + x/6 for small x, Φ ≈ (x + ln 2)/√(2x) for large x. */
 function initialGuess(target: number): number {
@@ -115,24 +124,26 @@ export function fitDragConstant(
   for (let j = 0; j < J; j++) scale[j] = Math.sqrt((2 * heights_m[j]!) / g);
   const model = new Float64Array(J);
   const slope = new Float64Array(J);
+  const phi = new Float64Array(2);
   let offset = 0;
   // Evaluate the (projected) residual sum of squares and the Gauss–Newton step at k.
   let S = 0;
   let step = 0;
   let maxSlope = 0;
+  let meanSlope = 0;
   const evaluate = (kk: number): boolean => {
     let sumR = 0;
     let sumD = 0;
     for (let j = 0; j < J; j++) {
       const h = heights_m[j]!;
-      const x = kk * h;
-      model[j] = scale[j]! * fallTimeFactor(x);
-      slope[j] = scale[j]! * h * fallTimeFactorDerivative(x);
+      fallTimeFactorWithDerivative(kk * h, phi);
+      model[j] = scale[j]! * phi[0]!;
+      slope[j] = scale[j]! * h * phi[1]!;
       sumR += counts[j]! * (meanTimes_s[j]! - model[j]!);
       sumD += counts[j]! * slope[j]!;
     }
     offset = fitOffset ? sumR / total : 0;
-    const meanSlope = fitOffset ? sumD / total : 0;
+    meanSlope = fitOffset ? sumD / total : 0;
     S = 0;
     let num = 0;
     let den = 0;
@@ -153,18 +164,17 @@ export function fitDragConstant(
 
   const boundStatus = (value: number): DragFitStatus =>
     value <= kLo ? 'faster-than-free-fall' : value >= kHi ? 'drag-unexplained' : 'ok';
-  const result = (status: DragFitStatus, kk: number, iterations: number): DragFit => {
-    evaluate(kk); // leaves δ consistent with the returned k
-    return { status, drag_constant_per_m: kk, offset_s: offset, iterations };
-  };
 
-  if (!evaluate(k)) return result('not-converged', k, 0);
+  if (!evaluate(k)) return { status: 'not-converged', drag_constant_per_m: k, offset_s: offset, iterations: 0 };
   for (let iteration = 1; iteration <= 200; iteration++) {
     const currentS = S;
-    let trialStep = step;
-    let next = Math.min(Math.max(k + trialStep, kLo), kHi);
-    trialStep = next - k;
-    if (Math.abs(trialStep) * maxSlope <= 1e-13 * timeScale) return result(boundStatus(next), next, iteration);
+    let next = Math.min(Math.max(k + step, kLo), kHi);
+    let trialStep = next - k;
+    if (Math.abs(trialStep) * maxSlope <= 1e-10 * timeScale) {
+      // The step moves no model time by more than 1e-10 of the longest: take it and stop. The
+      // offset follows the step to first order (∂δ/∂k is minus the weighted mean slope).
+      return { status: boundStatus(next), drag_constant_per_m: next, offset_s: offset - meanSlope * trialStep, iterations: iteration };
+    }
     // Accept the step if it does not increase S; otherwise halve it (at most 40 times).
     let accepted = false;
     for (let halving = 0; halving < 40; halving++) {
@@ -176,8 +186,11 @@ export function fitDragConstant(
       next = k + trialStep;
       if (Math.abs(trialStep) * maxSlope <= 1e-14 * timeScale) break;
     }
-    if (!accepted) return result(boundStatus(k), k, iteration);
+    if (!accepted) {
+      evaluate(k);
+      return { status: boundStatus(k), drag_constant_per_m: k, offset_s: offset, iterations: iteration };
+    }
     k = next;
   }
-  return result('not-converged', k, 200);
+  return { status: 'not-converged', drag_constant_per_m: k, offset_s: offset, iterations: 200 };
 }

@@ -184,14 +184,15 @@ describe('fallModel closed forms', () => {
 
 describe('fallTimeFactor Φ(kh) = t/√(2h/g)', () => {
   it('is smooth across the switch from its series to the closed form, on both sides of zero', () => {
-    for (const edge of [2e-3, -2e-3]) {
+    for (const edge of [0.5, -0.5]) {
       const xBelow = edge * (1 - 1e-9);
       const xAbove = edge * (1 + 1e-9);
       const jump = fallTimeFactor(xAbove) - fallTimeFactor(xBelow) - fallTimeFactorDerivative(edge) * (xAbove - xBelow);
-      expect(Math.abs(jump)).toBeLessThan(1e-15);
-      const dBelow = fallTimeFactorDerivative(edge * (1 - 1e-9));
-      const dAbove = fallTimeFactorDerivative(edge * (1 + 1e-9));
-      expect(Math.abs(dAbove / dBelow - 1)).toBeLessThan(1e-11);
+      expect(Math.abs(jump)).toBeLessThan(4e-16);
+      // Φ′ by its closed form loses about one digit to cancellation near x = ½.
+      const dBelow = fallTimeFactorDerivative(edge * (1 - 1e-13));
+      const dAbove = fallTimeFactorDerivative(edge * (1 + 1e-13));
+      expect(Math.abs(dAbove / dBelow - 1)).toBeLessThan(1e-13);
     }
   });
 
