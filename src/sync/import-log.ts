@@ -1,0 +1,55 @@
+/**
+ * Importing a log into the store: a preview first (added, updated, unchanged, conflicts), then one
+ * transaction. Used for a file picked by hand and for every file sync reads from the office folder.
+ *
+ * Apply reads the local records again and merges afresh, so an edit made while the preview was on screen is
+ * not overwritten: merging only ever adds versions, and the newest still wins. Conflicts found are added to
+ * the list kept in meta ('log_conflicts') after the records are written; were that second write lost, the
+ * losing versions would still be in the records' histories.
+ */
+import { readLogFile } from '../log/export-parse';
+import { addConflicts, openConflicts, previewMerge, type Conflict, type MergePreview } from '../log/merge';
+import type { LogFile } from '../log/export';
+import { SYNC_META, type RecordSource } from './record-source';
+
+export interface ImportPreview {
+  file: LogFile;
+  preview: MergePreview;
+}
+
+/** Reads and checks the text (throws LogFileError naming the field, value and rule), then previews the merge. */
+export async function previewImport(source: RecordSource, text: string): Promise<ImportPreview> {
+  const file = readLogFile(text);
+  const local = await source.allRecords({ includeDeleted: true });
+  return { file, preview: previewMerge(local, file.records) };
+}
+
+/** Merges the file into the store in one transaction; returns what was done. */
+export async function applyImport(source: RecordSource, file: LogFile): Promise<MergePreview> {
+  const local = await source.allRecords({ includeDeleted: true });
+  const preview = previewMerge(local, file.records);
+  if (preview.changes.length > 0) await source.putRecords(preview.changes);
+  if (preview.conflicts.length > 0) {
+    const existing = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];
+    await source.setMeta(SYNC_META.conflicts, addConflicts(existing, preview.conflicts));
+  }
+  return preview;
+}
+
+/** The conflicts to show: those this phone has not settled by editing the record since. */
+export async function loadConflicts(source: RecordSource): Promise<Conflict[]> {
+  const all = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];
+  if (all.length === 0) return [];
+  const open = openConflicts(all, await source.allRecords({ includeDeleted: true }), await source.deviceId());
+  if (open.length !== all.length) await source.setMeta(SYNC_META.conflicts, open);
+  return open;
+}
+
+/** A person has looked at the conflict and keeps the record as it is. */
+export async function dismissConflict(source: RecordSource, id: string, otherRev: string): Promise<void> {
+  const all = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];
+  await source.setMeta(
+    SYNC_META.conflicts,
+    all.filter((c) => !(c.id === id && c.other_rev === otherRev)),
+  );
+}

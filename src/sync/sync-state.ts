@@ -1,0 +1,96 @@
+/**
+ * What sync remembers between runs, in the store's meta (so it survives reloads): the version of every file in
+ * the folder as last read, this phone's own file as last written, and when the last run succeeded or failed.
+ *
+ * Telling whether a file changed without reading it: by its ETag where the listing has one (Apache lists
+ * getetag), else by getlastmodified plus getcontentlength. Both rest on the file's modification time: the
+ * listing's has whole-second resolution, so a file rewritten within the same second at the same size looks
+ * unchanged (nginx lists no getetag, and its GET ETag is "mtime-size", the same blind spot; Apache's ETag has
+ * finer times, but only as fine as the file system keeps them). A version read at a server time (the Date
+ * header) at least a second after its Last-Modified is "settled": any later write lands in a later second and
+ * shows. An unsettled version is read again next time and compared by content hash.
+ */
+import type { DavResource } from './multistatus';
+import type { FileVersion } from './webdav-client';
+import { SYNC_META, type RecordSource } from './record-source';
+
+export interface RemoteFileState {
+  etag: string | null;
+  last_modified: string | null;
+  content_length: number | null;
+  /** contentHash of the text read or written. */
+  hash: string;
+  /** True when the version was seen at least a second after it was written (see above). */
+  settled: boolean;
+  /** Why the file could not be merged (not a log, invalid); it is read again only when it changes. */
+  problem: { code: string; message: string } | null;
+}
+
+export interface SyncState {
+  folder_url: string;
+  files: Record<string, RemoteFileState>;
+  /** This phone's own file, as last written or read. */
+  own: RemoteFileState | null;
+  /** contentHash of the log text last uploaded. */
+  uploaded_hash: string | null;
+  last_success_at: string | null;
+  last_attempt_at: string | null;
+  last_error: { code: string; message: string; status: number | null; at: string } | null;
+  /** Runs failed in a row (for the back-off). */
+  failures: number;
+}
+
+export function emptySyncState(folderUrl: string): SyncState {
+  return { folder_url: folderUrl, files: {}, own: null, uploaded_hash: null, last_success_at: null, last_attempt_at: null, last_error: null, failures: 0 };
+}
+
+/** The saved state, or a fresh one when there is none or it belongs to another folder. */
+export async function loadSyncState(source: RecordSource, folderUrl: string): Promise<SyncState> {
+  const saved = (await source.getMeta(SYNC_META.state)) as SyncState | undefined | null;
+  if (!saved || saved.folder_url !== folderUrl) return emptySyncState(folderUrl);
+  return saved;
+}
+
+export function saveSyncState(source: RecordSource, state: SyncState): Promise<void> {
+  return source.setMeta(SYNC_META.state, state);
+}
+
+/** The opaque part of an entity tag: weak comparison (RFC 9110 §8.8.3.2) ignores the W/ prefix. */
+export function opaqueTag(etag: string): string {
+  return etag.startsWith('W/') ? etag.slice(2) : etag;
+}
+
+export function isStrongTag(etag: string | null | undefined): etag is string {
+  return typeof etag === 'string' && !etag.startsWith('W/') && etag.startsWith('"');
+}
+
+const SECOND_MS = 1000;
+
+/** Whether a version read with these headers is settled (see the top of this file). */
+export function isSettled(version: Pick<FileVersion, 'lastModified' | 'date'>): boolean {
+  if (!version.lastModified || !version.date) return false;
+  const modified = Date.parse(version.lastModified);
+  const seen = Date.parse(version.date);
+  return Number.isFinite(modified) && Number.isFinite(seen) && seen >= modified + SECOND_MS;
+}
+
+/** Whether the listing shows the same version as the one remembered, so the file need not be read. */
+export function listedUnchanged(known: RemoteFileState | null | undefined, listed: DavResource): boolean {
+  // Even an ETag is only as fine as the file system's clock (Apache's is "size-mtime"; on a file system with
+  // whole-second times two writes in one second share it), so only a settled version is trusted.
+  if (!known || !known.settled) return false;
+  if (listed.etag && known.etag) return opaqueTag(listed.etag) === opaqueTag(known.etag);
+  if (!listed.lastModified || !known.last_modified || listed.contentLength === null || known.content_length === null) return false;
+  return Date.parse(listed.lastModified) === Date.parse(known.last_modified) && listed.contentLength === known.content_length;
+}
+
+export function remoteState(version: FileVersion, hash: string, problem: RemoteFileState['problem'] = null): RemoteFileState {
+  return {
+    etag: version.etag,
+    last_modified: version.lastModified,
+    content_length: version.contentLength,
+    hash,
+    settled: isSettled(version),
+    problem,
+  };
+}

@@ -1,0 +1,194 @@
+/**
+ * A WebDAV client for one folder (RFC 4918): list it (PROPFIND, Depth 1), read a file (GET, HEAD), write one
+ * (PUT, conditional on an ETag where the server gives ETags).
+ *
+ * Every request has a timeout covering the whole exchange, the body included (AbortController), so a server
+ * that never answers, or stops halfway, cannot hang a sync. Requests go with `credentials: 'omit'` and an
+ * explicit Authorization header: the browser then never shows its own login prompt for a 401 (Fetch standard,
+ * HTTP-network-or-cache fetch: the prompt needs credentials included), which in a headless or installed app
+ * could wait forever. `cache: 'no-store'` because a cached GET could hand back an old file.
+ */
+import { basicAuthorization } from './basic-auth';
+import { SyncError } from './errors';
+import { parseFolderUrl } from './folder-url';
+import { parseMultistatus, type DavResource } from './multistatus';
+
+export interface WebDavClientOptions {
+  folderUrl: string;
+  username: string;
+  password: string;
+  /** Per request, the body included; default 20 s. */
+  timeoutMs?: number;
+  fetch?: typeof fetch;
+  setTimeout?: (fn: () => void, ms: number) => unknown;
+  clearTimeout?: (handle: unknown) => void;
+}
+
+/** What a GET or HEAD says about a file. */
+export interface FileVersion {
+  etag: string | null;
+  /** Last-Modified, an HTTP-date. */
+  lastModified: string | null;
+  contentLength: number | null;
+  /** The server's Date header: its clock when it answered. */
+  date: string | null;
+}
+
+export interface FetchedFile extends FileVersion {
+  body: string;
+}
+
+export interface PutConditions {
+  /** Write only if the file is still this version (RFC 9110 §13.1.1). */
+  ifMatch?: string;
+  /** "*": write only if there is no such file yet (RFC 9110 §13.1.2). */
+  ifNoneMatch?: '*';
+}
+
+const PROPFIND_BODY =
+  '<?xml version="1.0" encoding="utf-8"?>' +
+  '<D:propfind xmlns:D="DAV:"><D:prop><D:resourcetype/><D:getetag/><D:getlastmodified/><D:getcontentlength/></D:prop></D:propfind>';
+
+interface Answer {
+  status: number;
+  headers: Headers;
+  text: string;
+}
+
+function decodedPath(url: string): string {
+  const path = new URL(url).pathname;
+  try {
+    return decodeURIComponent(path).replace(/\/+$/, '');
+  } catch {
+    return path.replace(/\/+$/, '');
+  }
+}
+
+function versionOf(headers: Headers): FileVersion {
+  const length = headers.get('content-length');
+  return {
+    etag: headers.get('etag'),
+    lastModified: headers.get('last-modified'),
+    contentLength: length !== null && /^\d+$/.test(length) ? Number(length) : null,
+    date: headers.get('date'),
+  };
+}
+
+export class WebDavClient {
+  readonly folderUrl: string;
+  private readonly authorization: string;
+  private readonly timeoutMs: number;
+  private readonly fetchFn: typeof fetch;
+  private readonly setTimer: (fn: () => void, ms: number) => unknown;
+  private readonly clearTimer: (handle: unknown) => void;
+
+  constructor(options: WebDavClientOptions) {
+    this.folderUrl = parseFolderUrl(options.folderUrl);
+    this.authorization = basicAuthorization(options.username, options.password);
+    this.timeoutMs = options.timeoutMs ?? 20_000;
+    this.fetchFn = options.fetch ?? ((input, init) => globalThis.fetch(input, init));
+    this.setTimer = options.setTimeout ?? ((fn, ms) => globalThis.setTimeout(fn, ms));
+    this.clearTimer = options.clearTimeout ?? ((h) => globalThis.clearTimeout(h as ReturnType<typeof setTimeout>));
+  }
+
+  /** The URL of a file in the folder. */
+  fileUrl(name: string): string {
+    return new URL(encodeURIComponent(name), this.folderUrl).href;
+  }
+
+  /** The files of the folder (not the folder itself, not sub-folders). */
+  async list(): Promise<DavResource[]> {
+    const answer = await this.request('PROPFIND', this.folderUrl, {
+      headers: { Depth: '1', 'Content-Type': 'application/xml; charset=utf-8' },
+      body: PROPFIND_BODY,
+      what: 'list the folder',
+    });
+    if (answer.status === 404) {
+      throw new SyncError('sync-folder-missing', this.folderUrl, `there is no folder at ${this.folderUrl} (404): check the address`, 404);
+    }
+    this.expect(answer, [207], 'list the folder');
+    const own = decodedPath(this.folderUrl);
+    return parseMultistatus(answer.text, this.folderUrl).filter((r) => !r.collection && decodedPath(r.url) !== own);
+  }
+
+  /** The file's text and version, or null when there is no such file. */
+  async get(name: string): Promise<FetchedFile | null> {
+    const answer = await this.request('GET', this.fileUrl(name), { headers: { Accept: 'application/json' }, what: `read ${name}` });
+    if (answer.status === 404) return null;
+    this.expect(answer, [200], `read ${name}`);
+    // The size of the file itself, as the listing's getcontentlength counts it (a compressed transfer's
+    // Content-Length would differ).
+    return { ...versionOf(answer.headers), contentLength: new TextEncoder().encode(answer.text).length, body: answer.text };
+  }
+
+  /** The file's version without its body, or null when there is no such file. */
+  async head(name: string): Promise<FileVersion | null> {
+    const answer = await this.request('HEAD', this.fileUrl(name), { what: `look at ${name}` });
+    if (answer.status === 404) return null;
+    this.expect(answer, [200], `look at ${name}`);
+    return versionOf(answer.headers);
+  }
+
+  /**
+   * Write the file. Throws SyncError 'sync-precondition' (412) when a condition fails: someone else wrote it
+   * since. Servers that ignore conditions on PUT (nginx) simply write.
+   */
+  async put(name: string, body: string, conditions: PutConditions = {}): Promise<FileVersion> {
+    const headers: Record<string, string> = { 'Content-Type': 'application/json; charset=utf-8' };
+    if (conditions.ifMatch) headers['If-Match'] = conditions.ifMatch;
+    if (conditions.ifNoneMatch) headers['If-None-Match'] = conditions.ifNoneMatch;
+    const answer = await this.request('PUT', this.fileUrl(name), { headers, body, what: `write ${name}` });
+    if (answer.status === 412) {
+      throw new SyncError('sync-precondition', conditions.ifMatch ?? conditions.ifNoneMatch ?? null, `${name} changed on the server since it was read (412)`, 412);
+    }
+    this.expect(answer, [200, 201, 204], `write ${name}`);
+    return versionOf(answer.headers);
+  }
+
+  private expect(answer: Answer, ok: number[], what: string): void {
+    if (ok.includes(answer.status)) return;
+    const s = answer.status;
+    if (s === 401) {
+      throw new SyncError('sync-unauthorized', s, `the folder refused the user name or password (401) when trying to ${what}`, s);
+    }
+    if (s === 403) throw new SyncError('sync-forbidden', s, `the folder does not allow this user to ${what} (403)`, s);
+    if (s === 413) throw new SyncError('sync-too-large', s, `the server refused a file this large when trying to ${what} (413): raise its upload limit`, s);
+    if (s >= 500) throw new SyncError('sync-server', s, `the server failed when trying to ${what} (${s}); trying again later`, s);
+    throw new SyncError('sync-http', s, `unexpected answer ${s} when trying to ${what}`, s);
+  }
+
+  private async request(
+    method: string,
+    url: string,
+    init: { headers?: Record<string, string>; body?: string; what: string },
+  ): Promise<Answer> {
+    const controller = new AbortController();
+    let timedOut = false;
+    const timer = this.setTimer(() => {
+      timedOut = true;
+      controller.abort();
+    }, this.timeoutMs);
+    try {
+      const response = await this.fetchFn(url, {
+        method,
+        headers: { ...init.headers, Authorization: this.authorization },
+        body: init.body,
+        signal: controller.signal,
+        credentials: 'omit',
+        cache: 'no-store',
+        redirect: 'follow',
+      });
+      const text = method === 'HEAD' ? '' : await response.text();
+      return { status: response.status, headers: response.headers, text };
+    } catch (error) {
+      if (timedOut) {
+        throw new SyncError('sync-timeout', this.timeoutMs, `no answer within ${this.timeoutMs / 1000} s when trying to ${init.what}; the server may be down or slow`);
+      }
+      const cause = (error as { cause?: { code?: string; message?: string } }).cause;
+      const detail = cause?.code ?? cause?.message ?? (error as Error).message;
+      throw new SyncError('sync-network', url, `could not reach the folder to ${init.what} (${detail}); will try again`);
+    } finally {
+      this.clearTimer(timer);
+    }
+  }
+}

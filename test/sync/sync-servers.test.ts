@@ -1,0 +1,364 @@
+// Sync against real WebDAV servers started by the tests: Apache httpd with mod_dav (honours If-Match, lists
+// getetag) and nginx with its DAV module (ignores conditions on PUT, lists no ETag), plus faults injected by a
+// proxy in front of them. Node's fetch plays the phones.
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { readdir, rm, utimes } from 'node:fs/promises';
+import { join } from 'node:path';
+import { canonicalJson } from '../../src/log/canonical';
+import { exportLog } from '../../src/log/export';
+import { readLogFile } from '../../src/log/export-parse';
+import type { DropRecord, LogRecord } from '../../src/log/types';
+import { deviceFileName, syncFolder, type SyncReport } from '../../src/sync/sync-run';
+import type { SyncSettings } from '../../src/sync/settings';
+import { loadConflicts } from '../../src/sync/import-log';
+import { apacheMissing, startApache } from '../servers/apache';
+import { folderFiles, putFolderFile, readFolderFile, type DavServer } from '../servers/dav-server';
+import { startFaultProxy, startSilentServer, type FaultProxy } from '../servers/fault-proxy';
+import { nginxMissing, startNginx } from '../servers/nginx';
+import { MemoryRecordSource } from './memory-record-source';
+import { byKind, revise, sampleLog, tombstone } from './sample-log';
+
+const T = Date.UTC(2026, 6, 1, 9);
+
+const sorted = (records: Iterable<LogRecord>) => [...records].sort((a, b) => (a.id < b.id ? -1 : 1));
+const logText = (records: Iterable<LogRecord>) => canonicalJson(sorted(records));
+
+function settingsFor(folderUrl: string, server: DavServer, overrides: Partial<SyncSettings> = {}): SyncSettings {
+  return { folder_url: folderUrl, ...server.credentials, enabled: true, timeout_ms: 5000, ...overrides };
+}
+
+function sync(source: MemoryRecordSource, settings: SyncSettings, extra: Partial<Parameters<typeof syncFolder>[0]> = {}): Promise<SyncReport> {
+  return syncFolder({ source, settings, appVersion: '0.1.0', ...extra });
+}
+
+function expectOk(report: SyncReport): void {
+  expect(report.error, JSON.stringify(report.error)).toBeNull();
+  expect(report.ok).toBe(true);
+}
+
+async function folderLog(server: DavServer, device: string): Promise<LogRecord[]> {
+  return readLogFile(await readFolderFile(server, deviceFileName(device))).records;
+}
+
+const kinds = [
+  ['Apache mod_dav', apacheMissing(), startApache],
+  ['nginx dav', nginxMissing(), startNginx],
+] as const;
+
+describe.each(kinds)('syncing through %s', (name, missing, start) => {
+  if (missing && process.env.CI === 'true') throw new Error(missing);
+  let server: DavServer;
+  let proxy: FaultProxy;
+  let direct: SyncSettings;
+  let viaProxy: SyncSettings;
+  let phoneA: MemoryRecordSource;
+  let phoneB: MemoryRecordSource;
+
+  beforeAll(async () => {
+    if (missing) return;
+    server = await start({});
+    proxy = await startFaultProxy(server.port);
+    direct = settingsFor(server.folderUrl, server);
+    viaProxy = settingsFor(proxy.folderUrl, server);
+  });
+  afterAll(async () => {
+    await proxy?.close();
+    await server?.dispose();
+  });
+  beforeEach(async () => {
+    if (missing) return;
+    await server.start();
+    proxy.set(null);
+    for (const f of await readdir(server.dataDir)) await rm(join(server.dataDir, f), { recursive: true, force: true });
+    phoneA = new MemoryRecordSource('phoneA', sampleLog({ device: 'phoneA', seed: 1 }));
+    phoneB = new MemoryRecordSource('phoneB', sampleLog({ device: 'phoneB', seed: 2, startMs: T }));
+  });
+
+  it.skipIf(missing)('lets two phones exchange their logs, each writing only its own file', async () => {
+    expectOk(await sync(phoneA, direct));
+    expectOk(await sync(phoneB, direct));
+    expectOk(await sync(phoneA, direct));
+    expect(logText(phoneA.records.values())).toBe(logText(phoneB.records.values()));
+    expect(phoneA.records.size).toBe(26);
+    expect(await folderFiles(server)).toEqual([deviceFileName('phoneA'), deviceFileName('phoneB')]);
+    // Each file is the phone's whole log as an export would write it, canonical.
+    expect(await readFolderFile(server, deviceFileName('phoneA'))).toBe(exportLog([...phoneA.records.values()], { device: 'phoneA', app_version: '0.1.0' }));
+  });
+
+  it.skipIf(missing)('never writes the password or the user name into a file in the folder', async () => {
+    expectOk(await sync(phoneA, direct));
+    const text = await readFolderFile(server, deviceFileName('phoneA'));
+    expect(text).not.toContain(server.credentials.password);
+    expect(text).not.toContain(server.credentials.username);
+  });
+
+  it.skipIf(missing)('carries an edit and a deletion from one phone to the other', async () => {
+    await sync(phoneA, direct);
+    await sync(phoneB, direct);
+    const drops = byKind([...phoneB.records.values()], 'drop').filter((d) => d.device === 'phoneA');
+    const edited = revise(drops[0]!, { time_s: 1.7 }, T + 60_000, 'phoneB', 'retimed from the video');
+    const gone = tombstone(drops[1]!, T + 60_000, 'phoneB');
+    await phoneB.putRecords([edited, gone]);
+    expectOk(await sync(phoneB, direct));
+    const report = await sync(phoneA, direct);
+    expectOk(report);
+    expect((phoneA.records.get(edited.id) as DropRecord).time_s).toBe(1.7);
+    expect(phoneA.records.get(gone.id)!.deleted).toBe(true);
+    expect(report.merged.find((m) => m.name === deviceFileName('phoneB')), JSON.stringify(report.merged)).toMatchObject({ updated: 2, added: 13 });
+  });
+
+  it.skipIf(missing)('keeps and reports a conflict when both phones changed the same drop time', async () => {
+    await sync(phoneA, direct);
+    await sync(phoneB, direct);
+    const drop = byKind([...phoneA.records.values()], 'drop')[0]!;
+    await phoneA.putRecords([revise(drop, { time_s: 1.7 }, T + 60_000, 'phoneA', 'retimed')]);
+    await phoneB.putRecords([revise(drop, { time_s: 1.71 }, T + 61_000, 'phoneB', 'retyped')]);
+    expectOk(await sync(phoneA, direct));
+    const report = await sync(phoneB, direct);
+    expectOk(report);
+    expect(report.conflicts).toHaveLength(1);
+    expect(report.conflicts[0]).toMatchObject({ id: drop.id, fields: ['time_s'], measured: true });
+    expect(await loadConflicts(phoneB)).toHaveLength(1);
+    // Both values are kept: the newer is current, the other in the history, on both phones after a round.
+    expectOk(await sync(phoneA, direct));
+    for (const phone of [phoneA, phoneB]) {
+      const merged = phone.records.get(drop.id) as DropRecord;
+      expect(merged.time_s).toBe(1.71);
+      expect(merged.history.map((h) => (h.body as { time_s: number }).time_s)).toContain(1.7);
+    }
+  });
+
+  it.skipIf(missing)("merges the office's own file (a specimen catalogue) into every phone", async () => {
+    const office = sampleLog({ device: 'office', seed: 77, days: 0 }).filter((r) => r.kind === 'specimen' || r.kind === 'site');
+    await putFolderFile(server, 'office-catalogue.json', exportLog(office, { device: 'office', app_version: '0.1.0', selection: { kinds: ['specimen', 'site'] } }));
+    expectOk(await sync(phoneA, direct));
+    expectOk(await sync(phoneB, direct));
+    for (const r of office) {
+      expect(phoneA.records.has(r.id)).toBe(true);
+      expect(phoneB.records.has(r.id)).toBe(true);
+    }
+  });
+
+  it.skipIf(missing)('reports a file in the folder that is not a valid log, and syncs the rest', async () => {
+    await putFolderFile(server, 'notes.json', '{"todo": "buy tape"}');
+    const report = await sync(phoneA, direct);
+    expectOk(report);
+    expect(report.problems).toEqual([expect.objectContaining({ name: 'notes.json', code: 'log-not-a-log' })]);
+    expect(await folderFiles(server)).toContain(deviceFileName('phoneA'));
+    // Not read again while it stays the same.
+    const again = await sync(phoneA, direct);
+    expect(again.problems).toEqual([]);
+  });
+
+  it.skipIf(missing)('reads nothing again and writes nothing when nothing changed', async () => {
+    // Through the proxy throughout: a phone's memory of the folder belongs to the folder's URL.
+    await sync(phoneA, viaProxy);
+    await sync(phoneB, viaProxy);
+    await sync(phoneA, viaProxy);
+    await new Promise((r) => setTimeout(r, 1100));
+    // One more round each so every version is settled (read at least a second after it was written).
+    await sync(phoneA, viaProxy);
+    await sync(phoneB, viaProxy);
+    proxy.seen.length = 0;
+    const report = await sync(phoneA, viaProxy);
+    expectOk(report);
+    expect(report.uploaded, JSON.stringify(report)).toBe(false);
+    expect(report.merged).toEqual([]);
+    expect(proxy.seen).toEqual(['PROPFIND /dav/']);
+  });
+
+  it.skipIf(missing)('notices a file rewritten within the same second at the same size, by its content', async () => {
+    // Both versions get the same modification time, a few seconds ahead: as if written within one second,
+    // while this phone read the first.
+    const office = sampleLog({ device: 'office', seed: 5, days: 0 }).filter((r) => r.kind === 'specimen');
+    const v1 = exportLog(office, { device: 'office', app_version: '0.1.0' });
+    const renamed = office.map((r, i) => (i === 0 ? { ...r, notes: r.notes === '' ? 'x' : r.notes } : r));
+    const first = office.map((r, i) => (i === 0 ? { ...r, notes: 'a' } : r));
+    const second = renamed.map((r, i) => (i === 0 ? { ...r, notes: 'b' } : r));
+    const t1 = exportLog(first, { device: 'office', app_version: '0.1.0' });
+    const t2 = exportLog(second, { device: 'office', app_version: '0.1.0' });
+    expect(t1.length).toBe(t2.length);
+    expect(v1).not.toBe(t1);
+    const mtime = new Date(Math.ceil(Date.now() / 1000) * 1000 + 5000);
+    await putFolderFile(server, 'office.json', t1);
+    await utimes(join(server.dataDir, 'office.json'), mtime, mtime);
+    expectOk(await sync(phoneA, direct));
+    expect((phoneA.records.get(office[0]!.id) as { notes: string }).notes).toBe('a');
+    await putFolderFile(server, 'office.json', t2);
+    await utimes(join(server.dataDir, 'office.json'), mtime, mtime);
+    const report = await sync(phoneA, direct);
+    expectOk(report);
+    expect((phoneA.records.get(office[0]!.id) as { notes: string }).notes).toBe('b');
+  });
+
+  it.skipIf(missing)("reads and merges this phone's own file when someone else wrote it", async () => {
+    await sync(phoneA, direct);
+    // A restored copy of phone A (same device id) wrote one more site into A's file.
+    const extra = sampleLog({ device: 'phoneA', seed: 9, days: 0 }).filter((r) => r.kind === 'site');
+    const restored = new MemoryRecordSource('phoneA', [...phoneA.records.values(), ...extra]);
+    const file = exportLog(await restored.allRecords(), { device: 'phoneA', app_version: '0.1.0' });
+    await putFolderFile(server, deviceFileName('phoneA'), file);
+    const report = await sync(phoneA, direct);
+    expectOk(report);
+    expect(phoneA.records.has(extra[0]!.id)).toBe(true);
+    expect((await folderLog(server, 'phoneA')).some((r) => r.id === extra[0]!.id)).toBe(true);
+  });
+
+  if (name.startsWith('Apache')) {
+    it.skipIf(missing)("answers a 412 on its own file by reading, merging and writing again (If-Match)", async () => {
+      await sync(phoneA, direct);
+      await new Promise((r) => setTimeout(r, 1100));
+      await sync(phoneA, direct); // now the listed ETag is strong
+      await phoneA.putRecords([revise(byKind([...phoneA.records.values()], 'drop')[0]!, { note: 'gusty' }, T + 1000, 'phoneA', null)]);
+      const extra = sampleLog({ device: 'phoneA', seed: 11, days: 0 }).filter((r) => r.kind === 'site');
+      let raced = false;
+      const racingFetch: typeof fetch = async (input, init) => {
+        if (!raced && init?.method === 'PUT') {
+          raced = true;
+          // Someone writes the file between this phone's listing and its PUT.
+          const other = exportLog([...phoneA.records.values(), ...extra], { device: 'phoneA', app_version: '0.1.0' });
+          await fetch(String(input), { method: 'PUT', body: other, headers: { Authorization: (init.headers as Record<string, string>).Authorization! } });
+        }
+        return fetch(input, init);
+      };
+      const report = await sync(phoneA, direct, { fetch: racingFetch });
+      expectOk(report);
+      expect(raced).toBe(true);
+      expect(report.merged.map((m) => m.name)).toContain(deviceFileName('phoneA'));
+      expect(phoneA.records.has(extra[0]!.id)).toBe(true);
+      const inFolder = await folderLog(server, 'phoneA');
+      expect(inFolder.some((r) => r.id === extra[0]!.id)).toBe(true);
+      expect((inFolder.find((r) => r.kind === 'drop' && (r as DropRecord).note === 'gusty'))).toBeDefined();
+    });
+  }
+
+  it.skipIf(missing)('loses nothing while the server is stopped, and sends everything once it is back', async () => {
+    await sync(phoneA, direct);
+    await server.stop();
+    const drop = byKind([...phoneA.records.values()], 'drop')[0]!;
+    const offline = revise(drop, { time_s: 1.66 }, T + 1000, 'phoneA', 'retimed');
+    await phoneA.putRecords([offline]);
+    const before = logText(phoneA.records.values());
+    const failed = await sync(phoneA, direct);
+    expect(failed.ok).toBe(false);
+    expect(failed.error).toMatchObject({ code: 'sync-network', retryable: true });
+    expect(logText(phoneA.records.values())).toBe(before);
+    await server.start();
+    expectOk(await sync(phoneA, direct));
+    expectOk(await sync(phoneB, direct));
+    expect((phoneB.records.get(drop.id) as DropRecord).time_s).toBe(1.66);
+    const file = await folderLog(server, 'phoneA');
+    expect(new Set(file.map((r) => r.id)).size).toBe(file.length);
+    expect(file).toHaveLength(phoneA.records.size);
+  });
+
+  it.skipIf(missing)('survives the server restarting in the middle of a sync', async () => {
+    await sync(phoneB, direct);
+    let stopped = false;
+    const restartingFetch: typeof fetch = async (input, init) => {
+      const answer = await fetch(input, init);
+      if (!stopped && init?.method === 'GET') {
+        stopped = true;
+        // The server goes down right after this phone read phone B's file, before it writes its own.
+        await server.stop();
+      }
+      return answer;
+    };
+    const cut = await sync(phoneA, direct, { fetch: restartingFetch });
+    expect(cut.ok).toBe(false);
+    expect(cut.error?.code).toBe('sync-network');
+    // What was read before the cut is merged and kept.
+    expect(phoneA.records.size).toBe(26);
+    await server.start();
+    const report = await sync(phoneA, direct);
+    expectOk(report);
+    expect(report.uploaded).toBe(true);
+    expect(await folderLog(server, 'phoneA')).toHaveLength(26);
+  });
+
+  it.skipIf(missing)('reports a wrong password as such, does not retry it, and changes nothing', async () => {
+    const before = logText(phoneA.records.values());
+    const report = await sync(phoneA, { ...direct, password: 'wrong' });
+    expect(report.error).toMatchObject({ code: 'sync-unauthorized', status: 401, retryable: false });
+    expect(logText(phoneA.records.values())).toBe(before);
+    expect(await folderFiles(server)).toEqual([]);
+  });
+
+  it.skipIf(missing)('reports a server error (500), loses nothing, and succeeds on the next try', async () => {
+    await sync(phoneB, direct);
+    proxy.set({ fault: { kind: 'status', status: 500 }, methods: ['PUT'], times: 1 });
+    const failed = await sync(phoneA, viaProxy);
+    expect(failed.error).toMatchObject({ code: 'sync-server', status: 500, retryable: true });
+    expect(await folderFiles(server)).toEqual([deviceFileName('phoneB')]);
+    expectOk(await sync(phoneA, viaProxy));
+    expect(await folderLog(server, 'phoneA')).toHaveLength(26);
+  });
+
+  it.skipIf(missing)('survives a connection cut in the middle of an answer', async () => {
+    await sync(phoneB, direct);
+    proxy.set({ fault: { kind: 'cut-response', afterBytes: 300 }, methods: ['GET'], times: 1 });
+    const before = logText(phoneA.records.values());
+    const failed = await sync(phoneA, viaProxy);
+    expect(failed.ok).toBe(false);
+    expect(failed.error?.code).toBe('sync-network');
+    expect(logText(phoneA.records.values())).toBe(before);
+    expectOk(await sync(phoneA, viaProxy));
+    expect(phoneA.records.size).toBe(26);
+  });
+
+  it.skipIf(missing)('leaves the old file whole when the connection is cut in the middle of an upload', async () => {
+    await sync(phoneA, direct);
+    const old = await readFolderFile(server, deviceFileName('phoneA'));
+    await phoneA.putRecords([revise(byKind([...phoneA.records.values()], 'drop')[0]!, { note: 'cut' }, T + 1000, 'phoneA', null)]);
+    proxy.set({ fault: { kind: 'cut-request', afterBytes: 2000 }, methods: ['PUT'], times: 1 });
+    const failed = await sync(phoneA, viaProxy);
+    expect(failed.ok).toBe(false);
+    // The server kept the file it had: whole, and still a valid log.
+    const after = await readFolderFile(server, deviceFileName('phoneA'));
+    expect(after).toBe(old);
+    expectOk(await sync(phoneA, viaProxy));
+    expect((await folderLog(server, 'phoneA')).some((r) => (r as DropRecord).note === 'cut')).toBe(true);
+  });
+
+  it.skipIf(missing)('waits for a slow server that answers within the timeout', async () => {
+    proxy.set({ fault: { kind: 'delay', ms: 400 } });
+    const report = await sync(phoneA, { ...viaProxy, timeout_ms: 3000 });
+    expectOk(report);
+  });
+
+  it.skipIf(missing)('gives up on a server that stops answering, after the timeout', async () => {
+    proxy.set({ fault: { kind: 'hang' }, methods: ['PUT'] });
+    const started = Date.now();
+    const report = await sync(phoneA, { ...viaProxy, timeout_ms: 1000 });
+    expect(report.error).toMatchObject({ code: 'sync-timeout', retryable: true });
+    expect(Date.now() - started).toBeLessThan(4000);
+  });
+});
+
+describe('syncing with a server that never answers', () => {
+  it('times out every request instead of hanging', async () => {
+    const silent = await startSilentServer();
+    try {
+      const phone = new MemoryRecordSource('phoneA', sampleLog());
+      const started = Date.now();
+      const report = await syncFolder({
+        source: phone,
+        appVersion: '0.1.0',
+        settings: { folder_url: silent.folderUrl, username: 'crew', password: 'x', enabled: true, timeout_ms: 1000 },
+      });
+      const elapsed = Date.now() - started;
+      expect(report.error).toMatchObject({ code: 'sync-timeout', retryable: true });
+      expect(report.error!.message).toMatch(/no answer within 1 s/);
+      expect(elapsed).toBeGreaterThanOrEqual(900);
+      expect(elapsed).toBeLessThan(3000);
+      expect(silent.connections()).toBe(1);
+    } finally {
+      await silent.close();
+    }
+  });
+
+  it('reports a folder that is not set up, without touching the network', async () => {
+    const report = await syncFolder({ source: new MemoryRecordSource('phoneA'), appVersion: '0.1.0' });
+    expect(report.error).toMatchObject({ code: 'sync-not-configured', retryable: false });
+  });
+});
