@@ -32,10 +32,10 @@ function environment(nav: ShareEnvironment['navigator']) {
 
 describe('sharing a file', () => {
   it('uses the Web Share API with the file where canShare allows it', async () => {
-    const share = vi.fn(async () => undefined);
+    const share = vi.fn(async (_data: { files: File[]; title?: string }) => undefined);
     const { env, clicks } = environment({ canShare: () => true, share });
     expect(await shareFile(file, env, 'Drop log')).toBe('shared');
-    const data = share.mock.calls[0]![0] as { files: File[]; title: string };
+    const data = share.mock.calls[0]![0];
     expect(data.files[0]!.name).toBe(file.name);
     expect(await data.files[0]!.text()).toBe(file.text);
     expect(data.title).toBe('Drop log');
