@@ -17,5 +17,23 @@ export function browserEnvironment(): StoreEnvironment {
       if (typeof matchMedia !== 'function') return null;
       return INSTALLED_MODES.some((mode) => matchMedia(`(display-mode: ${mode})`).matches);
     },
+    witness: {
+      // localStorage lives apart from IndexedDB in every engine, so it outlives an IndexedDB the browser
+      // deleted; it may be missing or refuse (private mode, full), and then there is simply no witness.
+      read(key) {
+        try {
+          return globalThis.localStorage?.getItem(key) ?? null;
+        } catch {
+          return null;
+        }
+      },
+      write(key, value) {
+        try {
+          globalThis.localStorage?.setItem(key, value);
+        } catch {
+          // no witness then
+        }
+      },
+    },
   };
 }

@@ -6,7 +6,7 @@
 import { LogError, LogValidationError, type Problem } from '../log/errors';
 import { HybridLogicalClock, compareHlc } from '../log/hlc';
 import { createRecord, deleteRecord, recordHistory, reviseRecord, type RecordContext } from '../log/records';
-import { RECORD_KINDS, type LogRecord, type RecordKind, type RecordOf, type SeriesRecord } from '../log/types';
+import { RECORD_KINDS, type LogRecord, type ReadingRecord, type RecordKind, type RecordOf, type SeriesRecord } from '../log/types';
 import { randomDeviceId, uuidV4 } from '../log/uuid';
 import { validateRecord } from '../log/validate';
 import type { StoreBackend, StoreTx } from './backend';
@@ -52,13 +52,18 @@ class Staging {
   readonly records = new Map<string, LogRecord>();
   /** The stored version before this action, for every staged record (undefined when new). */
   readonly previous = new Map<string, LogRecord | undefined>();
+  /** Stored records already read in this transaction: each is read once per action. */
+  private readonly read = new Map<string, Promise<LogRecord | undefined>>();
 
   constructor(private readonly tx: StoreTx) {}
 
   async lookup<K extends RecordKind>(kind: K, id: string): Promise<RecordOf[K] | undefined> {
-    const staged = this.records.get(keyOf(kind, id));
+    const key = keyOf(kind, id);
+    const staged = this.records.get(key);
     if (staged) return staged as RecordOf[K];
-    return this.tx.get(kind, id);
+    let pending = this.read.get(key);
+    if (!pending) this.read.set(key, (pending = this.tx.get(kind, id)));
+    return (await pending) as RecordOf[K] | undefined;
   }
 
   stage(record: LogRecord, previous: LogRecord | undefined): void {
@@ -85,20 +90,23 @@ class Staging {
 async function checkReferences(record: LogRecord, previous: LogRecord | undefined, staging: Staging): Promise<void> {
   const fields = record as unknown as Record<string, unknown>;
   const before = previous as unknown as Record<string, unknown> | undefined;
-  for (const { field, kind } of REFERENCES[record.kind]) {
-    const target = fields[field];
-    if (target === null || (before && before[field] === target)) continue;
-    const found = await staging.lookup(kind, target as string);
-    if (!live(found)) {
-      throw new StoreError(
-        'reference-missing',
-        target,
-        `${record.kind}.${field}: no ${kind} ${String(target)}${found ? ' (it is deleted)' : ''}; save it first or in the same action`,
-      );
-    }
-    if (field === 'reading_id' && (found as RecordOf['reading']).day_id !== fields.day_id) {
-      throw new StoreError('reference-missing', target, `series.reading_id: reading ${String(target)} belongs to another day`);
-    }
+  const checks = REFERENCES[record.kind].filter(({ field }) => fields[field] !== null && !(before && before[field] === fields[field]));
+  const found = await Promise.all(checks.map(({ field, kind }) => staging.lookup(kind, fields[field] as string)));
+  checks.forEach(({ field, kind }, i) => checkReference(record, field, kind, found[i]));
+}
+
+function checkReference(record: LogRecord, field: string, kind: RecordKind, found: LogRecord | undefined): void {
+  const fields = record as unknown as Record<string, unknown>;
+  const target = fields[field];
+  if (!live(found)) {
+    throw new StoreError(
+      'reference-missing',
+      target,
+      `${record.kind}.${field}: no ${kind} ${String(target)}${found ? ' (it is deleted)' : ''}; save it first or in the same action`,
+    );
+  }
+  if (field === 'reading_id' && (found as RecordOf['reading']).day_id !== fields.day_id) {
+    throw new StoreError('reference-missing', target, `series.reading_id: reading ${String(target)} belongs to another day`);
   }
 }
 
@@ -138,16 +146,16 @@ async function removalSet(record: LogRecord, staging: Staging): Promise<LogRecor
 }
 
 /** The days whose counts change when these records are written (before and after the write). */
-async function affectedDays(records: Iterable<LogRecord>, previous: (r: LogRecord) => LogRecord | undefined, tx: StoreTx, staged: Map<string, LogRecord>): Promise<Set<string>> {
+async function affectedDays(
+  records: Iterable<LogRecord>,
+  previous: (r: LogRecord) => LogRecord | undefined,
+  seriesOf: (id: string) => Promise<SeriesRecord | undefined>,
+): Promise<Set<string>> {
   const days = new Set<string>();
   const seriesDay = new Map<string, Promise<string | undefined>>();
   const dayOfSeries = (id: string) => {
     let found = seriesDay.get(id);
-    if (!found) {
-      const staging = staged.get(keyOf('series', id)) as SeriesRecord | undefined;
-      found = staging ? Promise.resolve(staging.day_id) : tx.get('series', id).then((s) => s?.day_id);
-      seriesDay.set(id, found);
-    }
+    if (!found) seriesDay.set(id, (found = seriesOf(id).then((s) => s?.day_id)));
     return found;
   };
   const pending: Promise<unknown>[] = [];
@@ -163,8 +171,9 @@ async function affectedDays(records: Iterable<LogRecord>, previous: (r: LogRecor
   return days;
 }
 
-async function computeSummary(tx: StoreTx, dayId: string): Promise<DaySummary> {
-  const [readings, series] = await Promise.all([tx.getAllByIndex('reading', 'by_day', dayId), tx.getAllByIndex('series', 'by_day', dayId)]);
+async function computeSummary(tx: StoreTx, dayId: string, fetched?: [ReadingRecord[], SeriesRecord[]]): Promise<DaySummary> {
+  const [readings, series] =
+    fetched ?? (await Promise.all([tx.getAllByIndex('reading', 'by_day', dayId), tx.getAllByIndex('series', 'by_day', dayId)]));
   const liveSeries = series.filter(live);
   const drops = await Promise.all(liveSeries.map((s) => tx.getAllByIndex('drop', 'by_series', s.id)));
   return {
@@ -178,9 +187,14 @@ async function computeSummary(tx: StoreTx, dayId: string): Promise<DaySummary> {
 async function refreshSummaries(tx: StoreTx, dayIds: Iterable<string>): Promise<void> {
   await Promise.all(
     [...dayIds].map(async (dayId) => {
-      const day = await tx.get('day', dayId);
+      // One round trip for the day and its contents; a deleted day's reads are simply unused.
+      const [day, readings, series] = await Promise.all([
+        tx.get('day', dayId),
+        tx.getAllByIndex('reading', 'by_day', dayId),
+        tx.getAllByIndex('series', 'by_day', dayId),
+      ]);
       if (!live(day)) await tx.deleteSummary(dayId);
-      else await tx.putSummary(await computeSummary(tx, dayId));
+      else await tx.putSummary(await computeSummary(tx, dayId, [readings, series]));
     }),
   );
 }
@@ -206,6 +220,23 @@ function problemsOfBatch(records: readonly LogRecord[]): Problem[] {
 export interface CreateLogStoreOptions {
   /** Durability of transactions that write records (see WriteTxOptions). */
   durability?: 'strict' | 'relaxed';
+  /** The database name, which also names the loss witness's note. */
+  name?: string;
+}
+
+interface WitnessNote {
+  device_id: string;
+  since: string;
+}
+
+function readWitness(env: StoreEnvironment, key: string): WitnessNote | null {
+  try {
+    const text = env.witness?.read(key);
+    const note = text ? (JSON.parse(text) as Partial<WitnessNote>) : null;
+    return typeof note?.device_id === 'string' ? (note as WitnessNote) : null;
+  } catch {
+    return null;
+  }
 }
 
 export async function createLogStore(backend: StoreBackend, env: StoreEnvironment, options: CreateLogStoreOptions = {}): Promise<LogStore> {
@@ -218,16 +249,27 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
     device: (await tx.getMeta('device_id')) as string | undefined,
     stamp: (await tx.getMeta('clock')) as string | undefined,
   }));
+  const witnessKey = `plummet-log-witness:${options.name ?? 'default'}`;
+  const witnessed = readWitness(env, witnessKey);
   if (!device) {
     device = await backend.write(async (tx) => {
       const existing = (await tx.getMeta('device_id')) as string | undefined;
       if (existing) return existing;
       const made = randomDeviceId(env.random);
       await tx.putMeta('device_id', made);
+      // A new database where the witness remembers a log with records: the browser erased it.
+      if (witnessed) await tx.putMeta('erased_log', { device_id: witnessed.device_id, noticed_at: iso(env.now()) });
       return made;
     }, relaxed);
   }
   const deviceId = device;
+  let witnessCurrent = witnessed?.device_id === deviceId;
+  /** Noted once records exist, so an empty log that disappears raises no alarm. */
+  function noteWitness(): void {
+    if (witnessCurrent || !env.witness) return;
+    env.witness.write(witnessKey, JSON.stringify({ device_id: deviceId, since: iso(env.now()) } satisfies WitnessNote));
+    witnessCurrent = true;
+  }
   const clock = new HybridLogicalClock(deviceId, stamp && stamp.endsWith(`-${deviceId}`) ? stamp : undefined);
   let persistenceAsked = false;
   let pendingPersistence: Promise<unknown> = Promise.resolve();
@@ -237,9 +279,8 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
   };
 
   /** Another tab of this app writes with the same device id: take in its newest stamp so ours sort after it. */
-  async function catchUpClock(tx: StoreTx, now: number): Promise<void> {
-    const stored = (await tx.getMeta('clock')) as string | undefined;
-    if (stored && compareHlc(stored, clock.latest) > 0) clock.receive(stored, now);
+  function catchUpClock(stored: unknown, now: number): void {
+    if (typeof stored === 'string' && compareHlc(stored, clock.latest) > 0) clock.receive(stored, now);
   }
 
   function askPersistenceOnce(): void {
@@ -253,16 +294,22 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
     ensureOpen();
     const now = env.now();
     const written = await backend.write(async (tx) => {
-      await catchUpClock(tx, now);
+      const [storedClock, unsentBefore] = await Promise.all([tx.getMeta('clock'), tx.getMeta('unsent_changes')]);
+      catchUpClock(storedClock, now);
       const ctx: RecordContext = { device: deviceId, clock, now, random: env.random };
       const staging = new Staging(tx);
       for (const action of actions) {
         if (action.op === 'create') {
           const record = createRecord(action.kind, action.body as never, { ...ctx, id: action.id }) as LogRecord;
-          if (await staging.lookup(record.kind, record.id)) {
-            throw new StoreError('already-exists', record.id, `${record.kind} ${record.id} already exists`);
-          }
-          await checkReferences(record, undefined, staging);
+          const [existing, referenceError] = await Promise.all([
+            staging.lookup(record.kind, record.id),
+            checkReferences(record, undefined, staging).then(
+              () => null,
+              (error: unknown) => error,
+            ),
+          ]);
+          if (existing) throw new StoreError('already-exists', record.id, `${record.kind} ${record.id} already exists`);
+          if (referenceError) throw referenceError;
           staging.stage(record, undefined);
           continue;
         }
@@ -283,17 +330,30 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
         }
       }
       const records = [...staging.records.values()];
+      const writes: Promise<unknown>[] = [];
       if (records.length > 0) {
-        await tx.putRecords(records);
-        const days = await affectedDays(records, (r) => staging.previous.get(keyOf(r.kind, r.id)), tx, staging.records);
-        await refreshSummaries(tx, days);
-        const unsent = ((await tx.getMeta('unsent_changes')) as number | undefined) ?? 0;
-        await Promise.all([tx.putMeta('unsent_changes', unsent + records.length), tx.putMeta('clock', clock.latest)]);
+        // Requests of one transaction run in the order they are made, so the counts read below already see
+        // these puts; awaiting them first would only add a round trip.
+        const putting = tx.putRecords(records);
+        // Handled at once: if the put fails while the counts are still being read, the rejection must not
+        // count as unhandled. It is awaited (and reported) with the rest below.
+        putting.catch(() => undefined);
+        writes.push(putting);
+        const days = await affectedDays(records, (r) => staging.previous.get(keyOf(r.kind, r.id)), (id) => staging.lookup('series', id));
+        writes.push(
+          refreshSummaries(tx, days),
+          tx.putMeta('unsent_changes', ((unsentBefore as number | undefined) ?? 0) + records.length),
+          tx.putMeta('clock', clock.latest),
+        );
       }
-      if (writeOptions.clearDraft !== undefined) await tx.deleteDraft(writeOptions.clearDraft);
+      if (writeOptions.clearDraft !== undefined) writes.push(tx.deleteDraft(writeOptions.clearDraft));
+      await Promise.all(writes);
       return records;
     }, recordDurability);
-    if (written.length > 0) askPersistenceOnce();
+    if (written.length > 0) {
+      noteWitness();
+      askPersistenceOnce();
+    }
     return written;
   }
 
@@ -405,17 +465,24 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
       if (records.length === 0) return;
       const now = env.now();
       await backend.write(async (tx) => {
-        await catchUpClock(tx, now);
         const byKey = new Map(records.map((r) => [keyOf(r.kind, r.id), r]));
-        const previous = await Promise.all(records.map((r) => tx.get(r.kind, r.id)));
+        const [storedClock, previous] = await Promise.all([tx.getMeta('clock'), Promise.all(records.map((r) => tx.get(r.kind, r.id)))]);
+        catchUpClock(storedClock, now);
         const before = new Map(records.map((r, i) => [keyOf(r.kind, r.id), previous[i]]));
         await tx.putRecords(records);
-        await refreshSummaries(tx, await affectedDays(records, (r) => before.get(keyOf(r.kind, r.id)), tx, byKey));
+        const seriesOf = async (id: string) => (byKey.get(keyOf('series', id)) as SeriesRecord | undefined) ?? tx.get('series', id);
+        await refreshSummaries(tx, await affectedDays(records, (r) => before.get(keyOf(r.kind, r.id)), seriesOf));
         // Local edits made after a merge must sort after everything merged in.
         const newest = records.reduce((max, r) => (compareHlc(r.rev, max) > 0 ? r.rev : max), records[0]!.rev);
         if (compareHlc(newest, clock.latest) > 0) clock.receive(newest, now);
         await tx.putMeta('clock', clock.latest);
+        // The erased log's records are back once an import brings records that its device wrote.
+        const erased = (await tx.getMeta('erased_log')) as MetaValues['erased_log'] | undefined;
+        if (erased && records.some((r) => r.device === erased.device_id || r.history.some((h) => h.device === erased.device_id))) {
+          await tx.putMeta('erased_log', null);
+        }
       }, recordDurability);
+      noteWitness();
     },
 
     async getDraft(key) {
@@ -457,9 +524,16 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
     async status(): Promise<StoreStatus> {
       ensureOpen();
       await pendingPersistence;
-      const [answer, stored, lastSentAt, unsent] = await backend.read((tx) =>
-        Promise.all([tx.getMeta('persistence'), tx.getMeta('storage_estimate'), tx.getMeta('last_sent_at'), tx.getMeta('unsent_changes')]),
+      const [answer, stored, lastSentAt, unsent, erased] = await backend.read((tx) =>
+        Promise.all([
+          tx.getMeta('persistence'),
+          tx.getMeta('storage_estimate'),
+          tx.getMeta('last_sent_at'),
+          tx.getMeta('unsent_changes'),
+          tx.getMeta('erased_log'),
+        ]),
       );
+      const erasedLog = (erased as MetaValues['erased_log'] | undefined) ?? null;
       let persistent: boolean | null = (answer as MetaValues['persistence'] | undefined)?.persisted ?? null;
       if (env.storage?.persisted) persistent = await env.storage.persisted().catch(() => persistent);
       let estimate = (stored as StorageEstimate | undefined) ?? null;
@@ -472,6 +546,7 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
         }
       }
       const facts = {
+        erased: erasedLog !== null,
         persistent,
         installed: env.isInstalled(),
         unsentChanges: (unsent as number | undefined) ?? 0,
@@ -479,7 +554,8 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
         quota_bytes: estimate?.quota_bytes ?? null,
       };
       const reasons = assessRisk(facts);
-      return { ...facts, lastSentAt: (lastSentAt as string | undefined) ?? null, atRisk: reasons.length > 0, reasons };
+      const { erased: _erased, ...shown } = facts;
+      return { ...shown, lastSentAt: (lastSentAt as string | undefined) ?? null, erasedLog, atRisk: reasons.length > 0, reasons };
     },
 
     async markSent(now, sentChanges) {

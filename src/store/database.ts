@@ -46,7 +46,7 @@ export interface OpenLogDatabaseOptions {
   onBlocked?: () => void;
   /** Another tab wants a newer version: this connection has been closed and the page must reload. */
   onVersionChange?: () => void;
-  /** The browser closed the connection (storage cleared, disk error). */
+  /** The browser closed the connection (storage cleared, disk error); the store opens it again when next used. */
   onTerminated?: () => void;
 }
 

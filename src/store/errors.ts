@@ -32,15 +32,20 @@ export const STORAGE_FULL_MESSAGE =
   'The storage this browser gives Plummet is full. Nothing from this action was saved; everything saved before is ' +
   'kept and your unsaved input stays in the form. Export or sync the log and free space on the phone, then save again.';
 
+/**
+ * A disk that is full says so in the message of an UnknownError, not as a QuotaExceededError, when it runs out
+ * before the browser's quota does (the usual case on a phone that is nearly full). Seen in Chromium:
+ * "IO error: …leveldb/000048.log: FILE_ERROR_NO_SPACE". SQLite-based engines say "database or disk is full",
+ * Firefox NS_ERROR_FILE_NO_DEVICE_SPACE (from memory), and the C library "No space left on device".
+ */
+const NO_SPACE = /NO_SPACE|NO_DEVICE_SPACE|disk is full|No space left/i;
+
 export function isQuotaError(error: unknown): boolean {
   if (error instanceof StoreError) return error.code === 'storage-full';
-  const name = (error as { name?: unknown } | null)?.name;
+  const e = error as { name?: unknown; message?: unknown; code?: unknown } | null;
   // Old WebKit used code 22 and the name QUOTA_EXCEEDED_ERR; Firefox also reports NS_ERROR_DOM_QUOTA_REACHED.
-  return (
-    name === 'QuotaExceededError' ||
-    name === 'NS_ERROR_DOM_QUOTA_REACHED' ||
-    (error as { code?: unknown } | null)?.code === 22
-  );
+  if (e?.name === 'QuotaExceededError' || e?.name === 'NS_ERROR_DOM_QUOTA_REACHED' || e?.code === 22) return true;
+  return typeof e?.message === 'string' && NO_SPACE.test(e.message);
 }
 
 export function storageFull(cause: unknown): StoreError {

@@ -5,6 +5,12 @@
  * its error event and `tx.done` on error or abort; this adapter always awaits `done`, aborts the transaction
  * when the work inside it throws, and turns the platform's errors into StoreErrors (a QuotaExceededError,
  * whether on a request or at commit, becomes 'storage-full'). Nothing half-written is ever committed.
+ *
+ * Seen in Chromium with a profile on a disk that fills up: the put requests of the failing transaction
+ * reject with "AbortError: The transaction was aborted", and only `transaction.error` says
+ * QuotaExceededError. Reporting the first rejected request would call a full disk a generic failure.
+ * (Chromium's DevTools quota override, Storage.overrideQuotaForOrigin, does not make IndexedDB refuse
+ * anything, and navigator.storage.estimate() shows pages a made-up quota: test a full disk with a real one.)
  */
 import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
 import type { LogRecord, RecordKind, RecordOf } from '../log/types';
@@ -91,20 +97,44 @@ function translate(error: unknown): unknown {
 }
 
 class IdbBackend implements StoreBackend {
+  /** Closed for good: by close() or because a newer version of the app needs the database. */
   closed = false;
-  private readonly names: Names;
+  /** The browser closed the connection (after a disk error, for one); the next call opens it again. */
+  private lost = false;
+  private db: IDBPDatabase<LogDB>;
 
-  constructor(private readonly db: IDBPDatabase<LogDB>) {
-    this.names = [...db.objectStoreNames];
+  constructor(
+    db: IDBPDatabase<LogDB>,
+    private readonly connect: () => Promise<IDBPDatabase<LogDB>>,
+  ) {
+    this.db = db;
+  }
+
+  private async connection(): Promise<IDBPDatabase<LogDB>> {
+    if (this.closed) throw new StoreError('store-closed', null, 'the log store is closed; reload the app to open it again');
+    if (this.lost) {
+      this.db = await this.connect();
+      this.lost = false;
+    }
+    return this.db;
   }
 
   private async run<T>(mode: 'readonly' | 'readwrite', fn: (tx: StoreTx) => Promise<T>, durability: 'strict' | 'relaxed' | 'default'): Promise<T> {
-    if (this.closed) throw new StoreError('store-closed', null, 'the log store is closed; reload the app to open it again');
     let tx: AnyTx;
     try {
-      tx = this.db.transaction(this.names, mode, { durability });
+      const db = await this.connection();
+      tx = db.transaction([...db.objectStoreNames], mode, { durability });
     } catch (error) {
-      throw translate(error);
+      // A connection the browser closed without a close event (Chromium after a disk error) throws
+      // InvalidStateError here: open it again, once.
+      if ((error as { name?: string }).name !== 'InvalidStateError' || this.closed) throw translate(error);
+      this.lost = true;
+      try {
+        const db = await this.connection();
+        tx = db.transaction([...db.objectStoreNames], mode, { durability });
+      } catch (again) {
+        throw translate(again);
+      }
     }
     const done = tx.done;
     // Attached at once so an abort that happens while `fn` still runs is never an unhandled rejection.
@@ -119,7 +149,10 @@ class IdbBackend implements StoreBackend {
         // already aborted by the failed request, or finished
       }
       await done.catch(() => undefined);
-      throw translate(error);
+      // When a transaction aborts, each of its pending requests fails with a bare AbortError; the cause
+      // (QuotaExceededError, for one) is on the transaction. Our own errors are the cause themselves.
+      const own = error instanceof StoreError || error instanceof LogError;
+      throw translate(!own && tx.error ? tx.error : error);
     }
     try {
       await done;
@@ -145,6 +178,10 @@ class IdbBackend implements StoreBackend {
   markClosed(): void {
     this.closed = true;
   }
+
+  markLost(): void {
+    this.lost = true;
+  }
 }
 
 export interface OpenLogStoreOptions extends CreateLogStoreOptions, Omit<OpenLogDatabaseOptions, 'version' | 'upgrades'> {
@@ -156,17 +193,18 @@ export interface OpenLogStoreOptions extends CreateLogStoreOptions, Omit<OpenLog
 
 export async function openLogStore(options: OpenLogStoreOptions): Promise<LogStore> {
   let backend: IdbBackend | undefined;
-  const db = await openLogDatabase(options.name ?? DEFAULT_DB_NAME, {
-    onBlocked: options.onBlocked,
-    onVersionChange() {
-      backend?.markClosed();
-      options.onVersionChange?.();
-    },
-    onTerminated() {
-      backend?.markClosed();
-      options.onTerminated?.();
-    },
-  });
-  backend = new IdbBackend(db);
-  return createLogStore(backend, options.environment, options);
+  const connect = () =>
+    openLogDatabase(options.name ?? DEFAULT_DB_NAME, {
+      onBlocked: options.onBlocked,
+      onVersionChange() {
+        backend?.markClosed();
+        options.onVersionChange?.();
+      },
+      onTerminated() {
+        backend?.markLost();
+        options.onTerminated?.();
+      },
+    });
+  backend = new IdbBackend(await connect(), connect);
+  return createLogStore(backend, options.environment, { ...options, name: options.name ?? DEFAULT_DB_NAME });
 }

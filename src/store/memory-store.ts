@@ -187,6 +187,7 @@ export const MEMORY_ENVIRONMENT: StoreEnvironment = {
   random: (bytes) => globalThis.crypto.getRandomValues(bytes),
   storage: null,
   isInstalled: () => null,
+  witness: null,
 };
 
 export interface MemoryStoreOptions extends CreateLogStoreOptions {
@@ -197,5 +198,5 @@ export interface MemoryStoreOptions extends CreateLogStoreOptions {
 
 export function createMemoryStore(options: MemoryStoreOptions = {}): Promise<LogStore> {
   const database = options.database ?? new MemoryDatabase();
-  return createLogStore(new MemoryBackend(database), { ...MEMORY_ENVIRONMENT, ...options.environment }, options);
+  return createLogStore(new MemoryBackend(database), { ...MEMORY_ENVIRONMENT, ...options.environment }, { name: 'memory', ...options });
 }

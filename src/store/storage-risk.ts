@@ -9,6 +9,7 @@ import type { RiskReason } from './types';
 export const NEARLY_FULL_SHARE = 0.9;
 
 export interface RiskFacts {
+  erased: boolean;
   persistent: boolean | null;
   installed: boolean | null;
   unsentChanges: number;
@@ -18,6 +19,7 @@ export interface RiskFacts {
 
 export function assessRisk(facts: RiskFacts): RiskReason[] {
   const reasons: RiskReason[] = [];
+  if (facts.erased) reasons.push('log-erased');
   if (facts.installed === false) reasons.push('not-installed');
   // Unknown counts as not persistent: nothing has promised to keep the data.
   if (facts.persistent !== true) reasons.push('not-persistent');
@@ -30,6 +32,8 @@ export function assessRisk(facts: RiskFacts): RiskReason[] {
 
 /** Plain words for each reason, with the way out. */
 export const RISK_MESSAGES: Record<RiskReason, string> = {
+  'log-erased':
+    'The browser erased the log that was stored on this phone (it can do so when the phone runs out of space). Import your last export, or sync, to get the records back.',
   'not-installed':
     'Plummet is not installed on the home screen. Some phone browsers erase the data of a site after about a week without a visit. Install it, or export the log.',
   'not-persistent':

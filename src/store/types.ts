@@ -94,10 +94,19 @@ export interface MetaValues {
   /** Record changes made on this device since then. */
   unsent_changes: number;
   settings: Record<string, unknown>;
+  /** Set when a fresh database was opened where a log used to be; cleared by importing its records again. */
+  erased_log: ErasedLog | null;
 }
 export type MetaKey = keyof MetaValues & string;
 
-export type RiskReason = 'not-installed' | 'not-persistent' | 'unsent-changes' | 'storage-nearly-full';
+export type RiskReason = 'log-erased' | 'not-installed' | 'not-persistent' | 'unsent-changes' | 'storage-nearly-full';
+
+/** A log that was on this phone and is gone: the browser erased its database (see LossWitness). */
+export interface ErasedLog {
+  /** The device id of the erased log: its records carry it, so an import of the last export brings them back. */
+  device_id: string;
+  noticed_at: IsoInstant;
+}
 
 export interface StoreStatus {
   /** Whether the browser promised to keep this site's storage; null when it cannot tell. */
@@ -108,6 +117,8 @@ export interface StoreStatus {
   quota_bytes: number | null;
   lastSentAt: IsoInstant | null;
   unsentChanges: number;
+  /** The log the browser erased, until its records are imported again; null normally. */
+  erasedLog: ErasedLog | null;
   atRisk: boolean;
   reasons: RiskReason[];
 }
@@ -119,6 +130,16 @@ export interface StorageManagerLike {
   estimate?(): Promise<{ usage?: number; quota?: number }>;
 }
 
+/**
+ * A small note kept outside IndexedDB (localStorage in the browser) that a log with records existed here.
+ * Chromium deletes an origin's whole IndexedDB when a write fails because the disk is full; without a note
+ * elsewhere the app would simply start again empty. Clearing site data on purpose clears the note too.
+ */
+export interface LossWitness {
+  read(key: string): string | null;
+  write(key: string, value: string): void;
+}
+
 /** Browser facilities, handed in so the store runs in Node tests too (see browser-environment.ts). */
 export interface StoreEnvironment {
   /** Wall-clock milliseconds. */
@@ -128,4 +149,6 @@ export interface StoreEnvironment {
   storage: StorageManagerLike | null;
   /** True when the app runs from the home screen; null when the browser cannot tell. */
   isInstalled(): boolean | null;
+  /** Where to note that a log exists, to notice when the browser erased it; null for none. */
+  witness?: LossWitness | null;
 }

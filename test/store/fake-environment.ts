@@ -16,6 +16,8 @@ export interface FakeEnvironment {
     quota: number;
   };
   setInstalled(value: boolean | null): void;
+  /** What the loss witness holds (localStorage in the browser). */
+  witnessNotes: Map<string, string>;
 }
 
 export const T0 = Date.UTC(2026, 5, 14, 9, 0, 0);
@@ -23,6 +25,7 @@ export const T0 = Date.UTC(2026, 5, 14, 9, 0, 0);
 export function fakeEnvironment(start = T0): FakeEnvironment {
   let now = start;
   let installed: boolean | null = false;
+  const witnessNotes = new Map<string, string>();
   const storage = { persistCalls: 0, grant: true, persisted: false, usage: 120_000, quota: 2_000_000_000 };
   return {
     environment: {
@@ -38,7 +41,12 @@ export function fakeEnvironment(start = T0): FakeEnvironment {
         estimate: async () => ({ usage: storage.usage, quota: storage.quota }),
       },
       isInstalled: () => installed,
+      witness: {
+        read: (key) => witnessNotes.get(key) ?? null,
+        write: (key, value) => void witnessNotes.set(key, value),
+      },
     },
+    witnessNotes,
     setNow: (ms) => {
       now = ms;
     },

@@ -16,6 +16,12 @@ runLogStoreTests('IndexedDB adapter on fake-indexeddb', async (fake) => {
       store = await openLogStore({ name, environment: fake.environment });
       return store;
     },
+    async eraseAndReopen() {
+      store.close();
+      await deleteDB(name);
+      store = await openLogStore({ name, environment: fake.environment });
+      return store;
+    },
     exhaustQuota: () => setFakeQuotaFull(true),
     restoreQuota: () => setFakeQuotaFull(false),
     async dispose() {

@@ -2,12 +2,18 @@ import { createMemoryStore, MemoryDatabase } from '../../src/store';
 import { runLogStoreTests } from './suite';
 
 runLogStoreTests('memory twin', async (fake) => {
-  const database = new MemoryDatabase();
+  let database = new MemoryDatabase();
   let store = await createMemoryStore({ database, environment: fake.environment });
   return {
     store,
     async reopen() {
       store.close();
+      store = await createMemoryStore({ database, environment: fake.environment });
+      return store;
+    },
+    async eraseAndReopen() {
+      store.close();
+      database = new MemoryDatabase();
       store = await createMemoryStore({ database, environment: fake.environment });
       return store;
     },

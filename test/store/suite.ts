@@ -12,6 +12,8 @@ export interface StoreUnderTest {
   store: LogStore;
   /** Close the store and open the same data again, as a reload of the page does. */
   reopen(): Promise<LogStore>;
+  /** The browser deletes the database (as Chromium does after a disk-full error), then the app opens again. */
+  eraseAndReopen(): Promise<LogStore>;
   /** From now on the engine refuses to store more (QuotaExceededError), until restoreQuota(). */
   exhaustQuota(): Promise<void>;
   restoreQuota(): Promise<void>;
@@ -504,6 +506,36 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
 
       it('refuses to overwrite the device id through setMeta', async () => {
         expect(await codeOf(store.setMeta('device_id', 'abc'))).toBe('record-invalid');
+      });
+    });
+
+    describe('a log the browser erased', () => {
+      it('is noticed on the next start and reported until its records are imported again', async () => {
+        const site = await store.create('site', demo.site());
+        const exported = await store.allRecords();
+        const device = await store.deviceId();
+        store = await subject.eraseAndReopen();
+        expect(await store.allRecords()).toEqual([]);
+        const status = await store.status();
+        expect(status.reasons[0]).toBe('log-erased');
+        expect(status.erasedLog).toEqual({ device_id: device, noticed_at: '2026-06-14T09:00:00.000Z' });
+        await store.putRecords(exported);
+        expect(await store.get('site', site.id)).toEqual(site);
+        const after = await store.status();
+        expect(after.erasedLog).toBeNull();
+        expect(after.reasons).not.toContain('log-erased');
+      });
+
+      it('raises no alarm when the log that disappeared never held a record', async () => {
+        await store.putDraft('site-form', { name: 'W' });
+        store = await subject.eraseAndReopen();
+        expect((await store.status()).erasedLog).toBeNull();
+      });
+
+      it('raises no alarm after a plain reload', async () => {
+        await store.create('site', demo.site());
+        store = await subject.reopen();
+        expect((await store.status()).erasedLog).toBeNull();
       });
     });
 
