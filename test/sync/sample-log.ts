@@ -219,7 +219,8 @@ export function sampleLog(options: SampleOptions = {}): LogRecord[] {
       );
       records.push(series);
       for (let k = 0; k < (options.dropsPerSeries ?? 3); k++) {
-        const t = 1.6 + Math.round(random() * 100) / 1000;
+        // Plausible demo times from 12 m: the steel ball falls nearly as in vacuum (1.565 s), the foam cube slowly.
+        const t = s % 2 === 0 ? 1.575 + Math.round(random() * 6) / 1000 : 3.05 + Math.round(random() * 50) / 1000;
         const at = tick();
         const drop: DropRecord = makeRecord(
           'drop',
