@@ -16,6 +16,7 @@ runLogStoreTests('IndexedDB adapter on fake-indexeddb', async (fake) => {
       store = await openLogStore({ name, environment: fake.environment });
       return store;
     },
+    openAnother: () => openLogStore({ name, environment: fake.environment }),
     async eraseAndReopen() {
       store.close();
       await deleteDB(name);

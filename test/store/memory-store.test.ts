@@ -11,6 +11,7 @@ runLogStoreTests('memory twin', async (fake) => {
       store = await createMemoryStore({ database, environment: fake.environment });
       return store;
     },
+    openAnother: () => createMemoryStore({ database, environment: fake.environment }),
     async eraseAndReopen() {
       store.close();
       database = new MemoryDatabase();

@@ -12,6 +12,8 @@ export interface StoreUnderTest {
   store: LogStore;
   /** Close the store and open the same data again, as a reload of the page does. */
   reopen(): Promise<LogStore>;
+  /** A second store on the same data, as a second tab of the app opens it. */
+  openAnother(): Promise<LogStore>;
   /** The browser deletes the database (as Chromium does after a disk-full error), then the app opens again. */
   eraseAndReopen(): Promise<LogStore>;
   /** From now on the engine refuses to store more (QuotaExceededError), until restoreQuota(). */
@@ -363,6 +365,20 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
         expect(compareHlc(renamed.rev, site.rev)).toBeGreaterThan(0);
         expect(compareHlc(other.rev, renamed.rev)).toBeGreaterThan(0);
       });
+    });
+
+    it('hands out a new stamp for every change when two tabs write with the same device id', async () => {
+      const other = await subject.openAnother();
+      expect(await other.deviceId()).toBe(await store.deviceId());
+      const revs: string[] = [];
+      for (let i = 0; i < 10; i++) {
+        // The phone's clock stands still: only the stamps kept in the database keep the tabs apart.
+        revs.push((await store.create('site', { ...demo.site(), name: `A${i}` })).rev);
+        revs.push((await other.create('site', { ...demo.site(), name: `B${i}` })).rev);
+      }
+      expect(new Set(revs).size).toBe(20);
+      expect([...revs].sort(compareHlc)).toEqual(revs);
+      other.close();
     });
 
     describe('records merged from elsewhere', () => {
