@@ -1,0 +1,56 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { runAnalyze } from '../../src/cli/analyze';
+
+const root = join(import.meta.dirname, '../..');
+const tsx = join(root, 'node_modules/.bin/tsx');
+const run = (...args: string[]) => spawnSync(tsx, ['src/cli/analyze.ts', ...args], { cwd: root, encoding: 'utf8', timeout: 60_000 });
+
+describe('the analyze command', () => {
+  it('prints the analysis of an example request as JSON and exits 0', () => {
+    const result = run('examples/footbridge-ball.json');
+    expect(result.status).toBe(0);
+    const json = JSON.parse(result.stdout);
+    expect(json.drag_coefficient).toBeGreaterThan(0.4);
+    expect(json.drag_coefficient).toBeLessThan(0.56);
+    expect(json.drops).toHaveLength(5);
+    expect(json.air.station_pressure_Pa).toBe(94180);
+  });
+
+  it('exits 1 on bad input with a message naming the field, the value and the allowed range', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'plummet-cli-'));
+    const bad = JSON.parse(readFileSync(join(root, 'examples/footbridge-ball.json'), 'utf8'));
+    bad.air.relative_humidity_pct = 130;
+    const file = join(dir, 'bad.json');
+    writeFileSync(file, JSON.stringify(bad));
+    const result = run(file);
+    expect(result.status).toBe(1);
+    expect(result.stdout).toBe('');
+    expect(result.stderr).toContain('air.relative_humidity_pct = 130');
+    expect(result.stderr).toContain('allowed: 0 to 100 %');
+  });
+
+  it('exits 1 for a missing file and for text that is not JSON', () => {
+    expect(runAnalyze(['/no/such/request.json'], (p) => readFileSync(p, 'utf8'))).toMatchObject({ exitCode: 1 });
+    const notJson = runAnalyze(['x.json'], () => '{ "site": ');
+    expect(notJson.exitCode).toBe(1);
+    expect(notJson.stderr).toContain('not valid JSON');
+  });
+
+  it('prints its usage without a file', () => {
+    const outcome = runAnalyze([], () => '');
+    expect(outcome.exitCode).toBe(1);
+    expect(outcome.stderr).toContain('usage:');
+  });
+
+  it('analyses every example in examples/', () => {
+    for (const name of ['footbridge-ball.json', 'stairwell-box-offset.json', 'meadow-seed-pod.json']) {
+      const outcome = runAnalyze([join(root, 'examples', name)], (p) => readFileSync(p, 'utf8'));
+      expect(outcome.exitCode, `${name}: ${outcome.stderr}`).toBe(0);
+      expect(JSON.parse(outcome.stdout).drag_resolved).toBe(true);
+    }
+  });
+});
