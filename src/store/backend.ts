@@ -2,7 +2,7 @@
  * What a storage engine must provide for the log store: atomic transactions over a few named stores.
  * The log logic (create-log-store.ts) is written once over this; IndexedDB and the in-memory twin implement it.
  */
-import type { LogRecord, RecordKind, RecordOf } from '../log/types';
+import type { LogRecord, RecordKind, RecordOf } from '../log';
 import type { DaySummary, DraftEntry } from './types';
 
 /** The indexes the screens need, by store, and the record field each one is over. */

@@ -3,12 +3,27 @@
  * user action, references checked, removal cascading into what a day or a series holds, per-day counts kept
  * up to date, the clock stamp and the count of unsent changes kept with the records they describe.
  */
-import { LogError, LogValidationError, type Problem } from '../log/errors';
-import { HybridLogicalClock, compareHlc } from '../log/hlc';
-import { createRecord, deleteRecord, recordHistory, reviseRecord, type RecordContext } from '../log/records';
-import { RECORD_KINDS, type LogRecord, type ReadingRecord, type RecordKind, type RecordOf, type SeriesRecord } from '../log/types';
-import { randomDeviceId, uuidV4 } from '../log/uuid';
-import { validateRecord } from '../log/validate';
+import {
+  HybridLogicalClock,
+  LogError,
+  LogValidationError,
+  RECORD_KINDS,
+  compareHlc,
+  createRecord,
+  deleteRecord,
+  randomDeviceId,
+  recordHistory,
+  reviseRecord,
+  uuidV4,
+  validateRecord,
+  type LogRecord,
+  type Problem,
+  type ReadingRecord,
+  type RecordContext,
+  type RecordKind,
+  type RecordOf,
+  type SeriesRecord,
+} from '../log';
 import type { StoreBackend, StoreTx } from './backend';
 import { StoreError } from './errors';
 import type { LogStore } from './log-store';

@@ -13,7 +13,7 @@
  *   upgrade cannot read the newer database. That is reported as 'database-newer', never "fixed" by deleting.
  */
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
-import type { DayRecord, DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log/types';
+import type { DayRecord, DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
 import { StoreError } from './errors';
 import type { DaySummary, DraftEntry } from './types';
 import { UPGRADES, type Upgrade } from './upgrades';

@@ -13,8 +13,7 @@
  * anything, and navigator.storage.estimate() shows pages a made-up quota: test a full disk with a real one.)
  */
 import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
-import type { LogRecord, RecordKind, RecordOf } from '../log/types';
-import { LogError } from '../log/errors';
+import { LogError, type LogRecord, type RecordKind, type RecordOf } from '../log';
 import type { IndexedKind, IndexName, StoreBackend, StoreTx, WriteTxOptions } from './backend';
 import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
 import { DEFAULT_DB_NAME, openLogDatabase, type LogDB, type OpenLogDatabaseOptions } from './database';

@@ -2,7 +2,7 @@
  * The storage interface of the log. The IndexedDB adapter (openLogStore) and the in-memory twin
  * (createMemoryStore) both implement it; test/store/suite.ts holds the one test suite both must pass.
  */
-import type { BodyOf, LogRecord, RecordKind, RecordOf, Revision } from '../log/types';
+import type { BodyOf, LogRecord, RecordKind, RecordOf, Revision } from '../log';
 import type {
   DayListItem,
   DayView,

@@ -3,7 +3,7 @@
  * It copies values in and out (as IndexedDB's structured clone does), runs one transaction at a time,
  * writes a transaction's changes only when it finishes, and can be given a quota to test a full disk.
  */
-import type { LogRecord, RecordKind, RecordOf } from '../log/types';
+import type { LogRecord, RecordKind, RecordOf } from '../log';
 import { INDEX_FIELDS, type IndexedKind, type IndexName, type StoreBackend, type StoreTx } from './backend';
 import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
 import { StoreError, storageFull } from './errors';

@@ -12,7 +12,7 @@ import type {
   SeriesRecord,
   SiteRecord,
   SpecimenRecord,
-} from '../log/types';
+} from '../log';
 
 /** One line of the list of days. */
 export interface DayListItem {
