@@ -27,7 +27,7 @@ self.addEventListener('message', (event: ExtendableMessageEvent) => {
 // page to send them (the sync code itself runs in the page, which holds the store and the credentials).
 self.addEventListener('sync', (event: Event) => {
   const e = event as ExtendableEvent & { tag?: string };
-  if (e.tag !== 'plummet-outbox') return;
+  if (e.tag !== 'plummet-office-folder') return;
   e.waitUntil(
     self.clients.matchAll({ type: 'window' }).then((clients) => {
       for (const client of clients) client.postMessage({ type: 'SYNC_NOW' });

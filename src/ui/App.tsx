@@ -3,12 +3,15 @@ import { Nav } from './Nav';
 import { UpdateNotice } from './UpdateNotice';
 import { routeHref, useRoute, type ScreenName } from './router';
 import type { UpdateHandle } from './service-worker';
-import { DayScreen } from './screens/DayScreen';
-import { PlanScreen } from './screens/PlanScreen';
-import { SpecimensScreen } from './screens/SpecimensScreen';
-import { LogScreen } from './screens/LogScreen';
-import { SendScreen } from './screens/SendScreen';
-import { SettingsScreen } from './screens/SettingsScreen';
+import { useApp } from './app-context';
+import { lazyScreen } from './lazy';
+
+const DayScreen = lazyScreen(() => import('./screens/DayScreen').then((m) => m.DayScreen));
+const PlanScreen = lazyScreen(() => import('./screens/PlanScreen').then((m) => m.PlanScreen));
+const SpecimensScreen = lazyScreen(() => import('./screens/SpecimensScreen').then((m) => m.SpecimensScreen));
+const LogScreen = lazyScreen(() => import('./screens/LogScreen').then((m) => m.LogScreen));
+const SendScreen = lazyScreen(() => import('./screens/SendScreen').then((m) => m.SendScreen));
+const SettingsScreen = lazyScreen(() => import('./screens/SettingsScreen').then((m) => m.SettingsScreen));
 
 const TITLES: Record<ScreenName, string> = {
   day: 'Test day',
@@ -19,13 +22,15 @@ const TITLES: Record<ScreenName, string> = {
   settings: 'Settings',
 };
 
-export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) => void): void } }) {
+export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) => void): () => void } }) {
   const route = useRoute();
+  const { status } = useApp();
   const [update, setUpdate] = useState<UpdateHandle | null>(null);
   useEffect(() => updates.subscribe(setUpdate), [updates]);
   useEffect(() => {
     document.title = `${TITLES[route.screen]} · Plummet`;
-  }, [route.screen]);
+    window.scrollTo(0, 0);
+  }, [route.screen, route.params.join('/')]);
 
   return (
     <div class="shell">
@@ -55,7 +60,7 @@ export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) =>
         {route.screen === 'settings' && <SettingsScreen />}
       </main>
       {update ? <UpdateNotice update={update} onDismiss={() => setUpdate(null)} /> : null}
-      <Nav current={route.screen} unsent={0} />
+      <Nav current={route.screen} unsent={status?.unsentChanges ?? 0} />
     </div>
   );
 }

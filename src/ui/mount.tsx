@@ -1,21 +1,49 @@
 import { render } from 'preact';
-import '../widgets';
 import './styles.css';
 import { App } from './App';
+import { AppProvider, loadSettings } from './app-context';
 import { registerServiceWorker, type UpdateHandle } from './service-worker';
+import { browserEnvironment, openLogStore } from '../store';
+import { describeError } from './errors';
 
-export function mountApp(root: HTMLElement): void {
+export async function mountApp(root: HTMLElement): Promise<void> {
   let pending: UpdateHandle | null = null;
   const listeners = new Set<(u: UpdateHandle) => void>();
   const updates = {
     subscribe(fn: (u: UpdateHandle) => void) {
       listeners.add(fn);
       if (pending) fn(pending);
+      return () => void listeners.delete(fn);
     },
   };
   registerServiceWorker((u) => {
     pending = u;
     for (const fn of listeners) fn(u);
   });
-  render(<App updates={updates} />, root);
+  try {
+    const store = await openLogStore({
+      environment: browserEnvironment(),
+      onVersionChange: () => {
+        // Another tab opened a newer version of the database: this tab must reload to keep writing.
+        root.insertAdjacentHTML('afterbegin', '<p class="notice notice-warn" role="alert">Plummet was updated in another tab. Reload this page to go on.</p>');
+      },
+    });
+    const settings = await loadSettings(store);
+    let bump: () => void = () => undefined;
+    render(
+      <AppProvider store={store} initialSettings={settings} onReady={(notify) => (bump = notify)}>
+        <App updates={updates} />
+      </AppProvider>,
+      root,
+    );
+    // Sync code loads after the first paint: the shell stays small, and a phone without a folder never needs it.
+    void import('./sync-service').then((m) => m.startSyncService(store, () => bump()));
+  } catch (error) {
+    root.innerHTML = '';
+    const p = document.createElement('p');
+    p.className = 'notice notice-bad';
+    p.setAttribute('role', 'alert');
+    p.textContent = `Plummet cannot open its storage on this phone: ${describeError(error)} If the browser is in a private mode, open Plummet in a normal tab.`;
+    root.append(p);
+  }
 }

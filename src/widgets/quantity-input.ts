@@ -84,6 +84,7 @@ export class QuantityInput extends LitElement {
   static override styles = css`
     :host {
       display: block;
+      min-width: 0;
       margin: 0 0 var(--pl-gap, 0.9rem);
       font: inherit;
       color: var(--pl-ink, #111);
@@ -111,6 +112,7 @@ export class QuantityInput extends LitElement {
     }
     input {
       flex: 1;
+      width: 100%;
       min-width: 0;
       border: 0;
       background: transparent;

@@ -4,8 +4,8 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative, sep } from 'node:path';
 
 /** Which parts each pure part may never import, and which globals it may never touch. */
-export const PURE_PARTS = ['physics', 'log'] as const;
-export const FORBIDDEN_PARTS = ['store', 'sync', 'ui', 'widgets', 'timing', 'cli'];
+export const PURE_PARTS = ['physics', 'log', 'analysis'] as const;
+export const FORBIDDEN_PARTS = ['store', 'sync', 'ui', 'widgets', 'timing', 'cli', 'analysis'];
 export const FORBIDDEN_PACKAGES = /^(idb|preact|lit|workbox-[a-z-]+|@preact\/.*|node:.*|fs|path|os|crypto|http|https)(\/|$)/;
 export const FORBIDDEN_GLOBALS = [
   'window',

@@ -1,8 +1,60 @@
+import { useMemo, useState } from 'preact/hooks';
+import { useApp } from '../app-context';
+import { useStoreData } from '../hooks';
+import { routeHref } from '../router';
+import { RiskWarnings } from '../RiskWarnings';
+
+/** Every day in the log, newest first, searchable by site and specimen, with each day's results at a glance. */
 export function LogScreen() {
+  const app = useApp();
+  const [query, setQuery] = useState('');
+  const data = useStoreData(async () => {
+    const [days, series, specimens] = await Promise.all([app.store.listDays(), app.store.list('series'), app.store.list('specimen')]);
+    return { days, series, specimens };
+  }, []);
+  const rows = useMemo(() => {
+    if (data.state !== 'ready') return [];
+    const { days, series, specimens } = data.value;
+    const names = new Map(specimens.map((s) => [s.id, s.name]));
+    const q = query.trim().toLowerCase();
+    return days
+      .map((d) => {
+        const dayNames = [...new Set(series.filter((s) => s.day_id === d.id).map((s) => names.get(s.specimen_id) ?? 'unknown'))];
+        return { d, dayNames };
+      })
+      .filter(({ d, dayNames }) => !q || (d.site_name ?? '').toLowerCase().includes(q) || dayNames.some((n) => n.toLowerCase().includes(q)) || d.date.includes(q));
+  }, [data, query]);
   return (
-    <section aria-labelledby="log-h">
-      <h2 id="log-h">Log</h2>
-      <p>Nothing here yet.</p>
-    </section>
+    <div>
+      <RiskWarnings />
+      <div class="field">
+        <label for="log-search">Search by site, specimen or date</label>
+        <input id="log-search" type="search" value={query} onInput={(e) => setQuery((e.target as HTMLInputElement).value)} />
+      </div>
+      {data.state === 'ready' && data.value.days.length === 0 ? (
+        <p>
+          The log is empty. <a href={routeHref('day', 'new')}>Start a test day</a>, or load the sample log in <a href={routeHref('settings')}>Settings</a>.
+        </p>
+      ) : null}
+      <ul class="rows">
+        {rows.map(({ d, dayNames }) => (
+          <li key={d.id}>
+            <a class="row row-link" href={routeHref('day', d.id)}>
+              <span class="row-main">
+                <strong>{d.date}</strong> · {d.site_name ?? 'site missing'}
+                <br />
+                <span class="hint">{dayNames.length ? dayNames.join(', ') : 'no series yet'}</span>
+              </span>
+              <span class="row-side">
+                {d.series_count} series
+                <br />
+                {d.drop_count} drops
+              </span>
+            </a>
+          </li>
+        ))}
+      </ul>
+      {data.state === 'ready' && rows.length === 0 && data.value.days.length > 0 ? <p>No day matches “{query}”.</p> : null}
+    </div>
   );
 }

@@ -1,21 +1,178 @@
-import { useState } from 'preact/hooks';
+import { useMemo } from 'preact/hooks';
+import { planDrop } from '../../physics';
+import type { TimingMethod } from '../../log/types';
+import { useApp } from '../app-context';
+import { useDraft, useStoreData } from '../hooks';
+import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../forms';
+import { routeHref } from '../router';
+import { SafetyCaution, impactEnergyWarning } from '../SafetyCaution';
+import { airInput, specimenInput } from '../../analysis';
+import { TIMING_DEFAULTS } from './day/SeriesForm';
+import { describeError } from '../errors';
 
+interface PlanDraft {
+  specimenId: string;
+  height: FieldState;
+  timingMethod: TimingMethod;
+  uTime: FieldState;
+  target: FieldState;
+  maxHeight: FieldState;
+}
+
+/** Try a drop before making it: fall time, impact, and the height and drops a target uncertainty needs. */
 export function PlanScreen() {
-  const [height, setHeight] = useState<number | null>(10);
+  const app = useApp();
+  const data = useStoreData(async () => {
+    const specimens = await app.store.list('specimen');
+    const dayId = app.settings.currentDayId;
+    const view = dayId ? await app.store.loadDay(dayId).catch(() => null) : null;
+    return { specimens, view };
+  }, [app.settings.currentDayId]);
+  const form = useDraft<PlanDraft>('planner', () => ({
+    specimenId: '',
+    height: field(10),
+    timingMethod: 'tap',
+    uTime: field(TIMING_DEFAULTS.tap.u_s),
+    target: field(5),
+    maxHeight: field(50),
+  }));
+  const d = form.value;
+  const specimens = data.state === 'ready' ? data.value.specimens : [];
+  const specimen = specimens.find((s) => s.id === d.specimenId) ?? specimens[0];
+  const view = data.state === 'ready' ? data.value.view : null;
+  const reading = view?.readings[view.readings.length - 1] ?? null;
+  const site = view?.site ?? null;
+
+  const plan = useMemo(() => {
+    if (!specimen || !fieldsValid(d.height, d.uTime, d.target, d.maxHeight)) return null;
+    try {
+      const sp = specimenInput(specimen);
+      const air = reading ? airInput(reading) : { air: { temperature_C: 15, pressure_Pa: 101_325, pressure_reference: 'station' as const, relative_humidity_pct: 0 }, uncertainty: {} };
+      return {
+        ok: true as const,
+        plan: planDrop({
+          site: site ? { latitude_deg: site.latitude_deg, elevation_m: site.elevation_m } : { latitude_deg: 45, elevation_m: 0 },
+          air: air.air,
+          specimen: sp.input,
+          timing: { standard_uncertainty_s: d.uTime.value! },
+          uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: 0.01 },
+          height_m: Math.min(d.height.value!, d.maxHeight.value!),
+          target_relative_uncertainty: d.target.value! / 100,
+          max_height_m: d.maxHeight.value!,
+          max_drops: 30,
+        }),
+      };
+    } catch (e) {
+      return { ok: false as const, message: describeError(e) };
+    }
+  }, [specimen, reading, site, d]);
+
   return (
-    <section aria-labelledby="plan-h">
-      <h2 id="plan-h">Try a drop before you make it</h2>
-      <pl-quantity
-        label="Release height"
-        quantity="length"
-        value={height}
-        min={0}
-        minExclusive
-        max={5000}
-        required
-        onquantity-change={(e: CustomEvent) => setHeight((e.detail as { value: number | null }).value)}
-      />
-      <p class="big-number" aria-live="polite">{height === null ? '—' : `${height} m`}</p>
+    <div>
+      <SafetyCaution />
+      {specimens.length === 0 ? (
+        <Notice tone="info">
+          Add a specimen to the <a href={routeHref('specimens', 'new')}>catalogue</a> to plan its drops.
+        </Notice>
+      ) : (
+        <section class="card" aria-labelledby="plan-h">
+          <h2 id="plan-h">Try a drop</h2>
+          <p class="hint">
+            Air: {reading ? `the latest reading of the current day (${app.format(reading.temperature_C, 'temperature')})` : 'standard sea-level air, 15 °C, dry (no current day with a reading)'}.
+          </p>
+          <SelectField
+            id="plan-specimen"
+            label="Specimen"
+            value={specimen?.id ?? ''}
+            options={specimens.map((s) => ({ value: s.id, label: s.name }))}
+            onChange={(specimenId) => form.set({ specimenId })}
+          />
+          <QField label="Release height" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+          <SelectField
+            id="plan-timing"
+            label="Timing method"
+            value={d.timingMethod}
+            options={Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }))}
+            onChange={(v) => form.set({ timingMethod: v as TimingMethod, uTime: field(TIMING_DEFAULTS[v as TimingMethod].u_s) })}
+          />
+          <QField label="Timing std. uncertainty per drop" kind="time" delta state={d.uTime} min={0} minExclusive max={1} onChange={(uTime) => form.set({ uTime })} />
+          <QField label="Target uncertainty of C_d" kind="percent" state={d.target} min={0} minExclusive max={100} onChange={(target) => form.set({ target })} />
+          <QField label="Highest release point available" kind="length" state={d.maxHeight} min={0.5} max={5000} onChange={(maxHeight) => form.set({ maxHeight })} />
+        </section>
+      )}
+      {plan && !plan.ok ? <Notice tone="bad">{plan.message}</Notice> : null}
+      {plan && plan.ok ? <PlanResult plan={plan.plan} /> : null}
+    </div>
+  );
+}
+
+function PlanResult({ plan }: { plan: ReturnType<typeof planDrop> }) {
+  const app = useApp();
+  const at = plan.at_height;
+  const energyWarning = impactEnergyWarning(at?.impact_energy_J);
+  return (
+    <section class="card result" aria-labelledby="planres-h" aria-live="polite">
+      <h3 id="planres-h">What to expect</h3>
+      <p class="hint">
+        Assumed C_d {plan.drag_coefficient.toFixed(3)} ({plan.drag_coefficient_source === 'reference' ? 'the specimen’s reference value' : plan.drag_coefficient_source === 'given' ? 'given' : 'sphere correlation'}).
+      </p>
+      {at ? (
+        <div class="figures">
+          <div class="figure">
+            <span class="figure-label">Fall time</span>
+            <span class="figure-value">{at.fall_time_s.toFixed(3)} s</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">Drag delay</span>
+            <span class="figure-value">{(at.drag_delay_s * 1000).toFixed(1)} ms</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">Impact speed</span>
+            <span class="figure-value">{app.format(at.impact_speed_m_s, 'speed', 1)}</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">Impact energy</span>
+            <span class="figure-value">{app.format(at.impact_energy_J, 'energy')}</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">Terminal velocity</span>
+            <span class="figure-value">{app.format(plan.terminal_velocity_m_s, 'speed', 1)}</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">Reaches 95 % of it after</span>
+            <span class="figure-value">{app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">Reaches 99 % after</span>
+            <span class="figure-value">{app.format(plan.distance_to_99pct_terminal_velocity_m, 'length', 1)}</span>
+          </div>
+          <div class="figure">
+            <span class="figure-label">C_d uncertainty, one drop</span>
+            <span class="figure-value">{(at.relative_uncertainty_one_drop * 100).toFixed(1)} %</span>
+          </div>
+        </div>
+      ) : null}
+      {energyWarning ? (
+        <Notice tone="bad" title="Impact energy">
+          {energyWarning}
+        </Notice>
+      ) : null}
+      {plan.target ? (
+        <Notice tone={plan.target.reachable ? 'good' : 'warn'} title={plan.target.reachable ? 'The target can be reached' : 'The target cannot be reached'}>
+          <p>{plan.target.message}</p>
+          {plan.target.smallest_height_m !== null ? (
+            <p>
+              Lowest height: <strong>{app.format(plan.target.smallest_height_m, 'length', 1)}</strong> with {plan.target.drops_at_smallest_height} drops.
+              {plan.target.drops_at_planned_height !== null ? ` From the planned height: ${plan.target.drops_at_planned_height} drops.` : ''}
+            </p>
+          ) : null}
+        </Notice>
+      ) : null}
+      {plan.warnings.map((w, i) => (
+        <Notice key={`${w.code}${i}`} tone="warn">
+          {w.message}
+        </Notice>
+      ))}
     </section>
   );
 }

@@ -1,8 +1,204 @@
+import { useEffect, useState } from 'preact/hooks';
+import { exportLog, logFileName, logCsv, type MergePreview } from '../../log';
+import { applyImport, loadSyncSettings, pickFile, previewImport, saveSyncSettings, shareFile, type ImportPreview, type SyncReport } from '../../sync';
+import { computeSeries } from '../../analysis';
+import { useApp } from '../app-context';
+import { useStoreData } from '../hooks';
+import { Notice, TextField } from '../forms';
+import { RiskWarnings } from '../RiskWarnings';
+import { currentSyncService, recordSource, type SyncService } from '../sync-service';
+import { describeError } from '../errors';
+import { localDate } from './day/StartDayForm';
+
+/** Getting the log to the office: files (share or download), importing a file, and the office folder. */
 export function SendScreen() {
+  const sync = currentSyncService();
+  const app = useApp();
+  const [message, setMessage] = useState<{ tone: 'good' | 'bad' | 'info'; text: string } | null>(null);
+  const [incoming, setIncoming] = useState<ImportPreview | null>(null);
+  const status = app.status;
+
+  const exportJson = async () => {
+    setMessage(null);
+    try {
+      const before = await app.store.status();
+      const records = await app.store.allRecords({ includeDeleted: true });
+      const device = await app.store.deviceId();
+      const text = exportLog(records, { device, app_version: __APP_VERSION__ });
+      const outcome = await shareFile({ name: logFileName(device, localDate()), text, type: 'application/json' }, undefined, 'Plummet log');
+      if (outcome !== 'cancelled') {
+        await app.store.markSent(new Date(), before.unsentChanges);
+        await app.refreshStatus();
+      }
+      setMessage({ tone: 'good', text: outcome === 'shared' ? 'The log was handed to the share sheet.' : outcome === 'downloaded' ? 'The log file was downloaded.' : 'Sharing was cancelled.' });
+    } catch (e) {
+      setMessage({ tone: 'bad', text: describeError(e) });
+    }
+  };
+
+  const exportCsv = async () => {
+    setMessage(null);
+    try {
+      const records = await app.store.allRecords({ includeDeleted: false });
+      const device = await app.store.deviceId();
+      const csv = logCsv(records, computeSeries);
+      const base = logFileName(device, localDate()).replace(/\.json$/, '');
+      await shareFile({ name: `${base}-drops.csv`, text: csv.drops, type: 'text/csv' }, undefined, 'Plummet drops');
+      await shareFile({ name: `${base}-series.csv`, text: csv.series, type: 'text/csv' }, undefined, 'Plummet series');
+      setMessage({ tone: 'good', text: 'Two CSV files: one row per drop, one row per series.' });
+    } catch (e) {
+      setMessage({ tone: 'bad', text: describeError(e) });
+    }
+  };
+
+  const chooseImport = async () => {
+    setMessage(null);
+    setIncoming(null);
+    try {
+      const file = await pickFile();
+      if (!file) return;
+      setIncoming(await previewImport(recordSource(app.store), await file.text()));
+    } catch (e) {
+      setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
+    }
+  };
+
+  const confirmImport = async () => {
+    if (!incoming) return;
+    try {
+      const done: MergePreview = await applyImport(recordSource(app.store), incoming.file);
+      setIncoming(null);
+      app.notifyChanged();
+      setMessage({ tone: 'good', text: `Imported: ${done.added.length} added, ${done.updated.length} updated, ${done.conflicts.length} conflicts kept for review.` });
+    } catch (e) {
+      setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${describeError(e)}` });
+    }
+  };
+
   return (
-    <section aria-labelledby="send-h">
-      <h2 id="send-h">Send</h2>
-      <p>Nothing here yet.</p>
+    <div>
+      <section class="card" aria-labelledby="unsent-h">
+        <h2 id="unsent-h">
+          {status?.unsentChanges ? `${status.unsentChanges} change${status.unsentChanges === 1 ? '' : 's'} not yet sent` : 'Everything is sent'}
+        </h2>
+        <p class="hint">Last export or sync: {status?.lastSentAt ? new Date(status.lastSentAt).toLocaleString() : 'never'}.</p>
+        <RiskWarnings compact />
+      </section>
+      <section class="card" aria-labelledby="files-h">
+        <h2 id="files-h">By file</h2>
+        <div class="btn-row">
+          <button type="button" class="btn" onClick={exportJson}>
+            Send the whole log (JSON)
+          </button>
+          <button type="button" class="btn btn-quiet" onClick={exportCsv}>
+            Tables for a spreadsheet (CSV)
+          </button>
+          <button type="button" class="btn btn-quiet" onClick={chooseImport}>
+            Import a log file
+          </button>
+        </div>
+        {incoming ? (
+          <div class="subform" role="group" aria-label="Import preview">
+            <p>
+              From device <span class="mono">{incoming.file.device}</span>: <strong>{incoming.preview.added.length}</strong> records to add,{' '}
+              <strong>{incoming.preview.updated.length}</strong> to update, {incoming.preview.unchanged} unchanged,{' '}
+              <strong>{incoming.preview.conflicts.length}</strong> in conflict (kept for review, nothing dropped).
+            </p>
+            <div class="btn-row">
+              <button type="button" class="btn" onClick={confirmImport}>
+                Merge into this log
+              </button>
+              <button type="button" class="btn btn-quiet" onClick={() => setIncoming(null)}>
+                Cancel
+              </button>
+            </div>
+          </div>
+        ) : null}
+      </section>
+      <FolderSync sync={sync} />
+      {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
+    </div>
+  );
+}
+
+function FolderSync({ sync }: { sync: SyncService | null }) {
+  const app = useApp();
+  const source = recordSource(app.store);
+  const saved = useStoreData(() => loadSyncSettings(source).catch(() => null), []);
+  const [url, setUrl] = useState('');
+  const [user, setUser] = useState('');
+  const [password, setPassword] = useState('');
+  const [enabled, setEnabled] = useState(true);
+  const [error, setError] = useState<string | null>(null);
+  const [report, setReport] = useState<SyncReport | null>(sync?.lastReport ?? null);
+  const [busy, setBusy] = useState(false);
+  useEffect(() => {
+    if (saved.state === 'ready' && saved.value) {
+      setUrl(saved.value.folder_url);
+      setUser(saved.value.username);
+      setPassword(saved.value.password);
+      setEnabled(saved.value.enabled);
+    }
+  }, [saved.state]);
+  useEffect(() => sync?.subscribe(setReport), [sync]);
+
+  const save = async () => {
+    setError(null);
+    try {
+      await saveSyncSettings(source, { folder_url: url.trim(), username: user, password, enabled });
+      await sync?.restart();
+      setError(null);
+      app.notifyChanged();
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+  const syncNow = async () => {
+    if (!sync) return;
+    setBusy(true);
+    try {
+      setReport(await sync.scheduler.request('manual'));
+      await app.refreshStatus();
+    } catch (e) {
+      setError(describeError(e));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <section class="card" aria-labelledby="folder-h">
+      <h2 id="folder-h">Office folder (WebDAV)</h2>
+      <p class="hint">Each phone writes its own file in the folder and merges the others’. The password stays on this phone and never goes into an export.</p>
+      <TextField id="dav-url" label="Folder URL" hint="https://… (http only for this computer)" value={url} onInput={setUrl} autocomplete="url" />
+      <TextField id="dav-user" label="User name" value={user} onInput={setUser} autocomplete="username" />
+      <div class="field">
+        <label for="dav-pass">Password</label>
+        <input id="dav-pass" type="password" value={password} autocomplete="current-password" onInput={(e) => setPassword((e.target as HTMLInputElement).value)} />
+      </div>
+      <label class="check">
+        <input type="checkbox" checked={enabled} onChange={(e) => setEnabled((e.target as HTMLInputElement).checked)} />
+        <span>Sync by itself when the phone is online</span>
+      </label>
+      {error ? <Notice tone="bad">{error}</Notice> : null}
+      <div class="btn-row">
+        <button type="button" class="btn btn-quiet" onClick={save}>
+          Save folder
+        </button>
+        <button type="button" class="btn" onClick={syncNow} disabled={busy || !sync}>
+          {busy ? 'Syncing…' : 'Sync now'}
+        </button>
+      </div>
+      {report ? (
+        <Notice tone={report.ok ? 'good' : 'bad'} title={report.ok ? 'Last sync succeeded' : 'Last sync failed'}>
+          <p>
+            {new Date(report.finished_at).toLocaleString()}: {report.merged.length} files merged, {report.skipped} unchanged
+            {report.uploaded ? ', this phone’s file sent' : ''}.
+          </p>
+          {report.error ? <p>{report.error.message}</p> : null}
+          {report.conflicts.length ? <p>{report.conflicts.length} conflicts kept for review.</p> : null}
+        </Notice>
+      ) : null}
     </section>
   );
 }

@@ -1,8 +1,289 @@
+import { useState } from 'preact/hooks';
+import type { ShapeKind, SpecimenBody, SpecimenRecord, SpecimenShape } from '../../log/types';
+import { useApp } from '../app-context';
+import { useDraft, useStoreData } from '../hooks';
+import { Choice, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';
+import { navigate, routeHref } from '../router';
+import { describeError } from '../errors';
+
+const SHAPES: Array<{ value: ShapeKind; label: string }> = [
+  { value: 'sphere', label: 'Sphere' },
+  { value: 'cylinder', label: 'Cylinder' },
+  { value: 'disc', label: 'Disc' },
+  { value: 'box', label: 'Box' },
+  { value: 'custom', label: 'Other' },
+];
+
+/** #/specimens: the catalogue; #/specimens/new and #/specimens/<id>: the form. */
 export function SpecimensScreen({ params }: { params: string[] }) {
+  const [id] = params;
+  if (id) return <SpecimenEditor id={id === 'new' ? null : id} />;
+  return <SpecimenList />;
+}
+
+export function describeShape(shape: SpecimenShape, format: (v: number, k: 'smallLength' | 'area' | 'volume') => string): string {
+  switch (shape.kind) {
+    case 'sphere':
+      return `sphere ⌀ ${format(shape.diameter_m, 'smallLength')}`;
+    case 'cylinder':
+      return `cylinder ⌀ ${format(shape.diameter_m, 'smallLength')} × ${format(shape.length_m, 'smallLength')}`;
+    case 'disc':
+      return `disc ⌀ ${format(shape.diameter_m, 'smallLength')} × ${format(shape.thickness_m, 'smallLength')}`;
+    case 'box':
+      return `box ${format(shape.length_m, 'smallLength')} × ${format(shape.width_m, 'smallLength')} × ${format(shape.height_m, 'smallLength')}`;
+    case 'custom':
+      return `area ${format(shape.area_m2, 'area')}, volume ${format(shape.volume_m3, 'volume')}`;
+  }
+}
+
+function SpecimenList() {
+  const app = useApp();
+  const list = useStoreData(() => app.store.list('specimen'), []);
   return (
-    <section aria-labelledby="specimens-h">
-      <h2 id="specimens-h">Specimens</h2>
-      <p>The specimen catalogue is empty.{params.length ? '' : ''}</p>
+    <div>
+      <a class="btn btn-block" href={routeHref('specimens', 'new')}>
+        Add a specimen
+      </a>
+      {list.state === 'ready' && list.value.length === 0 ? <p>No specimens yet.</p> : null}
+      <ul class="rows">
+        {list.state === 'ready'
+          ? list.value
+              .sort((a, b) => a.name.localeCompare(b.name))
+              .map((s) => (
+                <li key={s.id}>
+                  <a class="row row-link" href={routeHref('specimens', s.id)}>
+                    <span class="row-main">
+                      <strong>{s.name}</strong>
+                      <br />
+                      <span class="hint">
+                        {app.format(s.mass_kg, 'mass')} · {describeShape(s.shape, (v, k) => app.format(v, k))}
+                      </span>
+                    </span>
+                    <span class="row-side">{s.reference_drag_coefficient !== null ? `ref. C_d ${s.reference_drag_coefficient}` : ''}</span>
+                  </a>
+                </li>
+              ))
+          : null}
+      </ul>
+    </div>
+  );
+}
+
+interface SpecimenDraft {
+  name: string;
+  mass: FieldState;
+  uMass: FieldState;
+  shape: ShapeKind;
+  diameter: FieldState;
+  uDiameter: FieldState;
+  length: FieldState;
+  uLength: FieldState;
+  width: FieldState;
+  uWidth: FieldState;
+  thickness: FieldState;
+  uThickness: FieldState;
+  area: FieldState;
+  uArea: FieldState;
+  volume: FieldState;
+  uVolume: FieldState;
+  referenceCd: FieldState;
+  notes: string;
+  reason: string;
+}
+
+function draftFrom(s: SpecimenRecord | null): SpecimenDraft {
+  const base: SpecimenDraft = {
+    name: '',
+    mass: field(),
+    uMass: field(0.0005),
+    shape: 'sphere',
+    diameter: field(),
+    uDiameter: field(0.0002),
+    length: field(),
+    uLength: field(0.0005),
+    width: field(),
+    uWidth: field(0.0005),
+    thickness: field(),
+    uThickness: field(0.0002),
+    area: field(),
+    uArea: field(0),
+    volume: field(),
+    uVolume: field(0),
+    referenceCd: { value: null, error: null },
+    notes: '',
+    reason: '',
+  };
+  if (!s) return base;
+  const sh = s.shape;
+  const d: SpecimenDraft = { ...base, name: s.name, mass: field(s.mass_kg), uMass: field(s.u_mass_kg), shape: sh.kind, notes: s.notes, referenceCd: field(s.reference_drag_coefficient) };
+  if (sh.kind === 'sphere') Object.assign(d, { diameter: field(sh.diameter_m), uDiameter: field(sh.u_diameter_m) });
+  if (sh.kind === 'cylinder') Object.assign(d, { diameter: field(sh.diameter_m), uDiameter: field(sh.u_diameter_m), length: field(sh.length_m), uLength: field(sh.u_length_m) });
+  if (sh.kind === 'disc') Object.assign(d, { diameter: field(sh.diameter_m), uDiameter: field(sh.u_diameter_m), thickness: field(sh.thickness_m), uThickness: field(sh.u_thickness_m) });
+  if (sh.kind === 'box')
+    Object.assign(d, { length: field(sh.length_m), uLength: field(sh.u_length_m), width: field(sh.width_m), uWidth: field(sh.u_width_m), thickness: field(sh.height_m), uThickness: field(sh.u_height_m) });
+  if (sh.kind === 'custom') Object.assign(d, { area: field(sh.area_m2), uArea: field(sh.u_area_m2), volume: field(sh.volume_m3), uVolume: field(sh.u_volume_m3) });
+  return d;
+}
+
+function shapeFrom(d: SpecimenDraft): SpecimenShape | null {
+  const v = (f: FieldState) => f.value!;
+  switch (d.shape) {
+    case 'sphere':
+      return fieldsValid(d.diameter, d.uDiameter) ? { kind: 'sphere', diameter_m: v(d.diameter), u_diameter_m: v(d.uDiameter) } : null;
+    case 'cylinder':
+      return fieldsValid(d.diameter, d.uDiameter, d.length, d.uLength)
+        ? { kind: 'cylinder', diameter_m: v(d.diameter), u_diameter_m: v(d.uDiameter), length_m: v(d.length), u_length_m: v(d.uLength) }
+        : null;
+    case 'disc':
+      return fieldsValid(d.diameter, d.uDiameter, d.thickness, d.uThickness)
+        ? { kind: 'disc', diameter_m: v(d.diameter), u_diameter_m: v(d.uDiameter), thickness_m: v(d.thickness), u_thickness_m: v(d.uThickness) }
+        : null;
+    case 'box':
+      return fieldsValid(d.length, d.uLength, d.width, d.uWidth, d.thickness, d.uThickness)
+        ? { kind: 'box', length_m: v(d.length), u_length_m: v(d.uLength), width_m: v(d.width), u_width_m: v(d.uWidth), height_m: v(d.thickness), u_height_m: v(d.uThickness) }
+        : null;
+    case 'custom':
+      return fieldsValid(d.area, d.uArea, d.volume, d.uVolume)
+        ? { kind: 'custom', area_m2: v(d.area), u_area_m2: v(d.uArea), volume_m3: v(d.volume), u_volume_m3: v(d.uVolume) }
+        : null;
+  }
+}
+
+function SpecimenEditor({ id }: { id: string | null }) {
+  const app = useApp();
+  const existing = useStoreData(async () => (id ? ((await app.store.get('specimen', id)) ?? null) : null), [id]);
+  if (existing.state === 'loading') return <p>Loading…</p>;
+  if (existing.state === 'failed') return <Notice tone="bad">{describeError(existing.error)}</Notice>;
+  return <SpecimenForm record={existing.value} key={id ?? 'new'} />;
+}
+
+function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
+  const app = useApp();
+  const key = `specimen:${record?.id ?? 'new'}`;
+  const form = useDraft<SpecimenDraft>(key, () => draftFrom(record));
+  const [error, setError] = useState<string | null>(null);
+  const d = form.value;
+  const shape = shapeFrom(d);
+  const valid = d.name.trim() !== '' && fieldsValid(d.mass, d.uMass) && shape !== null && d.referenceCd.error === null;
+  const measuredChanged =
+    record !== null && shape !== null && (JSON.stringify(shape) !== JSON.stringify(record.shape) || d.mass.value !== record.mass_kg || d.uMass.value !== record.u_mass_kg);
+  const needsReason = measuredChanged && d.reason.trim() === '';
+  // A plain function, not a component: a component defined here would be a new type on every render and
+  // remount its inputs at each keystroke.
+  const S = (props: { label: string; f: keyof SpecimenDraft; u: keyof SpecimenDraft; kind?: 'smallLength' | 'area' | 'volume'; max?: number }) => (
+    <div class="two">
+      <QField
+        label={props.label}
+        kind={props.kind ?? 'smallLength'}
+        state={d[props.f] as FieldState}
+        min={0}
+        minExclusive={props.kind !== 'volume'}
+        max={props.max ?? 10}
+        onChange={(v) => form.set({ [props.f]: v } as Partial<SpecimenDraft>)}
+      />
+      <QField
+        label="± (std. unc.)"
+        kind={props.kind ?? 'smallLength'}
+        delta
+        compact
+        state={d[props.u] as FieldState}
+        min={0}
+        max={props.max ?? 10}
+        onChange={(v) => form.set({ [props.u]: v } as Partial<SpecimenDraft>)}
+      />
+    </div>
+  );
+
+  const save = async () => {
+    if (!shape) return;
+    setError(null);
+    const body: SpecimenBody = {
+      name: d.name.trim(),
+      mass_kg: d.mass.value!,
+      u_mass_kg: d.uMass.value!,
+      shape,
+      reference_drag_coefficient: d.referenceCd.value,
+      notes: d.notes,
+    };
+    try {
+      if (record) await app.store.revise('specimen', record.id, body, measuredChanged ? d.reason.trim() : null, { clearDraft: key });
+      else await app.store.create('specimen', body, { clearDraft: key });
+      await form.clear();
+      app.notifyChanged();
+      navigate('specimens');
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+
+  return (
+    <section class="card" aria-labelledby="spec-h">
+      <a class="back" href={routeHref('specimens')}>
+        ← Catalogue
+      </a>
+      <h2 id="spec-h">{record ? `Edit ${record.name}` : 'New specimen'}</h2>
+      {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
+      <TextField id="spec-name" label="Name" value={d.name} required onInput={(name) => form.set({ name })} />
+      <div class="two">
+        <QField label="Mass" kind="mass" state={d.mass} min={0} minExclusive max={1000} onChange={(mass) => form.set({ mass })} />
+        <QField label="± (std. unc.)" kind="mass" delta compact state={d.uMass} min={0} max={100} onChange={(uMass) => form.set({ uMass })} />
+      </div>
+      <Choice legend="Shape" name="shape" value={d.shape} options={SHAPES} onChange={(s) => form.set({ shape: s })} />
+      {d.shape === 'sphere' ? S({ label: 'Diameter', f: 'diameter', u: 'uDiameter' }) : null}
+      {d.shape === 'cylinder' ? (
+        <>
+          <p class="hint">Falls with its axis vertical.</p>
+          {S({ label: 'Diameter', f: 'diameter', u: 'uDiameter' })}
+          {S({ label: 'Length', f: 'length', u: 'uLength' })}
+        </>
+      ) : null}
+      {d.shape === 'disc' ? (
+        <>
+          <p class="hint">Falls flat, face down.</p>
+          {S({ label: 'Diameter', f: 'diameter', u: 'uDiameter' })}
+          {S({ label: 'Thickness', f: 'thickness', u: 'uThickness' })}
+        </>
+      ) : null}
+      {d.shape === 'box' ? (
+        <>
+          <p class="hint">Falls with its length × width face down.</p>
+          {S({ label: 'Length', f: 'length', u: 'uLength' })}
+          {S({ label: 'Width', f: 'width', u: 'uWidth' })}
+          {S({ label: 'Height', f: 'thickness', u: 'uThickness' })}
+        </>
+      ) : null}
+      {d.shape === 'custom' ? (
+        <>
+          {S({ label: 'Frontal area', f: 'area', u: 'uArea', kind: 'area' as const, max: 100 })}
+          {S({ label: 'Volume', f: 'volume', u: 'uVolume', kind: 'volume' as const, max: 100 })}
+        </>
+      ) : null}
+      <QField
+        label="Reference drag coefficient (optional)"
+        kind="ratio"
+        required={false}
+        state={d.referenceCd}
+        min={0}
+        minExclusive
+        max={100}
+        hint="From a handbook or a wind tunnel; used to predict fall times. Spheres without one use a published correlation."
+        onChange={(referenceCd) => form.set({ referenceCd })}
+      />
+      <TextField id="spec-notes" label="Notes" value={d.notes} multiline onInput={(notes) => form.set({ notes })} />
+      {measuredChanged ? (
+        <TextField
+          id="spec-reason"
+          label="Why did the measured values change?"
+          hint="Required: the earlier values stay in the specimen’s history."
+          value={d.reason}
+          error={needsReason ? 'Reason: give a reason for changing a measured value.' : null}
+          onInput={(reason) => form.set({ reason })}
+        />
+      ) : null}
+      {error ? <Notice tone="bad">{error}</Notice> : null}
+      <button type="button" class="btn btn-block" disabled={!valid || needsReason} onClick={save}>
+        {record ? 'Save changes' : 'Add to the catalogue'}
+      </button>
     </section>
   );
 }

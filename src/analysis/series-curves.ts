@@ -1,0 +1,66 @@
+// Curves of distance fallen against time for the series chart: the fitted C_d, the prediction, no air.
+import {
+  fallDistance,
+  fallParameters,
+  fallWithVariableDrag,
+  morrisonSphereDragCoefficient,
+  type AnalysisRequest,
+  type AnalysisResult,
+} from '../physics';
+
+export type Curve = Array<[number, number]>;
+
+function bodyFor(request: AnalysisRequest, result: AnalysisResult, cd: number) {
+  return fallParameters({
+    mass_kg: request.specimen.mass_kg,
+    area_m2: result.model.area_m2,
+    volume_m3: result.model.volume_m3,
+    drag_coefficient: cd,
+    density_kg_m3: result.air.density_kg_m3,
+    gravity_m_s2: result.gravity_m_s2,
+    buoyancy: result.model.buoyancy,
+    added_mass_coefficient: result.model.added_mass_coefficient,
+  });
+}
+
+function sampled(tEnd: number, distance: (t: number) => number, n = 40): Curve {
+  const out: Curve = [];
+  for (let i = 0; i <= n; i++) {
+    const t = (tEnd * i) / n;
+    out.push([t, distance(t)]);
+  }
+  return out;
+}
+
+export function seriesCurves(request: AnalysisRequest, result: AnalysisResult): { fitted: Curve | null; predicted: Curve | null; vacuum: Curve } {
+  const hMax = Math.max(...request.drops.map((d) => d.height_m));
+  const tMax = Math.max(...request.drops.map((d) => d.time_s)) * 1.05;
+  const vacuum = bodyFor(request, result, 0);
+  const tVac = Math.min(tMax, Math.sqrt((2 * hMax * 1.05) / result.gravity_m_s2));
+  const vacuumCurve = sampled(tVac, (t) => fallDistance(t, vacuum));
+  const fitted = result.drag_coefficient !== null ? bodyFor(request, result, result.drag_coefficient) : null;
+  const fittedCurve = fitted ? sampled(tMax, (t) => fallDistance(t, fitted)) : null;
+  let predicted: Curve | null = null;
+  if (result.prediction.method === 'reference-drag-coefficient' && result.prediction.reference_drag_coefficient !== null) {
+    const p = bodyFor(request, result, result.prediction.reference_drag_coefficient);
+    predicted = sampled(tMax, (t) => fallDistance(t, p));
+  } else if (result.prediction.method === 'morrison-sphere-correlation') {
+    const rho = result.air.density_kg_m3;
+    const body = {
+      effective_gravity_m_s2: result.model.effective_gravity_m_s2,
+      drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
+      reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
+      dragCoefficient: morrisonSphereDragCoefficient,
+    };
+    predicted = [[0, 0]];
+    for (let i = 1; i <= 16; i++) {
+      const h = (hMax * 1.05 * i) / 16;
+      try {
+        predicted.push([fallWithVariableDrag(h, body, 1e-8).time_s, h]);
+      } catch {
+        break;
+      }
+    }
+  }
+  return { fitted: fittedCurve, predicted, vacuum: vacuumCurve };
+}

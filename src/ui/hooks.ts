@@ -1,0 +1,93 @@
+import { useEffect, useRef, useState } from 'preact/hooks';
+import { createDraftSaver, type DraftSaver } from '../store';
+import { useApp } from './app-context';
+import { registerDraftFlusher } from './draft-registry';
+
+export type Loaded<T> = { state: 'loading' } | { state: 'ready'; value: T } | { state: 'failed'; error: Error };
+
+/** Loads data from the store and loads it again after every write (and when `deps` change). */
+export function useStoreData<T>(load: () => Promise<T>, deps: unknown[]): Loaded<T> {
+  const { changes } = useApp();
+  const [result, setResult] = useState<Loaded<T>>({ state: 'loading' });
+  useEffect(() => {
+    let live = true;
+    load().then(
+      (value) => live && setResult({ state: 'ready', value }),
+      (error: unknown) => live && setResult({ state: 'failed', error: error instanceof Error ? error : new Error(String(error)) }),
+    );
+    return () => {
+      live = false;
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [changes, ...deps]);
+  return result;
+}
+
+/**
+ * A form's state that survives a reload, a crash or an update: every change is saved as a draft within
+ * 300 ms, and the draft comes back when the form opens again. `clear()` after a real save.
+ */
+export function useDraft<T extends object>(key: string, initial: () => T): {
+  value: T;
+  ready: boolean;
+  restored: boolean;
+  set(patch: Partial<T>): void;
+  replace(value: T): void;
+  clear(): Promise<void>;
+} {
+  const { store } = useApp();
+  const [value, setValue] = useState<T>(initial);
+  const [ready, setReady] = useState(false);
+  const [restored, setRestored] = useState(false);
+  const saver = useRef<DraftSaver<T> | null>(null);
+  const current = useRef(value);
+  current.current = value;
+
+  useEffect(() => {
+    let live = true;
+    const s = createDraftSaver<T>(store, key, 300);
+    saver.current = s;
+    const unregister = registerDraftFlusher(() => s.flush());
+    const onHide = () => void s.flush();
+    window.addEventListener('pagehide', onHide);
+    store.getDraft<T>(key).then((draft) => {
+      if (!live) return;
+      if (draft) {
+        setValue({ ...initial(), ...draft.value });
+        setRestored(true);
+      } else {
+        setValue(initial());
+        setRestored(false);
+      }
+      setReady(true);
+    });
+    return () => {
+      live = false;
+      void s.flush();
+      unregister();
+      window.removeEventListener('pagehide', onHide);
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [store, key]);
+
+  return {
+    value,
+    ready,
+    restored,
+    set(patch) {
+      const next = { ...current.current, ...patch };
+      current.current = next;
+      setValue(next);
+      saver.current?.save(next);
+    },
+    replace(next) {
+      current.current = next;
+      setValue(next);
+      saver.current?.save(next);
+    },
+    async clear() {
+      await saver.current?.clear();
+      setRestored(false);
+    },
+  };
+}

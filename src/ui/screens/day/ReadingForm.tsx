@@ -1,0 +1,193 @@
+import { useMemo, useState } from 'preact/hooks';
+import { airProperties, PhysicsInputError } from '../../../physics';
+import type { SiteRecord } from '../../../log/types';
+import { useApp } from '../../app-context';
+import { useDraft } from '../../hooks';
+import { Choice, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
+import { describeError } from '../../errors';
+
+interface ReadingDraft {
+  temperature: FieldState;
+  uTemperature: FieldState;
+  pressure: FieldState;
+  uPressure: FieldState;
+  reference: 'station' | 'sea_level' | '';
+  humidityKind: 'relative' | 'dew_point';
+  humidity: FieldState;
+  dewPoint: FieldState;
+  uHumidity: FieldState;
+  uDewPoint: FieldState;
+  wind: FieldState;
+  instrument: string;
+  notes: string;
+}
+
+/** The live air figures for what has been typed so far (or why there are none yet). */
+export function useAirPreview(d: ReadingDraft, site: SiteRecord | null) {
+  return useMemo(() => {
+    const humidityOk = d.humidityKind === 'relative' ? fieldsValid(d.humidity) : fieldsValid(d.dewPoint);
+    if (!fieldsValid(d.temperature, d.pressure) || !humidityOk || d.reference === '') return null;
+    try {
+      return {
+        ok: true as const,
+        air: airProperties(
+          {
+            temperature_C: d.temperature.value!,
+            pressure_Pa: d.pressure.value!,
+            pressure_reference: d.reference,
+            ...(d.humidityKind === 'relative' ? { relative_humidity_pct: d.humidity.value! } : { dew_point_C: d.dewPoint.value! }),
+          },
+          site?.elevation_m,
+        ),
+      };
+    } catch (e) {
+      return { ok: false as const, message: e instanceof PhysicsInputError ? e.message : describeError(e) };
+    }
+  }, [d, site]);
+}
+
+export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: SiteRecord | null; onDone(): void }) {
+  const app = useApp();
+  const key = `reading:${dayId}`;
+  const form = useDraft<ReadingDraft>(key, () => ({
+    temperature: field(),
+    uTemperature: field(0.3),
+    pressure: field(),
+    uPressure: field(50),
+    reference: '',
+    humidityKind: 'relative',
+    humidity: field(),
+    dewPoint: field(),
+    uHumidity: field(3),
+    uDewPoint: field(0.5),
+    wind: { value: null, error: null },
+    instrument: '',
+    notes: '',
+  }));
+  const d = form.value;
+  const preview = useAirPreview(d, site);
+  const [error, setError] = useState<string | null>(null);
+  const valid = preview?.ok === true && fieldsValid(d.uTemperature, d.uPressure) && (d.humidityKind === 'relative' ? fieldsValid(d.uHumidity) : fieldsValid(d.uDewPoint)) && d.wind.error === null;
+
+  const save = async () => {
+    setError(null);
+    try {
+      await app.store.create(
+        'reading',
+        {
+          day_id: dayId,
+          taken_at: new Date().toISOString(),
+          temperature_C: d.temperature.value!,
+          u_temperature_C: d.uTemperature.value!,
+          pressure_Pa: d.pressure.value!,
+          u_pressure_Pa: d.uPressure.value!,
+          pressure_reference: d.reference as 'station' | 'sea_level',
+          humidity:
+            d.humidityKind === 'relative'
+              ? { kind: 'relative', relative_humidity_pct: d.humidity.value!, u_relative_humidity_pct: d.uHumidity.value! }
+              : { kind: 'dew_point', dew_point_C: d.dewPoint.value!, u_dew_point_C: d.uDewPoint.value! },
+          wind_speed_m_s: d.wind.value,
+          instrument: d.instrument,
+          notes: d.notes,
+        },
+        { clearDraft: key },
+      );
+      await form.clear();
+      app.notifyChanged();
+      onDone();
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+
+  return (
+    <section class="card" aria-labelledby="reading-h">
+      <h3 id="reading-h">New air reading</h3>
+      {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
+      <div class="two">
+        <QField label="Air temperature" kind="temperature" state={d.temperature} min={-60} max={60} onChange={(temperature) => form.set({ temperature })} />
+        <QField label="± (std. unc.)" kind="temperature" delta state={d.uTemperature} min={0} max={20} onChange={(uTemperature) => form.set({ uTemperature })} compact />
+      </div>
+      <Choice
+        legend="The barometer shows"
+        name="pref"
+        value={d.reference}
+        options={[
+          { value: 'station', label: 'Station pressure' },
+          { value: 'sea_level', label: 'Sea-level (QNH)' },
+        ]}
+        onChange={(reference) => form.set({ reference })}
+        hint="Station pressure is what the air presses here; weather reports give sea-level pressure (QNH)."
+      />
+      <div class="two">
+        <QField label="Pressure" kind="pressure" state={d.pressure} min={30_000} max={110_000} onChange={(pressure) => form.set({ pressure })} />
+        <QField label="± (std. unc.)" kind="pressure" delta state={d.uPressure} min={0} max={5000} onChange={(uPressure) => form.set({ uPressure })} compact />
+      </div>
+      <Choice
+        legend="Humidity as"
+        name="hkind"
+        value={d.humidityKind}
+        options={[
+          { value: 'relative', label: 'Relative humidity' },
+          { value: 'dew_point', label: 'Dew point' },
+        ]}
+        onChange={(humidityKind) => form.set({ humidityKind })}
+      />
+      {d.humidityKind === 'relative' ? (
+        <div class="two">
+          <QField label="Relative humidity" kind="percent" state={d.humidity} min={0} max={100} onChange={(humidity) => form.set({ humidity })} />
+          <QField label="± (std. unc.)" kind="percent" delta state={d.uHumidity} min={0} max={50} onChange={(uHumidity) => form.set({ uHumidity })} compact />
+        </div>
+      ) : (
+        <div class="two">
+          <QField label="Dew point" kind="temperature" state={d.dewPoint} min={-80} max={60} onChange={(dewPoint) => form.set({ dewPoint })} />
+          <QField label="± (std. unc.)" kind="temperature" delta state={d.uDewPoint} min={0} max={20} onChange={(uDewPoint) => form.set({ uDewPoint })} compact />
+        </div>
+      )}
+      <QField label="Wind speed (optional)" kind="speed" required={false} state={d.wind} min={0} max={60} onChange={(wind) => form.set({ wind })} />
+      <TextField id="instrument" label="Instrument" value={d.instrument} onInput={(instrument) => form.set({ instrument })} />
+      <AirFigures preview={preview} />
+      {error ? <Notice tone="bad">{error}</Notice> : null}
+      <div class="btn-row">
+        <button type="button" class="btn" disabled={!valid} onClick={save}>
+          Save reading
+        </button>
+        <button type="button" class="btn btn-quiet" onClick={onDone}>
+          Close
+        </button>
+      </div>
+    </section>
+  );
+}
+
+export function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) {
+  const { format } = useApp();
+  if (!preview) return <p class="hint">Air density, viscosity and the speed of sound show here as soon as the reading is complete.</p>;
+  if (!preview.ok) return <Notice tone="bad">{preview.message}</Notice>;
+  const a = preview.air;
+  return (
+    <div class="figures" aria-live="polite">
+      <div class="figure">
+        <span class="figure-label">Air density</span>
+        <span class="figure-value">{format(a.density_kg_m3, 'density')}</span>
+      </div>
+      <div class="figure">
+        <span class="figure-label">Viscosity</span>
+        <span class="figure-value">{(a.dynamic_viscosity_Pa_s * 1e6).toFixed(2)} µPa·s</span>
+      </div>
+      <div class="figure">
+        <span class="figure-label">Speed of sound</span>
+        <span class="figure-value">{format(a.speed_of_sound_m_s, 'speed', 1)}</span>
+      </div>
+      <div class="figure">
+        <span class="figure-label">Station pressure</span>
+        <span class="figure-value">{format(a.station_pressure_Pa, 'pressure')}</span>
+      </div>
+      {a.warnings.map((w) => (
+        <Notice key={w.code} tone="warn">
+          {w.message}
+        </Notice>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,193 @@
+import { useState } from 'preact/hooks';
+import type { HeightMethod, ReadingRecord, SpecimenRecord, TimingMethod } from '../../../log/types';
+import { useApp } from '../../app-context';
+import { useDraft } from '../../hooks';
+import { Choice, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
+import { navigate, routeHref } from '../../router';
+import { describeError } from '../../errors';
+
+/**
+ * Typical standard uncertainty of one timed drop for each method (common practice): a hand stopwatch carries
+ * the spread of human reaction at start and stop; taps on the phone about the same; sound onsets are limited
+ * by the onset detection and by sound travel; video by the frame interval (1/fps/√12 per end at 60 fps);
+ * light gates by their electronics.
+ */
+export const TIMING_DEFAULTS: Record<TimingMethod, { label: string; u_s: number }> = {
+  typed: { label: 'Typed in', u_s: 0.02 },
+  stopwatch: { label: 'Hand stopwatch', u_s: 0.05 },
+  tap: { label: 'Taps on this phone', u_s: 0.04 },
+  sound: { label: 'Sound onsets', u_s: 0.003 },
+  video: { label: 'Video frames', u_s: 0.007 },
+  gates: { label: 'Light gates', u_s: 0.0005 },
+};
+
+export const HEIGHT_METHODS: Record<HeightMethod, string> = {
+  tape: 'Tape',
+  laser: 'Laser rangefinder',
+  survey: 'Survey',
+  marked: 'Marked drop point',
+  other: 'Other',
+};
+
+interface SeriesDraft {
+  specimenId: string;
+  height: FieldState;
+  uHeight: FieldState;
+  heightMethod: HeightMethod;
+  timingMethod: TimingMethod;
+  uTime: FieldState;
+  target: FieldState;
+  readingId: string;
+  fitOffset: boolean;
+}
+
+export function SeriesForm({
+  dayId,
+  specimens,
+  readings,
+  onDone,
+}: {
+  dayId: string;
+  specimens: SpecimenRecord[];
+  readings: ReadingRecord[];
+  onDone(): void;
+}) {
+  const app = useApp();
+  const key = `series:${dayId}`;
+  const form = useDraft<SeriesDraft>(key, () => ({
+    specimenId: specimens[0]?.id ?? '',
+    height: field(),
+    uHeight: field(0.01),
+    heightMethod: 'tape',
+    timingMethod: 'typed',
+    uTime: field(TIMING_DEFAULTS.typed.u_s),
+    target: field(5),
+    readingId: '',
+    fitOffset: false,
+  }));
+  const d = form.value;
+  const [error, setError] = useState<string | null>(null);
+  const specimenOk = specimens.some((s) => s.id === d.specimenId);
+  const valid = specimenOk && fieldsValid(d.height, d.uHeight, d.uTime, d.target);
+
+  const save = async () => {
+    setError(null);
+    try {
+      const series = await app.store.create(
+        'series',
+        {
+          day_id: dayId,
+          specimen_id: d.specimenId,
+          height_m: d.height.value!,
+          u_height_m: d.uHeight.value!,
+          height_method: d.heightMethod,
+          timing_method: d.timingMethod,
+          u_time_s: d.uTime.value!,
+          target_relative_uncertainty: d.target.value! / 100,
+          reading_id: d.readingId || null,
+          timing_offset: d.fitOffset ? 'fit' : 'none',
+          started_at: new Date().toISOString(),
+          notes: '',
+        },
+        { clearDraft: key },
+      );
+      await form.clear();
+      app.notifyChanged();
+      onDone();
+      navigate('day', dayId, 'series', series.id);
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+
+  if (specimens.length === 0) {
+    return (
+      <section class="card">
+        <h3>Start a series</h3>
+        <p>The specimen catalogue is empty. Add the specimen you will drop first.</p>
+        <a class="btn" href={routeHref('specimens', 'new')}>
+          Add a specimen
+        </a>
+      </section>
+    );
+  }
+
+  return (
+    <section class="card" aria-labelledby="series-h">
+      <h3 id="series-h">Start a series</h3>
+      {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
+      <SelectField
+        id="series-specimen"
+        label="Specimen"
+        value={d.specimenId}
+        options={specimens.map((s) => ({ value: s.id, label: s.name }))}
+        onChange={(specimenId) => form.set({ specimenId })}
+      />
+      <div class="two">
+        <QField label="Release height" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+        <QField label="± (std. unc.)" kind="length" delta state={d.uHeight} min={0} max={10} onChange={(uHeight) => form.set({ uHeight })} compact />
+      </div>
+      <SelectField
+        id="height-method"
+        label="Height measured by"
+        value={d.heightMethod}
+        options={Object.entries(HEIGHT_METHODS).map(([value, label]) => ({ value, label }))}
+        onChange={(v) => form.set({ heightMethod: v as HeightMethod })}
+      />
+      <SelectField
+        id="timing-method"
+        label="Timing method"
+        value={d.timingMethod}
+        options={Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }))}
+        onChange={(v) => {
+          const m = v as TimingMethod;
+          form.set({ timingMethod: m, uTime: { value: TIMING_DEFAULTS[m].u_s, error: null } });
+        }}
+      />
+      <QField
+        label="Timing std. uncertainty per drop"
+        kind="time"
+        delta
+        state={d.uTime}
+        min={0}
+        minExclusive
+        max={1}
+        hint="Random spread of one drop’s time. A steady start/stop delay belongs in the offset fit instead."
+        onChange={(uTime) => form.set({ uTime })}
+      />
+      <QField
+        label="Target uncertainty of the drag coefficient"
+        kind="percent"
+        state={d.target}
+        min={0}
+        minExclusive
+        max={100}
+        hint="Relative standard uncertainty the crew aims for."
+        onChange={(target) => form.set({ target })}
+      />
+      <SelectField
+        id="series-reading"
+        label="Air reading"
+        value={d.readingId}
+        options={[
+          { value: '', label: 'The nearest in time' },
+          ...readings.map((r) => ({ value: r.id, label: `${new Date(r.taken_at).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · ${app.format(r.temperature_C, 'temperature')}` })),
+        ]}
+        onChange={(readingId) => form.set({ readingId })}
+      />
+      <label class="check">
+        <input type="checkbox" checked={d.fitOffset} onChange={(e) => form.set({ fitOffset: (e.target as HTMLInputElement).checked })} />
+        <span>Fit a constant timing offset too (needs drops from at least three heights)</span>
+      </label>
+      {error ? <Notice tone="bad">{error}</Notice> : null}
+      <div class="btn-row">
+        <button type="button" class="btn" disabled={!valid} onClick={save}>
+          Start the series
+        </button>
+        <button type="button" class="btn btn-quiet" onClick={onDone}>
+          Close
+        </button>
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,85 @@
+import { LitElement, css, html } from 'lit';
+
+export interface Bar {
+  label: string;
+  value: number;
+  /** The value as text, with its unit (also what a screen reader hears). */
+  text: string;
+}
+
+/**
+ * `<pl-bars>`: horizontal bars, largest first, each labelled with its value as text. The bars are a
+ * description list too, so the text alternative is the chart itself.
+ */
+export class BarChart extends LitElement {
+  static override properties = {
+    bars: { attribute: false },
+    heading: { type: String },
+  };
+
+  declare bars: Bar[];
+  declare heading: string;
+
+  constructor() {
+    super();
+    this.bars = [];
+    this.heading = '';
+  }
+
+  static override styles = css`
+    :host {
+      display: block;
+      color: var(--pl-ink, #111);
+    }
+    dl {
+      margin: 0;
+      display: grid;
+      grid-template-columns: minmax(7rem, 40%) 1fr;
+      gap: 0.35rem 0.6rem;
+      align-items: center;
+    }
+    dt {
+      font-size: 0.92rem;
+      overflow-wrap: anywhere;
+    }
+    dd {
+      margin: 0;
+      display: flex;
+      align-items: center;
+      gap: 0.4rem;
+      min-width: 0;
+    }
+    .bar {
+      height: 18px;
+      min-width: 2px;
+      background: var(--pl-brand-line, #0b6b4f);
+      border-radius: 3px;
+    }
+    .val {
+      font-size: 0.88rem;
+      font-variant-numeric: tabular-nums;
+      white-space: nowrap;
+    }
+  `;
+
+  override render() {
+    const sorted = [...this.bars].sort((a, b) => b.value - a.value);
+    const max = Math.max(...sorted.map((b) => b.value), 0) || 1;
+    return html`
+      <dl aria-label=${this.heading}>
+        ${sorted.map(
+          (b) => html`<dt>${b.label}</dt>
+            <dd><span class="bar" style="width:${Math.max(0.5, (b.value / max) * 62)}%"></span><span class="val">${b.text}</span></dd>`,
+        )}
+      </dl>
+    `;
+  }
+}
+
+if (!customElements.get('pl-bars')) customElements.define('pl-bars', BarChart);
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'pl-bars': BarChart;
+  }
+}
