@@ -64,7 +64,10 @@ export interface AnalysisRequest {
 export interface DropResult {
   height_m: number;
   time_s: number;
-  /** This drop's own C_d (the one that makes the model reproduce its time); null when its time is below the drag-free time. */
+  /**
+   * This drop's own C_d: the one that makes the model reproduce its time (less the fitted timing
+   * offset, when one is fitted); null when that time is not longer than a drag-free fall.
+   */
   drag_coefficient: number | null;
   /** √(2h/g): no air at all. */
   vacuum_time_s: number;

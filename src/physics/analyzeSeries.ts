@@ -94,32 +94,30 @@ export function prepareSeries(request: AnalysisRequest) {
   const groupTimes = groupDrops.map((indices) => indices.map((i) => req.drops[i]!.time_s));
   const meanTimes = groupTimes.map((times) => seriesStatistics(times).mean);
 
-  // Each drop on its own.
+  // Each drop on its own (its time less the fitted offset, when one is fitted).
   const heightU = u.height_m ?? 0;
   const slowDrops: string[] = [];
-  const dropCd: (number | null)[] = req.drops.map((drop, i) => {
-    const noDragTime = fallTime(drop.height_m, noDrag);
-    const sigma = Math.hypot(timingU, (noDragTime * heightU) / (2 * drop.height_m));
-    if (drop.time_s < noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma) {
-      throw new PhysicsInputError({
-        code: 'faster-than-free-fall',
-        field: `drops[${i}].time_s`,
-        value: drop.time_s,
-        allowed: `at least about ${(noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma).toFixed(4)} s (the drag-free fall from ${drop.height_m} m takes ${noDragTime.toFixed(4)} s)`,
-      });
-    }
-    if (drop.time_s <= noDragTime) {
-      slowDrops.push(`drop ${i} (${drop.time_s} s from ${drop.height_m} m, drag-free ${noDragTime.toFixed(4)} s)`);
-      return null;
-    }
-    return dragCoefficientFromTime(body, drop.height_m, drop.time_s, `drops[${i}].time_s`);
-  });
-  if (slowDrops.length > 0) {
-    warnings.push({
-      code: 'drop-not-slower-than-free-fall',
-      message: `No drag coefficient of its own for ${slowDrops.join('; ')}: the time is not longer than a drag-free fall, which timing noise explains. The drop stays in the series fit.`,
+  const eachDrop = (offset: number): (number | null)[] =>
+    req.drops.map((drop, i) => {
+      const time = drop.time_s - offset;
+      const noDragTime = fallTime(drop.height_m, noDrag);
+      const sigma = Math.hypot(timingU, (noDragTime * heightU) / (2 * drop.height_m));
+      if (time < noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma) {
+        throw new PhysicsInputError({
+          code: 'faster-than-free-fall',
+          field: `drops[${i}].time_s`,
+          value: drop.time_s,
+          allowed: `at least about ${(noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma + offset).toFixed(4)} s (the drag-free fall from ${drop.height_m} m takes ${noDragTime.toFixed(4)} s${offset !== 0 ? `, plus the fitted timing offset ${offset.toFixed(4)} s` : ''})`,
+        });
+      }
+      if (time <= noDragTime) {
+        slowDrops.push(`drop ${i} (${drop.time_s} s from ${drop.height_m} m, drag-free ${noDragTime.toFixed(4)} s)`);
+        return null;
+      }
+      return dragCoefficientFromTime(body, drop.height_m, time, `drops[${i}].time_s`);
     });
-  }
+  // Without an offset, single drops are checked first: a wild time gets an error naming that drop.
+  let dropCd: (number | null)[] = fitOffset ? [] : eachDrop(0);
 
   // The measurement model and its nominal inputs.
   const humidityKind = air.density_source === 'override' ? 'none' : req.air.relative_humidity_pct !== undefined ? 'relative-humidity' : 'dew-point';
@@ -161,6 +159,13 @@ export function prepareSeries(request: AnalysisRequest) {
   const kHat = model.dragConstant_per_m;
   const offsetHat = fitOffset ? model.offset_s : 0;
   model.startDragConstant = kHat;
+  if (fitOffset) dropCd = eachDrop(offsetHat);
+  if (slowDrops.length > 0) {
+    warnings.push({
+      code: 'drop-not-slower-than-free-fall',
+      message: `No drag coefficient of its own for ${slowDrops.join('; ')}: the time is not longer than a drag-free fall, which timing noise explains. The drop stays in the series fit.`,
+    });
+  }
   const fitted: FallParameters = { effective_gravity_m_s2: gEff, drag_constant_per_m: kHat, effective_mass_kg: mEff };
 
   // Residual scatter: Type A.
@@ -425,7 +430,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       const dropIndex = groupDrops[j]![grubbs.suspect_index]!;
       warnings.push({
         code: 'possible-outlier',
-        message: `Drop ${dropIndex} (${times[grubbs.suspect_index]} s from ${h} m) fails Grubbs' test (G = ${grubbs.statistic.toFixed(3)} > ${grubbs.critical_value.toFixed(3)} at α = 0.05). It is kept; check the log before removing it.`,
+        message: `Drop ${dropIndex + 1} of the series (${times[grubbs.suspect_index]} s from ${h} m) fails Grubbs' test (G = ${grubbs.statistic.toFixed(3)} > ${grubbs.critical_value.toFixed(3)} at α = 0.05). It is kept; check the log before removing it.`,
       });
     }
     return {

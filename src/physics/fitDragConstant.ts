@@ -63,6 +63,9 @@ export function solveFallTimeFactor(target: number, x0?: number): { x: number; s
 }
 
 const scratch = new Float64Array(2);
+let sharedScale = new Float64Array(8);
+let sharedModel = new Float64Array(8);
+let sharedSlope = new Float64Array(8);
 const PHI_AT_MIN = fallTimeFactor(MIN_DRAG_X);
 const PHI_AT_MAX = fallTimeFactor(MAX_DRAG_X);
 
@@ -120,11 +123,18 @@ export function fitDragConstant(
     k = Math.min(Math.max(solved.x / hMax, kLo), kHi);
   }
 
-  const scale = new Float64Array(J);
+  // Scratch space shared by all calls (the fit runs once per Monte Carlo draw; allocating typed
+  // arrays each time costs more than the arithmetic). Nothing here keeps state between calls.
+  if (sharedModel.length < J) {
+    sharedScale = new Float64Array(J);
+    sharedModel = new Float64Array(J);
+    sharedSlope = new Float64Array(J);
+  }
+  const scale = sharedScale;
+  const model = sharedModel;
+  const slope = sharedSlope;
+  const phi = scratch;
   for (let j = 0; j < J; j++) scale[j] = Math.sqrt((2 * heights_m[j]!) / g);
-  const model = new Float64Array(J);
-  const slope = new Float64Array(J);
-  const phi = new Float64Array(2);
   let offset = 0;
   // Evaluate the (projected) residual sum of squares and the Gauss–Newton step at k.
   let S = 0;

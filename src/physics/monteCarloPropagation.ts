@@ -1,7 +1,8 @@
 /**
  * Propagation of distributions by Monte Carlo (JCGM 101:2008): draw every input from its
  * distribution, evaluate the full measurement model (fit included) for each draw, and read the
- * coverage interval off the sorted results (probabilistically symmetric, JCGM 101 7.7).
+ * coverage interval off the order statistics of the results (probabilistically symmetric,
+ * JCGM 101 7.7). The few order statistics needed are found by selection, not a full sort.
  *
  * Inputs are normal (Type B, or a declared timing uncertainty). The scatter between drops,
  * when it exceeds the declared timing uncertainty, is a Type A input with ν = N − p degrees of
@@ -55,8 +56,8 @@ export interface MonteCarloResult {
   dragCoefficient: MonteCarloSummary;
   /** Same for the fitted timing offset, when there is one. */
   offset: MonteCarloSummary | null;
-  /** The successful draws, sorted. */
-  sortedValues: Float64Array;
+  /** The successful draws (partly reordered by the selection). */
+  values: Float64Array;
 }
 
 export function monteCarloPropagation(
@@ -99,15 +100,15 @@ export function monteCarloPropagation(
     }
   }
   model.evaluate(x0); // leave the model at its nominal point
-  const used = values.subarray(0, ok).sort();
+  const used = values.subarray(0, ok);
   return {
     dragCoefficient: summarise(used, spec.draws, failed),
-    offset: offsets ? summarise(offsets.subarray(0, ok).sort(), spec.draws, failed) : null,
-    sortedValues: used,
+    offset: offsets ? summarise(offsets.subarray(0, ok), spec.draws, failed) : null,
+    values: used,
   };
 }
 
-/** Linear interpolation between order statistics, p in [0, 1]. */
+/** Linear interpolation between order statistics of sorted values, p in [0, 1]. */
 export function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
   const n = sorted.length;
   if (n === 0) return NaN;
@@ -118,19 +119,72 @@ export function sortedQuantile(sorted: ArrayLike<number>, p: number): number {
   return sorted[lower]! + fraction * (sorted[upper]! - sorted[lower]!);
 }
 
-function summarise(sorted: Float64Array, draws: number, failed: number): MonteCarloSummary {
-  const n = sorted.length;
+/**
+ * The same quantile as sortedQuantile, of unsorted values, by selection (Hoare's FIND with
+ * median-of-three pivots): reorders `values` in place, O(n) on average instead of a sort.
+ */
+export function selectQuantile(values: Float64Array, p: number): number {
+  const n = values.length;
+  if (n === 0) return NaN;
+  const position = p * (n - 1);
+  const lower = Math.floor(position);
+  const fraction = position - lower;
+  const a = selectOrderStatistic(values, lower);
+  if (fraction === 0 || lower + 1 >= n) return a;
+  // After selection everything right of `lower` is ≥ a: the next order statistic is their minimum.
+  let b = Infinity;
+  for (let i = lower + 1; i < n; i++) if (values[i]! < b) b = values[i]!;
+  return a + fraction * (b - a);
+}
+
+/** Reorders `v` so that v[k] is its k-th smallest value, smaller ones left, larger right. */
+function selectOrderStatistic(v: Float64Array, k: number): number {
+  let left = 0;
+  let right = v.length - 1;
+  while (right > left) {
+    const mid = (left + right) >> 1;
+    // Median of three as the pivot, moved to v[k]'s side of the range.
+    if (v[mid]! < v[left]!) swap(v, mid, left);
+    if (v[right]! < v[left]!) swap(v, right, left);
+    if (v[right]! < v[mid]!) swap(v, right, mid);
+    const pivot = v[mid]!;
+    let i = left;
+    let j = right;
+    while (i <= j) {
+      while (v[i]! < pivot) i++;
+      while (v[j]! > pivot) j--;
+      if (i <= j) {
+        swap(v, i, j);
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) right = j;
+    else if (k >= i) left = i;
+    else return v[k]!;
+  }
+  return v[k]!;
+}
+
+function swap(v: Float64Array, i: number, j: number): void {
+  const t = v[i]!;
+  v[i] = v[j]!;
+  v[j] = t;
+}
+
+function summarise(values: Float64Array, draws: number, failed: number): MonteCarloSummary {
+  const n = values.length;
   let sum = 0;
-  for (let i = 0; i < n; i++) sum += sorted[i]!;
+  for (let i = 0; i < n; i++) sum += values[i]!;
   const m = n > 0 ? sum / n : NaN;
   let ss = 0;
-  for (let i = 0; i < n; i++) ss += (sorted[i]! - m) ** 2;
+  for (let i = 0; i < n; i++) ss += (values[i]! - m) ** 2;
   return {
     draws,
     failed,
     mean: m,
     standard_deviation: n > 1 ? Math.sqrt(ss / (n - 1)) : NaN,
-    interval_95: [sortedQuantile(sorted, 0.025), sortedQuantile(sorted, 0.975)],
-    upper_bound_95: sortedQuantile(sorted, 0.95),
+    interval_95: [selectQuantile(values, 0.025), selectQuantile(values, 0.975)],
+    upper_bound_95: selectQuantile(values, 0.95),
   };
 }

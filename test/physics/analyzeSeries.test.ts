@@ -89,6 +89,8 @@ describe('analyzeSeries', () => {
     expect(result.timing_offset_s).toBeCloseTo(0.021, 10);
     expect(result.drag_coefficient).toBeCloseTo(0.47, 8);
     expect(result.timing_offset_standard_uncertainty_s).toBeGreaterThan(0);
+    // Each drop's own C_d is taken from its time less the fitted offset.
+    for (const drop of result.drops) expect(drop.drag_coefficient).toBeCloseTo(0.47, 8);
   });
 
   it('gives the same interval for the same seed, and a different one for another seed', () => {

@@ -1,0 +1,87 @@
+/**
+ * Speed of the physics core on this machine: `npm run bench`.
+ *
+ * Prints: one drop's inversion (median, µs); one five-drop series with the full GUM budget and a
+ * 20 000-draw Monte Carlo (median, ms; target ≤ 15 ms); and the closed-form fall time against
+ * integrating the same fall with odex (a general-purpose integrator) and with our own
+ * Dormand–Prince, side by side as a ratio. Medians of repeated runs after a warm-up; the load
+ * average is printed because other work on a shared machine moves these numbers.
+ */
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { cpus, loadavg } from 'node:os';
+import { analyzeSeries, dragCoefficientFromTime, fallParameters, fallTime, fallWithVariableDrag, validateAnalysisRequest } from '../src/physics/index';
+
+interface OdexSolver {
+  absoluteTolerance: number;
+  relativeTolerance: number;
+  maxSteps: number;
+  solve(f: (x: number, y: number[]) => number[], x0: number, y0: number[], xEnd: number): { y: number[] };
+}
+const odex = createRequire(import.meta.url)('odex') as { Solver: new (n: number) => OdexSolver };
+
+/** Median over `samples` runs of the time per call of `run` (called `batch` times per sample), in ms. */
+function median(run: () => void, samples: number, batch = 1): number {
+  for (let i = 0; i < Math.max(3, samples / 5); i++) for (let j = 0; j < batch; j++) run();
+  const times: number[] = [];
+  for (let i = 0; i < samples; i++) {
+    const t0 = performance.now();
+    for (let j = 0; j < batch; j++) run();
+    times.push((performance.now() - t0) / batch);
+  }
+  times.sort((a, b) => a - b);
+  return times[Math.floor(samples / 2)]!;
+}
+
+const example = (name: string) => validateAnalysisRequest(JSON.parse(readFileSync(new URL(`../examples/${name}`, import.meta.url), 'utf8')));
+let sink = 0;
+
+// 1. One drop's inversion: the C_d that reproduces one measured time.
+const ball = {
+  mass_kg: 0.18,
+  area_m2: (Math.PI * 0.07 ** 2) / 4,
+  volume_m3: (Math.PI * 0.07 ** 3) / 6,
+  density_kg_m3: 1.137,
+  gravity_m_s2: 9.8061,
+  buoyancy: true,
+  added_mass_coefficient: 0.5,
+};
+let k = 0;
+const inversionMs = median(() => (sink += dragCoefficientFromTime(ball, 14, 1.7 + 1e-5 * (k++ % 1000))), 101, 2000);
+
+// 2. A five-drop series: validation, air, fit, GUM budget, 20 000-draw Monte Carlo, prediction.
+const series = example('footbridge-ball.json');
+const seriesMs = median(() => (sink += analyzeSeries(series).drag_coefficient_estimate), 31);
+const offsetSeries = example('stairwell-box-offset.json');
+const offsetMs = median(() => (sink += analyzeSeries(offsetSeries).drag_coefficient_estimate), 15);
+
+// 3. The same fall, closed form against integration.
+const params = fallParameters({ ...ball, drag_coefficient: 0.48 });
+const h = 14;
+const closedMs = median(() => (sink += fallTime(h + 1e-9 * (k++ % 7), params)), 101, 20000);
+const solver = new odex.Solver(2);
+solver.absoluteTolerance = 1e-10;
+solver.relativeTolerance = 1e-10;
+solver.maxSteps = 100000;
+const g = params.effective_gravity_m_s2;
+const kd = params.drag_constant_per_m;
+const tFall = fallTime(h, params);
+// odex integrates to a given time (it has no event location): the closed-form time, checked against h.
+const odexMs = median(() => (sink += solver.solve((_t, [, v]) => [v!, g - kd * v! * v!], 0, [0, 0], tFall).y[0]!), 51, 10);
+const odexDistance = solver.solve((_t, [, v]) => [v!, g - kd * v! * v!], 0, [0, 0], tFall).y[0]!;
+const dpBody = { effective_gravity_m_s2: g, drag_constant_per_unit_cd_per_m: kd / 0.48, reynolds_per_speed_s_m: 1, dragCoefficient: () => 0.48 };
+const ownMs = median(() => (sink += fallWithVariableDrag(h, dpBody, 1e-10).time_s), 51, 10);
+const ownTime = fallWithVariableDrag(h, dpBody, 1e-10).time_s;
+
+const us = (ms: number): string => `${(ms * 1000).toFixed(2)} µs`;
+console.log(`Plummet physics benchmark — Node ${process.version}, ${cpus().length} cores, load average ${loadavg().map((l) => l.toFixed(2)).join(' ')}`);
+console.log('');
+console.log(`one drop's inversion (C_d from one time), median:            ${us(inversionMs)}`);
+console.log(`five-drop series, full budget + 20 000-draw Monte Carlo:    ${seriesMs.toFixed(2)} ms  (target ≤ 15 ms)`);
+console.log(`  (eight drops from four heights with a fitted offset:      ${offsetMs.toFixed(2)} ms)`);
+console.log('');
+console.log(`the same 14 m fall of the 70 mm ball, time to impact:`);
+console.log(`  closed form                                  ${us(closedMs).padStart(12)}   1×`);
+console.log(`  odex (GBS extrapolation), tolerance 1e-10    ${us(odexMs).padStart(12)}   ${(odexMs / closedMs).toFixed(0)}× the closed form  (distance error ${(odexDistance / h - 1).toExponential(1)})`);
+console.log(`  our Dormand–Prince 5(4) with event, 1e-10    ${us(ownMs).padStart(12)}   ${(ownMs / closedMs).toFixed(0)}× the closed form  (time error ${(ownTime / tFall - 1).toExponential(1)})`);
+if (!Number.isFinite(sink)) console.log('(sink)', sink);
