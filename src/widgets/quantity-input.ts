@@ -179,7 +179,8 @@ export class QuantityInput extends LitElement {
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('text') && this.text !== undefined) {
       this.typed = this.text;
-      this.error = this.check(this.typed).error;
+      // An empty field handed in (a form reset after a save) is not an error until the person leaves it.
+      this.error = this.typed.trim() === '' ? null : this.check(this.typed).error;
     } else if ((changed.has('value') || changed.has('unit')) && !this.editing) {
       const parsed = this.check(this.typed);
       if (this.value === null || this.value === undefined) {

@@ -44,7 +44,7 @@ function SeriesBody({ view, series, specimen, drops }: { view: DayView; series: 
         </div>
       </header>
       <DropEntry series={series} nextSeq={drops.reduce((m, d) => Math.max(m, d.seq), 0) + 1} />
-      <ResultPanel outcome={outcome} series={series} dropsUsed={drops.filter((d) => !d.excluded).length} />
+      <ResultPanel outcome={outcome} series={series} usedDrops={drops.filter((d) => !d.excluded && !d.deleted)} />
       {outcome.kind === 'ready' ? <Charts outcome={outcome} drops={drops} series={series} /> : null}
       <DropTable drops={drops} series={series} outcome={outcome} />
       {outcome.kind === 'ready' ? <Budget result={outcome.result} /> : null}
@@ -129,8 +129,9 @@ function DropEntry({ series, nextSeq }: { series: SeriesRecord; nextSeq: number 
   );
 }
 
-function ResultPanel({ outcome, series, dropsUsed }: { outcome: SeriesOutcome; series: SeriesRecord; dropsUsed: number }) {
+function ResultPanel({ outcome, series, usedDrops }: { outcome: SeriesOutcome; series: SeriesRecord; usedDrops: DropRecord[] }) {
   const app = useApp();
+  const dropsUsed = usedDrops.length;
   if (outcome.kind === 'missing') return <Notice tone="info">{outcome.message}</Notice>;
   if (outcome.kind === 'error') return <Notice tone="bad" title="The series cannot be computed">{outcome.message}</Notice>;
   const r = outcome.result;
@@ -198,11 +199,26 @@ function ResultPanel({ outcome, series, dropsUsed }: { outcome: SeriesOutcome; s
       </div>
       {energyWarning ? <Notice tone="bad" title="Impact energy">{energyWarning}</Notice> : null}
       <Enough outcome={outcome} series={series} met={met} rel={rel} dropsUsed={dropsUsed} />
-      {r.warnings.map((w, i) => (
-        <Notice key={`${w.code}-${i}`} tone="warn">
-          {w.message}
-        </Notice>
-      ))}
+      {r.warnings
+        .filter((w) => w.code !== 'possible-outlier')
+        .map((w, i) => (
+          <Notice key={`${w.code}-${i}`} tone="warn">
+            {w.message}
+          </Notice>
+        ))}
+      {r.heights
+        .filter((h) => h.grubbs?.outlier)
+        .map((h) => {
+          // The core numbers drops by their place in the fit; the crew knows them by their own number.
+          const drop = usedDrops[h.grubbs!.suspect_drop_index];
+          return (
+            <Notice key={`g${h.height_m}`} tone="warn" title="Possible outlier">
+              Grubbs’ test flags drop {drop?.seq ?? '?'} ({drop?.time_s.toFixed(3)} s from {app.format(h.height_m, 'length', 2)}): G ={' '}
+              {h.grubbs!.statistic.toFixed(2)} is above the critical {h.grubbs!.critical_value.toFixed(2)} (α = 0.05). It is kept: check it, and exclude it
+              only with a reason.
+            </Notice>
+          );
+        })}
     </section>
   );
 }
