@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import { deltaToSI, formatQuantity, fromSI, parseDecimal, toSI, unitFor } from '../../src/widgets/units';
+
+describe('display units', () => {
+  it('converts with the exact definitions of the international foot, inch and pound (NIST SP 811, B.8)', () => {
+    expect(toSI(1, unitFor('length', 'ft'))).toBe(0.3048);
+    expect(toSI(1, unitFor('smallLength', 'in'))).toBe(0.0254);
+    expect(toSI(1, unitFor('mass', 'lb'))).toBe(0.45359237);
+    expect(toSI(16, unitFor('mass', 'oz'))).toBeCloseTo(0.45359237, 15);
+  });
+
+  it('converts the conventional inch and millimetre of mercury (NIST SP 811, B.8: 3386.389 Pa, 133.3224 Pa)', () => {
+    expect(toSI(29.92, unitFor('pressure', 'inHg'))).toBeCloseTo(101_320.8, 1);
+    // The conventional mmHg (13.5951 g/cm³ · 9.80665 m/s² · 1 mm = 133.322387415 Pa) is not quite the torr
+    // (101 325/760 = 133.3223684 Pa): 760 mmHg is one standard atmosphere plus 0.0144 Pa.
+    expect(toSI(760, unitFor('pressure', 'mmHg'))).toBeCloseTo(101_325.0144, 3);
+  });
+
+  it('converts Fahrenheit with its offset, but a temperature uncertainty by scale alone', () => {
+    expect(toSI(212, unitFor('temperature', '°F'))).toBeCloseTo(100, 12); // boiling point of water at 1 atm
+    expect(toSI(32, unitFor('temperature', '°F'))).toBeCloseTo(0, 12);
+    expect(fromSI(-40, unitFor('temperature', '°F'))).toBeCloseTo(-40, 12);
+    expect(deltaToSI(1.8, unitFor('temperature', '°F'))).toBeCloseTo(1, 12);
+  });
+
+  it('reads a decimal comma or point, the minus sign, and refuses anything ambiguous', () => {
+    expect(parseDecimal('12,5')).toBe(12.5);
+    expect(parseDecimal(' 12.5 ')).toBe(12.5);
+    expect(parseDecimal('\u22123.2')).toBe(-3.2);
+    expect(parseDecimal('1e-3')).toBe(0.001);
+    expect(parseDecimal('1,234.5')).toBeNull();
+    expect(parseDecimal('1,2,3')).toBeNull();
+    expect(parseDecimal('12 m')).toBeNull();
+    expect(parseDecimal('')).toBeNull();
+  });
+
+  it('formats an SI value in the chosen unit with its symbol', () => {
+    expect(formatQuantity(12.3456, 'length')).toBe('12.346 m');
+    expect(formatQuantity(12.3456, 'length', { length: 'ft' })).toBe('40.50 ft');
+    expect(formatQuantity(96_120, 'pressure', {}, { decimalComma: true })).toBe('961,2 hPa');
+    expect(formatQuantity(null, 'mass')).toBe('—');
+  });
+});
