@@ -111,7 +111,7 @@ export function prepareSeries(request: AnalysisRequest) {
         });
       }
       if (time <= noDragTime) {
-        slowDrops.push(`drop ${i} (${drop.time_s} s from ${drop.height_m} m, drag-free ${noDragTime.toFixed(4)} s)`);
+        slowDrops.push(`drop ${i + 1} of the series (${drop.time_s} s from ${drop.height_m} m, drag-free ${noDragTime.toFixed(4)} s)`);
         return null;
       }
       return dragCoefficientFromTime(body, drop.height_m, time, `drops[${i}].time_s`);

@@ -18,7 +18,7 @@ describe('the analyze command', () => {
     expect(json.drag_coefficient).toBeLessThan(0.56);
     expect(json.drops).toHaveLength(5);
     expect(json.air.station_pressure_Pa).toBe(94180);
-  });
+  }, 60_000);
 
   it('exits 1 on bad input with a message naming the field, the value and the allowed range', () => {
     const dir = mkdtempSync(join(tmpdir(), 'plummet-cli-'));
@@ -31,7 +31,7 @@ describe('the analyze command', () => {
     expect(result.stdout).toBe('');
     expect(result.stderr).toContain('air.relative_humidity_pct = 130');
     expect(result.stderr).toContain('allowed: 0 to 100 %');
-  });
+  }, 60_000);
 
   it('exits 1 for a missing file and for text that is not JSON', () => {
     expect(runAnalyze(['/no/such/request.json'], (p) => readFileSync(p, 'utf8'))).toMatchObject({ exitCode: 1 });

@@ -69,5 +69,5 @@ describe('createRandom normals', () => {
     expect(Math.abs(s2 / n - 1)).toBeLessThan(0.006);
     expect(Math.abs(s4 / n - 3)).toBeLessThan(0.02);
     expect(Math.abs(tail / n - 0.0027)).toBeLessThan(0.00021);
-  });
+  }, 60_000);
 });

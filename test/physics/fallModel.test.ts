@@ -55,7 +55,7 @@ describe('fallModel closed forms', () => {
       }),
       { numRuns: 60, seed: 4242 },
     );
-  });
+  }, 60_000);
 
   it('tend to the vacuum results as C_d → 0, without cancellation', () => {
     const g = 9.80665;
