@@ -28,8 +28,10 @@ describe('the pure core', () => {
     ]);
   });
 
-  it('physics/ may not lean on log/', () => {
+  it('physics/ and log/ do not lean on each other; analysis/ may join them', () => {
     const rules = checkSource('physics/x.ts', "import type { SiteRecord } from '../log';", 'physics').map((v) => v.rule);
     expect(rules).toEqual(['physics/ imports nothing from log/']);
+    expect(checkSource('log/x.ts', "import { fallTime } from '../physics';", 'log').map((v) => v.rule)).toEqual(['log/ imports nothing from physics/']);
+    expect(checkSource('analysis/x.ts', "import { fallTime } from '../physics';\nimport type { DropRecord } from '../log/types';", 'analysis')).toEqual([]);
   });
 });
