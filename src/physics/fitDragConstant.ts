@@ -135,72 +135,107 @@ export function fitDragConstant(
   const slope = sharedSlope;
   const phi = scratch;
   for (let j = 0; j < J; j++) scale[j] = Math.sqrt((2 * heights_m[j]!) / g);
-  let offset = 0;
-  // Evaluate the (projected) residual sum of squares and the Gauss–Newton step at k.
-  let S = 0;
-  let step = 0;
-  let maxSlope = 0;
-  let meanSlope = 0;
-  const evaluate = (kk: number): boolean => {
-    let sumR = 0;
-    let sumD = 0;
-    for (let j = 0; j < J; j++) {
-      const h = heights_m[j]!;
-      fallTimeFactorWithDerivative(kk * h, phi);
-      model[j] = scale[j]! * phi[0]!;
-      slope[j] = scale[j]! * h * phi[1]!;
-      sumR += counts[j]! * (meanTimes_s[j]! - model[j]!);
-      sumD += counts[j]! * slope[j]!;
-    }
-    offset = fitOffset ? sumR / total : 0;
-    meanSlope = fitOffset ? sumD / total : 0;
-    S = 0;
-    let num = 0;
-    let den = 0;
-    maxSlope = 0;
-    for (let j = 0; j < J; j++) {
-      const r = meanTimes_s[j]! - model[j]! - offset;
-      const d = slope[j]! - meanSlope;
-      const n = counts[j]!;
-      S += n * r * r;
-      num += n * d * r;
-      den += n * d * d;
-      if (Math.abs(d) > maxSlope) maxSlope = Math.abs(d);
-    }
-    if (!(den > 0)) return false;
-    step = num / den;
-    return true;
-  };
-
   const boundStatus = (value: number): DragFitStatus =>
     value <= kLo ? 'faster-than-free-fall' : value >= kHi ? 'drag-unexplained' : 'ok';
+  const state = gaussNewtonState;
+  const evaluate = (kk: number): boolean =>
+    evaluateProjected(kk, J, heights_m, meanTimes_s, counts, total, fitOffset, scale, model, slope);
 
-  if (!evaluate(k)) return { status: 'not-converged', drag_constant_per_m: k, offset_s: offset, iterations: 0 };
+  if (!evaluate(k)) return { status: 'not-converged', drag_constant_per_m: k, offset_s: state[OFFSET]!, iterations: 0 };
   for (let iteration = 1; iteration <= 200; iteration++) {
-    const currentS = S;
-    let next = Math.min(Math.max(k + step, kLo), kHi);
+    const currentS = state[SUM_OF_SQUARES]!;
+    let next = Math.min(Math.max(k + state[STEP]!, kLo), kHi);
     let trialStep = next - k;
-    if (Math.abs(trialStep) * maxSlope <= 1e-10 * timeScale) {
+    if (Math.abs(trialStep) * state[MAX_SLOPE]! <= 1e-10 * timeScale) {
       // The step moves no model time by more than 1e-10 of the longest: take it and stop. The
       // offset follows the step to first order (∂δ/∂k is minus the weighted mean slope).
-      return { status: boundStatus(next), drag_constant_per_m: next, offset_s: offset - meanSlope * trialStep, iterations: iteration };
+      return {
+        status: boundStatus(next),
+        drag_constant_per_m: next,
+        offset_s: state[OFFSET]! - state[MEAN_SLOPE]! * trialStep,
+        iterations: iteration,
+      };
     }
     // Accept the step if it does not increase S; otherwise halve it (at most 40 times).
     let accepted = false;
     for (let halving = 0; halving < 40; halving++) {
-      if (evaluate(next) && S <= currentS * (1 + 1e-12)) {
+      if (evaluate(next) && state[SUM_OF_SQUARES]! <= currentS * (1 + 1e-12)) {
         accepted = true;
         break;
       }
       trialStep *= 0.5;
       next = k + trialStep;
-      if (Math.abs(trialStep) * maxSlope <= 1e-14 * timeScale) break;
+      if (Math.abs(trialStep) * state[MAX_SLOPE]! <= 1e-14 * timeScale) break;
     }
     if (!accepted) {
       evaluate(k);
-      return { status: boundStatus(k), drag_constant_per_m: k, offset_s: offset, iterations: iteration };
+      return { status: boundStatus(k), drag_constant_per_m: k, offset_s: state[OFFSET]!, iterations: iteration };
     }
     k = next;
   }
-  return { status: 'not-converged', drag_constant_per_m: k, offset_s: offset, iterations: 200 };
+  return { status: 'not-converged', drag_constant_per_m: k, offset_s: state[OFFSET]!, iterations: 200 };
+}
+
+// Results of evaluateProjected, in a typed array rather than captured variables: the fit's
+// inner loop then keeps its numbers unboxed.
+const SUM_OF_SQUARES = 0;
+const STEP = 1;
+const OFFSET = 2;
+const MEAN_SLOPE = 3;
+const MAX_SLOPE = 4;
+const gaussNewtonState = new Float64Array(5);
+
+/**
+ * At drag constant k: model times and slopes, the optimal offset, the (projected) residual sum of
+ * squares and the Gauss–Newton step, written to gaussNewtonState. False when the step is undefined.
+ */
+function evaluateProjected(
+  k: number,
+  J: number,
+  heights: ArrayLike<number>,
+  times: ArrayLike<number>,
+  counts: ArrayLike<number>,
+  total: number,
+  fitOffset: boolean,
+  scale: Float64Array,
+  model: Float64Array,
+  slope: Float64Array,
+): boolean {
+  const phi = scratch;
+  let sumR = 0;
+  let sumD = 0;
+  for (let j = 0; j < J; j++) {
+    const h = heights[j]!;
+    fallTimeFactorWithDerivative(k * h, phi);
+    const m = scale[j]! * phi[0]!;
+    const d = scale[j]! * h * phi[1]!;
+    model[j] = m;
+    slope[j] = d;
+    sumR += counts[j]! * (times[j]! - m);
+    sumD += counts[j]! * d;
+  }
+  const offset = fitOffset ? sumR / total : 0;
+  const meanSlope = fitOffset ? sumD / total : 0;
+  let S = 0;
+  let num = 0;
+  let den = 0;
+  let maxSlope = 0;
+  for (let j = 0; j < J; j++) {
+    const r = times[j]! - model[j]! - offset;
+    const d = slope[j]! - meanSlope;
+    const n = counts[j]!;
+    S += n * r * r;
+    num += n * d * r;
+    den += n * d * d;
+    const a = Math.abs(d);
+    if (a > maxSlope) maxSlope = a;
+  }
+  const state = gaussNewtonState;
+  state[SUM_OF_SQUARES] = S;
+  state[OFFSET] = offset;
+  state[MEAN_SLOPE] = meanSlope;
+  state[MAX_SLOPE] = maxSlope;
+  if (!(den > 0)) return false;
+  state[STEP] = num / den;
+  return true;
 }
