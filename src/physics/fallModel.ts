@@ -23,8 +23,9 @@
  *   v(h) = √(2·g_e·h·R(2kh)), R(y) = −expm1(−y)/y
  *
  * with Taylor series near zero (coefficients derived symbolically, checked against the closed
- * forms where both are accurate) and ln cosh(s) = s − ln 2 + log1p(e^{−2s}) for large s. No step takes an
- * exponential of a growing argument, so a 10 km fall of a feather is as safe as a short one.
+ * forms where both are accurate) and ln cosh(s) = s − ln 2 + log1p(e^{−2s}) for large s. No
+ * step takes an exponential of a growing argument, so a 10 km fall of a feather is as safe as
+ * a short one.
  *
  * The fit also needs Φ for small negative x: the same ODE with the drag sign reversed gives
  * Φ(x) = arccos(e^x)/√(−2x), the analytic continuation of the same power series. It lets a

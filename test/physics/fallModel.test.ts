@@ -196,6 +196,13 @@ describe('fallTimeFactor Φ(kh) = t/√(2h/g)', () => {
     }
   });
 
+  it('uses a series that equals the closed forms where those are accurate (0.05 ≤ |kh| ≤ 0.5)', () => {
+    for (let x = 0.05; x <= 0.5; x += 0.0137) {
+      expect(Math.abs(fallTimeFactor(x) / (Math.acosh(Math.exp(x)) / Math.sqrt(2 * x)) - 1)).toBeLessThan(1e-13);
+      expect(Math.abs(fallTimeFactor(-x) / (Math.acos(Math.exp(-x)) / Math.sqrt(2 * x)) - 1)).toBeLessThan(1e-13);
+    }
+  });
+
   it('has the derivative its finite differences show', () => {
     for (const x of [-3, -0.3, -1e-3, 1e-4, 5e-3, 0.2, 2, 40, 1e4]) {
       const h = 1e-5 * Math.max(Math.abs(x), 1e-2);
