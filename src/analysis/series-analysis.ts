@@ -115,6 +115,7 @@ export function analyzeSeriesRecords(
   specimen: SpecimenRecord | undefined,
   series: SeriesRecord,
   drops: DropRecord[],
+  options: { monteCarloDraws?: number } = {},
 ): SeriesOutcome {
   if (!site) return { kind: 'missing', message: 'The day’s site record is missing, so gravity cannot be computed.' };
   if (!specimen) return { kind: 'missing', message: 'The specimen of this series is missing from the catalogue.' };
@@ -123,6 +124,7 @@ export function analyzeSeriesRecords(
   const used = drops.filter((d) => !d.excluded && !d.deleted);
   if (used.length === 0) return { kind: 'missing', message: 'No drops yet: enter the first fall time.' };
   const request = buildRequest(site, reading, specimen, series, drops);
+  if (options.monteCarloDraws !== undefined) request.options = { ...request.options, monte_carlo_draws: options.monteCarloDraws };
   try {
     return { kind: 'ready', request, result: analyzeSeries(request), reading };
   } catch (error) {

@@ -8,7 +8,7 @@ export function RiskWarnings({ compact = false }: { compact?: boolean }) {
   const { status } = useApp();
   if (!status || !status.atRisk) return null;
   return (
-    <Notice tone="warn" title={`${status.unsentChanges} unsent change${status.unsentChanges === 1 ? '' : 's'}`}>
+    <Notice tone="warn" title="This log could still be lost">
       <ul>
         {status.reasons.map((r) => (
           <li key={r}>{RISK_MESSAGES[r]}</li>

@@ -1,4 +1,5 @@
-import { useMemo, useState } from 'preact/hooks';
+import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
+import { analyzeSeriesRecords } from '../../analysis';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { routeHref } from '../router';
@@ -44,6 +45,7 @@ export function LogScreen() {
                 <strong>{d.date}</strong> · {d.site_name ?? 'site missing'}
                 <br />
                 <span class="hint">{dayNames.length ? dayNames.join(', ') : 'no series yet'}</span>
+                {d.series_count ? <DayGlance dayId={d.id} /> : null}
               </span>
               <span class="row-side">
                 {d.series_count} series
@@ -56,5 +58,52 @@ export function LogScreen() {
       </ul>
       {data.state === 'ready' && rows.length === 0 && data.value.days.length > 0 ? <p>No day matches “{query}”.</p> : null}
     </div>
+  );
+}
+
+/**
+ * One day's drag coefficients, computed when the row scrolls into view (a log of thousands of days opens at
+ * once; the few rows on screen are worked out as they appear). The fit is exact; the Monte Carlo interval,
+ * not shown here, uses few draws.
+ */
+function DayGlance({ dayId }: { dayId: string }) {
+  const app = useApp();
+  const ref = useRef<HTMLSpanElement>(null);
+  const [text, setText] = useState<string | null>(null);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    let live = true;
+    const run = async () => {
+      const v = await app.store.loadDay(dayId);
+      const parts = v.series.map((s) => {
+        const specimen = v.specimens.find((p) => p.id === s.specimen_id);
+        const out = analyzeSeriesRecords(v.site, v.readings, specimen, s, v.drops.filter((d) => d.series_id === s.id), { monteCarloDraws: 200 });
+        const name = specimen?.name.replace(/\s*\(sample\)$/, '') ?? 'unknown';
+        return out.kind === 'ready' && out.result.drag_coefficient !== null ? `${name}: C_d ${out.result.drag_coefficient.toFixed(3)}` : `${name}: —`;
+      });
+      if (live) setText(parts.join(' · '));
+    };
+    const io = new IntersectionObserver((entries) => {
+      if (entries.some((e) => e.isIntersecting)) {
+        io.disconnect();
+        void run().catch(() => live && setText(null));
+      }
+    });
+    io.observe(el);
+    return () => {
+      live = false;
+      io.disconnect();
+    };
+  }, [dayId, app.changes]);
+  return (
+    <span ref={ref} class="glance">
+      {text ? (
+        <>
+          <br />
+          {text}
+        </>
+      ) : null}
+    </span>
   );
 }

@@ -86,7 +86,7 @@ export function SendScreen() {
       </section>
       <section class="card" aria-labelledby="files-h">
         <h2 id="files-h">By file</h2>
-        <div class="btn-row">
+        <div class="btn-col">
           <button type="button" class="btn" onClick={exportJson}>
             Send the whole log (JSON)
           </button>

@@ -38,44 +38,36 @@ export function DaySummary({ dayId }: { dayId: string }) {
       <h2>End of the day</h2>
       <DayHeader view={data.value} />
       <p>
-        {data.value.readings.length} air readings · {rows.length} series · {data.value.drops.length} drops
+        {plural(data.value.readings.length, 'air reading')} · {rows.length} series · {plural(data.value.drops.length, 'drop')}
       </p>
-      <div class="table-wrap">
-        <table class="drops">
-          <thead>
-            <tr>
-              <th scope="col">Specimen</th>
-              <th scope="col">Height</th>
-              <th scope="col">Drops</th>
-              <th scope="col">C_d ± U (k = 2)</th>
-              <th scope="col">Target</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map(({ s, specimen, drops, outcome }) => {
-              const r = outcome.kind === 'ready' ? outcome.result : null;
-              const rel = r?.drag_coefficient ? r.drag_coefficient_standard_uncertainty / r.drag_coefficient : null;
-              return (
-                <tr key={s.id}>
-                  <th scope="row">
-                    <a href={routeHref('day', dayId, 'series', s.id)}>{specimen?.name ?? 'unknown'}</a>
-                  </th>
-                  <td>{app.format(s.height_m, 'length', 1)}</td>
-                  <td>{drops.filter((d) => !d.excluded).length}</td>
-                  <td>
-                    {r?.drag_coefficient != null
-                      ? `${r.drag_coefficient.toFixed(3)} ± ${(2 * r.drag_coefficient_standard_uncertainty).toFixed(3)}`
-                      : r
-                        ? `< ${r.drag_coefficient_upper_bound_95?.toFixed(3)}`
-                        : '—'}
-                  </td>
-                  <td>{rel === null ? 'not met' : rel <= s.target_relative_uncertainty ? 'met' : 'not met'}</td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <ul class="rows">
+        {rows.map(({ s, specimen, drops, outcome }) => {
+          const r = outcome.kind === 'ready' ? outcome.result : null;
+          const rel = r?.drag_coefficient ? r.drag_coefficient_standard_uncertainty / r.drag_coefficient : null;
+          const met = rel !== null && rel <= s.target_relative_uncertainty;
+          return (
+            <li key={s.id}>
+              <a class="row row-link" href={routeHref('day', dayId, 'series', s.id)}>
+                <span class="row-main">
+                  <strong>{specimen?.name ?? 'unknown specimen'}</strong>
+                  <br />
+                  <span class="hint">
+                    {app.format(s.height_m, 'length', 1)} · {drops.filter((d) => !d.excluded).length} drops · target {(s.target_relative_uncertainty * 100).toFixed(0)} %{' '}
+                    {met ? 'met' : 'not met'}
+                  </span>
+                </span>
+                <span class="row-side">
+                  {r?.drag_coefficient != null
+                    ? `C_d ${r.drag_coefficient.toFixed(3)} ± ${(2 * r.drag_coefficient_standard_uncertainty).toFixed(3)}`
+                    : r
+                      ? `C_d < ${r.drag_coefficient_upper_bound_95?.toFixed(3)}`
+                      : '—'}
+                </span>
+              </a>
+            </li>
+          );
+        })}
+      </ul>
       {flagged.length ? (
         <Notice tone="warn" title="Look at these before you leave">
           <ul>
@@ -100,4 +92,8 @@ export function DaySummary({ dayId }: { dayId: string }) {
       </a>
     </div>
   );
+}
+
+function plural(n: number, word: string): string {
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
 }
