@@ -40,15 +40,26 @@ export interface ExportOptions {
   selection?: Partial<LogSelection> | null;
 }
 
-const KIND_ORDER = new Map(RECORD_KINDS.map((kind, i) => [kind, i]));
-
 /** Parents before children (sites, specimens, days, readings, series, drops), then by id: a stable order. */
 export function sortRecords(records: readonly LogRecord[]): LogRecord[] {
-  return [...records].sort((a, b) => {
-    const k = (KIND_ORDER.get(a.kind) ?? 99) - (KIND_ORDER.get(b.kind) ?? 99);
-    if (k !== 0) return k;
-    return a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
-  });
+  // By kind into buckets, then each bucket by id with the engine's own string sort (UTF-16 order, as `<`):
+  // several times faster on 100 000 records than one sort with a comparator.
+  const buckets = new Map<string, Map<string, LogRecord[]>>();
+  for (const r of records) {
+    let bucket = buckets.get(r.kind);
+    if (!bucket) buckets.set(r.kind, (bucket = new Map()));
+    const same = bucket.get(r.id);
+    if (same) same.push(r);
+    else bucket.set(r.id, [r]);
+  }
+  const out: LogRecord[] = [];
+  const kinds = [...RECORD_KINDS, ...[...buckets.keys()].filter((k) => !RECORD_KINDS.includes(k as RecordKind)).sort()];
+  for (const kind of kinds) {
+    const bucket = buckets.get(kind);
+    if (!bucket) continue;
+    for (const id of [...bucket.keys()].sort()) out.push(...bucket.get(id)!);
+  }
+  return out;
 }
 
 function fullSelection(selection: Partial<LogSelection>): LogSelection {
@@ -132,7 +143,8 @@ export function writeLogFile(file: LogFile): string {
 }
 
 export function exportLog(records: readonly LogRecord[], options: ExportOptions): string {
-  return writeLogFile(buildLogFile(records, options));
+  // buildLogFile has sorted the records already.
+  return canonicalJson(buildLogFile(records, options));
 }
 
 /** A file name for an export: "plummet-log-<device>-<date>[-<part>].json" (":" becomes "~" for file systems). */
