@@ -6,3 +6,14 @@ export { fallTimeFromTaps, fallTimeFromTapCapture, checkFallTime, FALL_TIME_LIMI
 export { OnsetDetector, ONSET_DEFAULTS, type OnsetDetectorOptions, type Onset, type AudioGap } from './onset-detector';
 export { SoundIntervalPairer, intervalBetween, type SoundInterval } from './sound-interval';
 export { correctForSoundTravel, soundTravelCorrection, speedOfSoundAt, SOUND_TRAVEL_LIMITS, type SoundTravel } from './sound-travel';
+export {
+  SoundCapture,
+  SoundCaptureError,
+  CAPTURE_SAMPLE_RATE_HZ,
+  type SoundCaptureErrorCode,
+  type SoundCaptureOptions,
+  type SoundCaptureEventMap,
+  type CapturedInterval,
+  type OnsetHeard,
+  type SoundRawCapture,
+} from './audio-capture';
