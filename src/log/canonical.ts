@@ -103,7 +103,8 @@ const SLOW = Symbol('slow path');
  * A copy with every object's properties inserted in sorted order, for the engine's own JSON.stringify: V8
  * (and every engine) writes string keys in insertion order, and its stringify is several times faster than
  * writing the text piece by piece. Keys that look like array indices are the exception (engines put them
- * first, in numeric order), as are values JSON cannot hold: those go to the exact writer.
+ * first, in numeric order) and "__proto__" (assigning it sets the prototype), as are values JSON cannot
+ * hold: those go to the exact writer.
  */
 function sortedCopy(value: unknown): unknown {
   switch (typeof value) {
@@ -135,7 +136,8 @@ function sortedCopy(value: unknown): unknown {
       const out: Record<string, unknown> = {};
       for (const key of keys) {
         const first = key.charCodeAt(0);
-        if (first >= 48 && first <= 57) throw SLOW;
+        // Index-like keys would be reordered by the engine; "__proto__" would set the copy's prototype.
+        if ((first >= 48 && first <= 57) || key === '__proto__') throw SLOW;
         const item = object[key];
         if (item !== undefined) out[key] = sortedCopy(item);
       }

@@ -49,6 +49,10 @@ describe('canonicalJson (RFC 8785, JSON Canonicalization Scheme)', () => {
     expect(canonicalJson({ 9: 'b', 10: 'a', x: { 2: 0, 1: 0 } })).toBe('{"10":"a","9":"b","x":{"1":0,"2":0}}');
   });
 
+  it('keeps a property named __proto__ as a property', () => {
+    expect(canonicalJson(JSON.parse('{"__proto__":[1],"a":2}'))).toBe('{"__proto__":[1],"a":2}');
+  });
+
   it('writes the same text by its fast path as by writing piece by piece', () => {
     fc.assert(
       fc.property(fc.jsonValue({ noUnicodeString: false }), (value) => {
