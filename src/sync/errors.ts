@@ -11,6 +11,7 @@ export type SyncErrorCode =
   | 'sync-username-invalid'
   | 'sync-password-invalid'
   | 'sync-not-configured'
+  | 'sync-disabled'
   | 'sync-timeout'
   | 'sync-network'
   | 'sync-unauthorized'

@@ -13,3 +13,5 @@ export * from './import-log';
 export * from './sync-run';
 export * from './scheduler';
 export * from './share';
+export * from './auto-sync';
+export * from './csv-export';

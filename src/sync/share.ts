@@ -55,14 +55,14 @@ export function downloadFile(file: ShareableFile, env: ShareEnvironment = browse
   env.setTimeout(() => env.revokeObjectURL(url), 60_000);
 }
 
-/** Shares the file where the phone can, downloads it otherwise. */
-export async function shareFile(file: ShareableFile, env: ShareEnvironment = browserShareEnvironment(), title?: string): Promise<ShareOutcome> {
+/** Shares the files together where the phone can, downloads each otherwise. */
+export async function shareFiles(files: readonly ShareableFile[], env: ShareEnvironment = browserShareEnvironment(), title?: string): Promise<ShareOutcome> {
   const nav = env.navigator;
   if (typeof nav.share === 'function' && typeof nav.canShare === 'function') {
-    const files = [env.makeFile(file.text, file.name, file.type)];
-    if (nav.canShare({ files })) {
+    const made = files.map((f) => env.makeFile(f.text, f.name, f.type));
+    if (nav.canShare({ files: made })) {
       try {
-        await nav.share(title ? { files, title } : { files });
+        await nav.share(title ? { files: made, title } : { files: made });
         return 'shared';
       } catch (error) {
         if ((error as { name?: string }).name === 'AbortError') return 'cancelled';
@@ -70,8 +70,13 @@ export async function shareFile(file: ShareableFile, env: ShareEnvironment = bro
       }
     }
   }
-  downloadFile(file, env);
+  for (const file of files) downloadFile(file, env);
   return 'downloaded';
+}
+
+/** Shares the file where the phone can, downloads it otherwise. */
+export function shareFile(file: ShareableFile, env: ShareEnvironment = browserShareEnvironment(), title?: string): Promise<ShareOutcome> {
+  return shareFiles([file], env, title);
 }
 
 /** Lets the person pick a file; null when they cancel. */

@@ -92,29 +92,25 @@ export function syncFolder(options: SyncOptions): Promise<SyncReport> {
   return options.locks ? options.locks.request(SYNC_LOCK, go) : go();
 }
 
+function emptyReport(device: string, at: string): SyncReport {
+  return { ok: false, started_at: at, finished_at: at, own_file: deviceFileName(device), merged: [], skipped: 0, problems: [], uploaded: false, conflicts: [], error: null };
+}
+
+/** A report of a run that did not start, for the reason given. */
+export function refusedReport(device: string, error: SyncError, at: string): SyncReport {
+  return { ...emptyReport(device, at), error: describeError(error) };
+}
+
 async function runSync(options: SyncOptions): Promise<SyncReport> {
   const now = options.now ?? (() => Date.now());
   const iso = () => new Date(now()).toISOString();
   const { source } = options;
   const device = await source.deviceId();
-  const report: SyncReport = {
-    ok: false,
-    started_at: iso(),
-    finished_at: '',
-    own_file: deviceFileName(device),
-    merged: [],
-    skipped: 0,
-    problems: [],
-    uploaded: false,
-    conflicts: [],
-    error: null,
-  };
   const settings = options.settings ?? (await loadSyncSettings(source));
   if (!settings) {
-    report.error = describeError(new SyncError('sync-not-configured', null, 'no office folder is set up: add its URL, user name and password in the settings'));
-    report.finished_at = iso();
-    return report;
+    return refusedReport(device, new SyncError('sync-not-configured', null, 'no office folder is set up: add its URL, user name and password in the settings'), iso());
   }
+  const report = emptyReport(device, iso());
   let state: SyncState | null = null;
   try {
     const client = new WebDavClient({

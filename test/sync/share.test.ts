@@ -1,6 +1,8 @@
 // @vitest-environment happy-dom
 import { describe, expect, it, vi } from 'vitest';
-import { pickFile, shareFile, type ShareEnvironment } from '../../src/sync/share';
+import { pickFile, shareFile, shareFiles, type ShareEnvironment } from '../../src/sync/share';
+import { logCsvFiles } from '../../src/sync/csv-export';
+import { sampleLog } from './sample-log';
 
 const file = { name: 'plummet-log-phoneA-2026-06-14.json', text: '{"format":"plummet-log"}', type: 'application/json' };
 
@@ -72,6 +74,20 @@ describe('sharing a file', () => {
     const { env, clicks } = environment({ canShare: () => true, share });
     expect(await shareFile(file, env)).toBe('downloaded');
     expect(clicks).toHaveLength(1);
+  });
+});
+
+describe('sharing the CSV tables', () => {
+  it('shares both tables together, or downloads each', async () => {
+    const files = logCsvFiles(sampleLog(), 'plummet-2026-06-14');
+    expect(files.map((f) => f.name)).toEqual(['plummet-2026-06-14-drops.csv', 'plummet-2026-06-14-series.csv']);
+    expect(files[0]!.text.startsWith('\ufeffday_date,')).toBe(true);
+    const share = vi.fn(async (_data: { files: File[] }) => undefined);
+    expect(await shareFiles(files, environment({ canShare: () => true, share }).env)).toBe('shared');
+    expect(share.mock.calls[0]![0].files.map((f) => f.name)).toEqual(files.map((f) => f.name));
+    const fallback = environment({});
+    expect(await shareFiles(files, fallback.env)).toBe('downloaded');
+    expect(fallback.clicks.map((c) => c.download)).toEqual(files.map((f) => f.name));
   });
 });
 

@@ -1,0 +1,119 @@
+/**
+ * The CSV tables with the physics' results, for sharing from the phone and for the office command alike.
+ *
+ * The record model writes the tables (src/log/csv-tables.ts) from a computation handed in; this is that
+ * computation built on the physics' analyzeSeries: the records of a series become the analysis request
+ * (src/physics/analysisTypes.ts), the result becomes table values. No Node or DOM API here, so the screens
+ * use it as the office command does.
+ */
+import { logCsv, type ComputeSeries, type SeriesInput, type SeriesResult } from '../log/csv-tables';
+import type { LogRecord } from '../log/types';
+import type { AnalysisRequest, AnalysisResult, UncertaintyInput } from '../physics/index';
+import { analyzeSeries, validateAnalysisRequest } from '../physics/index';
+import type { ShareableFile } from './share';
+
+class SeriesIncomplete extends Error {
+  constructor(
+    readonly code: 'series-without-specimen' | 'series-without-reading' | 'series-without-site' | 'series-without-drops',
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+/** The analysis request for one series of the log (the shape of src/physics/analysisTypes.ts). */
+export function seriesRequest(input: SeriesInput): AnalysisRequest {
+  const { series, site, specimen, reading, drops } = input;
+  if (!specimen) throw new SeriesIncomplete('series-without-specimen', `series ${series.id}: its specimen ${series.specimen_id} is not in the log`);
+  if (!reading) throw new SeriesIncomplete('series-without-reading', `series ${series.id}: the day has no air reading`);
+  if (!site) throw new SeriesIncomplete('series-without-site', `series ${series.id}: its day or site is not in the log`);
+  if (drops.length === 0) throw new SeriesIncomplete('series-without-drops', `series ${series.id}: no drops to analyse (all excluded or none yet)`);
+  const uncertainty: UncertaintyInput = {
+    height_m: series.u_height_m,
+    mass_kg: specimen.u_mass_kg,
+    temperature_C: reading.u_temperature_C,
+    pressure_Pa: reading.u_pressure_Pa,
+  };
+  const common = { mass_kg: specimen.mass_kg, ...(specimen.reference_drag_coefficient !== null ? { reference_drag_coefficient: specimen.reference_drag_coefficient } : {}) };
+  const shape = specimen.shape;
+  let spec: AnalysisRequest['specimen'];
+  switch (shape.kind) {
+    case 'sphere':
+      spec = { ...common, shape: 'sphere', diameter_m: shape.diameter_m };
+      uncertainty.diameter_m = shape.u_diameter_m;
+      break;
+    case 'cylinder':
+      spec = { ...common, shape: 'cylinder', diameter_m: shape.diameter_m, length_m: shape.length_m };
+      Object.assign(uncertainty, { diameter_m: shape.u_diameter_m, length_m: shape.u_length_m });
+      break;
+    case 'disc':
+      spec = { ...common, shape: 'disc', diameter_m: shape.diameter_m, thickness_m: shape.thickness_m };
+      Object.assign(uncertainty, { diameter_m: shape.u_diameter_m, thickness_m: shape.u_thickness_m });
+      break;
+    case 'box':
+      // The record's height of a box is its vertical extent, which the physics calls thickness.
+      spec = { ...common, shape: 'box', length_m: shape.length_m, width_m: shape.width_m, thickness_m: shape.height_m };
+      Object.assign(uncertainty, { length_m: shape.u_length_m, width_m: shape.u_width_m, thickness_m: shape.u_height_m });
+      break;
+    case 'custom':
+      spec = { ...common, shape: 'custom', area_m2: shape.area_m2, volume_m3: shape.volume_m3 };
+      Object.assign(uncertainty, { area_m2: shape.u_area_m2, volume_m3: shape.u_volume_m3 });
+      break;
+  }
+  const humidity =
+    reading.humidity.kind === 'relative'
+      ? { relative_humidity_pct: reading.humidity.relative_humidity_pct }
+      : { dew_point_C: reading.humidity.dew_point_C };
+  if (reading.humidity.kind === 'relative') uncertainty.relative_humidity_pct = reading.humidity.u_relative_humidity_pct;
+  else uncertainty.dew_point_C = reading.humidity.u_dew_point_C;
+  return {
+    site: { latitude_deg: site.latitude_deg, elevation_m: site.elevation_m },
+    air: { temperature_C: reading.temperature_C, pressure_Pa: reading.pressure_Pa, pressure_reference: reading.pressure_reference, ...humidity },
+    specimen: spec,
+    drops: drops.map((d) => ({ height_m: d.height_m ?? series.height_m, time_s: d.time_s })),
+    timing: { standard_uncertainty_s: series.u_time_s, offset: series.timing_offset },
+    uncertainty,
+  };
+}
+
+/** The table values of an analysis result. */
+export function seriesResultOf(result: AnalysisResult): SeriesResult {
+  return {
+    air_density_kg_m3: result.air.density_kg_m3,
+    gravity_m_s2: result.gravity_m_s2,
+    drag_coefficient: result.drag_coefficient,
+    drag_coefficient_standard_uncertainty: result.drag_coefficient_standard_uncertainty,
+    drag_coefficient_interval_95: result.drag_coefficient_interval_95,
+    timing_offset_s: result.timing_offset_s ?? null,
+    terminal_velocity_m_s: result.terminal_velocity_m_s,
+    drops: result.drops.map((d) => ({
+      drag_coefficient: d.drag_coefficient,
+      predicted_time_s: d.predicted_time_s,
+      residual_s: d.residual_s,
+      vacuum_time_s: d.vacuum_time_s,
+      impact_speed_m_s: d.impact_speed_m_s,
+      impact_energy_J: d.impact_energy_J,
+      reynolds_number: d.reynolds_number,
+    })),
+    warnings: result.warnings,
+  };
+}
+
+/** A ComputeSeries over any analysis function with the physics' request and result shapes. */
+export function seriesComputer(analyze: (request: AnalysisRequest) => AnalysisResult): ComputeSeries {
+  return (input) => seriesResultOf(analyze(seriesRequest(input)));
+}
+
+/** The one the office command uses: the request checked by the physics, then analysed. */
+export function physicsSeriesComputer(): ComputeSeries {
+  return seriesComputer((request) => analyzeSeries(validateAnalysisRequest(request)));
+}
+
+/** Both tables as files to share: "<stem>-drops.csv" and "<stem>-series.csv". */
+export function logCsvFiles(records: readonly LogRecord[], stem: string, compute: ComputeSeries = physicsSeriesComputer()): ShareableFile[] {
+  const tables = logCsv(records, compute);
+  return [
+    { name: `${stem}-drops.csv`, text: tables.drops, type: 'text/csv;charset=utf-8' },
+    { name: `${stem}-series.csv`, text: tables.series, type: 'text/csv;charset=utf-8' },
+  ];
+}
