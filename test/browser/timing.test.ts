@@ -1,13 +1,15 @@
 // Sound timing on the real Chromium with its fake microphone playing a WAV file we write: two clicks at
 // known samples must be measured to the sample, and silence inserted between them must be refused.
+// Then the timer pad itself at phone size: its targets, its accessibility, and taps timed by the touch.
 // The fake microphone runs at 44 100 Hz in 10 ms buffers; a 16-bit mono 44.1 kHz file arrives unresampled.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createRandom } from '../../src/physics/createRandom';
-import { PHONE, collectErrors, haveChromium, launchBrowser } from './harness';
+import { PHONE, collectErrors, expectVisible, haveChromium, launchBrowser } from './harness';
 import { serveTimingPage, type TimingPage } from './fixtures/timing-page/build';
 import type { HeardInterval, TimingHarness } from './fixtures/timing-page/main';
 import type { SoundTravel } from '../../src/timing';
@@ -158,5 +160,94 @@ describe.skipIf(!haveChromium)('sound timing in Chromium with a fake microphone'
     expect(heard[0]!.time_s).toBeNull();
     expect(heard[0]!.problem?.code).toBe('spans-gap');
     expect(heard[0]!.problem?.message).toMatch(/441 samples of exact silence/);
+  });
+});
+
+describe.skipIf(!haveChromium)('the timer pad in Chromium at phone size', () => {
+  let site: TimingPage;
+  let browser: Browser;
+
+  beforeAll(async () => {
+    site = await serveTimingPage();
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await site?.close();
+  });
+
+  async function openPad(): Promise<Page> {
+    const page = await (await browser.newContext(PHONE)).newPage();
+    await page.goto(site.url);
+    await page.waitForFunction(() => 'timing' in window);
+    return page;
+  }
+
+  it('has Release and Impact targets of at least 64 px and passes an axe scan', async () => {
+    const page = await openPad();
+    for (const name of ['Release', 'Impact']) {
+      const box = await page.getByRole('button', { name }).boundingBox();
+      expect(box!.width).toBeGreaterThanOrEqual(64);
+      expect(box!.height).toBeGreaterThanOrEqual(64);
+    }
+    await expectVisible(page.getByRole('group', { name: 'Drop timer' }));
+    const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
+    expect(result.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+    await page.context().close();
+  });
+
+  it('times two touches by their own timestamps, to the 0.1 ms the browser gives', async () => {
+    const page = await openPad();
+    const cdp = await page.context().newCDPSession(page);
+    const release = (await page.getByRole('button', { name: 'Release' }).boundingBox())!;
+    const impact = (await page.getByRole('button', { name: 'Impact' }).boundingBox())!;
+    // Touches stamped 1.2345 s apart; the page reads them only later, when the test gets round to it.
+    const t0 = Date.now() / 1000;
+    for (const [box, t] of [
+      [release, t0],
+      [impact, t0 + 1.2345],
+    ] as const) {
+      await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: [{ x: box.x + box.width / 2, y: box.y + box.height / 2 }], timestamp: t });
+      await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [], timestamp: t + 0.08 });
+    }
+    await page.waitForFunction(() => (window as unknown as Win).timing.captured().length > 0);
+    const captured = await page.evaluate(() => (window as unknown as Win).timing.captured());
+    expect(captured).toHaveLength(1);
+    expect(captured[0]!.raw.kind).toBe('taps');
+    // Chromium coarsens event times to 100 µs outside cross-origin isolation (from memory): allow that.
+    expect(Math.abs(captured[0]!.time_s - 1.2345)).toBeLessThanOrEqual(0.0001 + 1e-9);
+    await expectVisible(page.getByText('Fall time 1.23'));
+    await page.context().close();
+  });
+
+  it('works from the keyboard with a visible focus ring, one mark per key press', async () => {
+    const page = await openPad();
+    // Tab order: Tap, Listen, Release, Impact.
+    for (let i = 0; i < 3; i++) await page.keyboard.press('Tab');
+    const focused = await page.evaluate(() => {
+      const button = document.querySelector('pl-timer-pad')!.shadowRoot!.activeElement as HTMLElement;
+      const style = getComputedStyle(button);
+      return { text: button.textContent!.trim(), outline: `${style.outlineStyle} ${style.outlineWidth}` };
+    });
+    expect(focused).toEqual({ text: 'Release', outline: 'solid 4px' });
+    // Keys in quick succession are a double tap, refused with the time and the range.
+    await page.keyboard.press(' ');
+    await page.keyboard.press('Tab');
+    await page.keyboard.press('Enter');
+    await expectVisible(page.getByRole('alert').filter({ hasText: /shorter than any fall.*Allowed: a fall time from 0.05 s to 120 s/ }));
+    await page.keyboard.press('Shift+Tab');
+    await page.keyboard.press(' ');
+    await page.waitForTimeout(400);
+    await page.keyboard.press('Tab');
+    await page.keyboard.press('Enter');
+    await page.waitForFunction(() => (window as unknown as Win).timing.captured().length > 0);
+    await page.waitForTimeout(200);
+    const captured = await page.evaluate(() => (window as unknown as Win).timing.captured());
+    expect(captured).toHaveLength(1);
+    const [release, impact] = (captured[0]!.raw as { timestamps_ms: number[] }).timestamps_ms;
+    expect(captured[0]!.time_s).toBeCloseTo((impact! - release!) / 1000, 12);
+    expect(captured[0]!.time_s).toBeGreaterThanOrEqual(0.4);
+    expect(captured[0]!.time_s).toBeLessThan(5);
+    await page.context().close();
   });
 });
