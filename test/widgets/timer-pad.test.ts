@@ -4,6 +4,7 @@ import '../../src/widgets/timer-pad';
 import { TimerPad, type TimeCapturedDetail } from '../../src/widgets/timer-pad';
 import { TimingError, type CapturedInterval, type SoundCapture, type SoundCaptureOptions } from '../../src/timing';
 import type { RawCapture } from '../../src/log/types';
+import { h, render, type JSX } from 'preact';
 
 async function make(props: Partial<TimerPad> = {}, tag = 'pl-timer-pad'): Promise<TimerPad> {
   const el = document.createElement(tag) as TimerPad;
@@ -247,5 +248,27 @@ describe('<pl-timer-pad> listening', () => {
     await el.updateComplete;
     expect(text(el, '[role="alert"]')).toBe(failing.message);
     expect(button(el, 'Start listening').getAttribute('aria-pressed')).toBe('false');
+  });
+});
+
+describe('<pl-timer-pad> in a Preact screen', () => {
+  it('takes its properties as properties and ontime-captured as the listener', async () => {
+    type Props = JSX.IntrinsicElements['pl-timer-pad'];
+    expectTypeOf<NonNullable<Props['releaseDistance']>>().toEqualTypeOf<number>();
+    expectTypeOf<NonNullable<Props['mode']>>().toEqualTypeOf<'tap' | 'listen'>();
+    expectTypeOf<NonNullable<Props['ontime-captured']>>().parameter(0).toEqualTypeOf<CustomEvent<TimeCapturedDetail>>();
+
+    const host = document.createElement('div');
+    document.body.append(host);
+    const got: TimeCapturedDetail[] = [];
+    const props: Props = { label: 'Drop 4', releaseDistance: 12.5, landingDistance: 0.5, 'ontime-captured': (e) => got.push(e.detail) };
+    render(h('pl-timer-pad', props), host);
+    const el = host.querySelector('pl-timer-pad')!;
+    await el.updateComplete;
+    expect([el.label, el.releaseDistance, el.landingDistance]).toEqual(['Drop 4', 12.5, 0.5]);
+    pointerDown(button(el, 'Release'), 10);
+    pointerDown(button(el, 'Impact'), 1610);
+    expect(got.map((d) => d.time_s)).toEqual([1.6]);
+    render(null, host);
   });
 });
