@@ -2,4 +2,5 @@
 export { QuantityInput, type QuantityChangeDetail } from './quantity-input';
 export { PlotChart, niceTicks, type PlotLine, type PlotMark } from './plot-chart';
 export { BarChart, type Bar } from './bar-chart';
+export { TimerPad, type TimeCapturedDetail, type TimerMode } from './timer-pad';
 export * from './units';

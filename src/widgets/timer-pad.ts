@@ -149,9 +149,9 @@ export class TimerPad extends LitElement {
       font-weight: 600;
     }
     .mode[aria-pressed='true'] {
-      background: var(--pl-accent, #0b3d2e);
-      border-color: var(--pl-accent, #0b3d2e);
-      color: var(--pl-on-accent, #fff);
+      background: var(--pl-brand, #0b3d2e);
+      border-color: var(--pl-brand, #0b3d2e);
+      color: var(--pl-brand-ink, #fff);
     }
     .time {
       font-size: 3.2rem;
@@ -181,7 +181,7 @@ export class TimerPad extends LitElement {
       font-weight: 700;
     }
     .target.release[data-armed] {
-      background: var(--pl-accent-soft, #dcefe6);
+      background: var(--pl-good-bg, #dcefe6);
     }
     .status {
       margin: 0.6rem 0 0;

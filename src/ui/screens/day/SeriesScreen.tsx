@@ -12,7 +12,7 @@ import { seriesCurves } from '../../../analysis';
 import { impactEnergyWarning } from '../../SafetyCaution';
 import { TIMING_DEFAULTS } from './SeriesForm';
 import { describeError } from '../../errors';
-import type { PlotLine, PlotMark } from '../../../widgets';
+import type { PlotLine, PlotMark, TimeCapturedDetail } from '../../../widgets';
 import { fromSI, unitFor } from '../../../widgets/units';
 
 export function SeriesScreen({ dayId, seriesId }: { dayId: string; seriesId: string }) {
@@ -43,7 +43,11 @@ function SeriesBody({ view, series, specimen, drops }: { view: DayView; series: 
           {(series.u_time_s * 1000).toFixed(1)} ms per drop · target {(series.target_relative_uncertainty * 100).toFixed(1)} %
         </div>
       </header>
-      <DropEntry series={series} nextSeq={drops.reduce((m, d) => Math.max(m, d.seq), 0) + 1} />
+      <DropEntry
+        series={series}
+        nextSeq={drops.reduce((m, d) => Math.max(m, d.seq), 0) + 1}
+        airTemperature={outcome.kind === 'ready' ? outcome.reading.temperature_C : (view.readings[view.readings.length - 1]?.temperature_C ?? null)}
+      />
       <ResultPanel outcome={outcome} series={series} usedDrops={drops.filter((d) => !d.excluded && !d.deleted)} />
       {outcome.kind === 'ready' ? <Charts outcome={outcome} drops={drops} series={series} /> : null}
       <DropTable drops={drops} series={series} outcome={outcome} />
@@ -57,12 +61,26 @@ interface DropDraft {
   height: FieldState;
   otherHeight: boolean;
   note: string;
+  /** The phone's capture behind `time`, kept until the drop is saved; null when the time was typed. */
+  captured: TimeCapturedDetail['raw'] | null;
+  /** Sound timing: the phone's distance to the release point and to the landing point. */
+  releaseDistance: FieldState;
+  landingDistance: FieldState;
 }
 
-function DropEntry({ series, nextSeq }: { series: SeriesRecord; nextSeq: number }) {
+function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; nextSeq: number; airTemperature: number | null }) {
   const app = useApp();
   const key = `drop:${series.id}`;
-  const form = useDraft<DropDraft>(key, () => ({ time: field(), height: field(), otherHeight: false, note: '' }));
+  const form = useDraft<DropDraft>(key, () => ({
+    time: field(),
+    height: field(),
+    otherHeight: false,
+    note: '',
+    captured: null,
+    releaseDistance: field(series.height_m),
+    landingDistance: field(1),
+  }));
+  const padMode = series.timing_method === 'sound' ? 'listen' : series.timing_method === 'tap' ? 'tap' : null;
   const [error, setError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
   const input = useRef<HTMLElement>(null);
@@ -79,7 +97,7 @@ function DropEntry({ series, nextSeq }: { series: SeriesRecord; nextSeq: number 
         {
           series_id: series.id,
           seq: nextSeq,
-          raw: { kind: 'typed', text: d.time.text ?? String(d.time.value) },
+          raw: d.captured ?? { kind: 'typed', text: d.time.text ?? String(d.time.value) },
           time_s: d.time.value!,
           height_m: d.otherHeight ? d.height.value : null,
           excluded: false,
@@ -90,7 +108,7 @@ function DropEntry({ series, nextSeq }: { series: SeriesRecord; nextSeq: number 
         { clearDraft: key },
       );
       await form.clear();
-      form.replace({ time: { value: null, error: null, text: '' }, height: d.height, otherHeight: d.otherHeight, note: '' });
+      form.replace({ ...d, time: { value: null, error: null, text: '' }, note: '', captured: null });
       app.notifyChanged();
       (input.current as { focus?: () => void } | null)?.focus?.();
     } catch (e) {
@@ -109,8 +127,49 @@ function DropEntry({ series, nextSeq }: { series: SeriesRecord; nextSeq: number 
           void save();
         }}
       >
+        {padMode ? (
+          <>
+            {padMode === 'listen' ? (
+              <div class="two">
+                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} min={0} max={5000} onChange={(releaseDistance) => form.set({ releaseDistance })} />
+                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} min={0} max={5000} onChange={(landingDistance) => form.set({ landingDistance })} />
+              </div>
+            ) : null}
+            <pl-timer-pad
+              label={`Drop ${nextSeq} timer`}
+              mode={padMode}
+              releaseHeight={d.otherHeight && d.height.value !== null ? d.height.value : series.height_m}
+              releaseDistance={d.releaseDistance.value ?? undefined}
+              landingDistance={d.landingDistance.value ?? undefined}
+              airTemperature={airTemperature ?? undefined}
+              decimalComma={app.settings.decimalComma}
+              ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
+                const t = e.detail.time_s;
+                const raw = e.detail.raw;
+                const heard = raw.kind === 'sound' ? (raw.onsets_s[1]! - raw.onsets_s[0]!) : t;
+                const correction = t - heard;
+                form.set({
+                  time: { value: t, error: null, text: t.toFixed(4) },
+                  captured: raw,
+                  note: raw.kind === 'sound' && Math.abs(correction) > 1e-9
+                    ? `sound travel correction ${(correction * 1000).toFixed(1)} ms (phone ${d.releaseDistance.value} m from release, ${d.landingDistance.value} m from landing)`
+                    : d.note,
+                });
+              }}
+            />
+          </>
+        ) : null}
         <div ref={input as never}>
-          <QField label="Fall time" kind="time" state={d.time} min={0} minExclusive max={600} onChange={(time) => form.set({ time })} />
+          <QField
+            label="Fall time"
+            kind="time"
+            state={d.time}
+            min={0}
+            minExclusive
+            max={600}
+            hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
+            onChange={(time) => form.set({ time, captured: null })}
+          />
         </div>
         <label class="check">
           <input type="checkbox" checked={d.otherHeight} onChange={(e) => form.set({ otherHeight: (e.target as HTMLInputElement).checked })} />
