@@ -76,7 +76,7 @@ export function deviceFileName(device: string): string {
   return `plummet-log-${device.replace(/:/g, '~')}.json`;
 }
 
-const isLogName = (name: string) => name.endsWith('.json') && !name.startsWith('.');
+const isLogName = (name: string) => /\.json$/i.test(name) && !name.startsWith('.');
 
 /** Runs without a Web Locks manager still must not overlap within one page. */
 const running = new WeakMap<RecordSource, Promise<SyncReport>>();

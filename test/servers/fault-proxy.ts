@@ -11,6 +11,8 @@ export type Fault =
   | { kind: 'delay'; ms: number }
   /** Forward the request, then send the answer's headers and this many bytes of its body, and cut. */
   | { kind: 'cut-response'; afterBytes: number }
+  /** Forward the request, then send the answer's headers and this many bytes of its body, and go quiet. */
+  | { kind: 'stall-response'; afterBytes: number }
   /** Forward this many bytes of the request body to the server, then cut both connections. */
   | { kind: 'cut-request'; afterBytes: number };
 
@@ -52,7 +54,8 @@ export async function startFaultProxy(targetPort: number): Promise<FaultProxy> {
     const upstream = request(
       { host: '127.0.0.1', port: targetPort, method: req.method, path: req.url, headers: { ...req.headers, host: `127.0.0.1:${targetPort}` } },
       (answer) => {
-        if (fault.kind === 'cut-response') {
+        if (fault.kind === 'cut-response' || fault.kind === 'stall-response') {
+          const cut = fault.kind === 'cut-response';
           res.writeHead(answer.statusCode ?? 502, answer.headers);
           let sent = 0;
           answer.on('data', (chunk: Buffer) => {
@@ -62,10 +65,12 @@ export async function startFaultProxy(targetPort: number): Promise<FaultProxy> {
             res.write(part);
             if (sent >= fault.afterBytes) {
               answer.destroy();
-              res.socket?.destroy();
+              if (cut) res.socket?.destroy();
             }
           });
-          answer.on('end', () => res.socket?.destroy());
+          answer.on('end', () => {
+            if (cut) res.socket?.destroy();
+          });
           return;
         }
         res.writeHead(answer.statusCode ?? 502, answer.headers);

@@ -306,6 +306,19 @@ describe.each(kinds)('syncing through %s', (name, missing, start) => {
     expect(phoneA.records.size).toBe(26);
   });
 
+  it.skipIf(missing)('gives up on an answer that stops halfway, after the timeout, and loses nothing', async () => {
+    await sync(phoneB, direct);
+    proxy.set({ fault: { kind: 'stall-response', afterBytes: 200 }, methods: ['GET'], times: 1 });
+    const before = logText(phoneA.records.values());
+    const started = Date.now();
+    const stalled = await sync(phoneA, { ...viaProxy, timeout_ms: 1000 });
+    expect(stalled.error).toMatchObject({ code: 'sync-timeout', retryable: true });
+    expect(Date.now() - started).toBeLessThan(4000);
+    expect(logText(phoneA.records.values())).toBe(before);
+    expectOk(await sync(phoneA, viaProxy));
+    expect(phoneA.records.size).toBe(26);
+  });
+
   it.skipIf(missing)('leaves the old file whole when the connection is cut in the middle of an upload', async () => {
     await sync(phoneA, direct);
     const old = await readFolderFile(server, deviceFileName('phoneA'));
