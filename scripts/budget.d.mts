@@ -2,4 +2,4 @@ export const BUDGETS: { initialJsGzip: number; cssGzip: number; precache: number
 export function measure(
   dist: string,
   budgets?: Partial<typeof BUDGETS>,
-): { figures: typeof BUDGETS; over: string[]; files: { initialJs: string[]; styles: string[]; precached: string[] } };
+): { figures: typeof BUDGETS; over: string[]; precacheRaw: number; files: { initialJs: string[]; styles: string[]; precached: string[] } };

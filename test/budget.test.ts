@@ -46,7 +46,7 @@ describe('the size budget', () => {
     expect(run.stderr).toContain('size budget exceeded: initialJsGzip');
   });
 
-  it('fails when the precache is over 300 KB', () => {
+  it('fails when the precache is over 300 KB gzip', () => {
     const dist = fakeBuild(randomBytes(310_000));
     expect(measure(dist).over).toContain('precache');
   });

@@ -2,4 +2,3 @@
 // office command alike.
 export * from './series-analysis';
 export * from './series-curves';
-export * from './compute-series';

@@ -1,7 +1,10 @@
 /**
- * Office command: analyse one series of drops from a JSON request and print the result as JSON.
+ * Office command: analyse one series of drops from a JSON request and print the result as JSON, or every
+ * series of an exported log and write its CSV tables.
  *
  *   npm run --silent analyze -- request.json
+ *   npm run --silent analyze -- log.json --csv out/     (writes out/drops.csv and out/series.csv)
+ *   npm run --silent analyze -- log.json                (prints every series' results as JSON)
  *
  * Exit status: 0 with the result on stdout; 1 for bad input (unreadable file, invalid JSON,
  * a field out of range: the message names the field, the value and the allowed range);
@@ -10,8 +13,13 @@
  */
 import { readFileSync } from 'node:fs';
 import { analyzeSeries, PhysicsInputError, validateAnalysisRequest } from '../physics/index';
+import { LogFileError, readLogFile } from '../log/export-parse';
+import { seriesInputs } from '../log/csv-tables';
+import { isLogFile, physicsSeriesComputer, writeLogCsv } from './log-to-csv';
 
-const USAGE = 'usage: npm run --silent analyze -- request.json   (a series analysis request; see examples/)';
+const USAGE =
+  'usage: npm run --silent analyze -- request.json        (one series analysis request; see examples/)\n' +
+  '       npm run --silent analyze -- log.json [--csv DIR] (an exported log: every series, or its CSV tables in DIR)';
 
 export interface CliOutcome {
   exitCode: 0 | 1 | 2;
@@ -21,7 +29,11 @@ export interface CliOutcome {
 
 /** The whole command as a function of its arguments and a file reader, so it can be tested without spawning. */
 export function runAnalyze(args: string[], readText: (path: string) => string): CliOutcome {
-  const files = args.filter((a) => a !== '--');
+  const rest = args.filter((a) => a !== '--');
+  const csvAt = rest.indexOf('--csv');
+  const csvDir = csvAt >= 0 ? rest[csvAt + 1] : undefined;
+  if (csvAt >= 0 && (!csvDir || csvDir.startsWith('--'))) return { exitCode: 1, stdout: '', stderr: `--csv needs a folder to write to\n${USAGE}\n` };
+  const files = csvAt >= 0 ? rest.filter((_, i) => i !== csvAt && i !== csvAt + 1) : rest;
   if (files.length !== 1 || files[0] === '--help' || files[0] === '-h') {
     return { exitCode: files[0] === '--help' || files[0] === '-h' ? 0 : 1, stdout: '', stderr: `${USAGE}\n` };
   }
@@ -40,6 +52,8 @@ export function runAnalyze(args: string[], readText: (path: string) => string): 
     const reason = error instanceof Error ? error.message : String(error);
     return { exitCode: 1, stdout: '', stderr: `${path} is not valid JSON: ${reason}\n` };
   }
+  if (isLogFile(json)) return analyzeLog(path, text, csvDir);
+  if (csvDir !== undefined) return { exitCode: 1, stdout: '', stderr: `${path} is a single-series request: --csv needs an exported log file\n` };
   try {
     const result = analyzeSeries(validateAnalysisRequest(json));
     return { exitCode: 0, stdout: `${JSON.stringify(result, null, 2)}\n`, stderr: '' };
@@ -49,6 +63,38 @@ export function runAnalyze(args: string[], readText: (path: string) => string): 
         exitCode: 1,
         stdout: '',
         stderr: `${path}: ${error.message}\n  field: ${error.field}\n  value: ${JSON.stringify(error.value) ?? 'undefined'}\n  allowed: ${error.allowed}\n  code: ${error.code}\n`,
+      };
+    }
+    const reason = error instanceof Error ? (error.stack ?? error.message) : String(error);
+    return { exitCode: 2, stdout: '', stderr: `internal error while analysing ${path}: ${reason}\n` };
+  }
+}
+
+/** An exported log: every series computed; with a folder, the two CSV tables written there. */
+function analyzeLog(path: string, text: string, csvDir: string | undefined): CliOutcome {
+  try {
+    const compute = physicsSeriesComputer();
+    if (csvDir !== undefined) {
+      const summary = writeLogCsv(text, csvDir, compute);
+      const failed = summary.failed.map((f) => `series ${f.series_id} not computed: ${f.code}: ${f.message}\n`).join('');
+      return { exitCode: 0, stdout: `${JSON.stringify(summary, null, 2)}\n`, stderr: failed };
+    }
+    const file = readLogFile(text);
+    const results = seriesInputs(file.records).map((input) => {
+      try {
+        return { series_id: input.series.id, ...compute(input) };
+      } catch (error) {
+        const e = error as { code?: string; message?: string };
+        return { series_id: input.series.id, error: { code: e.code ?? 'compute-failed', message: e.message ?? String(error) } };
+      }
+    });
+    return { exitCode: 0, stdout: `${JSON.stringify({ device: file.device, series: results }, null, 2)}\n`, stderr: '' };
+  } catch (error) {
+    if (error instanceof LogFileError) {
+      return {
+        exitCode: 1,
+        stdout: '',
+        stderr: `${path}: ${error.message}\n  field: ${error.field}\n  value: ${JSON.stringify(error.value) ?? 'undefined'}\n  rule: ${error.rule}\n  code: ${error.code}\n`,
       };
     }
     const reason = error instanceof Error ? (error.stack ?? error.message) : String(error);

@@ -1,11 +1,11 @@
 /**
- * Reading a log file: JSON, then the published schema (ajv's ahead-of-time validator), then the record model's
+ * Reading a log file: JSON, then the published schema (our compact checker, tested against ajv), then the record model's
  * own rules, then one record per id. The first thing wrong is reported with the field, the value and the rule,
  * e.g. `records[12].time_s (drop 4f…) is -1.6: must be > 0`.
  */
 import type { LogFile } from './export';
-import { LOG_FORMAT, LOG_FORMAT_VERSION } from './schema';
-import { validate as validateSchema } from './schema-validator';
+import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
+import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
 import { validateRecord } from './validate';
 import type { LogRecord } from './types';
 
@@ -31,17 +31,6 @@ export class LogFileError extends Error {
     this.name = 'LogFileError';
   }
 }
-
-interface AjvError {
-  instancePath: string;
-  schemaPath: string;
-  keyword: string;
-  params: Record<string, unknown>;
-  message?: string;
-}
-type Validator = ((data: unknown) => boolean) & { errors?: AjvError[] | null };
-
-const validator = validateSchema as unknown as Validator;
 
 /** "/records/3/shape/diameter_m" → ["records", 3, "shape", "diameter_m"] (JSON Pointer, RFC 6901). */
 function pointerParts(pointer: string): (string | number)[] {
@@ -91,30 +80,29 @@ const PATTERN_RULES: Record<string, string> = {
   rev: 'must be a clock stamp "<ms, 15 digits>-<counter, 6 digits>-<device>"',
 };
 
-function patternRule(schemaPath: string): string | null {
-  const m = /^#\/\$defs\/([^/]+)\/pattern$/.exec(schemaPath);
-  return m ? (PATTERN_RULES[m[1]!] ?? null) : null;
+/** The rule of a problem in words: the checker's own sentence without its "path: value" lead. */
+function ruleOf(problem: JsonSchemaProblem, data: unknown, parts: (string | number)[]): string {
+  if (problem.keyword === 'required') return 'is required';
+  if (problem.keyword === 'additionalProperties') {
+    const owner = valueAt(data, parts.slice(0, -1)) as { kind?: unknown } | undefined;
+    return `is not a field of ${typeof owner?.kind === 'string' ? `a ${owner.kind}` : 'this object'} in format ${LOG_FORMAT_VERSION}`;
+  }
+  if (problem.keyword === 'pattern') {
+    const def = /\$defs\/([^/]+)/.exec(problem.message)?.[1];
+    const last = parts[parts.length - 1];
+    const named = PATTERN_RULES[def ?? ''] ?? (typeof last === 'string' ? PATTERN_RULES[last.replace(/_id$/, '') === last ? last : 'id'] : undefined);
+    if (named) return named;
+  }
+  const prefix = `${problem.path}: `;
+  let rule = problem.message.startsWith(prefix) ? problem.message.slice(prefix.length) : problem.message;
+  const shown = JSON.stringify(problem.value);
+  if (shown !== undefined && rule.startsWith(`${shown} `)) rule = rule.slice(shown.length + 1);
+  return rule;
 }
 
-function schemaError(data: unknown, errors: AjvError[]): LogFileError {
-  // With if/then unions ajv adds an "if" error after the one that matters.
-  const error = errors.find((e) => e.keyword !== 'if') ?? errors[0]!;
-  let parts = pointerParts(error.instancePath);
-  let rule = (error.message ?? error.keyword).replace('<=', '≤').replace('>=', '≥');
-  if (error.keyword === 'required') {
-    parts = [...parts, String(error.params.missingProperty)];
-    rule = 'is required';
-  } else if (error.keyword === 'additionalProperties') {
-    parts = [...parts, String(error.params.additionalProperty)];
-    const owner = valueAt(data, parts.slice(0, -1)) as { kind?: unknown } | undefined;
-    rule = `is not a field of ${typeof owner?.kind === 'string' ? `a ${owner.kind}` : 'this object'} in format ${LOG_FORMAT_VERSION}`;
-  } else if (error.keyword === 'enum') {
-    rule = `must be one of: ${(error.params.allowedValues as unknown[]).join(', ')}`;
-  } else if (error.keyword === 'const') {
-    rule = `must be ${JSON.stringify(error.params.allowedValue)}`;
-  } else if (error.keyword === 'pattern') {
-    rule = patternRule(error.schemaPath) ?? rule;
-  }
+function schemaError(data: unknown, problem: JsonSchemaProblem): LogFileError {
+  const parts = pointerParts(problem.path);
+  const rule = ruleOf(problem, data, parts);
   const field = fieldName(parts);
   const value = valueAt(data, parts);
   const label = `${field}${recordLabel(data, parts)}`;
@@ -156,7 +144,8 @@ export function readLogFile(text: string): LogFile {
       `this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
     );
   }
-  if (!validator(data)) throw schemaError(data, validator.errors ?? []);
+  const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: 1 });
+  if (problems.length > 0) throw schemaError(data, problems[0]!);
   const file = data as LogFile;
   const seen = new Map<string, number>();
   file.records.forEach((record, i) => {

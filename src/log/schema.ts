@@ -1,10 +1,10 @@
 /**
  * The JSON Schema (draft 2020-12) of the log file, format version 1.
  *
- * This object is the one source: public/schema/plummet-log-1.schema.json is written from it, and so is the
- * validator in schema-validator.ts (ajv's standalone code, generated ahead of time so the app never compiles
- * code at run time: no `new Function`, which a strict Content-Security-Policy forbids, and no ajv compiler in
- * the bundle). Regenerate both with `npx tsx test/log/schema-generate.ts`; a test fails while either is stale.
+ * This object is the one source: public/schema/plummet-log-1.schema.json is written from it (regenerate with
+ * `npx tsx test/log/schema-generate.ts`; a test fails while it is stale). Import checks files against it with
+ * json-schema-check.ts, a small checker of exactly the keywords used here (no code compiled at run time, so a
+ * strict Content-Security-Policy is fine, and 3 KB instead of an ajv bundle); the tests compare it with ajv.
  *
  * The ranges are the record model's own (LIMITS in validate.ts), so a file is never refused for a value the
  * app would have stored. What a schema cannot say (an uncertainty no larger than its quantity, a dew point not

@@ -8,7 +8,8 @@
  */
 import { logCsv, type ComputeSeries, type SeriesInput, type SeriesResult } from '../log/csv-tables';
 import type { LogRecord } from '../log/types';
-import type { AnalysisRequest, AnalysisResult, UncertaintyInput } from '../physics/index';
+import type { AnalysisRequest, AnalysisResult } from '../physics/index';
+import { buildRequest } from '../analysis';
 import { analyzeSeries, validateAnalysisRequest } from '../physics/index';
 import type { ShareableFile } from './share';
 
@@ -28,52 +29,8 @@ export function seriesRequest(input: SeriesInput): AnalysisRequest {
   if (!reading) throw new SeriesIncomplete('series-without-reading', `series ${series.id}: the day has no air reading`);
   if (!site) throw new SeriesIncomplete('series-without-site', `series ${series.id}: its day or site is not in the log`);
   if (drops.length === 0) throw new SeriesIncomplete('series-without-drops', `series ${series.id}: no drops to analyse (all excluded or none yet)`);
-  const uncertainty: UncertaintyInput = {
-    height_m: series.u_height_m,
-    mass_kg: specimen.u_mass_kg,
-    temperature_C: reading.u_temperature_C,
-    pressure_Pa: reading.u_pressure_Pa,
-  };
-  const common = { mass_kg: specimen.mass_kg, ...(specimen.reference_drag_coefficient !== null ? { reference_drag_coefficient: specimen.reference_drag_coefficient } : {}) };
-  const shape = specimen.shape;
-  let spec: AnalysisRequest['specimen'];
-  switch (shape.kind) {
-    case 'sphere':
-      spec = { ...common, shape: 'sphere', diameter_m: shape.diameter_m };
-      uncertainty.diameter_m = shape.u_diameter_m;
-      break;
-    case 'cylinder':
-      spec = { ...common, shape: 'cylinder', diameter_m: shape.diameter_m, length_m: shape.length_m };
-      Object.assign(uncertainty, { diameter_m: shape.u_diameter_m, length_m: shape.u_length_m });
-      break;
-    case 'disc':
-      spec = { ...common, shape: 'disc', diameter_m: shape.diameter_m, thickness_m: shape.thickness_m };
-      Object.assign(uncertainty, { diameter_m: shape.u_diameter_m, thickness_m: shape.u_thickness_m });
-      break;
-    case 'box':
-      // The record's height of a box is its vertical extent, which the physics calls thickness.
-      spec = { ...common, shape: 'box', length_m: shape.length_m, width_m: shape.width_m, thickness_m: shape.height_m };
-      Object.assign(uncertainty, { length_m: shape.u_length_m, width_m: shape.u_width_m, thickness_m: shape.u_height_m });
-      break;
-    case 'custom':
-      spec = { ...common, shape: 'custom', area_m2: shape.area_m2, volume_m3: shape.volume_m3 };
-      Object.assign(uncertainty, { area_m2: shape.u_area_m2, volume_m3: shape.u_volume_m3 });
-      break;
-  }
-  const humidity =
-    reading.humidity.kind === 'relative'
-      ? { relative_humidity_pct: reading.humidity.relative_humidity_pct }
-      : { dew_point_C: reading.humidity.dew_point_C };
-  if (reading.humidity.kind === 'relative') uncertainty.relative_humidity_pct = reading.humidity.u_relative_humidity_pct;
-  else uncertainty.dew_point_C = reading.humidity.u_dew_point_C;
-  return {
-    site: { latitude_deg: site.latitude_deg, elevation_m: site.elevation_m },
-    air: { temperature_C: reading.temperature_C, pressure_Pa: reading.pressure_Pa, pressure_reference: reading.pressure_reference, ...humidity },
-    specimen: spec,
-    drops: drops.map((d) => ({ height_m: d.height_m ?? series.height_m, time_s: d.time_s })),
-    timing: { standard_uncertainty_s: series.u_time_s, offset: series.timing_offset },
-    uncertainty,
-  };
+  // The same request the screens build, so the office's tables and the phone's screens agree to the digit.
+  return buildRequest(site, reading, specimen, series, drops);
 }
 
 /** The table values of an analysis result. */

@@ -168,7 +168,7 @@ describe('reading a log file', () => {
     expect(error.code).toBe('log-schema');
     expect(error.field).toBe(`records[${index}].time_s`);
     expect(error.value).toBe(-1.6);
-    expect(error.rule).toBe('must be > 0');
+    expect(error.rule).toBe('must be > 0 and ≤ 3600'); // the whole allowed range of time_s
     expect(error.message).toContain(`records[${index}].time_s`);
     expect(error.message).toContain('-1.6');
     expect(error.message).toContain(file.records[index].id);

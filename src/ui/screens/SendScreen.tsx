@@ -1,7 +1,6 @@
 import { useEffect, useState } from 'preact/hooks';
 import { exportLog, logFileName, logCsv, type MergePreview } from '../../log';
-import { applyImport, loadSyncSettings, pickFile, previewImport, saveSyncSettings, shareFile, type ImportPreview, type SyncReport } from '../../sync';
-import { computeSeries } from '../../analysis';
+import { applyImport, loadSyncSettings, physicsSeriesComputer, pickFile, previewImport, saveSyncSettings, shareFile, type ImportPreview, type SyncReport } from '../../sync';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { Notice, TextField } from '../forms';
@@ -41,7 +40,7 @@ export function SendScreen() {
     try {
       const records = await app.store.allRecords({ includeDeleted: false });
       const device = await app.store.deviceId();
-      const csv = logCsv(records, computeSeries);
+      const csv = logCsv(records, physicsSeriesComputer());
       const base = logFileName(device, localDate()).replace(/\.json$/, '');
       await shareFile({ name: `${base}-drops.csv`, text: csv.drops, type: 'text/csv' }, undefined, 'Plummet drops');
       await shareFile({ name: `${base}-series.csv`, text: csv.series, type: 'text/csv' }, undefined, 'Plummet series');
