@@ -5,6 +5,7 @@
 import { cleanupOutdatedCaches, createHandlerBoundToURL, precacheAndRoute } from 'workbox-precaching';
 import { NavigationRoute, registerRoute } from 'workbox-routing';
 import { clientsClaim } from 'workbox-core';
+import { BACKGROUND_SYNC_TAG, syncFromWorker } from './background-sync';
 
 declare const self: ServiceWorkerGlobalScope & {
   __WB_MANIFEST: Array<{ url: string; revision: string | null }>;
@@ -23,14 +24,20 @@ self.addEventListener('message', (event: ExtendableMessageEvent) => {
   if (data?.type === 'SKIP_WAITING') void self.skipWaiting();
 });
 
-// Background Sync: the page registers the tag when changes wait in the outbox; the worker wakes any open
-// page to send them (the sync code itself runs in the page, which holds the store and the credentials).
+// Background Sync: the page registers the tag after a failed sync; the browser wakes this worker once the phone
+// is online again. With a window of the app open, that page syncs (it holds the live state); with none, the
+// worker syncs itself from the same IndexedDB log. Throwing on a retryable failure lets the browser retry later.
 self.addEventListener('sync', (event: Event) => {
   const e = event as ExtendableEvent & { tag?: string };
-  if (e.tag !== 'plummet-office-folder') return;
+  if (e.tag !== BACKGROUND_SYNC_TAG) return;
   e.waitUntil(
-    self.clients.matchAll({ type: 'window' }).then((clients) => {
-      for (const client of clients) client.postMessage({ type: 'SYNC_NOW' });
+    self.clients.matchAll({ type: 'window' }).then(async (clients) => {
+      if (clients.length > 0) {
+        for (const client of clients) client.postMessage({ type: 'SYNC_NOW' });
+        return;
+      }
+      const report = await syncFromWorker();
+      if (!report.ok && report.error?.retryable) throw new Error(report.error.code);
     }),
   );
 });

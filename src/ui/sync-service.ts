@@ -8,6 +8,7 @@ import {
   loadSyncSettings,
   requestBackgroundSync,
   syncFolder,
+  type LockManagerLike,
   type RecordSource,
   type SyncReport,
 } from '../sync';
@@ -51,7 +52,8 @@ function createSyncService(store: LogStore, onChanged: () => void): SyncService 
   const env = browserTriggerEnvironment();
   let disconnect: (() => void) | null = null;
   const scheduler = new SyncScheduler({
-    run: () => syncFolder({ source, appVersion: __APP_VERSION__ }),
+    // The lock keeps two tabs of the app from syncing the same folder at once.
+    run: () => syncFolder({ source, appVersion: __APP_VERSION__, locks: (navigator.locks as unknown as LockManagerLike | undefined) ?? null }),
     onReport(report) {
       service.lastReport = report;
       if (report.merged.length) onChanged();

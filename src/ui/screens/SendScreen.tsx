@@ -1,9 +1,9 @@
 import { useEffect, useState } from 'preact/hooks';
-import { exportLog, logFileName, logCsv, type MergePreview } from '../../log';
-import { applyImport, loadSyncSettings, physicsSeriesComputer, pickFile, previewImport, saveSyncSettings, shareFile, type ImportPreview, type SyncReport } from '../../sync';
+import { exportLog, logFileName, logCsv, type LogSelection, type MergePreview } from '../../log';
+import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, physicsSeriesComputer, pickFile, previewImport, saveSyncSettings, shareFile, type ImportPreview, type SyncReport } from '../../sync';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
-import { Notice, TextField } from '../forms';
+import { Notice, SelectField, TextField } from '../forms';
 import { RiskWarnings } from '../RiskWarnings';
 import { currentSyncService, recordSource, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
@@ -15,6 +15,8 @@ export function SendScreen() {
   const app = useApp();
   const [message, setMessage] = useState<{ tone: 'good' | 'bad' | 'info'; text: string } | null>(null);
   const [incoming, setIncoming] = useState<ImportPreview | null>(null);
+  const [part, setPart] = useState('all');
+  const days = useStoreData(() => app.store.listDays(), []);
   const status = app.status;
 
   const exportJson = async () => {
@@ -23,9 +25,13 @@ export function SendScreen() {
       const before = await app.store.status();
       const records = await app.store.allRecords({ includeDeleted: true });
       const device = await app.store.deviceId();
-      const text = exportLog(records, { device, app_version: __APP_VERSION__ });
-      const outcome = await shareFile({ name: logFileName(device, localDate()), text, type: 'application/json' }, undefined, 'Plummet log');
-      if (outcome !== 'cancelled') {
+      const selection: Partial<LogSelection> | null =
+        part === 'all' ? null : part === 'catalogue' ? { kinds: ['specimen', 'site'] } : { day_ids: [part] };
+      const text = exportLog(records, { device, app_version: __APP_VERSION__, selection });
+      const label = part === 'all' ? undefined : part === 'catalogue' ? 'catalogue' : `day-${days.state === 'ready' ? (days.value.find((d) => d.id === part)?.date ?? 'chosen') : 'chosen'}`;
+      const outcome = await shareFile({ name: logFileName(device, localDate(), label), text, type: 'application/json' }, undefined, 'Plummet log');
+      // Only the whole log counts as sent: a part leaves the rest of the changes unsent.
+      if (outcome !== 'cancelled' && part === 'all') {
         await app.store.markSent(new Date(), before.unsentChanges);
         await app.refreshStatus();
       }
@@ -85,9 +91,20 @@ export function SendScreen() {
       </section>
       <section class="card" aria-labelledby="files-h">
         <h2 id="files-h">By file</h2>
+        <SelectField
+          id="send-part"
+          label="What to send"
+          value={part}
+          options={[
+            { value: 'all', label: 'The whole log' },
+            { value: 'catalogue', label: 'Specimens and sites only (a catalogue)' },
+            ...(days.state === 'ready' ? days.value.map((d) => ({ value: d.id, label: `The day ${d.date} at ${d.site_name ?? 'an unknown site'}` })) : []),
+          ]}
+          onChange={setPart}
+        />
         <div class="btn-col">
           <button type="button" class="btn" onClick={exportJson}>
-            Send the whole log (JSON)
+            Send as a log file (JSON)
           </button>
           <button type="button" class="btn btn-quiet" onClick={exportCsv}>
             Tables for a spreadsheet (CSV)
@@ -114,6 +131,7 @@ export function SendScreen() {
           </div>
         ) : null}
       </section>
+      <Conflicts />
       <FolderSync sync={sync} />
       {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
     </div>
@@ -198,6 +216,49 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
           {report.conflicts.length ? <p>{report.conflicts.length} conflicts kept for review.</p> : null}
         </Notice>
       ) : null}
+    </section>
+  );
+}
+
+/** Two phones changed the same record: the newer version is current, the other is kept in its history. */
+function Conflicts() {
+  const app = useApp();
+  const source = recordSource(app.store);
+  const list = useStoreData(() => loadConflicts(source), []);
+  if (list.state !== 'ready' || list.value.length === 0) return null;
+  return (
+    <section class="card" aria-labelledby="conflicts-h">
+      <h2 id="conflicts-h">Conflicts to look at ({list.value.length})</h2>
+      <p class="hint">
+        Two phones changed the same record. The newer change is in use; the other is kept in the record’s history, nothing was dropped. Check the
+        values and correct the record if needed.
+      </p>
+      <ul class="rows">
+        {list.value.map((c) => (
+          <li key={`${c.id}-${c.other_rev}`} class="row">
+            <span class="row-main">
+              <strong>
+                {c.kind} {c.id.slice(0, 8)}
+              </strong>
+              {c.measured ? ' · a measured value differs' : ''}
+              <br />
+              <span class="hint">
+                fields: {c.fields.join(', ')} · kept the change from {c.kept_device}, the one from {c.other_device} is in the history
+              </span>
+            </span>
+            <button
+              type="button"
+              class="btn btn-small btn-quiet"
+              onClick={async () => {
+                await dismissConflict(source, c.id, c.other_rev);
+                app.notifyChanged();
+              }}
+            >
+              Checked
+            </button>
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }
