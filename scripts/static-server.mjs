@@ -1,10 +1,14 @@
 // A small static file server for the built app: used by `npm start` and by the browser tests.
 // It serves a folder, answers every navigation that names no file with index.html (as the service worker
 // does offline), and keeps the service worker and the page itself uncached so updates are seen at once.
+// Text files are sent gzip-compressed when the browser accepts it, as any production web server does.
 import { createServer } from 'node:http';
 import { createReadStream } from 'node:fs';
-import { stat } from 'node:fs/promises';
+import { readFile, stat } from 'node:fs/promises';
+import { gzipSync } from 'node:zlib';
 import { extname, join, normalize, sep } from 'node:path';
+
+const COMPRESSIBLE = /^(text\/|application\/(json|manifest\+json)|image\/svg\+xml)/;
 
 const TYPES = {
   '.html': 'text/html; charset=utf-8',
@@ -54,7 +58,13 @@ export async function startStaticServer({ root, port = 0, host = '127.0.0.1' }) 
       }
       const type = TYPES[extname(target)] ?? 'application/octet-stream';
       const cache = target.includes(`${sep}assets${sep}`) ? 'public, max-age=31536000, immutable' : 'no-cache';
-      res.writeHead(200, { 'content-type': type, 'content-length': info.size, 'cache-control': cache });
+      if (COMPRESSIBLE.test(type) && /\bgzip\b/.test(String(req.headers['accept-encoding'] ?? ''))) {
+        const body = gzipSync(await readFile(target));
+        res.writeHead(200, { 'content-type': type, 'content-length': body.length, 'content-encoding': 'gzip', vary: 'Accept-Encoding', 'cache-control': cache });
+        res.end(req.method === 'HEAD' ? undefined : body);
+        return;
+      }
+      res.writeHead(200, { 'content-type': type, 'content-length': info.size, 'cache-control': cache, vary: 'Accept-Encoding' });
       if (req.method === 'HEAD') res.end();
       else createReadStream(target).pipe(res);
     } catch (error) {

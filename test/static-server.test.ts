@@ -43,3 +43,24 @@ describe('the static server', () => {
     expect(res.status).toBe(403);
   });
 });
+
+describe('the static server, compressing', () => {
+  it('sends text gzip-compressed when the browser accepts it, and plain otherwise', async () => {
+    server = await startStaticServer({ root: site() });
+    const { request } = await import('node:http');
+    const get = (encoding: string) =>
+      new Promise<{ encoding: string | undefined; length: number }>((resolve, reject) => {
+        request(`${server!.url}/assets/a.js`, { headers: { 'accept-encoding': encoding } }, (res) => {
+          let length = 0;
+          res.on('data', (c: Buffer) => (length += c.length));
+          res.on('end', () => resolve({ encoding: res.headers['content-encoding'], length }));
+        })
+          .on('error', reject)
+          .end();
+      });
+    expect((await get('gzip, deflate')).encoding).toBe('gzip');
+    const plain = await get('identity');
+    expect(plain.encoding).toBeUndefined();
+    expect(plain.length).toBe('export {}'.length);
+  });
+});

@@ -13,6 +13,13 @@ const LogScreen = lazyScreen(() => import('./screens/LogScreen').then((m) => m.L
 const SendScreen = lazyScreen(() => import('./screens/SendScreen').then((m) => m.SendScreen));
 const SettingsScreen = lazyScreen(() => import('./screens/SettingsScreen').then((m) => m.SettingsScreen));
 
+const SCREENS = { day: DayScreen, plan: PlanScreen, specimens: SpecimensScreen, log: LogScreen, send: SendScreen, settings: SettingsScreen };
+
+/** Starts loading a screen's code before the app renders it. */
+export function preloadScreen(screen: ScreenName): void {
+  SCREENS[screen].preload();
+}
+
 const TITLES: Record<ScreenName, string> = {
   day: 'Test day',
   plan: 'Planner',

@@ -1,6 +1,7 @@
 import { render } from 'preact';
 import './styles.css';
-import { App } from './App';
+import { App, preloadScreen } from './App';
+import { parseRoute } from './router';
 import { AppProvider, loadSettings } from './app-context';
 import { registerServiceWorker, type UpdateHandle } from './service-worker';
 import { browserEnvironment, openLogStore } from '../store';
@@ -20,6 +21,8 @@ export async function mountApp(root: HTMLElement): Promise<void> {
     pending = u;
     for (const fn of listeners) fn(u);
   });
+  // The first screen's code loads while the store opens, not after.
+  preloadScreen(parseRoute(location.hash).screen);
   try {
     const store = await openLogStore({
       environment: browserEnvironment(),

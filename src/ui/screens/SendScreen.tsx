@@ -7,7 +7,7 @@ import { Notice, SelectField, TextField } from '../forms';
 import { RiskWarnings } from '../RiskWarnings';
 import { currentSyncService, recordSource, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
-import { localDate } from './day/StartDayForm';
+import { localDate } from '../dates';
 
 /** Getting the log to the office: files (share or download), importing a file, and the office folder. */
 export function SendScreen() {

@@ -5,6 +5,7 @@ import { Choice, Notice, QField, SelectField, TextField, field, fieldsValid, typ
 import { navigate } from '../../router';
 import type { SiteBody } from '../../../log/types';
 import { describeError } from '../../errors';
+import { localDate } from '../../dates';
 
 interface StartDayDraft {
   siteId: string; // '' = a new site
@@ -19,10 +20,6 @@ interface StartDayDraft {
   notes: string;
 }
 
-export function localDate(now = new Date()): string {
-  const p = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`;
-}
 
 export function StartDayForm() {
   const app = useApp();
