@@ -171,8 +171,9 @@ export class QuantityInput extends LitElement {
   private formatted(si: number | null): string {
     if (si === null || si === undefined || !Number.isFinite(si)) return '';
     const shown = this.toDisplay(si);
-    // Enough digits that the SI value survives a round trip through the display unit.
-    const text = String(Number(shown.toPrecision(10)));
+    // Two digits beyond the unit's usual ones: 14.2 m shows as 46.5879 ft, not 46.58792651 ft. The SI value
+    // itself is kept as it is until the person types, so showing fewer digits loses nothing.
+    const text = String(Number(shown.toFixed(this.unitDef.decimals + 2)));
     return this.decimalComma ? text.replace('.', ',') : text;
   }
 
