@@ -18,6 +18,12 @@ export type IndexName<K extends IndexedKind> = keyof (typeof INDEX_FIELDS)[K] & 
 
 export interface StoreTx {
   get<K extends RecordKind>(kind: K, id: string): Promise<RecordOf[K] | undefined>;
+  /**
+   * The stored versions of many records of one kind, in the order of `ids` (undefined where none is stored).
+   * One result per id; a bulk import asks for tens of thousands at once, so an engine should not make one
+   * request per id when most of them are absent.
+   */
+  getMany<K extends RecordKind>(kind: K, ids: readonly string[]): Promise<(RecordOf[K] | undefined)[]>;
   /** All records of a kind in id order. */
   getAll<K extends RecordKind>(kind: K): Promise<RecordOf[K][]>;
   /** Records whose indexed field equals `key` (all of them in index order when `key` is undefined). */

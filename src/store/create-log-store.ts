@@ -217,19 +217,145 @@ async function refreshSummaries(tx: StoreTx, dayIds: Iterable<string>): Promise<
 function problemsOfBatch(records: readonly LogRecord[]): Problem[] {
   const problems: Problem[] = [];
   const seen = new Set<string>();
-  records.forEach((record, i) => {
-    const where = `[${i}]`;
-    for (const p of validateRecord(record)) {
-      problems.push({ ...p, path: `${where}.${p.path}`, message: `${where} ${String(record?.kind)} ${String(record?.id)}: ${p.message}` });
+  for (let i = 0; i < records.length; i++) {
+    const record = records[i]!;
+    const found = validateRecord(record);
+    if (found.length > 0) {
+      const where = `[${i}]`;
+      for (const p of found) {
+        problems.push({ ...p, path: `${where}.${p.path}`, message: `${where} ${String(record?.kind)} ${String(record?.id)}: ${p.message}` });
+      }
     }
     const key = keyOf(record?.kind, record?.id);
     if (seen.has(key)) {
+      const where = `[${i}]`;
       const rule = 'each record may appear once';
       problems.push({ path: `${where}.id`, value: record.id, rule, message: `${where}.id: ${record.id} appears twice: ${rule}` });
     }
     seen.add(key);
-  });
+  }
   return problems;
+}
+
+/** The stored version of each record of a batch, in the batch's order (undefined for new ones). */
+async function previousVersions(tx: StoreTx, records: readonly LogRecord[]): Promise<(LogRecord | undefined)[]> {
+  const byKind = new Map<RecordKind, number[]>();
+  records.forEach((r, i) => {
+    let list = byKind.get(r.kind);
+    if (!list) byKind.set(r.kind, (list = []));
+    list.push(i);
+  });
+  const previous: (LogRecord | undefined)[] = new Array(records.length);
+  await Promise.all(
+    [...byKind].map(async ([kind, positions]) => {
+      const found = await tx.getMany(kind, positions.map((i) => records[i]!.id));
+      positions.forEach((at, j) => (previous[at] = found[j]));
+    }),
+  );
+  return previous;
+}
+
+/**
+ * The day summaries after a batch is written, from the summaries stored before it plus what the batch changes.
+ * Reads only the state before the batch, so it must run before the batch's puts.
+ *
+ * A day's counts are its live readings, its live series and the live drops of those series, whatever order
+ * the records arrived in (a drop may come before its series). So a series that becomes live, dies or moves to
+ * another day carries the drops already stored for it; those are the only drops read. A day that was not live
+ * before (new, revived) or whose summary is missing starts from a count of what was stored for it.
+ */
+async function summariesAfter(
+  tx: StoreTx,
+  records: readonly LogRecord[],
+  previous: readonly (LogRecord | undefined)[],
+): Promise<{ put: DaySummary[]; remove: string[] }> {
+  const readingDelta = new Map<string, number>();
+  const seriesDelta = new Map<string, number>();
+  const dropDelta = new Map<string, number>();
+  const add = (map: Map<string, number>, key: string | null, n: number) => {
+    if (key !== null && n !== 0) map.set(key, (map.get(key) ?? 0) + n);
+  };
+  const dayBefore = new Map<string, LogRecord | undefined>();
+  const dayAfter = new Map<string, LogRecord | undefined>();
+  const seriesBefore = new Map<string, SeriesRecord | undefined>();
+  const seriesAfter = new Map<string, SeriesRecord | undefined>();
+  /** Live drops gained (or lost) by each series in this batch. */
+  const dropsGained = new Map<string, number>();
+  records.forEach((record, i) => {
+    const prior = previous[i];
+    switch (record.kind) {
+      case 'day':
+        dayBefore.set(record.id, prior);
+        dayAfter.set(record.id, record);
+        break;
+      case 'reading': {
+        const from = live(prior) ? (prior as ReadingRecord).day_id : null;
+        const to = live(record) ? record.day_id : null;
+        if (from !== to) {
+          add(readingDelta, from, -1);
+          add(readingDelta, to, 1);
+        }
+        break;
+      }
+      case 'series':
+        seriesBefore.set(record.id, prior as SeriesRecord | undefined);
+        seriesAfter.set(record.id, record);
+        break;
+      case 'drop':
+        if (live(prior)) add(dropsGained, (prior as RecordOf['drop']).series_id, -1);
+        if (live(record)) add(dropsGained, record.series_id, 1);
+        break;
+    }
+  });
+  // Series not in the batch whose drops changed: stored, and the same before and after.
+  const otherSeries = [...dropsGained.keys()].filter((id) => !seriesAfter.has(id));
+  (await tx.getMany('series', otherSeries)).forEach((s, i) => {
+    seriesBefore.set(otherSeries[i]!, s);
+    seriesAfter.set(otherSeries[i]!, s);
+  });
+  const dayOf = (s: SeriesRecord | undefined) => (live(s) ? s.day_id : null);
+  const moved: { id: string; from: string | null; to: string | null }[] = [];
+  for (const [id, after] of seriesAfter) {
+    const from = dayOf(seriesBefore.get(id));
+    const to = dayOf(after);
+    const gained = dropsGained.get(id) ?? 0;
+    if (from === to) add(dropDelta, to, gained);
+    else {
+      add(seriesDelta, from, -1);
+      add(seriesDelta, to, 1);
+      moved.push({ id, from, to });
+    }
+  }
+  // The drops stored before the batch go with a series that changes day or liveness.
+  const storedDrops = await Promise.all(moved.map(({ id }) => tx.getAllByIndex('drop', 'by_series', id)));
+  moved.forEach(({ id, from, to }, i) => {
+    const had = storedDrops[i]!.filter(live).length;
+    add(dropDelta, from, -had);
+    add(dropDelta, to, had + (dropsGained.get(id) ?? 0));
+  });
+
+  const days = new Set([...dayAfter.keys(), ...readingDelta.keys(), ...seriesDelta.keys(), ...dropDelta.keys()]);
+  const otherDays = [...days].filter((id) => !dayAfter.has(id));
+  (await tx.getMany('day', otherDays)).forEach((d, i) => {
+    dayBefore.set(otherDays[i]!, d);
+    dayAfter.set(otherDays[i]!, d);
+  });
+  const remove: string[] = [];
+  const put = await Promise.all(
+    [...days]
+      .filter((id) => live(dayAfter.get(id)) || (remove.push(id), false))
+      .map(async (dayId): Promise<DaySummary> => {
+        const stored = live(dayBefore.get(dayId)) ? await tx.getSummary(dayId) : undefined;
+        const base = stored ?? (await computeSummary(tx, dayId));
+        return {
+          day_id: dayId,
+          reading_count: base.reading_count + (readingDelta.get(dayId) ?? 0),
+          series_count: base.series_count + (seriesDelta.get(dayId) ?? 0),
+          drop_count: base.drop_count + (dropDelta.get(dayId) ?? 0),
+        };
+      }),
+  );
+  return { put, remove };
 }
 
 export interface CreateLogStoreOptions {
@@ -480,22 +606,25 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
       if (records.length === 0) return;
       const now = env.now();
       await backend.write(async (tx) => {
-        const byKey = new Map(records.map((r) => [keyOf(r.kind, r.id), r]));
-        const [storedClock, previous] = await Promise.all([tx.getMeta('clock'), Promise.all(records.map((r) => tx.get(r.kind, r.id)))]);
+        const [storedClock, erased, previous] = await Promise.all([tx.getMeta('clock'), tx.getMeta('erased_log'), previousVersions(tx, records)]);
         catchUpClock(storedClock, now);
-        const before = new Map(records.map((r, i) => [keyOf(r.kind, r.id), previous[i]]));
-        await tx.putRecords(records);
-        const seriesOf = async (id: string) => (byKey.get(keyOf('series', id)) as SeriesRecord | undefined) ?? tx.get('series', id);
-        await refreshSummaries(tx, await affectedDays(records, (r) => before.get(keyOf(r.kind, r.id)), seriesOf));
+        // Counted from the state before the batch, so every read happens before the first put.
+        const summaries = await summariesAfter(tx, records, previous);
         // Local edits made after a merge must sort after everything merged in.
         const newest = records.reduce((max, r) => (compareHlc(r.rev, max) > 0 ? r.rev : max), records[0]!.rev);
         if (compareHlc(newest, clock.latest) > 0) clock.receive(newest, now);
-        await tx.putMeta('clock', clock.latest);
+        const writes: Promise<unknown>[] = [
+          tx.putRecords(records),
+          ...summaries.put.map((summary) => tx.putSummary(summary)),
+          ...summaries.remove.map((dayId) => tx.deleteSummary(dayId)),
+          tx.putMeta('clock', clock.latest),
+        ];
         // The erased log's records are back once an import brings records that its device wrote.
-        const erased = (await tx.getMeta('erased_log')) as MetaValues['erased_log'] | undefined;
-        if (erased && records.some((r) => r.device === erased.device_id || r.history.some((h) => h.device === erased.device_id))) {
-          await tx.putMeta('erased_log', null);
+        const erasedLog = erased as MetaValues['erased_log'] | undefined;
+        if (erasedLog && records.some((r) => r.device === erasedLog.device_id || r.history.some((h) => h.device === erasedLog.device_id))) {
+          writes.push(tx.putMeta('erased_log', null));
         }
+        await Promise.all(writes);
       }, recordDurability);
       noteWitness();
     },

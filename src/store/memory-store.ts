@@ -93,6 +93,13 @@ class MemoryTx implements StoreTx {
     return value === undefined ? undefined : (structuredClone(value) as RecordOf[K]);
   }
 
+  async getMany<K extends RecordKind>(kind: K, ids: readonly string[]): Promise<(RecordOf[K] | undefined)[]> {
+    return ids.map((id) => {
+      const value = this.read(kind, id);
+      return value === undefined ? undefined : (structuredClone(value) as RecordOf[K]);
+    });
+  }
+
   async getAll<K extends RecordKind>(kind: K): Promise<RecordOf[K][]> {
     return this.values(kind).map((v) => structuredClone(v) as RecordOf[K]);
   }

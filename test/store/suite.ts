@@ -1,7 +1,7 @@
 // The one test suite every LogStore must pass: the IndexedDB adapter (on fake-indexeddb) and the memory twin.
 import { beforeEach, afterEach, describe, expect, it } from 'vitest';
 import { HybridLogicalClock, compareHlc } from '../../src/log/hlc';
-import { createRecord, reviseRecord } from '../../src/log/records';
+import { createRecord, deleteRecord, reviseRecord } from '../../src/log/records';
 import type { DropBody, LogRecord, SeriesBody } from '../../src/log/types';
 import { StoreError, type LogAction, type LogStore } from '../../src/store';
 import { LogError } from '../../src/log/errors';
@@ -403,6 +403,32 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
         expect(stored).toEqual(inExportOrder(records));
         expect((await store.listDays())[0]).toMatchObject({ id: demo.DAY_ID, series_count: 1, drop_count: 3 });
         expect((await store.status()).unsentChanges).toBe(0);
+      });
+
+      it('keeps the day counts exact when drops arrive before their series and the series is later removed alone', async () => {
+        const { clock, records } = foreignDay();
+        const ctx = { device: foreign, clock, now: T0 + 3_600_000, random: (b: Uint8Array) => globalThis.crypto.getRandomValues(b) };
+        const [site, specimen, day, series] = records as [LogRecord, LogRecord, LogRecord, LogRecord];
+        // 70 drops: more than a getMany makes single requests for, so the bulk path is taken too.
+        const drops = Array.from({ length: 70 }, (_, i) => createRecord('drop', { ...demo.drop(i + 1), time_s: 1.12 + i / 1000 } as DropBody, ctx));
+        await store.putRecords([site, specimen, day]);
+        await store.putRecords(drops);
+        expect((await store.listDays())[0]).toMatchObject({ series_count: 0, drop_count: 0 });
+        // The series arrives last and brings the 70 drops already stored for it into its day's count.
+        await store.putRecords([series, ...drops.slice(0, 5)]);
+        expect((await store.listDays())[0]).toMatchObject({ series_count: 1, drop_count: 70 });
+        // Ten drops removed, one revised: 60 live drops (counted by hand from the batch above).
+        const removed = drops.slice(10, 20).map((d) => deleteRecord(d, { ...ctx, reason: 'bad release' }));
+        const revised = reviseRecord(drops[0]!, { note: 'checked' }, { ...ctx, reason: null });
+        await store.putRecords([...removed, revised]);
+        expect((await store.listDays())[0]).toMatchObject({ series_count: 1, drop_count: 60 });
+        // The series removed without its drops: they no longer count, though still live themselves.
+        await store.putRecords([deleteRecord(series, { ...ctx, reason: 'wrong specimen' })]);
+        expect((await store.listDays())[0]).toMatchObject({ series_count: 0, drop_count: 0 });
+        // The day removed alone: its summary goes with it, and the drops stay as they were.
+        await store.putRecords([deleteRecord(day, { ...ctx, reason: 'wrong date' })]);
+        expect(await store.listDays()).toEqual([]);
+        expect((await store.allRecords({ includeDeleted: false })).filter((r) => r.kind === 'drop')).toHaveLength(60);
       });
 
       it('refuses a batch with one invalid record and writes none of it', async () => {
