@@ -160,4 +160,17 @@ describe.skipIf(!haveChromium)('a whole test day on the phone', () => {
     await context.setOffline(false);
     expect(errors.filter((e) => !e.includes('ERR_INTERNET_DISCONNECTED'))).toEqual([]);
   });
+
+  it('shows the same stored values in US customary units once they are chosen', async () => {
+    await page.goto(`${baseUrl}/#/settings`);
+    await page.getByLabel('Heights and distances').selectOption('ft');
+    await page.getByLabel('Temperature').selectOption('°F');
+    await page.goto(`${baseUrl}/#/day`);
+    // 12 m is 39.37 ft exactly by the international foot (0.3048 m); 17.5 °C is 63.5 °F.
+    await expectVisible(page.getByText('from 39.37 ft'));
+    await expectVisible(page.getByText('63.5 °F'));
+    await page.locator('a.row-link').first().click();
+    const without = analyzeSeries(request(TIMES.filter((_, i) => i !== 2)));
+    await expectVisible(page.getByTestId('cd-value').getByText(without.drag_coefficient!.toFixed(3)));
+  });
 });

@@ -74,6 +74,6 @@ export function collectErrors(page: Page): string[] {
 }
 
 /** Waits until the locator is visible (Playwright's own expect is not part of playwright-core). */
-export async function expectVisible(locator: Locator, timeout = 10_000): Promise<void> {
+export async function expectVisible(locator: Locator, timeout = 20_000): Promise<void> {
   await locator.first().waitFor({ state: 'visible', timeout });
 }
