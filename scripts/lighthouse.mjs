@@ -55,6 +55,10 @@ try {
     ],
     { stdio: 'inherit', env: { ...process.env, CHROME_PATH: chromePath } },
   );
+  // If this script is stopped, the Lighthouse run (and the Chromium it started) must not outlive it.
+  const stop = () => child.kill('SIGTERM');
+  process.once('SIGINT', stop);
+  process.once('SIGTERM', stop);
   status = await new Promise((resolve) => child.on('exit', (code) => resolve(code ?? 1)));
 } finally {
   serverProcess.kill('SIGTERM');
