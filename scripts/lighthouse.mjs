@@ -56,7 +56,7 @@ try {
     { stdio: 'inherit', env: { ...process.env, CHROME_PATH: chromePath } },
   );
   // If this script is stopped, the Lighthouse run (and the Chromium it started) must not outlive it.
-  const stop = () => child.kill('SIGTERM');
+  const stop = () => child.kill('SIGINT'); // Lighthouse's own handler closes its Chromium on SIGINT
   process.once('SIGINT', stop);
   process.once('SIGTERM', stop);
   status = await new Promise((resolve) => child.on('exit', (code) => resolve(code ?? 1)));
