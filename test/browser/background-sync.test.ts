@@ -40,11 +40,13 @@ describe.skipIf(!haveChromium || nginxMissing() !== null)('Background Sync in th
     await page.getByRole('button', { name: 'Save folder' }).click();
     await page.getByRole('button', { name: 'Sync now' }).click();
     await expectVisible(page.getByText('Last sync failed'));
-    const tags = await page.evaluate(async () => {
-      const reg = (await navigator.serviceWorker.ready) as ServiceWorkerRegistration & { sync?: { getTags(): Promise<string[]> } };
-      return (await reg.sync?.getTags()) ?? [];
-    });
-    expect(tags).toContain(BACKGROUND_SYNC_TAG);
+    // The registration follows the failure asynchronously: wait for it rather than race it.
+    const tags = () =>
+      page.evaluate(async () => {
+        const reg = (await navigator.serviceWorker.ready) as ServiceWorkerRegistration & { sync?: { getTags(): Promise<string[]> } };
+        return (await reg.sync?.getTags()) ?? [];
+      });
+    await expect.poll(tags, { timeout: 10_000, interval: 100 }).toContain(BACKGROUND_SYNC_TAG);
 
     // No window of the app is left; the server comes back; the browser fires the sync event.
     const cdp = await context.newCDPSession(page);
