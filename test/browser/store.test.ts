@@ -211,7 +211,11 @@ describe.skipIf(!haveChromium)('the log store in Chromium', () => {
         if (result.ok) before = await ok(page.evaluate(() => window.store.digest()));
         else refused = result;
       }
-      expect(refused).toMatchObject({ ok: false, code: 'storage-full' });
+      // Chromium 156 answers the failed write in one of two ways, both seen on this machine: the write is
+      // refused as a full disk, or the browser closes the database under the page (it is about to delete it),
+      // which the store reports as closed. Either way the action is refused out loud, never dropped silently.
+      expect(refused?.ok).toBe(false);
+      expect(['storage-full', 'store-closed']).toContain(refused && !refused.ok ? refused.code : null);
       await page.reload();
       await page.waitForSelector('body[data-ready="true"]');
       await ok(page.evaluate(() => window.store.open('plummet-full')));
