@@ -41,6 +41,7 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
   const [restored, setRestored] = useState(false);
   const saver = useRef<DraftSaver<T> | null>(null);
   const current = useRef(value);
+  const touched = useRef(false);
   current.current = value;
 
   useEffect(() => {
@@ -50,8 +51,14 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
     const unregister = registerDraftFlusher(() => s.flush());
     const onHide = () => void s.flush();
     window.addEventListener('pagehide', onHide);
+    touched.current = false;
     store.getDraft<T>(key).then((draft) => {
       if (!live) return;
+      // Someone who starts typing before the draft is read must not have their input replaced by it.
+      if (touched.current) {
+        setReady(true);
+        return;
+      }
       if (draft) {
         setValue({ ...initial(), ...draft.value });
         setRestored(true);
@@ -75,12 +82,14 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
     ready,
     restored,
     set(patch) {
+      touched.current = true;
       const next = { ...current.current, ...patch };
       current.current = next;
       setValue(next);
       saver.current?.save(next);
     },
     replace(next) {
+      touched.current = true;
       current.current = next;
       setValue(next);
       saver.current?.save(next);
