@@ -41,7 +41,9 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
   const [restored, setRestored] = useState(false);
   const saver = useRef<DraftSaver<T> | null>(null);
   const current = useRef(value);
-  const touched = useRef(false);
+  // The key whose form was typed into before its stored draft was read (effects run after the first paint, so
+  // a quick hand can type before the read has even started).
+  const touchedKey = useRef<string | null>(null);
   current.current = value;
 
   useEffect(() => {
@@ -51,11 +53,10 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
     const unregister = registerDraftFlusher(() => s.flush());
     const onHide = () => void s.flush();
     window.addEventListener('pagehide', onHide);
-    touched.current = false;
     store.getDraft<T>(key).then((draft) => {
       if (!live) return;
       // Someone who starts typing before the draft is read must not have their input replaced by it.
-      if (touched.current) {
+      if (touchedKey.current === key) {
         setReady(true);
         return;
       }
@@ -82,14 +83,14 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
     ready,
     restored,
     set(patch) {
-      touched.current = true;
+      touchedKey.current = key;
       const next = { ...current.current, ...patch };
       current.current = next;
       setValue(next);
       saver.current?.save(next);
     },
     replace(next) {
-      touched.current = true;
+      touchedKey.current = key;
       current.current = next;
       setValue(next);
       saver.current?.save(next);
