@@ -3,17 +3,7 @@
 import { formatHlc } from '../src/log/hlc';
 import { uuidV4 } from '../src/log/uuid';
 import type { LogRecord } from '../src/log/types';
-
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seeded } from '../test/sync/sample-log';
 
 /** A log with `drops` drops: 100 per series, 5 series a day, one site, two specimens. */
 export function benchLog(drops: number, device = 'benchphone', seed = 1): LogRecord[] {

@@ -9,21 +9,7 @@ import {
   type UncertaintyInput,
 } from '../physics';
 import type { DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log/types';
-
-/** The reading a series uses: its own choice, else the one nearest in time to the series start. */
-export function readingForSeries(series: SeriesRecord, readings: ReadingRecord[]): ReadingRecord | null {
-  if (series.reading_id) {
-    const chosen = readings.find((r) => r.id === series.reading_id && !r.deleted);
-    if (chosen) return chosen;
-  }
-  const start = Date.parse(series.started_at);
-  let best: ReadingRecord | null = null;
-  for (const r of readings) {
-    if (r.deleted) continue;
-    if (!best || Math.abs(Date.parse(r.taken_at) - start) < Math.abs(Date.parse(best.taken_at) - start)) best = r;
-  }
-  return best;
-}
+import { readingForSeries } from '../log/reading-for-series';
 
 export function specimenInput(specimen: SpecimenRecord): { input: SpecimenInput; uncertainty: UncertaintyInput } {
   const s = specimen.shape;
@@ -158,4 +144,41 @@ export function singleDropDragCoefficient(
   } catch (error) {
     return { value: null, message: error instanceof Error ? error.message : String(error) };
   }
+}
+
+/** What a day view holds, as far as the analysis needs it (the store's DayView has it all). */
+export interface DayRecords {
+  site: SiteRecord | null;
+  readings: ReadingRecord[];
+  specimens: SpecimenRecord[];
+  series: SeriesRecord[];
+  drops: DropRecord[];
+}
+
+export interface SeriesOfDay {
+  series: SeriesRecord;
+  specimen: SpecimenRecord | undefined;
+  /** The series' drops, excluded ones too, in the order they were made. */
+  drops: DropRecord[];
+  outcome: SeriesOutcome;
+  /** u(C_d)/C_d, or null when there is no resolved C_d. */
+  relativeUncertainty: number | null;
+  /** Whether the series reached its target relative uncertainty. */
+  targetMet: boolean;
+}
+
+/** u(C_d)/C_d of a result, or null when drag is not resolved. */
+export function relativeUncertainty(result: AnalysisResult): number | null {
+  return result.drag_coefficient ? result.drag_coefficient_standard_uncertainty / result.drag_coefficient : null;
+}
+
+/** Every series of a day with its drops and its analysis. */
+export function analyzeDay(day: DayRecords, options: { monteCarloDraws?: number } = {}): SeriesOfDay[] {
+  return day.series.map((series) => {
+    const specimen = day.specimens.find((p) => p.id === series.specimen_id);
+    const drops = day.drops.filter((d) => d.series_id === series.id).sort((a, b) => a.seq - b.seq);
+    const outcome = analyzeSeriesRecords(day.site, day.readings, specimen, series, drops, options);
+    const rel = outcome.kind === 'ready' ? relativeUncertainty(outcome.result) : null;
+    return { series, specimen, drops, outcome, relativeUncertainty: rel, targetMet: rel !== null && rel <= series.target_relative_uncertainty };
+  });
 }

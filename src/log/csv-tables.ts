@@ -7,6 +7,9 @@
  * are left out; excluded drops are listed (excluded = true) but are not handed to the computation.
  */
 import { toCsv, type CsvOptions, type CsvValue } from './csv';
+import { readingForSeries } from './reading-for-series';
+
+export { readingForSeries };
 import type { DayRecord, DropRecord, LogRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from './types';
 
 /** Everything the computation of one series needs, taken from the log. */
@@ -123,25 +126,6 @@ export const SERIES_COLUMNS = [
   'error_message',
 ] as const;
 
-/** The reading a series uses: its own when named and present, else the day's reading nearest its start. */
-export function readingForSeries(series: SeriesRecord, readings: readonly ReadingRecord[]): ReadingRecord | null {
-  if (series.reading_id) {
-    const own = readings.find((r) => r.id === series.reading_id);
-    if (own) return own;
-  }
-  const start = Date.parse(series.started_at);
-  let best: ReadingRecord | null = null;
-  let bestGap = Infinity;
-  for (const r of readings) {
-    if (r.day_id !== series.day_id) continue;
-    const gap = Math.abs(Date.parse(r.taken_at) - start);
-    if (gap < bestGap || (gap === bestGap && best !== null && r.id < best.id)) {
-      best = r;
-      bestGap = gap;
-    }
-  }
-  return best;
-}
 
 interface Row {
   input: SeriesInput;

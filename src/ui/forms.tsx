@@ -162,3 +162,48 @@ export function SelectField(props: {
     </div>
   );
 }
+
+/** A form whose draft holds FieldStates by name (what useDraft returns). */
+export interface FieldForm<D> {
+  value: D;
+  set(patch: Partial<D>): void;
+}
+
+/** A measured quantity and its standard uncertainty side by side, both bound to a form's draft by name. */
+export function MeasuredField<D>(props: {
+  form: FieldForm<D>;
+  name: keyof D & string;
+  uName: keyof D & string;
+  label: string;
+  kind: QFieldProps['kind'];
+  min?: number;
+  max?: number;
+  minExclusive?: boolean;
+  /** The largest standard uncertainty accepted. */
+  uMax: number;
+}) {
+  const { form, name, uName } = props;
+  return (
+    <div class="two">
+      <QField
+        label={props.label}
+        kind={props.kind}
+        state={form.value[name] as FieldState}
+        min={props.min}
+        max={props.max}
+        minExclusive={props.minExclusive}
+        onChange={(v) => form.set({ [name]: v } as Partial<D>)}
+      />
+      <QField
+        label="± (std. unc.)"
+        kind={props.kind}
+        delta
+        compact
+        state={form.value[uName] as FieldState}
+        min={0}
+        max={props.uMax}
+        onChange={(v) => form.set({ [uName]: v } as Partial<D>)}
+      />
+    </div>
+  );
+}

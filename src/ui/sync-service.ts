@@ -1,37 +1,14 @@
-// The office-folder sync as the page runs it: one scheduler for the app, started when a folder is set up,
-// triggered on start, on the online event, after changes, by Background Sync (via the service worker's
-// message) and by hand.
-import {
-  SyncScheduler,
-  browserTriggerEnvironment,
-  connectSyncTriggers,
-  loadSyncSettings,
-  requestBackgroundSync,
-  syncFolder,
-  type LockManagerLike,
-  type RecordSource,
-  type SyncReport,
-} from '../sync';
+// The office-folder sync as the page runs it: the sync layer's auto-sync (on start, on the online event, after
+// failures with back-off, Background Sync registered after a failure), plus the service worker's wake-up
+// message and a report for the screens to show.
+import { startAutoSync, type AutoSync, type SyncReport } from '../sync';
 import type { LogStore } from '../store';
 
-export function recordSource(store: LogStore): RecordSource {
-  return {
-    allRecords: (o) => store.allRecords(o),
-    putRecords: (r) => store.putRecords(r),
-    getMeta: (key) => store.getMeta(key as never),
-    setMeta: (key, value) => store.setMeta(key as never, value as never),
-    deviceId: () => store.deviceId(),
-    status: () => store.status(),
-    markSent: (now, sent) => store.markSent(now, sent),
-  };
-}
-
 export interface SyncService {
-  scheduler: SyncScheduler;
+  /** A sync now, or right after the one running. */
+  syncNow(reason?: Parameters<AutoSync['syncNow']>[0]): Promise<SyncReport>;
   lastReport: SyncReport | null;
   subscribe(fn: (report: SyncReport) => void): () => void;
-  /** Call after the folder settings change. */
-  restart(): Promise<void>;
 }
 
 let running: SyncService | null = null;
@@ -47,35 +24,25 @@ export function startSyncService(store: LogStore, onChanged: () => void): SyncSe
 }
 
 function createSyncService(store: LogStore, onChanged: () => void): SyncService {
-  const source = recordSource(store);
   const listeners = new Set<(r: SyncReport) => void>();
-  const env = browserTriggerEnvironment();
-  let disconnect: (() => void) | null = null;
-  const scheduler = new SyncScheduler({
-    // The lock keeps two tabs of the app from syncing the same folder at once.
-    run: () => syncFolder({ source, appVersion: __APP_VERSION__, locks: (navigator.locks as unknown as LockManagerLike | undefined) ?? null }),
-    onReport(report) {
-      service.lastReport = report;
-      if (report.merged.length) onChanged();
-      for (const fn of listeners) fn(report);
-    },
-    onRetryableFailure: () => void requestBackgroundSync(env),
-  });
   const service: SyncService = {
-    scheduler,
+    syncNow: (reason) => auto.syncNow(reason),
     lastReport: null,
     subscribe(fn) {
       listeners.add(fn);
       return () => listeners.delete(fn);
     },
-    async restart() {
-      disconnect?.();
-      disconnect = null;
-      const settings = await loadSyncSettings(source).catch(() => null);
-      if (settings?.enabled) disconnect = connectSyncTriggers(scheduler, env);
-    },
   };
-  window.addEventListener('plummet-sync-now', () => void scheduler.request('background').catch(() => undefined));
-  void service.restart();
+  // Each run reads the folder settings afresh, so saving them needs no restart.
+  const auto = startAutoSync({
+    source: store,
+    appVersion: __APP_VERSION__,
+    onReport(report) {
+      service.lastReport = report;
+      if (report.merged.length) onChanged();
+      for (const fn of listeners) fn(report);
+    },
+  });
+  window.addEventListener('plummet-sync-now', () => void auto.syncNow('background').catch(() => undefined));
   return service;
 }

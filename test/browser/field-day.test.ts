@@ -66,8 +66,8 @@ describe.skipIf(!haveChromium)('a whole test day on the phone', () => {
     await page.getByText('Station pressure', { exact: true }).click();
     await box(page, /^Pressure/).fill('961.2');
     await box(page, /^Relative humidity/).fill('55');
-    // CIPM-2007 at 17.5 °C, 96 120 Pa, 55 % RH: 1.1505 kg/m³ from our own core (checked against published
-    // values in test/physics); the screen must show that figure.
+    // The screen must show the density our physics core computes for the same reading (17.5 °C, 96 120 Pa
+    // station, 55 % RH): the core itself is checked against CIPM-2007's published values in test/physics.
     const expected = analyzeSeries(request(TIMES)).air.density_kg_m3.toFixed(4);
     await expectVisible(page.getByText(`${expected} kg/m³`));
     await scan(page, '02-air-reading');

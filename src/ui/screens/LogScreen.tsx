@@ -1,5 +1,5 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { analyzeSeriesRecords } from '../../analysis';
+import { analyzeDay } from '../../analysis';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { routeHref } from '../router';
@@ -76,9 +76,7 @@ function DayGlance({ dayId }: { dayId: string }) {
     let live = true;
     const run = async () => {
       const v = await app.store.loadDay(dayId);
-      const parts = v.series.map((s) => {
-        const specimen = v.specimens.find((p) => p.id === s.specimen_id);
-        const out = analyzeSeriesRecords(v.site, v.readings, specimen, s, v.drops.filter((d) => d.series_id === s.id), { monteCarloDraws: 200 });
+      const parts = analyzeDay(v, { monteCarloDraws: 200 }).map(({ specimen, outcome: out }) => {
         const name = specimen?.name.replace(/\s*\(sample\)$/, '') ?? 'unknown';
         return out.kind === 'ready' && out.result.drag_coefficient !== null ? `${name}: C_d ${out.result.drag_coefficient.toFixed(3)}` : `${name}: —`;
       });

@@ -7,7 +7,7 @@ import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from
 import { routeHref } from '../router';
 import { SafetyCaution, impactEnergyWarning } from '../SafetyCaution';
 import { airInput, specimenInput } from '../../analysis';
-import { TIMING_DEFAULTS } from './day/SeriesForm';
+import { TIMING_DEFAULTS, TIMING_OPTIONS } from './day/SeriesForm';
 import { describeError } from '../errors';
 
 interface PlanDraft {
@@ -92,7 +92,7 @@ export function PlanScreen() {
             id="plan-timing"
             label="Timing method"
             value={d.timingMethod}
-            options={Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }))}
+            options={TIMING_OPTIONS}
             onChange={(v) => form.set({ timingMethod: v as TimingMethod, uTime: field(TIMING_DEFAULTS[v as TimingMethod].u_s) })}
           />
           <QField label="Timing std. uncertainty per drop" kind="time" delta state={d.uTime} min={0} minExclusive max={1} onChange={(uTime) => form.set({ uTime })} />

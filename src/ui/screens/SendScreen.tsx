@@ -5,7 +5,7 @@ import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { Notice, SelectField, TextField } from '../forms';
 import { RiskWarnings } from '../RiskWarnings';
-import { currentSyncService, recordSource, type SyncService } from '../sync-service';
+import { currentSyncService, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
 import { localDate } from '../dates';
 
@@ -62,7 +62,7 @@ export function SendScreen() {
     try {
       const file = await pickFile();
       if (!file) return;
-      setIncoming(await previewImport(recordSource(app.store), await file.text()));
+      setIncoming(await previewImport(app.store, await file.text()));
     } catch (e) {
       setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
     }
@@ -71,7 +71,7 @@ export function SendScreen() {
   const confirmImport = async () => {
     if (!incoming) return;
     try {
-      const done: MergePreview = await applyImport(recordSource(app.store), incoming.file);
+      const done: MergePreview = await applyImport(app.store, incoming.file);
       setIncoming(null);
       app.notifyChanged();
       setMessage({ tone: 'good', text: `Imported: ${done.added.length} added, ${done.updated.length} updated, ${done.conflicts.length} conflicts kept for review.` });
@@ -140,14 +140,14 @@ export function SendScreen() {
 
 function FolderSync({ sync }: { sync: SyncService | null }) {
   const app = useApp();
-  const source = recordSource(app.store);
+  const source = app.store;
   const saved = useStoreData(() => loadSyncSettings(source).catch(() => null), []);
   const [url, setUrl] = useState('');
   const [user, setUser] = useState('');
   const [password, setPassword] = useState('');
   const [enabled, setEnabled] = useState(true);
   const [error, setError] = useState<string | null>(null);
-  const [report, setReport] = useState<SyncReport | null>(sync?.lastReport ?? null);
+  const [report, setReport] = useState<SyncReport | null>(shown(sync?.lastReport ?? null));
   const [busy, setBusy] = useState(false);
   useEffect(() => {
     if (saved.state === 'ready' && saved.value) {
@@ -157,14 +157,14 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
       setEnabled(saved.value.enabled);
     }
   }, [saved.state]);
-  useEffect(() => sync?.subscribe(setReport), [sync]);
+  useEffect(() => sync?.subscribe((r) => setReport(shown(r))), [sync]);
 
   const save = async () => {
     setError(null);
     try {
       await saveSyncSettings(source, { folder_url: url.trim(), username: user, password, enabled });
-      await sync?.restart();
       setError(null);
+      void sync?.syncNow('change').catch(() => undefined);
       app.notifyChanged();
     } catch (e) {
       setError(describeError(e));
@@ -174,7 +174,7 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
     if (!sync) return;
     setBusy(true);
     try {
-      setReport(await sync.scheduler.request('manual'));
+      setReport(await sync.syncNow('manual'));
       await app.refreshStatus();
     } catch (e) {
       setError(describeError(e));
@@ -223,7 +223,7 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
 /** Two phones changed the same record: the newer version is current, the other is kept in its history. */
 function Conflicts() {
   const app = useApp();
-  const source = recordSource(app.store);
+  const source = app.store;
   const list = useStoreData(() => loadConflicts(source), []);
   if (list.state !== 'ready' || list.value.length === 0) return null;
   return (
@@ -261,4 +261,9 @@ function Conflicts() {
       </ul>
     </section>
   );
+}
+
+/** Runs that only found no folder set up, or automatic sync switched off, are not news for the crew. */
+function shown(report: SyncReport | null): SyncReport | null {
+  return report && (report.error?.code === 'sync-not-configured' || report.error?.code === 'sync-disabled') ? null : report;
 }

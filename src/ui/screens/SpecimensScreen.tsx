@@ -2,7 +2,7 @@ import { useState } from 'preact/hooks';
 import type { ShapeKind, SpecimenBody, SpecimenRecord, SpecimenShape } from '../../log/types';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
-import { Choice, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';
+import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';
 import { navigate, routeHref } from '../router';
 import { describeError } from '../errors';
 
@@ -168,30 +168,18 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
   const measuredChanged =
     record !== null && shape !== null && (JSON.stringify(shape) !== JSON.stringify(record.shape) || d.mass.value !== record.mass_kg || d.uMass.value !== record.u_mass_kg);
   const needsReason = measuredChanged && d.reason.trim() === '';
-  // A plain function, not a component: a component defined here would be a new type on every render and
-  // remount its inputs at each keystroke.
-  const S = (props: { label: string; f: keyof SpecimenDraft; u: keyof SpecimenDraft; kind?: 'smallLength' | 'area' | 'volume'; max?: number }) => (
-    <div class="two">
-      <QField
-        label={props.label}
-        kind={props.kind ?? 'smallLength'}
-        state={d[props.f] as FieldState}
-        min={0}
-        minExclusive={props.kind !== 'volume'}
-        max={props.max ?? 10}
-        onChange={(v) => form.set({ [props.f]: v } as Partial<SpecimenDraft>)}
-      />
-      <QField
-        label="± (std. unc.)"
-        kind={props.kind ?? 'smallLength'}
-        delta
-        compact
-        state={d[props.u] as FieldState}
-        min={0}
-        max={props.max ?? 10}
-        onChange={(v) => form.set({ [props.u]: v } as Partial<SpecimenDraft>)}
-      />
-    </div>
+  const S = (props: { label: string; f: keyof SpecimenDraft & string; u: keyof SpecimenDraft & string; kind?: 'smallLength' | 'area' | 'volume'; max?: number }) => (
+    <MeasuredField
+      form={form}
+      name={props.f}
+      uName={props.u}
+      label={props.label}
+      kind={props.kind ?? 'smallLength'}
+      min={0}
+      minExclusive={props.kind !== 'volume'}
+      max={props.max ?? 10}
+      uMax={props.max ?? 10}
+    />
   );
 
   const save = async () => {
@@ -224,10 +212,7 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
       <h2 id="spec-h">{record ? `Edit ${record.name}` : 'New specimen'}</h2>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
       <TextField id="spec-name" label="Name" value={d.name} required onInput={(name) => form.set({ name })} />
-      <div class="two">
-        <QField label="Mass" kind="mass" state={d.mass} min={0} minExclusive max={1000} onChange={(mass) => form.set({ mass })} />
-        <QField label="± (std. unc.)" kind="mass" delta compact state={d.uMass} min={0} max={100} onChange={(uMass) => form.set({ uMass })} />
-      </div>
+      <MeasuredField form={form} name="mass" uName="uMass" label="Mass" kind="mass" min={0} minExclusive max={1000} uMax={100} />
       <Choice legend="Shape" name="shape" value={d.shape} options={SHAPES} onChange={(s) => form.set({ shape: s })} />
       {d.shape === 'sphere' ? S({ label: 'Diameter', f: 'diameter', u: 'uDiameter' }) : null}
       {d.shape === 'cylinder' ? (

@@ -6,7 +6,7 @@ import { useStoreData } from '../../hooks';
 import { Notice } from '../../forms';
 import { routeHref } from '../../router';
 import { SafetyCaution } from '../../SafetyCaution';
-import { analyzeSeriesRecords } from '../../../analysis';
+import { airInput, analyzeDay } from '../../../analysis';
 import { ReadingForm } from './ReadingForm';
 import { SeriesForm } from './SeriesForm';
 import { describeError } from '../../errors';
@@ -84,15 +84,7 @@ function ReadingList({ view }: { view: DayView }) {
         let density = '—';
         try {
           density = format(
-            airProperties(
-              {
-                temperature_C: r.temperature_C,
-                pressure_Pa: r.pressure_Pa,
-                pressure_reference: r.pressure_reference,
-                ...(r.humidity.kind === 'relative' ? { relative_humidity_pct: r.humidity.relative_humidity_pct } : { dew_point_C: r.humidity.dew_point_C }),
-              },
-              view.site?.elevation_m,
-            ).density_kg_m3,
+            airProperties(airInput(r).air, view.site?.elevation_m).density_kg_m3,
             'density',
           );
         } catch {
@@ -115,19 +107,11 @@ function ReadingList({ view }: { view: DayView }) {
 
 function SeriesList({ view }: { view: DayView }) {
   const { format } = useApp();
-  const rows = useMemo(
-    () =>
-      view.series.map((s) => {
-        const drops = view.drops.filter((d) => d.series_id === s.id);
-        const specimen = view.specimens.find((p) => p.id === s.specimen_id);
-        const outcome = analyzeSeriesRecords(view.site, view.readings, specimen, s, drops);
-        return { s, drops, specimen, outcome };
-      }),
-    [view],
-  );
+  // Only the C_d is shown here: the Monte Carlo interval needs no full draw count.
+  const rows = useMemo(() => analyzeDay(view, { monteCarloDraws: 200 }), [view]);
   return (
     <ul class="rows">
-      {rows.map(({ s, drops, specimen, outcome }) => (
+      {rows.map(({ series: s, drops, specimen, outcome }) => (
         <li key={s.id}>
           <a class="row row-link" href={routeHref('day', view.day.id, 'series', s.id)}>
             <span class="row-main">

@@ -3,7 +3,7 @@ import { useApp } from '../../app-context';
 import { useStoreData } from '../../hooks';
 import { Notice } from '../../forms';
 import { routeHref } from '../../router';
-import { analyzeSeriesRecords } from '../../../analysis';
+import { analyzeDay } from '../../../analysis';
 import { DayHeader } from './DayOverview';
 import { RiskWarnings } from '../../RiskWarnings';
 import { describeError } from '../../errors';
@@ -12,24 +12,10 @@ import { describeError } from '../../errors';
 export function DaySummary({ dayId }: { dayId: string }) {
   const app = useApp();
   const data = useStoreData(() => app.store.loadDay(dayId), [dayId]);
-  const rows = useMemo(() => {
-    if (data.state !== 'ready') return [];
-    const v = data.value;
-    return v.series.map((s) => {
-      const specimen = v.specimens.find((p) => p.id === s.specimen_id);
-      const drops = v.drops.filter((d) => d.series_id === s.id);
-      return { s, specimen, drops, outcome: analyzeSeriesRecords(v.site, v.readings, specimen, s, drops) };
-    });
-  }, [data]);
+  const rows = useMemo(() => (data.state === 'ready' ? analyzeDay(data.value) : []), [data]);
   if (data.state === 'loading') return <p>Loading…</p>;
   if (data.state === 'failed') return <Notice tone="bad">{describeError(data.error)}</Notice>;
-  const flagged = rows.filter(
-    (r) =>
-      r.outcome.kind !== 'ready' ||
-      r.outcome.result.drag_coefficient === null ||
-      r.outcome.result.warnings.length > 0 ||
-      r.outcome.result.drag_coefficient_standard_uncertainty / (r.outcome.result.drag_coefficient ?? 1) > r.s.target_relative_uncertainty,
-  );
+  const flagged = rows.filter((r) => !r.targetMet || (r.outcome.kind === 'ready' && r.outcome.result.warnings.length > 0));
   return (
     <div>
       <a class="back" href={routeHref('day', dayId)}>
@@ -41,10 +27,8 @@ export function DaySummary({ dayId }: { dayId: string }) {
         {plural(data.value.readings.length, 'air reading')} · {rows.length} series · {plural(data.value.drops.length, 'drop')}
       </p>
       <ul class="rows">
-        {rows.map(({ s, specimen, drops, outcome }) => {
+        {rows.map(({ series: s, specimen, drops, outcome, targetMet: met }) => {
           const r = outcome.kind === 'ready' ? outcome.result : null;
-          const rel = r?.drag_coefficient ? r.drag_coefficient_standard_uncertainty / r.drag_coefficient : null;
-          const met = rel !== null && rel <= s.target_relative_uncertainty;
           return (
             <li key={s.id}>
               <a class="row row-link" href={routeHref('day', dayId, 'series', s.id)}>
@@ -71,7 +55,7 @@ export function DaySummary({ dayId }: { dayId: string }) {
       {flagged.length ? (
         <Notice tone="warn" title="Look at these before you leave">
           <ul>
-            {flagged.map(({ s, specimen, outcome }) => (
+            {flagged.map(({ series: s, specimen, outcome }) => (
               <li key={s.id}>
                 {specimen?.name ?? 'unknown'} from {app.format(s.height_m, 'length', 1)}:{' '}
                 {outcome.kind !== 'ready'

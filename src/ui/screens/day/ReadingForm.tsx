@@ -3,7 +3,7 @@ import { airProperties, PhysicsInputError } from '../../../physics';
 import type { SiteRecord } from '../../../log/types';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
-import { Choice, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
+import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { describeError } from '../../errors';
 
 interface ReadingDraft {
@@ -104,10 +104,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
     <section class="card" aria-labelledby="reading-h">
       <h3 id="reading-h">New air reading</h3>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
-      <div class="two">
-        <QField label="Air temperature" kind="temperature" state={d.temperature} min={-60} max={60} onChange={(temperature) => form.set({ temperature })} />
-        <QField label="± (std. unc.)" kind="temperature" delta state={d.uTemperature} min={0} max={20} onChange={(uTemperature) => form.set({ uTemperature })} compact />
-      </div>
+      <MeasuredField form={form} name="temperature" uName="uTemperature" label="Air temperature" kind="temperature" min={-60} max={60} uMax={20} />
       <Choice
         legend="The barometer shows"
         name="pref"
@@ -119,10 +116,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
         onChange={(reference) => form.set({ reference })}
         hint="Station pressure is what the air presses here; weather reports give sea-level pressure (QNH)."
       />
-      <div class="two">
-        <QField label="Pressure" kind="pressure" state={d.pressure} min={30_000} max={110_000} onChange={(pressure) => form.set({ pressure })} />
-        <QField label="± (std. unc.)" kind="pressure" delta state={d.uPressure} min={0} max={5000} onChange={(uPressure) => form.set({ uPressure })} compact />
-      </div>
+      <MeasuredField form={form} name="pressure" uName="uPressure" label="Pressure" kind="pressure" min={30_000} max={110_000} uMax={5000} />
       <Choice
         legend="Humidity as"
         name="hkind"
@@ -134,15 +128,9 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
         onChange={(humidityKind) => form.set({ humidityKind })}
       />
       {d.humidityKind === 'relative' ? (
-        <div class="two">
-          <QField label="Relative humidity" kind="percent" state={d.humidity} min={0} max={100} onChange={(humidity) => form.set({ humidity })} />
-          <QField label="± (std. unc.)" kind="percent" delta state={d.uHumidity} min={0} max={50} onChange={(uHumidity) => form.set({ uHumidity })} compact />
-        </div>
+        <MeasuredField form={form} name="humidity" uName="uHumidity" label="Relative humidity" kind="percent" min={0} max={100} uMax={50} />
       ) : (
-        <div class="two">
-          <QField label="Dew point" kind="temperature" state={d.dewPoint} min={-80} max={60} onChange={(dewPoint) => form.set({ dewPoint })} />
-          <QField label="± (std. unc.)" kind="temperature" delta state={d.uDewPoint} min={0} max={20} onChange={(uDewPoint) => form.set({ uDewPoint })} compact />
-        </div>
+        <MeasuredField form={form} name="dewPoint" uName="uDewPoint" label="Dew point" kind="temperature" min={-80} max={60} uMax={20} />
       )}
       <QField label="Wind speed (optional)" kind="speed" required={false} state={d.wind} min={0} max={60} onChange={(wind) => form.set({ wind })} />
       <TextField id="instrument" label="Instrument" value={d.instrument} onInput={(instrument) => form.set({ instrument })} />

@@ -2,7 +2,7 @@ import { useState } from 'preact/hooks';
 import type { HeightMethod, ReadingRecord, SpecimenRecord, TimingMethod } from '../../../log/types';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
-import { Choice, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
+import { Choice, MeasuredField, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
 import { navigate, routeHref } from '../../router';
 import { describeError } from '../../errors';
 
@@ -20,6 +20,9 @@ export const TIMING_DEFAULTS: Record<TimingMethod, { label: string; u_s: number 
   video: { label: 'Video frames', u_s: 0.007 },
   gates: { label: 'Light gates', u_s: 0.0005 },
 };
+
+/** The timing methods as choices for a select. */
+export const TIMING_OPTIONS = Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }));
 
 export const HEIGHT_METHODS: Record<HeightMethod, string> = {
   tape: 'Tape',
@@ -123,10 +126,7 @@ export function SeriesForm({
         options={specimens.map((s) => ({ value: s.id, label: s.name }))}
         onChange={(specimenId) => form.set({ specimenId })}
       />
-      <div class="two">
-        <QField label="Release height" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
-        <QField label="± (std. unc.)" kind="length" delta state={d.uHeight} min={0} max={10} onChange={(uHeight) => form.set({ uHeight })} compact />
-      </div>
+      <MeasuredField form={form} name="height" uName="uHeight" label="Release height" kind="length" min={0} minExclusive max={5000} uMax={10} />
       <SelectField
         id="height-method"
         label="Height measured by"
@@ -138,7 +138,7 @@ export function SeriesForm({
         id="timing-method"
         label="Timing method"
         value={d.timingMethod}
-        options={Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }))}
+        options={TIMING_OPTIONS}
         onChange={(v) => {
           const m = v as TimingMethod;
           form.set({ timingMethod: m, uTime: { value: TIMING_DEFAULTS[m].u_s, error: null } });

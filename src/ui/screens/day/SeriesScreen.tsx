@@ -7,7 +7,7 @@ import { useApp } from '../../app-context';
 import { useDraft, useStoreData } from '../../hooks';
 import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { routeHref } from '../../router';
-import { analyzeSeriesRecords, dropHeight, singleDropDragCoefficient, type SeriesOutcome } from '../../../analysis';
+import { analyzeSeriesRecords, dropHeight, relativeUncertainty, singleDropDragCoefficient, type SeriesOutcome } from '../../../analysis';
 import { seriesCurves } from '../../../analysis';
 import { impactEnergyWarning } from '../../SafetyCaution';
 import { TIMING_DEFAULTS } from './SeriesForm';
@@ -196,7 +196,7 @@ function ResultPanel({ outcome, series, usedDrops }: { outcome: SeriesOutcome; s
   const r = outcome.result;
   const cd = r.drag_coefficient;
   const U = 2 * r.drag_coefficient_standard_uncertainty;
-  const rel = cd ? r.drag_coefficient_standard_uncertainty / cd : null;
+  const rel = relativeUncertainty(r);
   const met = rel !== null && rel <= series.target_relative_uncertainty;
   const maxEnergy = Math.max(...r.drops.map((d) => d.impact_energy_J));
   const energyWarning = impactEnergyWarning(maxEnergy);

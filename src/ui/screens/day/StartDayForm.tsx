@@ -40,7 +40,7 @@ export function StartDayForm() {
   const [error, setError] = useState<string | null>(null);
   const f = form.value;
   const newSite = f.siteId === '';
-  const siteList = sites.state === 'ready' ? sites.value.sort((a, b) => a.name.localeCompare(b.name)) : [];
+  const siteList = sites.state === 'ready' ? [...sites.value].sort((a, b) => a.name.localeCompare(b.name)) : [];
   const dateOk = /^\d{4}-\d{2}-\d{2}$/.test(f.date);
   const valid = dateOk && (!newSite || (f.name.trim() !== '' && fieldsValid(f.latitude, f.longitude, f.elevation)));
 

@@ -1,0 +1,21 @@
+import type { ReadingRecord, SeriesRecord } from './types';
+
+/** The reading a series uses: its own when named and present, else the day's live reading nearest its start. */
+export function readingForSeries(series: SeriesRecord, readings: readonly ReadingRecord[]): ReadingRecord | null {
+  if (series.reading_id) {
+    const own = readings.find((r) => r.id === series.reading_id && !r.deleted);
+    if (own) return own;
+  }
+  const start = Date.parse(series.started_at);
+  let best: ReadingRecord | null = null;
+  let bestGap = Infinity;
+  for (const r of readings) {
+    if (r.day_id !== series.day_id || r.deleted) continue;
+    const gap = Math.abs(Date.parse(r.taken_at) - start);
+    if (gap < bestGap || (gap === bestGap && best !== null && r.id < best.id)) {
+      best = r;
+      bestGap = gap;
+    }
+  }
+  return best;
+}
