@@ -1,0 +1,14 @@
+/** A short, readable rendering of an offending value for messages: numbers as written, text quoted, long values cut. */
+export function formatValue(value: unknown): string {
+  if (typeof value === 'number') return String(value);
+  if (typeof value === 'string') return JSON.stringify(value);
+  if (value === undefined) return '(missing)';
+  try {
+    const text = JSON.stringify(value);
+    if (text === undefined) return String(value);
+    return text.length > 80 ? `${text.slice(0, 77)}...` : text;
+  } catch {
+    // A cycle or a BigInt: JSON cannot write it, its own text still says what it was.
+    return String(value);
+  }
+}
