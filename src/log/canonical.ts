@@ -6,19 +6,21 @@
  * UTF-16 code units; strings and numbers written exactly as ECMAScript's JSON.stringify writes them (RFC 8785
  * §3.2.2 defines them that way), over the I-JSON subset (RFC 7493: no lone surrogates, finite numbers only).
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export type CanonicalJsonErrorCode = 'canonical-not-finite' | 'canonical-lone-surrogate' | 'canonical-not-json';
 
-export class CanonicalJsonError extends Error {
-  constructor(
-    readonly code: CanonicalJsonErrorCode,
-    /** Where in the value, e.g. "records[3].time_s" ("(root)" for the value itself). */
-    readonly path: string,
-    readonly value: unknown,
-    message: string,
-  ) {
-    super(message);
+/** `field` is where in the value, e.g. "records[3].time_s" ("(root)" for the value itself). */
+export class CanonicalJsonError extends PlummetError<CanonicalJsonErrorCode> {
+  declare readonly field: string;
+  constructor(options: PlummetErrorOptions<CanonicalJsonErrorCode> & { field: string }) {
+    super(options);
     this.name = 'CanonicalJsonError';
+  }
+
+  /** The same as `field`. */
+  get path(): string {
+    return this.field;
   }
 }
 
@@ -30,12 +32,13 @@ function writeString(text: string, path: string): string {
   const json = JSON.stringify(text);
   // JSON.stringify writes a lone surrogate as \udXXX; only then is the slower exact check needed.
   if (json.includes('\\ud') && LONE_SURROGATE.test(text)) {
-    throw new CanonicalJsonError(
-      'canonical-lone-surrogate',
-      at(path),
-      text,
-      `${at(path)}: text holds a lone UTF-16 surrogate, which JSON files may not carry (RFC 7493 §2.1)`,
-    );
+    throw new CanonicalJsonError({
+      code: 'canonical-lone-surrogate',
+      field: at(path),
+      value: text,
+      allowed: 'text without lone UTF-16 surrogates (RFC 7493 §2.1)',
+      message: `${at(path)}: text holds a lone UTF-16 surrogate, which JSON files may not carry (RFC 7493 §2.1)`,
+    });
   }
   return json;
 }
@@ -46,12 +49,13 @@ function write(value: unknown, path: string): string {
       return writeString(value, path);
     case 'number':
       if (!Number.isFinite(value)) {
-        throw new CanonicalJsonError(
-          'canonical-not-finite',
-          at(path),
-          value,
-          `${at(path)}: ${String(value)} is not a finite number; JSON can only hold finite numbers`,
-        );
+        throw new CanonicalJsonError({
+          code: 'canonical-not-finite',
+          field: at(path),
+          value: value,
+          allowed: 'a finite number',
+          message: `${at(path)}: ${String(value)} is not a finite number; JSON can only hold finite numbers`,
+        });
       }
       // ECMAScript Number::toString, which RFC 8785 §3.2.2.3 adopts; it writes -0 as 0.
       return JSON.stringify(value);
@@ -82,12 +86,13 @@ function write(value: unknown, path: string): string {
       return out + '}';
     }
     default:
-      throw new CanonicalJsonError(
-        'canonical-not-json',
-        at(path),
-        value,
-        `${at(path)}: a ${typeof value} has no JSON form`,
-      );
+      throw new CanonicalJsonError({
+        code: 'canonical-not-json',
+        field: at(path),
+        value: value,
+        allowed: 'null, a boolean, a finite number, text, an array or an object',
+        message: `${at(path)}: a ${typeof value} has no JSON form`,
+      });
   }
 }
 

@@ -2,6 +2,7 @@
  * Errors of the record model. Each has a stable `code`, the offending `value` and, where there is one, the
  * `field` it came from, so a screen can point at the input and a log line can be searched for.
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export type LogErrorCode =
   | 'record-invalid'
@@ -11,14 +12,9 @@ export type LogErrorCode =
   | 'id-missing'
   | 'device-mismatch';
 
-export class LogError extends Error {
-  constructor(
-    readonly code: LogErrorCode,
-    readonly value: unknown,
-    message: string,
-    readonly field: string | null = null,
-  ) {
-    super(message);
+export class LogError extends PlummetError<LogErrorCode> {
+  constructor(options: PlummetErrorOptions<LogErrorCode>) {
+    super(options);
     this.name = 'LogError';
   }
 }
@@ -40,12 +36,13 @@ export class LogValidationError extends LogError {
     readonly problems: Problem[],
     readonly kind: string,
   ) {
-    super(
-      'record-invalid',
-      problems.map((p) => p.value),
-      `invalid ${kind}: ${problems.map((p) => p.message).join('; ')}`,
-      problems[0]?.path ?? null,
-    );
+    super({
+      code: 'record-invalid',
+      field: problems[0]?.path ?? null,
+      value: problems.map((p) => p.value),
+      allowed: problems.map((p) => `${p.path} ${p.rule}`).join('; ') || null,
+      message: `invalid ${kind}: ${problems.map((p) => p.message).join('; ')}`,
+    });
     this.name = 'LogValidationError';
   }
 }

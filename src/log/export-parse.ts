@@ -3,6 +3,7 @@
  * own rules, then one record per id. The first thing wrong is reported with the field, the value and the rule,
  * e.g. `records[12].time_s (drop 4f…) is -1.6: must be > 0`.
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 import type { LogFile } from './export';
 import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
@@ -17,18 +18,19 @@ export type LogFileErrorCode =
   | 'log-record-invalid'
   | 'log-duplicate-id';
 
-export class LogFileError extends Error {
-  constructor(
-    readonly code: LogFileErrorCode,
-    /** Where in the file, e.g. "records[12].time_s"; "(file)" for the file as a whole. */
-    readonly field: string,
-    readonly value: unknown,
-    /** The rule broken, in words, e.g. "must be > 0". */
-    readonly rule: string,
-    message: string,
-  ) {
-    super(message);
+/** `field` is where in the file, e.g. "records[12].time_s" ("(file)" for the file as a whole); `allowed` the rule
+ *  broken, in words, e.g. "must be > 0". */
+export class LogFileError extends PlummetError<LogFileErrorCode> {
+  declare readonly field: string;
+  declare readonly allowed: string;
+  constructor(options: PlummetErrorOptions<LogFileErrorCode> & { field: string; allowed: string }) {
+    super(options);
     this.name = 'LogFileError';
+  }
+
+  /** The same as `allowed` (the office command prints it as the rule). */
+  get rule(): string {
+    return this.allowed;
   }
 }
 
@@ -107,7 +109,7 @@ function schemaError(data: unknown, problem: JsonSchemaProblem): LogFileError {
   const value = valueAt(data, parts);
   const label = `${field}${recordLabel(data, parts)}`;
   const message = value === undefined ? `${label} is missing; it is required` : `${label} is ${show(value)}: ${rule}`;
-  return new LogFileError('log-schema', field, value, rule, message);
+  return new LogFileError({ code: 'log-schema', field, value, allowed: rule, message });
 }
 
 /** Reads and checks a log file's text. Throws LogFileError for the first thing wrong. */
@@ -116,33 +118,33 @@ export function readLogFile(text: string): LogFile {
   try {
     data = JSON.parse(text);
   } catch (error) {
-    throw new LogFileError(
-      'log-not-json',
-      '(file)',
-      text.slice(0, 40),
-      'must be JSON (RFC 8259)',
-      `the file is not JSON (${(error as Error).message}); a Plummet log is a .json file`,
-    );
+    throw new LogFileError({
+      code: 'log-not-json',
+      field: '(file)',
+      value: text.slice(0, 40),
+      allowed: 'must be JSON (RFC 8259)',
+      message: `the file is not JSON (${(error as Error).message}); a Plummet log is a .json file`,
+    });
   }
   const head = data as { format?: unknown; format_version?: unknown } | null;
   if (head === null || typeof head !== 'object' || Array.isArray(head) || head.format !== LOG_FORMAT) {
     const value = head && typeof head === 'object' ? head.format : data;
-    throw new LogFileError(
-      'log-not-a-log',
-      'format',
-      value,
-      `must be "${LOG_FORMAT}"`,
-      `this JSON file is not a Plummet log (its "format" is ${show(value)}, a log says "${LOG_FORMAT}")`,
-    );
+    throw new LogFileError({
+      code: 'log-not-a-log',
+      field: 'format',
+      value: value,
+      allowed: `must be "${LOG_FORMAT}"`,
+      message: `this JSON file is not a Plummet log (its "format" is ${show(value)}, a log says "${LOG_FORMAT}")`,
+    });
   }
   if (typeof head.format_version === 'number' && head.format_version > LOG_FORMAT_VERSION) {
-    throw new LogFileError(
-      'log-format-too-new',
-      'format_version',
-      head.format_version,
-      `must be ${LOG_FORMAT_VERSION} or older`,
-      `this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
-    );
+    throw new LogFileError({
+      code: 'log-format-too-new',
+      field: 'format_version',
+      value: head.format_version,
+      allowed: `must be ${LOG_FORMAT_VERSION} or older`,
+      message: `this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
+    });
   }
   const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: 1 });
   if (problems.length > 0) throw schemaError(data, problems[0]!);
@@ -153,17 +155,17 @@ export function readLogFile(text: string): LogFile {
     if (problems.length > 0) {
       const p = problems[0]!;
       const field = `records[${i}].${p.path}`;
-      throw new LogFileError('log-record-invalid', field, p.value, p.rule, `records[${i}] (${record.kind} ${record.id}): ${p.message}`);
+      throw new LogFileError({ code: 'log-record-invalid', field, value: p.value, allowed: p.rule, message: `records[${i}] (${record.kind} ${record.id}): ${p.message}` });
     }
     const earlier = seen.get(record.id);
     if (earlier !== undefined) {
-      throw new LogFileError(
-        'log-duplicate-id',
-        `records[${i}].id`,
-        record.id,
-        'each record appears once',
-        `records[${i}].id ${record.id} is the id of records[${earlier}] too; a file holds each record once`,
-      );
+      throw new LogFileError({
+        code: 'log-duplicate-id',
+        field: `records[${i}].id`,
+        value: record.id,
+        allowed: 'each record appears once',
+        message: `records[${i}].id ${record.id} is the id of records[${earlier}] too; a file holds each record once`,
+      });
     }
     seen.set(record.id, i);
   });

@@ -5,6 +5,7 @@
  * that breaks ties. Its text form sorts in the same order as the stamps themselves, so stored and exported
  * revisions compare as plain strings:  "<ms, 15 digits>-<counter, 6 digits>-<device>".
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export interface HlcStamp {
   /** Milliseconds since 1970-01-01T00:00:00Z (physical part). */
@@ -19,27 +20,23 @@ const COUNTER_DIGITS = 6;
 const MAX_COUNTER = 10 ** COUNTER_DIGITS - 1;
 const STAMP_PATTERN = /^(\d{15})-(\d{6})-(.+)$/;
 
-export class HlcError extends Error {
-  constructor(
-    readonly code: 'hlc-malformed' | 'hlc-counter-overflow' | 'hlc-device-invalid',
-    readonly value: unknown,
-    message: string,
-  ) {
-    super(message);
+export class HlcError extends PlummetError<'hlc-malformed' | 'hlc-counter-overflow' | 'hlc-device-invalid'> {
+  constructor(options: PlummetErrorOptions<HlcError['code']>) {
+    super(options);
     this.name = 'HlcError';
   }
 }
 
 export function formatHlc(stamp: HlcStamp): string {
   if (!/^[A-Za-z0-9_.:]+$/.test(stamp.device)) {
-    throw new HlcError('hlc-device-invalid', stamp.device, `device id "${stamp.device}" may hold only letters, digits, _ . :`);
+    throw new HlcError({ code: 'hlc-device-invalid', field: 'device', value: stamp.device, allowed: 'letters, digits, _ . :', message: `device id "${stamp.device}" may hold only letters, digits, _ . :` });
   }
   return `${String(stamp.ms).padStart(MS_DIGITS, '0')}-${String(stamp.counter).padStart(COUNTER_DIGITS, '0')}-${stamp.device}`;
 }
 
 export function parseHlc(text: string): HlcStamp {
   const m = STAMP_PATTERN.exec(text);
-  if (!m) throw new HlcError('hlc-malformed', text, `revision "${text}" is not a clock stamp (ms-counter-device)`);
+  if (!m) throw new HlcError({ code: 'hlc-malformed', field: 'rev', value: text, allowed: '"<ms, 15 digits>-<counter, 6 digits>-<device>"', message: `revision "${text}" is not a clock stamp (ms-counter-device)` });
   return { ms: Number(m[1]), counter: Number(m[2]), device: m[3]! };
 }
 
@@ -87,7 +84,7 @@ export class HybridLogicalClock {
 
   private commit(ms: number, counter: number): string {
     if (counter > MAX_COUNTER) {
-      throw new HlcError('hlc-counter-overflow', counter, `more than ${MAX_COUNTER} events in one millisecond`);
+      throw new HlcError({ code: 'hlc-counter-overflow', field: 'counter', value: counter, allowed: `≤ ${MAX_COUNTER} events in one millisecond`, message: `more than ${MAX_COUNTER} events in one millisecond` });
     }
     this.last = { ms, counter, device: this.device };
     return formatHlc(this.last);

@@ -10,6 +10,7 @@
  * never reported. A schema using any keyword outside KEYWORDS throws 'schema-keyword-unsupported', so a later
  * change of the schema cannot quietly be checked less strictly than it says.
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export interface JsonSchemaProblem {
   /** JSON Pointer (RFC 6901) of the offending value, e.g. "/records/3/mass_kg"; for a missing or an extra
@@ -26,14 +27,10 @@ export interface JsonSchemaProblem {
 export type JsonSchemaErrorCode = 'schema-keyword-unsupported' | 'schema-invalid';
 
 /** A schema this checker cannot apply faithfully. `field` is the schema location, e.g. "#/$defs/id/format". */
-export class JsonSchemaError extends Error {
-  constructor(
-    readonly code: JsonSchemaErrorCode,
-    readonly value: unknown,
-    readonly field: string,
-    message: string,
-  ) {
-    super(message);
+export class JsonSchemaError extends PlummetError<JsonSchemaErrorCode> {
+  declare readonly field: string;
+  constructor(options: PlummetErrorOptions<JsonSchemaErrorCode> & { field: string }) {
+    super(options);
     this.name = 'JsonSchemaError';
   }
 }
@@ -91,8 +88,8 @@ const blank = (): Node => ({
 function compileRoot(root: object): Node {
   const memo = new Map<object, Node>();
   const id = typeof (root as { $id?: unknown }).$id === 'string' ? (root as { $id: string }).$id.replace(/#$/, '') : null;
-  const fail = (at: string, value: unknown, why: string): never => {
-    throw new JsonSchemaError('schema-invalid', value, at, `${at}: ${show(value)} ${why}`);
+  const fail = (at: string, value: unknown, why: string, allowed: string | null = null): never => {
+    throw new JsonSchemaError({ code: 'schema-invalid', field: at, value, allowed, message: `${at}: ${show(value)} ${why}` });
   };
   const resolve = (ref: string, at: string): unknown => {
     const local = id !== null && ref.startsWith(`${id}#`) ? ref.slice(id.length) : ref;
@@ -117,9 +114,9 @@ function compileRoot(root: object): Node {
       const shape = KEYWORDS[k];
       if (!shape) {
         const why = `${at}: the keyword "${k}" is not supported by checkJsonSchema (supported: ${SUPPORTED_KEYWORDS.join(', ')})`;
-        throw new JsonSchemaError('schema-keyword-unsupported', s[k], `${at}/${k}`, why);
+        throw new JsonSchemaError({ code: 'schema-keyword-unsupported', field: `${at}/${k}`, value: s[k], allowed: `one of ${SUPPORTED_KEYWORDS.join(', ')}`, message: why });
       }
-      if (!shape[0](s[k])) fail(`${at}/${k}`, s[k], `must be ${shape[1]}`);
+      if (!shape[0](s[k])) fail(`${at}/${k}`, s[k], `must be ${shape[1]}`, shape[1]);
     }
     // Only the root may name the dialect and the base URI: a nested $id would change what a $ref points at.
     if (at !== '#' && (s.$schema ?? s.$id) !== undefined) fail(at, s.$schema ?? s.$id, 'is only supported at the root');

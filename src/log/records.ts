@@ -79,7 +79,7 @@ const iso = (now: Date | number) => new Date(millis(now)).toISOString();
 
 function checkDevice(ctx: RecordContext): void {
   if (ctx.device !== ctx.clock.device) {
-    throw new LogError('device-mismatch', ctx.device, `device "${ctx.device}" does not own the clock of "${ctx.clock.device}"`, 'device');
+    throw new LogError({ code: 'device-mismatch', field: 'device', value: ctx.device, allowed: `the clock's device "${ctx.clock.device}"`, message: `device "${ctx.device}" does not own the clock of "${ctx.clock.device}"` });
   }
 }
 
@@ -96,7 +96,7 @@ export function createRecord<K extends RecordKind>(kind: K, body: BodyOf[K], ctx
   } else if (ctx.random) {
     id = uuidV4(ctx.random);
   } else {
-    throw new LogError('id-missing', null, `a new ${kind} needs an id or a random source to make one`, 'id');
+    throw new LogError({ code: 'id-missing', field: 'id', value: null, allowed: 'a record id (a UUID), or a random source to make one', message: `a new ${kind} needs an id or a random source to make one` });
   }
   const at = iso(ctx.now);
   return {
@@ -143,7 +143,7 @@ const blank = (reason: string | null | undefined) => typeof reason !== 'string' 
 export function reviseRecord<R extends LogRecord>(record: R, patch: Partial<BodyOf[R['kind']]>, ctx: ReviseContext): R {
   checkDevice(ctx);
   const kind = record.kind;
-  if (record.deleted) throw new LogError('record-deleted', record.id, `${kind} ${record.id} is deleted and cannot be revised`, 'deleted');
+  if (record.deleted) throw new LogError({ code: 'record-deleted', field: 'deleted', value: record.id, allowed: 'a record that is not deleted', message: `${kind} ${record.id} is deleted and cannot be revised` });
   const fields = BODY_FIELDS[kind] as readonly string[];
   const unknown = Object.keys(patch).filter((k) => !fields.includes(k));
   if (unknown.length > 0) {
@@ -161,17 +161,18 @@ export function reviseRecord<R extends LogRecord>(record: R, patch: Partial<Body
   const changed = fields.filter((k) => !sameValue(before[k], after[k]));
   if (changed.length === 0) return record;
   if (changed.includes('raw')) {
-    throw new LogError('raw-immutable', after.raw, `the raw capture of ${kind} ${record.id} is kept as it came and cannot be changed`, 'raw');
+    throw new LogError({ code: 'raw-immutable', field: 'raw', value: after.raw, allowed: 'the raw capture as first stored', message: `the raw capture of ${kind} ${record.id} is kept as it came and cannot be changed` });
   }
   const needsReason = changed.filter((k) => (REASON_REQUIRED_FIELDS[kind] as readonly string[]).includes(k));
   if (needsReason.length > 0 && blank(ctx.reason)) {
     const first = needsReason[0]!;
-    throw new LogError(
-      'reason-required',
-      after[first],
-      `changing ${needsReason.join(', ')} of a ${kind} needs a reason (the old value stays in the history)`,
-      first,
-    );
+    throw new LogError({
+      code: 'reason-required',
+      field: first,
+      value: after[first],
+      allowed: 'a change with a non-empty reason',
+      message: `changing ${needsReason.join(', ')} of a ${kind} needs a reason (the old value stays in the history)`,
+    });
   }
   assertValidBody(kind, after);
   return nextVersion(record, after as unknown as BodyOf[R['kind']], false, blank(ctx.reason) ? null : ctx.reason!.trim(), ctx);
@@ -182,7 +183,7 @@ export function deleteRecord<R extends LogRecord>(record: R, ctx: DeleteContext)
   checkDevice(ctx);
   if (record.deleted) return record;
   if (blank(ctx.reason)) {
-    throw new LogError('reason-required', ctx.reason ?? null, `deleting a ${record.kind} needs a reason (it stays in the history)`, 'reason');
+    throw new LogError({ code: 'reason-required', field: 'reason', value: ctx.reason ?? null, allowed: 'a non-empty reason', message: `deleting a ${record.kind} needs a reason (it stays in the history)` });
   }
   return nextVersion(record, bodyOf(record), true, ctx.reason.trim(), ctx);
 }

@@ -5,6 +5,7 @@
  * "air.relative_humidity_pct" or "drops[2].time_s"), the value itself and the allowed range
  * as text, so a screen or the command line can tell the user exactly what to fix.
  */
+import { formatValue, PlummetError, type PlummetErrorOptions } from '../errors';
 
 /** Stable codes: screens and tests match on these, never on the message text. */
 export type PhysicsInputErrorCode =
@@ -23,29 +24,21 @@ export type PhysicsInputErrorCode =
   | 'missing-drag-coefficient'
   | 'solver-failed';
 
-export interface PhysicsInputErrorDetails {
-  code: PhysicsInputErrorCode;
+export interface PhysicsInputErrorDetails extends PlummetErrorOptions<PhysicsInputErrorCode> {
   field: string;
-  value: unknown;
   allowed: string;
   /** What is wrong, in plain words; defaults to a sentence built from the code. */
   reason?: string;
 }
 
-export class PhysicsInputError extends Error {
-  readonly code: PhysicsInputErrorCode;
-  readonly field: string;
-  readonly value: unknown;
-  readonly allowed: string;
+export class PhysicsInputError extends PlummetError<PhysicsInputErrorCode> {
+  declare readonly field: string;
+  declare readonly allowed: string;
 
   constructor(details: PhysicsInputErrorDetails) {
     const reason = details.reason ?? defaultReason(details.code);
-    super(`${details.field} = ${formatValue(details.value)}: ${reason}; allowed: ${details.allowed}`);
+    super({ ...details, message: details.message ?? `${details.field} = ${formatValue(details.value)}: ${reason}; allowed: ${details.allowed}` });
     this.name = 'PhysicsInputError';
-    this.code = details.code;
-    this.field = details.field;
-    this.value = details.value;
-    this.allowed = details.allowed;
   }
 }
 
@@ -79,18 +72,5 @@ function defaultReason(code: PhysicsInputErrorCode): string {
       return 'a drag coefficient is needed for this specimen';
     case 'solver-failed':
       return 'the solver did not converge';
-  }
-}
-
-/** Short, readable rendering of an offending value for messages. */
-export function formatValue(value: unknown): string {
-  if (typeof value === 'number') return String(value);
-  if (typeof value === 'string') return JSON.stringify(value);
-  if (value === undefined) return '(missing)';
-  try {
-    const text = JSON.stringify(value);
-    return text.length > 80 ? `${text.slice(0, 77)}...` : text;
-  } catch {
-    return String(value);
   }
 }

@@ -652,7 +652,7 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
     async setMeta(key, value) {
       ensureOpen();
       if (key === 'device_id' || key === 'clock') {
-        throw new LogError('record-invalid', value, `meta "${key}" is kept by the store itself and cannot be set`, key);
+        throw new LogError({ code: 'record-invalid', field: key, value, allowed: 'a meta key the store does not keep itself', message: `meta "${key}" is kept by the store itself and cannot be set` });
       }
       await backend.write((tx) => tx.putMeta(key, value), relaxed);
     },

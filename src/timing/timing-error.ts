@@ -5,6 +5,7 @@
  * "distance_to_landing_m"), the offending value and the allowed range as text, so the timer pad can tell the
  * crew exactly what went wrong. Screens and tests match on `code`, never on the message.
  */
+import { formatValue, PlummetError, type PlummetErrorOptions } from '../errors';
 
 export type TimingErrorCode =
   /** A number that is NaN or infinite. */
@@ -24,31 +25,23 @@ export type TimingErrorCode =
   /** The audio stack inserted or lost samples between the two onsets, so the interval is not the true one. */
   | 'spans-gap';
 
-export interface TimingErrorDetails {
-  code: TimingErrorCode;
+export interface TimingErrorDetails extends PlummetErrorOptions<TimingErrorCode> {
   field: string;
-  value: unknown;
   allowed: string;
   /** What is wrong, in plain words; defaults to a sentence built from the code. */
   reason?: string;
 }
 
-export class TimingError extends Error {
-  readonly code: TimingErrorCode;
-  readonly field: string;
-  readonly value: unknown;
-  readonly allowed: string;
+export class TimingError extends PlummetError<TimingErrorCode> {
+  declare readonly field: string;
+  declare readonly allowed: string;
   /** The plain-words part of the message, without field and range (for short notices). */
   readonly reason: string;
 
   constructor(details: TimingErrorDetails) {
     const reason = details.reason ?? defaultReason(details.code);
-    super(`${details.field} = ${formatValue(details.value)}: ${reason}; allowed: ${details.allowed}`);
+    super({ ...details, message: details.message ?? `${details.field} = ${formatValue(details.value)}: ${reason}; allowed: ${details.allowed}` });
     this.name = 'TimingError';
-    this.code = details.code;
-    this.field = details.field;
-    this.value = details.value;
-    this.allowed = details.allowed;
     this.reason = reason;
   }
 }
@@ -71,15 +64,5 @@ function defaultReason(code: TimingErrorCode): string {
       return 'no placement of the phone gives these distances';
     case 'spans-gap':
       return 'the audio had a gap (inserted silence) between release and impact, so this interval is not the fall time';
-  }
-}
-
-function formatValue(value: unknown): string {
-  if (typeof value === 'number') return String(value);
-  if (value === undefined) return '(missing)';
-  try {
-    return JSON.stringify(value);
-  } catch {
-    return String(value);
   }
 }
