@@ -114,21 +114,23 @@ function checkReference(record: LogRecord, field: string, kind: RecordKind, foun
   const fields = record as unknown as Record<string, unknown>;
   const target = fields[field];
   if (!live(found)) {
-    throw new StoreError(
-      'reference-missing',
-      target,
-      `${record.kind}.${field}: no ${kind} ${String(target)}${found ? ' (it is deleted)' : ''}; save it first or in the same action`,
-    );
+    throw new StoreError({
+      code: 'reference-missing',
+      field: `${record.kind}.${field}`,
+      value: target,
+      allowed: `the id of a saved, live ${kind}`,
+      message: `${record.kind}.${field}: no ${kind} ${String(target)}${found ? ' (it is deleted)' : ''}; save it first or in the same action`,
+    });
   }
   if (field === 'reading_id' && (found as RecordOf['reading']).day_id !== fields.day_id) {
-    throw new StoreError('reference-missing', target, `series.reading_id: reading ${String(target)} belongs to another day`);
+    throw new StoreError({ code: 'reference-missing', field: 'series.reading_id', value: target, allowed: 'a reading of the same day', message: `series.reading_id: reading ${String(target)} belongs to another day` });
   }
 }
 
 /** What removing `record` also removes, or why it may not be removed. */
 async function removalSet(record: LogRecord, staging: Staging): Promise<LogRecord[]> {
   const inUse = (what: string, n: number) =>
-    new StoreError('record-in-use', record.id, `${record.kind} ${record.id} is used by ${n} ${what}; change or remove those first`);
+    new StoreError({ code: 'record-in-use', field: null, value: record.id, allowed: null, message: `${record.kind} ${record.id} is used by ${n} ${what}; change or remove those first` });
   switch (record.kind) {
     case 'site': {
       const days = await staging.referrers('day', 'site_id', record.id);
@@ -416,7 +418,7 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
   let pendingPersistence: Promise<unknown> = Promise.resolve();
 
   const ensureOpen = () => {
-    if (backend.closed) throw new StoreError('store-closed', null, 'the log store is closed; reload the app to open it again');
+    if (backend.closed) throw new StoreError({ code: 'store-closed', field: null, value: null, allowed: null, message: 'the log store is closed; reload the app to open it again' });
   };
 
   /** Another tab of this app writes with the same device id: take in its newest stamp so ours sort after it. */
@@ -449,13 +451,13 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
               (error: unknown) => error,
             ),
           ]);
-          if (existing) throw new StoreError('already-exists', record.id, `${record.kind} ${record.id} already exists`);
+          if (existing) throw new StoreError({ code: 'already-exists', field: null, value: record.id, allowed: null, message: `${record.kind} ${record.id} already exists` });
           if (referenceError) throw referenceError;
           staging.stage(record, undefined);
           continue;
         }
         const current = await staging.lookup(action.kind, action.id);
-        if (!current) throw new StoreError('not-found', action.id, `no ${action.kind} ${action.id}`);
+        if (!current) throw new StoreError({ code: 'not-found', field: null, value: action.id, allowed: null, message: `no ${action.kind} ${action.id}` });
         const stored = staging.previous.has(keyOf(current.kind, current.id)) ? staging.previous.get(keyOf(current.kind, current.id)) : current;
         if (action.op === 'revise') {
           const next = reviseRecord(current, action.patch as never, { ...ctx, reason: action.reason ?? null }) as LogRecord;
@@ -498,7 +500,7 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
     return written;
   }
 
-  const notFound = (kind: RecordKind, id: string) => new StoreError('not-found', id, `no ${kind} ${id}`);
+  const notFound = (kind: RecordKind, id: string) => new StoreError({ code: 'not-found', field: null, value: id, allowed: null, message: `no ${kind} ${id}` });
 
   const store: LogStore = {
     async get(kind, id) {
@@ -546,7 +548,7 @@ export async function createLogStore(backend: StoreBackend, env: StoreEnvironmen
       return backend.read(async (tx): Promise<DayView> => {
         const day = await tx.get('day', dayId);
         if (!day) throw notFound('day', dayId);
-        if (day.deleted) throw new StoreError('not-found', dayId, `day ${dayId} is deleted`);
+        if (day.deleted) throw new StoreError({ code: 'not-found', field: null, value: dayId, allowed: null, message: `day ${dayId} is deleted` });
         const [site, readings, series] = await Promise.all([
           tx.get('site', day.site_id),
           tx.getAllByIndex('reading', 'by_day', dayId),

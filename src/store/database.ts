@@ -88,14 +88,21 @@ export async function openLogDatabase(name: string, options: OpenLogDatabaseOpti
     return db;
   } catch (error) {
     if ((error as { name?: string }).name === 'VersionError') {
-      throw new StoreError(
-        'database-newer',
-        version,
-        `the log on this phone was written by a newer version of Plummet than this one (schema ${version}); update the app`,
-        { cause: error },
-      );
+      throw new StoreError({
+        code: 'database-newer',
+        field: null,
+        value: version,
+        allowed: null,
+        message: `the log on this phone was written by a newer version of Plummet than this one (schema ${version}); update the app`,
+        cause: error,
+      });
     }
-    throw new StoreError('open-failed', name, `the log database "${name}" could not be opened: ${String((upgradeError ?? error) as Error)}`, {
+    throw new StoreError({
+      code: 'open-failed',
+      field: null,
+      value: name,
+      allowed: null,
+      message: `the log database "${name}" could not be opened: ${String((upgradeError ?? error) as Error)}`,
       cause: upgradeError ?? error,
     });
   }

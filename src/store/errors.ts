@@ -1,4 +1,5 @@
 /** Errors of the store. Each has a stable code and the offending value; `cause` keeps the platform's own error. */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export type StoreErrorCode =
   /** The browser refused to store more (QuotaExceededError). Nothing of the action was written. */
@@ -16,14 +17,9 @@ export type StoreErrorCode =
   | 'open-failed'
   | 'transaction-failed';
 
-export class StoreError extends Error {
-  constructor(
-    readonly code: StoreErrorCode,
-    readonly value: unknown,
-    message: string,
-    options?: { cause?: unknown },
-  ) {
-    super(message, options);
+export class StoreError extends PlummetError<StoreErrorCode> {
+  constructor(options: PlummetErrorOptions<StoreErrorCode>) {
+    super(options);
     this.name = 'StoreError';
   }
 }
@@ -49,5 +45,5 @@ export function isQuotaError(error: unknown): boolean {
 }
 
 export function storageFull(cause: unknown): StoreError {
-  return new StoreError('storage-full', (cause as { name?: unknown } | null)?.name ?? null, STORAGE_FULL_MESSAGE, { cause });
+  return new StoreError({ code: 'storage-full', field: null, value: (cause as { name?: unknown } | null)?.name ?? null, allowed: null, message: STORAGE_FULL_MESSAGE, cause });
 }

@@ -125,8 +125,13 @@ function translate(error: unknown): unknown {
   if (error instanceof StoreError || error instanceof LogError) return error;
   if (isQuotaError(error)) return storageFull(error);
   const name = (error as { name?: string } | null)?.name ?? 'Error';
-  if (name === 'InvalidStateError') return new StoreError('store-closed', name, 'the log database connection is closed; reload the app', { cause: error });
-  return new StoreError('transaction-failed', name, `the log database refused the change (${name}): ${String((error as Error)?.message ?? error)}`, {
+  if (name === 'InvalidStateError') return new StoreError({ code: 'store-closed', field: null, value: name, allowed: null, message: 'the log database connection is closed; reload the app', cause: error });
+  return new StoreError({
+    code: 'transaction-failed',
+    field: null,
+    value: name,
+    allowed: null,
+    message: `the log database refused the change (${name}): ${String((error as Error)?.message ?? error)}`,
     cause: error,
   });
 }
@@ -146,7 +151,7 @@ class IdbBackend implements StoreBackend {
   }
 
   private async connection(): Promise<IDBPDatabase<LogDB>> {
-    if (this.closed) throw new StoreError('store-closed', null, 'the log store is closed; reload the app to open it again');
+    if (this.closed) throw new StoreError({ code: 'store-closed', field: null, value: null, allowed: null, message: 'the log store is closed; reload the app to open it again' });
     if (this.lost) {
       this.db = await this.connect();
       this.lost = false;

@@ -82,7 +82,7 @@ class MemoryTx implements StoreTx {
   }
 
   private write(name: StoreName, key: string, value: unknown): void {
-    if (!this.writable) throw new StoreError('transaction-failed', name, 'a read-only transaction cannot write');
+    if (!this.writable) throw new StoreError({ code: 'transaction-failed', field: null, value: name, allowed: null, message: 'a read-only transaction cannot write' });
     let pending = this.writes.get(name);
     if (!pending) this.writes.set(name, (pending = new Map()));
     pending.set(key, value === REMOVED ? REMOVED : structuredClone(value));
@@ -166,7 +166,7 @@ class MemoryBackend implements StoreBackend {
   constructor(private readonly db: MemoryDatabase) {}
 
   private transact<T>(writable: boolean, fn: (tx: StoreTx) => Promise<T>): Promise<T> {
-    if (this.closed) return Promise.reject(new StoreError('store-closed', null, 'the log store is closed'));
+    if (this.closed) return Promise.reject(new StoreError({ code: 'store-closed', field: null, value: null, allowed: null, message: 'the log store is closed' }));
     return this.db.run(async () => {
       const tx = new MemoryTx(this.db, writable);
       const result = await fn(tx);

@@ -68,7 +68,7 @@ export function startAutoSync(options: AutoSyncOptions): AutoSync {
       const settings = await loadSyncSettings(options.source);
       if (settings && !settings.enabled && reason !== 'manual') {
         const device = await options.source.deviceId();
-        return refusedReport(device, new SyncError('sync-disabled', null, 'automatic sync is switched off in the settings'), new Date().toISOString());
+        return refusedReport(device, new SyncError({ code: 'sync-disabled', field: null, value: null, allowed: null, message: 'automatic sync is switched off in the settings' }), new Date().toISOString());
       }
       return syncFolder({ source: options.source, appVersion: options.appVersion, locks, ...(settings ? { settings } : {}) });
     },

@@ -12,23 +12,22 @@ import type { AnalysisRequest, AnalysisResult } from '../physics/index';
 import { buildRequest } from '../analysis';
 import { analyzeSeries, validateAnalysisRequest } from '../physics/index';
 import type { ShareableFile } from './share';
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
-class SeriesIncomplete extends Error {
-  constructor(
-    readonly code: 'series-without-specimen' | 'series-without-reading' | 'series-without-site' | 'series-without-drops',
-    message: string,
-  ) {
-    super(message);
+class SeriesIncomplete extends PlummetError<'series-without-specimen' | 'series-without-reading' | 'series-without-site' | 'series-without-drops'> {
+  constructor(options: PlummetErrorOptions<SeriesIncomplete['code']>) {
+    super(options);
+    this.name = 'SeriesIncomplete';
   }
 }
 
 /** The analysis request for one series of the log (the shape of src/physics/analysisTypes.ts). */
 export function seriesRequest(input: SeriesInput): AnalysisRequest {
   const { series, site, specimen, reading, drops } = input;
-  if (!specimen) throw new SeriesIncomplete('series-without-specimen', `series ${series.id}: its specimen ${series.specimen_id} is not in the log`);
-  if (!reading) throw new SeriesIncomplete('series-without-reading', `series ${series.id}: the day has no air reading`);
-  if (!site) throw new SeriesIncomplete('series-without-site', `series ${series.id}: its day or site is not in the log`);
-  if (drops.length === 0) throw new SeriesIncomplete('series-without-drops', `series ${series.id}: no drops to analyse (all excluded or none yet)`);
+  if (!specimen) throw new SeriesIncomplete({ code: 'series-without-specimen', field: 'series.specimen_id', value: series.specimen_id, allowed: 'a specimen in the log', message: `series ${series.id}: its specimen ${series.specimen_id} is not in the log` });
+  if (!reading) throw new SeriesIncomplete({ code: 'series-without-reading', field: 'series.reading_id', value: series.reading_id ?? null, allowed: 'an air reading of the day', message: `series ${series.id}: the day has no air reading` });
+  if (!site) throw new SeriesIncomplete({ code: 'series-without-site', field: 'series.day_id', value: series.day_id, allowed: 'a day and site in the log', message: `series ${series.id}: its day or site is not in the log` });
+  if (drops.length === 0) throw new SeriesIncomplete({ code: 'series-without-drops', field: 'drops', value: drops.length, allowed: 'at least one included drop', message: `series ${series.id}: no drops to analyse (all excluded or none yet)` });
   // The same request the screens build, so the office's tables and the phone's screens agree to the digit.
   return buildRequest(site, reading, specimen, series, drops);
 }

@@ -3,6 +3,7 @@
  * was one, and whether trying again later can help (a server that is down, slow or failing) or not (a wrong
  * password, a URL without HTTPS): the scheduler retries only the first kind.
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export type SyncErrorCode =
   | 'sync-url-invalid'
@@ -33,19 +34,16 @@ const RETRYABLE: ReadonlySet<SyncErrorCode> = new Set([
   'sync-bad-response',
 ]);
 
-export class SyncError extends Error {
+export class SyncError extends PlummetError<SyncErrorCode> {
   readonly retryable: boolean;
+  /** The HTTP status of the answer that caused it, or null when there was no answer. */
+  readonly status: number | null;
 
-  constructor(
-    readonly code: SyncErrorCode,
-    readonly value: unknown,
-    message: string,
-    /** The HTTP status of the answer that caused it, or null when there was no answer. */
-    readonly status: number | null = null,
-  ) {
-    super(message);
+  constructor(options: PlummetErrorOptions<SyncErrorCode> & { status?: number | null }) {
+    super(options);
     this.name = 'SyncError';
-    this.retryable = RETRYABLE.has(code);
+    this.status = options.status ?? null;
+    this.retryable = RETRYABLE.has(options.code);
   }
 }
 

@@ -41,10 +41,10 @@ export function parseMultistatus(xml: string, requestUrl: string): DavResource[]
   try {
     root = parseXml(xml);
   } catch (error) {
-    throw new SyncError('sync-bad-response', xml.slice(0, 200), `the folder's listing is not well-formed XML: ${(error as XmlError).message}`);
+    throw new SyncError({ code: 'sync-bad-response', field: null, value: xml.slice(0, 200), allowed: null, message: `the folder's listing is not well-formed XML: ${(error as XmlError).message}` });
   }
   if (root.ns !== DAV || root.local !== 'multistatus') {
-    throw new SyncError('sync-bad-response', xml.slice(0, 200), `the folder answered <${root.local}> where a WebDAV listing has <multistatus> (RFC 4918 §14.16)`);
+    throw new SyncError({ code: 'sync-bad-response', field: null, value: xml.slice(0, 200), allowed: null, message: `the folder answered <${root.local}> where a WebDAV listing has <multistatus> (RFC 4918 §14.16)` });
   }
   const resources: DavResource[] = [];
   for (const response of childrenNamed(root, DAV, 'response')) {

@@ -108,7 +108,7 @@ async function runSync(options: SyncOptions): Promise<SyncReport> {
   const device = await source.deviceId();
   const settings = options.settings ?? (await loadSyncSettings(source));
   if (!settings) {
-    return refusedReport(device, new SyncError('sync-not-configured', null, 'no office folder is set up: add its URL, user name and password in the settings'), iso());
+    return refusedReport(device, new SyncError({ code: 'sync-not-configured', field: null, value: null, allowed: null, message: 'no office folder is set up: add its URL, user name and password in the settings' }), iso());
   }
   const report = emptyReport(device, iso());
   let state: SyncState | null = null;

@@ -104,7 +104,7 @@ export class WebDavClient {
       what: 'list the folder',
     });
     if (answer.status === 404) {
-      throw new SyncError('sync-folder-missing', this.folderUrl, `there is no folder at ${this.folderUrl} (404): check the address`, 404);
+      throw new SyncError({ code: 'sync-folder-missing', field: null, value: this.folderUrl, allowed: null, message: `there is no folder at ${this.folderUrl} (404): check the address`, status: 404 });
     }
     this.expect(answer, [207], 'list the folder');
     const own = decodedPath(this.folderUrl);
@@ -139,7 +139,7 @@ export class WebDavClient {
     if (conditions.ifNoneMatch) headers['If-None-Match'] = conditions.ifNoneMatch;
     const answer = await this.request('PUT', this.fileUrl(name), { headers, body, what: `write ${name}` });
     if (answer.status === 412) {
-      throw new SyncError('sync-precondition', conditions.ifMatch ?? conditions.ifNoneMatch ?? null, `${name} changed on the server since it was read (412)`, 412);
+      throw new SyncError({ code: 'sync-precondition', field: null, value: conditions.ifMatch ?? conditions.ifNoneMatch ?? null, allowed: null, message: `${name} changed on the server since it was read (412)`, status: 412 });
     }
     this.expect(answer, [200, 201, 204], `write ${name}`);
     return versionOf(answer.headers);
@@ -149,12 +149,12 @@ export class WebDavClient {
     if (ok.includes(answer.status)) return;
     const s = answer.status;
     if (s === 401) {
-      throw new SyncError('sync-unauthorized', s, `the folder refused the user name or password (401) when trying to ${what}`, s);
+      throw new SyncError({ code: 'sync-unauthorized', field: null, value: s, allowed: null, message: `the folder refused the user name or password (401) when trying to ${what}`, status: s });
     }
-    if (s === 403) throw new SyncError('sync-forbidden', s, `the folder does not allow this user to ${what} (403)`, s);
-    if (s === 413) throw new SyncError('sync-too-large', s, `the server refused a file this large when trying to ${what} (413): raise its upload limit`, s);
-    if (s >= 500) throw new SyncError('sync-server', s, `the server failed when trying to ${what} (${s}); trying again later`, s);
-    throw new SyncError('sync-http', s, `unexpected answer ${s} when trying to ${what}`, s);
+    if (s === 403) throw new SyncError({ code: 'sync-forbidden', field: null, value: s, allowed: null, message: `the folder does not allow this user to ${what} (403)`, status: s });
+    if (s === 413) throw new SyncError({ code: 'sync-too-large', field: null, value: s, allowed: null, message: `the server refused a file this large when trying to ${what} (413): raise its upload limit`, status: s });
+    if (s >= 500) throw new SyncError({ code: 'sync-server', field: null, value: s, allowed: null, message: `the server failed when trying to ${what} (${s}); trying again later`, status: s });
+    throw new SyncError({ code: 'sync-http', field: null, value: s, allowed: null, message: `unexpected answer ${s} when trying to ${what}`, status: s });
   }
 
   private async request(
@@ -182,11 +182,11 @@ export class WebDavClient {
       return { status: response.status, headers: response.headers, text };
     } catch (error) {
       if (timedOut) {
-        throw new SyncError('sync-timeout', this.timeoutMs, `no answer within ${this.timeoutMs / 1000} s when trying to ${init.what}; the server may be down or slow`);
+        throw new SyncError({ code: 'sync-timeout', field: null, value: this.timeoutMs, allowed: null, message: `no answer within ${this.timeoutMs / 1000} s when trying to ${init.what}; the server may be down or slow` });
       }
       const cause = (error as { cause?: { code?: string; message?: string } }).cause;
       const detail = cause?.code ?? cause?.message ?? (error as Error).message;
-      throw new SyncError('sync-network', url, `could not reach the folder to ${init.what} (${detail}); will try again`);
+      throw new SyncError({ code: 'sync-network', field: null, value: url, allowed: null, message: `could not reach the folder to ${init.what} (${detail}); will try again` });
     } finally {
       this.clearTimer(timer);
     }

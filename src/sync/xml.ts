@@ -4,6 +4,7 @@
  * DOMParser is not there in Node or in a service worker, hence this. A DOCTYPE is refused: a multistatus never
  * needs one, and refusing it rules out entity-expansion tricks.
  */
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 export interface XmlElement {
   /** The namespace URI, or null for an element in no namespace. */
@@ -13,13 +14,16 @@ export interface XmlElement {
   children: (XmlElement | string)[];
 }
 
-export class XmlError extends Error {
-  constructor(
-    message: string,
-    readonly offset: number,
-  ) {
-    super(`${message} (at character ${offset})`);
+/** Stable codes: 'xml-syntax' for text that is not XML, the others for XML this reader refuses or cannot resolve. */
+export type XmlErrorCode = 'xml-syntax' | 'xml-entity' | 'xml-namespace' | 'xml-doctype' | 'xml-structure';
+
+/** `field` is the place in the text ("character 120"); `value` what was found there; `allowed` what may stand there. */
+export class XmlError extends PlummetError<XmlErrorCode> {
+  readonly offset: number;
+  constructor(options: Omit<PlummetErrorOptions<XmlErrorCode>, 'field'> & { offset: number; message: string }) {
+    super({ ...options, field: `character ${options.offset}`, message: `${options.message} (at character ${options.offset})` });
     this.name = 'XmlError';
+    this.offset = options.offset;
   }
 }
 
@@ -28,11 +32,11 @@ const ENTITIES: Record<string, string> = { lt: '<', gt: '>', amp: '&', quot: '"'
 
 function decode(text: string, offset: number): string {
   return text.replace(/&(#x[0-9a-fA-F]+|#[0-9]+|[A-Za-z]+);|&/g, (whole, body: string | undefined) => {
-    if (body === undefined) throw new XmlError('a bare "&" in text', offset);
+    if (body === undefined) throw new XmlError({ code: 'xml-entity', offset, value: '&', allowed: '&amp; for an ampersand in text', message: 'a bare "&" in text' });
     if (body.startsWith('#x')) return String.fromCodePoint(parseInt(body.slice(2), 16));
     if (body.startsWith('#')) return String.fromCodePoint(parseInt(body.slice(1), 10));
     const named = ENTITIES[body];
-    if (named === undefined) throw new XmlError(`unknown entity ${whole}`, offset);
+    if (named === undefined) throw new XmlError({ code: 'xml-entity', offset, value: whole, allowed: '&lt; &gt; &amp; &quot; &apos; or a character reference', message: `unknown entity ${whole}` });
     return named;
   });
 }
@@ -56,7 +60,7 @@ export function parseXml(input: string): XmlElement {
   const readName = (): string => {
     NAME.lastIndex = i;
     const m = NAME.exec(text);
-    if (!m) throw new XmlError('a name was expected', i);
+    if (!m) throw new XmlError({ code: 'xml-syntax', offset: i, value: text.slice(i, i + 10), allowed: 'an element or attribute name', message: 'a name was expected' });
     i += m[0].length;
     return m[0];
   };
@@ -67,7 +71,7 @@ export function parseXml(input: string): XmlElement {
     const colon = qname.indexOf(':');
     const prefix = colon < 0 ? '' : qname.slice(0, colon);
     const local = colon < 0 ? qname : qname.slice(colon + 1);
-    if (!scope.has(prefix)) throw new XmlError(`namespace prefix "${prefix}" is not declared`, offset);
+    if (!scope.has(prefix)) throw new XmlError({ code: 'xml-namespace', offset, value: prefix, allowed: 'a namespace prefix declared with xmlns', message: `namespace prefix "${prefix}" is not declared` });
     return [scope.get(prefix)!, local];
   };
 
@@ -77,34 +81,34 @@ export function parseXml(input: string): XmlElement {
       const end = lt < 0 ? text.length : lt;
       const chunk = text.slice(i, end);
       if (stack.length > 0) stack[stack.length - 1]!.element.children.push(decode(chunk, i));
-      else if (chunk.trim() !== '') throw new XmlError('text outside the root element', i);
+      else if (chunk.trim() !== '') throw new XmlError({ code: 'xml-structure', offset: i, value: chunk.trim().slice(0, 40), allowed: 'only white space outside the root element', message: 'text outside the root element' });
       i = end;
       continue;
     }
     if (text.startsWith('<?', i)) {
       const end = text.indexOf('?>', i);
-      if (end < 0) throw new XmlError('an unclosed processing instruction', i);
+      if (end < 0) throw new XmlError({ code: 'xml-syntax', offset: i, value: text.slice(i, i + 40), allowed: 'a processing instruction closed by "?>"', message: 'an unclosed processing instruction' });
       i = end + 2;
     } else if (text.startsWith('<!--', i)) {
       const end = text.indexOf('-->', i);
-      if (end < 0) throw new XmlError('an unclosed comment', i);
+      if (end < 0) throw new XmlError({ code: 'xml-syntax', offset: i, value: text.slice(i, i + 40), allowed: 'a comment closed by "-->"', message: 'an unclosed comment' });
       i = end + 3;
     } else if (text.startsWith('<![CDATA[', i)) {
       const end = text.indexOf(']]>', i);
-      if (end < 0 || stack.length === 0) throw new XmlError('a CDATA section outside an element', i);
+      if (end < 0 || stack.length === 0) throw new XmlError({ code: 'xml-structure', offset: i, value: text.slice(i, i + 40), allowed: 'a CDATA section closed by "]]>" inside an element', message: 'a CDATA section outside an element' });
       stack[stack.length - 1]!.element.children.push(text.slice(i + 9, end));
       i = end + 3;
     } else if (text.startsWith('<!', i)) {
-      throw new XmlError('a DOCTYPE or declaration, which a WebDAV answer has no use for', i);
+      throw new XmlError({ code: 'xml-doctype', offset: i, value: text.slice(i, i + 40), allowed: 'no DOCTYPE or other declaration', message: 'a DOCTYPE or declaration, which a WebDAV answer has no use for' });
     } else if (text.startsWith('</', i)) {
       const at = i;
       i += 2;
       const qname = readName();
       skipSpace();
-      if (text[i] !== '>') throw new XmlError(`">" expected to close </${qname}`, i);
+      if (text[i] !== '>') throw new XmlError({ code: 'xml-syntax', offset: i, value: text[i] ?? '(end)', allowed: '">"', message: `">" expected to close </${qname}` });
       i++;
       const open = stack.pop();
-      if (!open || open.qname !== qname) throw new XmlError(`</${qname}> does not close <${open?.qname ?? '(nothing)'}>`, at);
+      if (!open || open.qname !== qname) throw new XmlError({ code: 'xml-structure', offset: at, value: qname, allowed: `</${open?.qname ?? '(nothing)'}>`, message: `</${qname}> does not close <${open?.qname ?? '(nothing)'}>` });
     } else {
       const at = i;
       i++;
@@ -113,16 +117,16 @@ export function parseXml(input: string): XmlElement {
       for (;;) {
         skipSpace();
         if (text[i] === '>' || text.startsWith('/>', i)) break;
-        if (i >= text.length) throw new XmlError(`<${qname} is not closed`, at);
+        if (i >= text.length) throw new XmlError({ code: 'xml-syntax', offset: at, value: qname, allowed: 'an element closed by ">" or "/>"', message: `<${qname} is not closed` });
         const name = readName();
         skipSpace();
-        if (text[i] !== '=') throw new XmlError(`"=" expected after attribute ${name}`, i);
+        if (text[i] !== '=') throw new XmlError({ code: 'xml-syntax', offset: i, value: text[i] ?? '(end)', allowed: '"="', message: `"=" expected after attribute ${name}` });
         i++;
         skipSpace();
         const quote = text[i];
-        if (quote !== '"' && quote !== "'") throw new XmlError(`a quoted value expected for attribute ${name}`, i);
+        if (quote !== '"' && quote !== "'") throw new XmlError({ code: 'xml-syntax', offset: i, value: text[i] ?? '(end)', allowed: 'a value in "double" or \'single\' quotes', message: `a quoted value expected for attribute ${name}` });
         const end = text.indexOf(quote, i + 1);
-        if (end < 0) throw new XmlError(`the value of attribute ${name} is not closed`, i);
+        if (end < 0) throw new XmlError({ code: 'xml-syntax', offset: i, value: text.slice(i, i + 40), allowed: 'a value closed by its quote', message: `the value of attribute ${name} is not closed` });
         raw.push([name, decode(text.slice(i + 1, end), i)]);
         i = end + 1;
       }
@@ -138,7 +142,7 @@ export function parseXml(input: string): XmlElement {
       const [ns, local] = resolve(qname, scope, at);
       const element: XmlElement = { ns, local, attributes, children: [] };
       if (stack.length > 0) stack[stack.length - 1]!.element.children.push(element);
-      else if (root) throw new XmlError('a second root element', at);
+      else if (root) throw new XmlError({ code: 'xml-structure', offset: at, value: qname, allowed: 'one root element', message: 'a second root element' });
       else root = element;
       if (text.startsWith('/>', i)) i += 2;
       else {
@@ -147,8 +151,8 @@ export function parseXml(input: string): XmlElement {
       }
     }
   }
-  if (stack.length > 0) throw new XmlError(`<${stack[stack.length - 1]!.qname}> is not closed`, text.length);
-  if (!root) throw new XmlError('no root element', 0);
+  if (stack.length > 0) throw new XmlError({ code: 'xml-structure', offset: text.length, value: stack[stack.length - 1]!.qname, allowed: 'every element closed', message: `<${stack[stack.length - 1]!.qname}> is not closed` });
+  if (!root) throw new XmlError({ code: 'xml-structure', offset: 0, value: text.slice(0, 40), allowed: 'one root element', message: 'no root element' });
   return root;
 }
 

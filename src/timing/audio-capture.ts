@@ -1,3 +1,4 @@
+import { PlummetError, type PlummetErrorOptions } from '../errors';
 import { OnsetDetector, type AudioGap, type Onset, type OnsetDetectorOptions } from './onset-detector';
 import { SoundIntervalPairer, type SoundInterval } from './sound-interval';
 import { correctForSoundTravel, type SoundTravel } from './sound-travel';
@@ -26,15 +27,12 @@ import { TimingError } from './timing-error';
 /** Stable codes for what can stop listening before it starts. */
 export type SoundCaptureErrorCode = 'microphone-unavailable' | 'microphone-refused' | 'microphone-failed' | 'audio-unavailable';
 
-export class SoundCaptureError extends Error {
-  readonly code: SoundCaptureErrorCode;
-  /** The platform error's name (NotAllowedError, NotFoundError…), or null. */
-  readonly platformError: string | null;
-  constructor(code: SoundCaptureErrorCode, message: string, platformError: string | null = null) {
-    super(message);
+/** `value` is the platform error's name (NotAllowedError, NotFoundError…), or null. */
+export class SoundCaptureError extends PlummetError<SoundCaptureErrorCode> {
+  declare readonly value: string | null;
+  constructor(options: PlummetErrorOptions<SoundCaptureErrorCode> & { value: string | null }) {
+    super(options);
     this.name = 'SoundCaptureError';
-    this.code = code;
-    this.platformError = platformError;
   }
 }
 
@@ -207,10 +205,10 @@ export class SoundCapture extends EventTarget {
   private async open(): Promise<void> {
     const devices = this.mediaDevices ?? (typeof navigator === 'undefined' ? undefined : navigator.mediaDevices);
     if (!devices?.getUserMedia) {
-      throw new SoundCaptureError('microphone-unavailable', 'This browser gives no access to a microphone here (it needs https or localhost).');
+      throw new SoundCaptureError({ code: 'microphone-unavailable', field: 'microphone', value: null, allowed: null, message: 'This browser gives no access to a microphone here (it needs https or localhost).' });
     }
     if (typeof AudioContext === 'undefined' || typeof AudioWorkletNode === 'undefined') {
-      throw new SoundCaptureError('audio-unavailable', 'This browser cannot analyse microphone sound (no AudioWorklet).');
+      throw new SoundCaptureError({ code: 'audio-unavailable', field: 'microphone', value: null, allowed: null, message: 'This browser cannot analyse microphone sound (no AudioWorklet).' });
     }
     try {
       this.stream = await devices.getUserMedia({
@@ -220,12 +218,12 @@ export class SoundCapture extends EventTarget {
     } catch (error) {
       const name = (error as { name?: string }).name ?? null;
       if (name === 'NotAllowedError' || name === 'SecurityError') {
-        throw new SoundCaptureError('microphone-refused', 'The microphone was not allowed: allow it for this app in the browser settings to time by sound.', name);
+        throw new SoundCaptureError({ code: 'microphone-refused', field: 'microphone', value: name, allowed: null, message: 'The microphone was not allowed: allow it for this app in the browser settings to time by sound.' });
       }
       if (name === 'NotFoundError' || name === 'OverconstrainedError') {
-        throw new SoundCaptureError('microphone-unavailable', 'No microphone was found on this phone.', name);
+        throw new SoundCaptureError({ code: 'microphone-unavailable', field: 'microphone', value: name, allowed: null, message: 'No microphone was found on this phone.' });
       }
-      throw new SoundCaptureError('microphone-failed', `The microphone could not be opened (${name ?? String(error)}).`, name);
+      throw new SoundCaptureError({ code: 'microphone-failed', field: 'microphone', value: name, allowed: null, message: `The microphone could not be opened (${name ?? String(error)}).` });
     }
     const context = new AudioContext({ sampleRate: CAPTURE_SAMPLE_RATE_HZ, latencyHint: 'interactive' });
     this.context = context;
@@ -265,7 +263,7 @@ export class SoundCapture extends EventTarget {
   };
 
   private readonly onTrackEnded = (): void => {
-    const error = new SoundCaptureError('microphone-failed', 'The microphone stopped (taken by another app, or the permission was withdrawn).');
+    const error = new SoundCaptureError({ code: 'microphone-failed', field: 'microphone', value: null, allowed: null, message: 'The microphone stopped (taken by another app, or the permission was withdrawn).' });
     void this.stop().then(() => this.dispatchEvent(new CustomEvent('sound-error', { detail: error })));
   };
 
