@@ -10,7 +10,9 @@ export type LogErrorCode =
   | 'raw-immutable'
   | 'record-deleted'
   | 'id-missing'
-  | 'device-mismatch';
+  | 'device-mismatch'
+  /** The random source handed in did not fill the bytes asked for. */
+  | 'random-source-invalid';
 
 export class LogError extends PlummetError<LogErrorCode> {
   constructor(options: PlummetErrorOptions<LogErrorCode>) {

@@ -2,6 +2,7 @@
  * Record ids: random (version 4) UUIDs, RFC 9562 section 5.4. The random bytes come from outside
  * (the shell passes crypto.getRandomValues) so the core stays pure and tests can feed known bytes.
  */
+import { LogError } from './errors';
 
 /** Fills the array with random bytes and returns it, like crypto.getRandomValues. */
 export type RandomSource = (bytes: Uint8Array) => Uint8Array;
@@ -11,7 +12,7 @@ const UUID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{
 function randomBytes(random: RandomSource, count: number): Uint8Array {
   const bytes = random(new Uint8Array(count));
   if (!(bytes instanceof Uint8Array) || bytes.length < count) {
-    throw new RangeError(`the random source must fill ${count} random bytes`);
+    throw new LogError({ code: 'random-source-invalid', field: 'random', value: bytes instanceof Uint8Array ? bytes.length : typeof bytes, allowed: `a source that fills ${count} random bytes`, message: `the random source must fill ${count} random bytes` });
   }
   return bytes;
 }

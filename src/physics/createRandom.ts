@@ -94,6 +94,7 @@ class Xoshiro128 implements RandomSource {
   }
 
   gamma(shape: number): number {
+    // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
     if (!(shape > 0)) throw new RangeError(`gamma shape must be positive, got ${shape}`);
     if (shape < 1) {
       // Boost: Gamma(a) = Gamma(a + 1)·U^{1/a}

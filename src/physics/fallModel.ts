@@ -182,6 +182,7 @@ export function fallTimeDragDerivative(height_m: number, p: FallParameters): num
 
 /** Time between passing `from_m` and `to_m` below the release point (a pair of light gates). */
 export function timeBetweenHeights(from_m: number, to_m: number, p: FallParameters): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(to_m >= from_m && from_m >= 0)) {
     throw new RangeError(`timeBetweenHeights needs 0 <= from_m <= to_m, got ${from_m}, ${to_m}`);
   }
@@ -199,6 +200,7 @@ export function logCosh(s: number): number {
 }
 
 function requireNonNegativeDrag(p: FallParameters): void {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(p.drag_constant_per_m >= 0)) {
     throw new RangeError(`this closed form needs a drag constant >= 0, got ${p.drag_constant_per_m}`);
   }
@@ -254,6 +256,7 @@ export function terminalVelocity(p: FallParameters): number {
 /** Distance fallen until the speed reaches `fraction` (0–1) of v_t: −ln(1 − f²)/(2k). */
 export function distanceToTerminalFraction(fraction: number, p: FallParameters): number {
   requireNonNegativeDrag(p);
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(fraction > 0 && fraction < 1)) throw new RangeError(`fraction must be in (0, 1), got ${fraction}`);
   if (p.drag_constant_per_m === 0) return Infinity;
   return -Math.log1p(-fraction * fraction) / (2 * p.drag_constant_per_m);

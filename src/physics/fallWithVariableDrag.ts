@@ -4,6 +4,7 @@
  * 5(4) until the body has fallen the given height.
  */
 import { integrateDormandPrince } from './integrateDormandPrince';
+import { PhysicsInputError } from './physicsInputError';
 
 export interface VariableDragBody {
   effective_gravity_m_s2: number;
@@ -27,6 +28,7 @@ export function fallWithVariableDrag(
   body: VariableDragBody,
   relativeTolerance = 1e-11,
 ): VariableDragFall {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(height_m > 0)) throw new RangeError(`height must be positive, got ${height_m}`);
   const g = body.effective_gravity_m_s2;
   const c = body.drag_constant_per_unit_cd_per_m;
@@ -52,7 +54,7 @@ export function fallWithVariableDrag(
     },
     (_t, y) => y[0]! - height_m,
   );
-  if (!result.eventFound) throw new RangeError(`the body did not fall ${height_m} m`);
+  if (!result.eventFound) throw new PhysicsInputError({ code: 'solver-failed', field: 'height_m', value: height_m, allowed: 'a height the body falls within 1e6 vacuum fall times', reason: `the body did not fall ${height_m} m` });
   const v = result.y[1]!;
   const re = rps * v;
   return {

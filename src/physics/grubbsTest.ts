@@ -11,6 +11,7 @@ import { mean, standardDeviation } from './seriesStatistics';
 import { studentTQuantile } from './studentT';
 
 export function grubbsCriticalValue(count: number, alpha = 0.05): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(count >= 3)) throw new RangeError(`Grubbs' test needs at least 3 values, got ${count}`);
   const t = studentTQuantile(1 - alpha / (2 * count), count - 2);
   return ((count - 1) / Math.sqrt(count)) * Math.sqrt((t * t) / (count - 2 + t * t));

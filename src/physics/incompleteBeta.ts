@@ -7,6 +7,7 @@
  * the symmetry I_x(a,b) = 1 − I_{1−x}(b,a) converges fast; both x and 1 − x are passed in so
  * a tail probability never comes from subtracting two nearly equal numbers.
  */
+import { PhysicsInputError } from './physicsInputError';
 
 // Lanczos approximation, g = 7, nine coefficients (the widely used set published by
 // P. Godfrey; relative error about 1e-15 for real arguments above 0.5).
@@ -18,6 +19,7 @@ const LANCZOS = [
 
 /** ln Γ(x) for x > 0. */
 export function logGamma(x: number): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(x > 0)) throw new RangeError(`logGamma needs x > 0, got ${x}`);
   if (x < 0.5) {
     // Reflection: Γ(x)Γ(1−x) = π / sin(πx)
@@ -67,13 +69,20 @@ function betaContinuedFraction(x: number, a: number, b: number): number {
     h *= delta;
     if (Math.abs(delta - 1) < EPS) return h;
   }
-  throw new RangeError(`incomplete beta continued fraction did not converge (x=${x}, a=${a}, b=${b})`);
+  throw new PhysicsInputError({
+    code: 'solver-failed',
+    field: 'x',
+    value: x,
+    allowed: `a point where the continued fraction converges within 10 000 terms (a = ${a}, b = ${b})`,
+    reason: 'the incomplete beta continued fraction did not converge',
+  });
 }
 
 /**
  * I_x(a, b), with y = 1 − x supplied by the caller when it is known more accurately than 1 − x.
  */
 export function regularizedIncompleteBeta(x: number, a: number, b: number, y: number = 1 - x): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(a > 0 && b > 0)) throw new RangeError(`incomplete beta needs a, b > 0, got ${a}, ${b}`);
   if (!(x >= 0 && x <= 1)) throw new RangeError(`incomplete beta needs 0 <= x <= 1, got ${x}`);
   if (x === 0) return 0;

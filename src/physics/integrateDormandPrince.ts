@@ -10,6 +10,7 @@
  * accepted point (so the located point is as accurate as any accepted step), and solving for
  * that length with the Illinois variant of regula falsi, which always keeps a bracket.
  */
+import { PhysicsInputError } from './physicsInputError';
 
 export type OdeRightHandSide = (t: number, y: Float64Array, dydt: Float64Array) => void;
 
@@ -116,6 +117,7 @@ export function integrateDormandPrince(
   const atol = options.absoluteTolerance ?? 1e-12;
   const maxSteps = options.maxSteps ?? 100_000;
   const span = tEnd - t0;
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(span > 0)) throw new RangeError(`integrateDormandPrince needs tEnd > t0, got ${t0} → ${tEnd}`);
   const maxStep = options.maxStep ?? span;
   const n = y0.length;
@@ -133,7 +135,7 @@ export function integrateDormandPrince(
 
   while (t < tEnd) {
     if (accepted + rejected >= maxSteps) {
-      throw new RangeError(`integrateDormandPrince: more than ${maxSteps} steps before t = ${tEnd}`);
+      throw new PhysicsInputError({ code: 'solver-failed', field: 'tEnd', value: tEnd, allowed: `an end reached within ${maxSteps} steps`, reason: `more than ${maxSteps} integration steps` });
     }
     let last = false;
     if (t + h >= tEnd) {
@@ -147,7 +149,7 @@ export function integrateDormandPrince(
       const factor = Number.isFinite(err) ? Math.max(0.2, 0.9 * Math.pow(err, -0.2)) : 0.1;
       h *= lastFailed ? Math.min(factor, 0.5) : factor;
       lastFailed = true;
-      if (h < 1e-14 * Math.max(1, Math.abs(t))) throw new RangeError(`integrateDormandPrince: step size underflow at t = ${t}`);
+      if (h < 1e-14 * Math.max(1, Math.abs(t))) throw new PhysicsInputError({ code: 'solver-failed', field: 't', value: t, allowed: 'a step above 1e-14·|t|', reason: 'step size underflow' });
       continue;
     }
     lastFailed = false;

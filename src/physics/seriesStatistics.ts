@@ -6,6 +6,7 @@ import { studentTQuantile } from './studentT';
 
 export function mean(values: ArrayLike<number>): number {
   const n = values.length;
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (n === 0) throw new RangeError('mean of no values');
   // Shifted sum: exact for constant input and no loss for values far from zero.
   const shift = values[0]!;
@@ -17,6 +18,7 @@ export function mean(values: ArrayLike<number>): number {
 /** Sample standard deviation (n − 1 in the denominator), by the two-pass formula. */
 export function standardDeviation(values: ArrayLike<number>): number {
   const n = values.length;
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (n < 2) throw new RangeError('standard deviation needs at least two values');
   const m = mean(values);
   let ss = 0;

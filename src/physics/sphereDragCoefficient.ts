@@ -25,6 +25,7 @@ export function morrisonSphereDragExcess(reynolds: number): number {
 }
 
 export function morrisonSphereDragCoefficient(reynolds: number): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(reynolds > 0)) throw new RangeError(`Reynolds number must be positive, got ${reynolds}`);
   return 24 / reynolds + morrisonSphereDragExcess(reynolds);
 }

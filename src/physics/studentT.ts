@@ -15,6 +15,7 @@ export function studentTDensity(t: number, dof: number): number {
 
 /** P(T > t), accurate in the far tail. */
 export function studentTUpperTail(t: number, dof: number): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(dof > 0)) throw new RangeError(`degrees of freedom must be positive, got ${dof}`);
   if (t < 0) return 1 - studentTUpperTail(-t, dof);
   const t2 = t * t;
@@ -30,6 +31,7 @@ export function studentTCdf(t: number, dof: number): number {
 
 /** The p-quantile t_p(ν): P(T ≤ t_p) = p, 0 < p < 1. */
 export function studentTQuantile(p: number, dof: number): number {
+  // Contract check, plain on purpose: callers pass values the request validation already checked, so this is a bug, not bad input.
   if (!(p > 0 && p < 1)) throw new RangeError(`probability must be in (0, 1), got ${p}`);
   if (!(dof > 0)) throw new RangeError(`degrees of freedom must be positive, got ${dof}`);
   if (p === 0.5) return 0;

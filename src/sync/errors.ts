@@ -13,6 +13,8 @@ export type SyncErrorCode =
   | 'sync-password-invalid'
   | 'sync-not-configured'
   | 'sync-disabled'
+  /** The scheduler was stopped (the app is closing); nothing more is synced by it. */
+  | 'sync-stopped'
   | 'sync-timeout'
   | 'sync-network'
   | 'sync-unauthorized'

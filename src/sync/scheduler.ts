@@ -6,6 +6,7 @@
  *
  * One run at a time: a request during a run queues one more run after it, however many requests come.
  */
+import { SyncError } from './errors';
 import type { SyncReport } from './sync-run';
 
 export type SyncReason = 'start' | 'online' | 'change' | 'manual' | 'retry' | 'background';
@@ -48,7 +49,7 @@ export class SyncScheduler {
 
   /** Sync now, or right after the run in progress. */
   request(reason: SyncReason): Promise<SyncReport> {
-    if (this.stopped) return Promise.reject(new Error('the sync scheduler is stopped'));
+    if (this.stopped) return Promise.reject(new SyncError({ code: 'sync-stopped', field: null, value: null, allowed: null, message: 'the sync scheduler is stopped' }));
     if (reason !== 'retry') this.cancelRetry();
     if (!this.current) return this.start(reason);
     if (!this.queued) {

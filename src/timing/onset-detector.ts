@@ -23,6 +23,7 @@
  * gates its microphone to exact silence when the room is quiet would have its intervals refused: that is the
  * safe failure.)
  */
+import { TimingError } from './timing-error';
 
 export interface OnsetDetectorOptions {
   sampleRate_Hz: number;
@@ -115,7 +116,7 @@ export class OnsetDetector {
   constructor(options: OnsetDetectorOptions) {
     const o = { ...ONSET_DEFAULTS, ...options };
     const fs = o.sampleRate_Hz;
-    if (!(fs > 0) || !Number.isFinite(fs)) throw new RangeError(`sampleRate_Hz = ${fs}: must be a positive number of samples per second`);
+    if (!(fs > 0) || !Number.isFinite(fs)) throw new TimingError({ code: 'out-of-range', field: 'sampleRate_Hz', value: fs, allowed: 'a positive number of samples per second', message: `sampleRate_Hz = ${fs}: must be a positive number of samples per second` });
     this.sampleRate_Hz = fs;
     this.aShort = 1 - Math.exp(-1 / (o.shortWindow_s * fs));
     this.aLong = 1 - Math.exp(-1 / (o.longWindow_s * fs));
@@ -144,7 +145,7 @@ export class OnsetDetector {
    */
   process(samples: ArrayLike<number>, startFrame: number): Onset[] {
     if (!Number.isInteger(startFrame) || startFrame < 0) {
-      throw new RangeError(`startFrame = ${startFrame}: must be a frame index, an integer from 0`);
+      throw new TimingError({ code: 'out-of-range', field: 'startFrame', value: startFrame, allowed: 'a frame index, an integer from 0', message: `startFrame = ${startFrame}: must be a frame index, an integer from 0` });
     }
     if (this.nextFrame !== null && startFrame !== this.nextFrame) this.discontinuity(startFrame);
     else if (this.nextFrame === null) this.ringFrom = startFrame;
