@@ -32,7 +32,8 @@ export interface Problem {
   message: string;
 }
 
-/** A record refused before any write, with every problem found (not just the first). */
+/** A record refused before any write, with every problem found (not just the first); `field`, `value` and `allowed`
+ *  are those of the first. */
 export class LogValidationError extends LogError {
   constructor(
     readonly problems: Problem[],
@@ -41,8 +42,8 @@ export class LogValidationError extends LogError {
     super({
       code: 'record-invalid',
       field: problems[0]?.path ?? null,
-      value: problems.map((p) => p.value),
-      allowed: problems.map((p) => `${p.path} ${p.rule}`).join('; ') || null,
+      value: problems[0]?.value,
+      allowed: problems[0]?.rule ?? null,
       message: `invalid ${kind}: ${problems.map((p) => p.message).join('; ')}`,
     });
     this.name = 'LogValidationError';

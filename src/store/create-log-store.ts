@@ -119,7 +119,7 @@ function checkReference(record: LogRecord, field: string, kind: RecordKind, foun
       field: `${record.kind}.${field}`,
       value: target,
       allowed: `the id of a saved, live ${kind}`,
-      message: `${record.kind}.${field}: no ${kind} ${String(target)}${found ? ' (it is deleted)' : ''}; save it first or in the same action`,
+      message: `${record.kind}.${field}: no ${kind} ${String(target)}${found ? ' (it is deleted)' : ''}; allowed: the id of a saved, live ${kind}: save it first or in the same action`,
     });
   }
   if (field === 'reading_id' && (found as RecordOf['reading']).day_id !== fields.day_id) {

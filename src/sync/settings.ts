@@ -24,7 +24,7 @@ export function checkSyncSettings(settings: SyncSettings): SyncSettings {
   basicAuthorization(settings.username, settings.password);
   const timeout = settings.timeout_ms;
   if (timeout !== undefined && !(Number.isFinite(timeout) && timeout >= 1000 && timeout <= 300_000)) {
-    throw new SyncError({ code: 'sync-url-invalid', field: 'timeout_ms', value: timeout, allowed: '1000 to 300000 ms', message: `timeout_ms ${timeout} must be between 1000 and 300000 ms` });
+    throw new SyncError({ code: 'sync-url-invalid', field: 'timeout_ms', value: timeout, allowed: 'between 1000 and 300000 ms', message: `timeout_ms ${timeout} must be between 1000 and 300000 ms` });
   }
   return { ...settings, folder_url };
 }

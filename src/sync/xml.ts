@@ -20,8 +20,8 @@ export type XmlErrorCode = 'xml-syntax' | 'xml-entity' | 'xml-namespace' | 'xml-
 /** `field` is the place in the text ("character 120"); `value` what was found there; `allowed` what may stand there. */
 export class XmlError extends PlummetError<XmlErrorCode> {
   readonly offset: number;
-  constructor(options: Omit<PlummetErrorOptions<XmlErrorCode>, 'field'> & { offset: number; message: string }) {
-    super({ ...options, field: `character ${options.offset}`, message: `${options.message} (at character ${options.offset})` });
+  constructor(options: Omit<PlummetErrorOptions<XmlErrorCode>, 'field'> & { offset: number; message: string; allowed: string }) {
+    super({ ...options, field: `character ${options.offset}`, message: `${options.message} (at character ${options.offset}; allowed: ${options.allowed})` });
     this.name = 'XmlError';
     this.offset = options.offset;
   }
