@@ -12,6 +12,7 @@
  * examples/ holds worked requests.
  */
 import { readFileSync } from 'node:fs';
+import { PlummetError } from '../errors';
 import { analyzeSeries, PhysicsInputError, validateAnalysisRequest } from '../physics/index';
 import { LogFileError, readLogFile } from '../log/export-parse';
 import { seriesInputs } from '../log/csv-tables';
@@ -85,7 +86,8 @@ function analyzeLog(path: string, text: string, csvDir: string | undefined): Cli
         return { series_id: input.series.id, ...compute(input) };
       } catch (error) {
         const e = error as { code?: string; message?: string };
-        return { series_id: input.series.id, error: { code: e.code ?? 'compute-failed', message: e.message ?? String(error) } };
+        // A coded error keeps its field, value and allowed range in the report; anything else its code and message.
+        return { series_id: input.series.id, error: error instanceof PlummetError ? error.toJSON() : { code: e.code ?? 'compute-failed', message: e.message ?? String(error) } };
       }
     });
     return { exitCode: 0, stdout: `${JSON.stringify({ device: file.device, series: results }, null, 2)}\n`, stderr: '' };
