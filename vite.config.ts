@@ -12,7 +12,6 @@ export default defineConfig({
   define: {
     __APP_VERSION__: JSON.stringify(pkg.version),
     __BUILD_ID__: JSON.stringify(buildId),
-    __DEV_CHECKS__: JSON.stringify(process.env.NODE_ENV !== 'production'),
   },
   plugins: [
     preact(),

@@ -18,7 +18,7 @@ export function useStoreData<T>(load: () => Promise<T>, deps: unknown[]): Loaded
     return () => {
       live = false;
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // `load` is a new closure every render: `deps` names what it reads, so only those (and writes) reload.
   }, [changes, ...deps]);
   return result;
 }
@@ -75,7 +75,7 @@ export function useDraft<T extends object>(key: string, initial: () => T): {
       unregister();
       window.removeEventListener('pagehide', onHide);
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // `initial` is a new closure every render; only another store or key means another draft.
   }, [store, key]);
 
   return {
