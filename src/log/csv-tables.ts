@@ -290,11 +290,3 @@ export function logCsv(records: readonly LogRecord[], compute: ComputeSeries, op
   const rows = computeAll(records, compute);
   return { drops: toCsv(DROP_COLUMNS, dropRows(rows), options), series: toCsv(SERIES_COLUMNS, seriesRows(rows), options) };
 }
-
-export function dropsCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): string {
-  return toCsv(DROP_COLUMNS, dropRows(computeAll(records, compute)), options);
-}
-
-export function seriesCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): string {
-  return toCsv(SERIES_COLUMNS, seriesRows(computeAll(records, compute)), options);
-}

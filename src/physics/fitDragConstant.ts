@@ -16,9 +16,9 @@
 import { fallTimeFactor, fallTimeFactorWithDerivative } from './fallModel';
 
 /** Lowest k·h searched: Φ(−20) ≈ 0.25, i.e. times down to a quarter of the drag-free time. */
-export const MIN_DRAG_X = -20;
+const MIN_DRAG_X = -20;
 /** Highest k·h searched: Φ(1e9) ≈ 22 000 drag-free times. */
-export const MAX_DRAG_X = 1e9;
+const MAX_DRAG_X = 1e9;
 
 export type DragFitStatus = 'ok' | 'faster-than-free-fall' | 'drag-unexplained' | 'not-converged';
 

@@ -10,8 +10,8 @@
  * Atmosphere 1976); at 1000 m it differs from the elevation by 0.16 m (about 2 Pa).
  */
 
-export const ISA_SEA_LEVEL_TEMPERATURE_K = 288.15;
-export const ISA_SEA_LEVEL_PRESSURE_PA = 101325;
+const ISA_SEA_LEVEL_TEMPERATURE_K = 288.15;
+const ISA_SEA_LEVEL_PRESSURE_PA = 101325;
 const LAPSE_RATE_K_PER_M = 0.0065;
 const G0 = 9.80665; // m/s², standard gravity
 const M_ISA = 0.0289644; // kg/mol, ISA molar mass of dry air
@@ -25,7 +25,7 @@ export function geopotentialHeight(elevation_m: number): number {
 }
 
 /** Ratio p(z)/p(0) of the standard atmosphere (troposphere, z below 11 km). */
-export function standardPressureRatio(elevation_m: number): number {
+function standardPressureRatio(elevation_m: number): number {
   const H = geopotentialHeight(elevation_m);
   return Math.pow(1 - (LAPSE_RATE_K_PER_M * H) / ISA_SEA_LEVEL_TEMPERATURE_K, EXPONENT);
 }

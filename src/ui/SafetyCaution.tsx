@@ -24,8 +24,8 @@ export function SafetyCaution({ onAcknowledge }: { onAcknowledge?: () => void })
 }
 
 /** Impact energies above which we warn. Sources: rules of thumb, not a safety standard (common practice). */
-export const IMPACT_ENERGY_WARN_J = 40;
-export const IMPACT_ENERGY_SEVERE_J = 80;
+const IMPACT_ENERGY_WARN_J = 40;
+const IMPACT_ENERGY_SEVERE_J = 80;
 
 export function impactEnergyWarning(energyJ: number | null | undefined): string | null {
   if (energyJ === null || energyJ === undefined || !Number.isFinite(energyJ)) return null;

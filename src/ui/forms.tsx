@@ -164,7 +164,7 @@ export function SelectField(props: {
 }
 
 /** A form whose draft holds FieldStates by name (what useDraft returns). */
-export interface FieldForm<D> {
+interface FieldForm<D> {
   value: D;
   set(patch: Partial<D>): void;
 }

@@ -5,7 +5,7 @@ import { airProperties, createRandom, fallParameters, fallTime, geometryFromDime
 import type { LogStore, LogAction } from '../store';
 import type { SpecimenBody } from '../log/types';
 
-export const SAMPLE_MARK = '(sample)';
+const SAMPLE_MARK = '(sample)';
 
 interface SampleSeries {
   specimen: number;

@@ -21,7 +21,7 @@ export function SpecimensScreen({ params }: { params: string[] }) {
   return <SpecimenList />;
 }
 
-export function describeShape(shape: SpecimenShape, format: (v: number, k: 'smallLength' | 'area' | 'volume') => string): string {
+function describeShape(shape: SpecimenShape, format: (v: number, k: 'smallLength' | 'area' | 'volume') => string): string {
   switch (shape.kind) {
     case 'sphere':
       return `sphere ⌀ ${format(shape.diameter_m, 'smallLength')}`;

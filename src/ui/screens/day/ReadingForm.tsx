@@ -23,7 +23,7 @@ interface ReadingDraft {
 }
 
 /** The live air figures for what has been typed so far (or why there are none yet). */
-export function useAirPreview(d: ReadingDraft, site: SiteRecord | null) {
+function useAirPreview(d: ReadingDraft, site: SiteRecord | null) {
   return useMemo(() => {
     const humidityOk = d.humidityKind === 'relative' ? fieldsValid(d.humidity) : fieldsValid(d.dewPoint);
     if (!fieldsValid(d.temperature, d.pressure) || !humidityOk || d.reference === '') return null;
@@ -148,7 +148,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
   );
 }
 
-export function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) {
+function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) {
   const { format } = useApp();
   if (!preview) return <p class="hint">Air density, viscosity and the speed of sound show here as soon as the reading is complete.</p>;
   if (!preview.ok) return <Notice tone="bad">{preview.message}</Notice>;

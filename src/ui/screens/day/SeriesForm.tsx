@@ -24,7 +24,7 @@ export const TIMING_DEFAULTS: Record<TimingMethod, { label: string; u_s: number 
 /** The timing methods as choices for a select. */
 export const TIMING_OPTIONS = Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }));
 
-export const HEIGHT_METHODS: Record<HeightMethod, string> = {
+const HEIGHT_METHODS: Record<HeightMethod, string> = {
   tape: 'Tape',
   laser: 'Laser rangefinder',
   survey: 'Survey',
