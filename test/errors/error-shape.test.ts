@@ -100,6 +100,19 @@ const THROWN: Record<string, () => unknown | Promise<unknown>> = {
 };
 
 describe('one error shape', () => {
+  it('keeps the error base a pure leaf: it imports only its own files and uses no platform API', () => {
+    const dir = join(SRC, 'errors');
+    const files = readdirSync(dir);
+    expect(files).toContain('index.ts');
+    for (const name of files) {
+      const source = readFileSync(join(dir, name), 'utf8');
+      for (const m of source.matchAll(/(?:import|export)[^'"]*?from\s+['"]([^'"]+)['"]/g)) {
+        expect(m[1], `errors/${name}`).toMatch(/^\.\/[\w-]+$/);
+      }
+      expect(source, `errors/${name}`).not.toMatch(/\b(window|document|navigator|indexedDB|fetch|process|Date\.now|performance|crypto)\b/);
+    }
+  });
+
   it('finds the error classes in the source', () => {
     // A count that cannot pass by finding nothing: the 13 classes of the issue are all there.
     expect(errorClassesInSource().size).toBeGreaterThanOrEqual(13);
