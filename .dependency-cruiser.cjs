@@ -115,6 +115,13 @@ module.exports = {
       to: { pathNot: '^src/' },
     },
     {
+      name: 'pure-core-imports-pure-core',
+      severity: 'error',
+      comment: "the pure core imports only the pure core (the pure half of timing/ not timing's index nor audio-capture)",
+      from: { path: PURE_CORE },
+      to: { path: '^(src|sw)/', pathNot: PURE_CORE },
+    },
+    {
       name: 'resolvable',
       severity: 'error',
       comment: 'every import resolves (a typo in a path would otherwise slip past every other rule)',

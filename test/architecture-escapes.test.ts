@@ -67,7 +67,7 @@ afterAll(() => {
   if (scratch) rmSync(scratch, { recursive: true, force: true });
 });
 
-describe('the guards, against a scratch copy of the tree', { timeout: 60_000 }, () => {
+describe('the guards, against a scratch copy of the tree', { timeout: 120_000 }, () => {
   it('pass the untouched copy', async () => {
     // Nothing is planted here, so the three may run side by side.
     const [rules, compile, calls] = await Promise.all([depcruise(), coreCompile(), pureCalls()]);
@@ -176,11 +176,12 @@ describe('the guards, against a scratch copy of the tree', { timeout: 60_000 }, 
     expect(circle).toContain('src/physics/planted-b.ts');
   });
 
-  it('fail on a package in the pure core, a folder off the map and an import that does not resolve', async () => {
+  it('fail on a package or the platform half of timing in the pure core, a folder off the map and an import that does not resolve', async () => {
     const { status, out } = await withPlanted(
       {
         'src/log/planted.ts': "export { openDB } from 'idb';",
         'src/timing/sound-interval.ts': "export { readFileSync as plantedRead } from 'node:fs';",
+        'src/timing/tap-timing.ts': "export { SoundCapture as PlantedCapture } from './audio-capture';",
         'src/elsewhere/planted.ts': "export type { LogRecord } from '../log';",
         'src/analysis/planted.ts': "export { nothing } from './not-there';",
       },
@@ -189,6 +190,7 @@ describe('the guards, against a scratch copy of the tree', { timeout: 60_000 }, 
     expect(status).not.toBe(0);
     expect(named(out, 'pure-core-no-packages: src/log/planted.ts', 'idb')).toHaveLength(1);
     expect(named(out, 'pure-core-no-packages: src/timing/sound-interval.ts', 'fs')).toHaveLength(1);
+    expect(named(out, 'pure-core-imports-pure-core: src/timing/tap-timing.ts', 'src/timing/audio-capture.ts')).toHaveLength(1);
     expect(named(out, 'folder-in-the-map: src/elsewhere/planted.ts', 'src/log/index.ts')).toHaveLength(1);
     expect(named(out, 'resolvable: src/analysis/planted.ts', 'not-there')).toHaveLength(1);
   });
