@@ -1,12 +1,9 @@
 /// <reference lib="webworker" />
 declare const self: ServiceWorkerGlobalScope;
 // The office-folder sync run by the service worker itself, for Background Sync with no page open.
-// Imported past the store's index on purpose: the index also brings the page's environment (matchMedia,
-// localStorage), which a worker does not have.
-import { openLogStore } from '../src/store/idb-store';
-import type { StoreEnvironment } from '../src/store/types';
-import { syncFolder, type LockManagerLike, type SyncReport } from '../src/sync/sync-run';
-import { BACKGROUND_SYNC_TAG } from '../src/sync/scheduler';
+// Through the worker-safe faces only: the page's environment (matchMedia, localStorage) is in src/store/page.
+import { openLogStore, type StoreEnvironment } from '../src/store';
+import { BACKGROUND_SYNC_TAG, syncFolder, type LockManagerLike, type SyncReport } from '../src/sync';
 
 export { BACKGROUND_SYNC_TAG };
 

@@ -1,37 +1,56 @@
-import { describe, expect, it } from 'vitest';
+// The source tree against its own guards: the import rule table (.dependency-cruiser.cjs) and the pure core's
+// clock-and-randomness check. The pure core's own compile (tsconfig.core.json) runs in `npm run typecheck`.
+// test/architecture-escapes.test.ts proves that each guard fails on a planted escape.
+import { spawnSync } from 'node:child_process';
+import { readdirSync, statSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { join, relative, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { checkSource, checkTree } from './support/boundaries';
+import ts from 'typescript';
+import { describe, expect, it } from 'vitest';
+import { checkPureCalls } from '../scripts/check-pure-calls.mjs';
 
-const src = fileURLToPath(new URL('../src', import.meta.url));
+const root = fileURLToPath(new URL('..', import.meta.url));
+const depcruise = join(root, 'node_modules/dependency-cruiser/bin/dependency-cruise.mjs');
+const config = createRequire(import.meta.url)('../.dependency-cruiser.cjs') as {
+  forbidden: { name: string; from: { path?: string | string[] } }[];
+};
+
+function walk(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const p = join(dir, name);
+    return statSync(p).isDirectory() ? walk(p) : [relative(root, p).split(sep).join('/')];
+  });
+}
+
+describe('the import rules', () => {
+  it('hold for the whole of src/ and sw/', { timeout: 60_000 }, () => {
+    const run = spawnSync(process.execPath, [depcruise, '--config', '.dependency-cruiser.cjs', '--output-type', 'err', 'src', 'sw'], {
+      cwd: root,
+      encoding: 'utf8',
+    });
+    expect(run.stdout + run.stderr).toContain('no dependency violations found');
+    expect(run.status).toBe(0);
+  });
+});
 
 describe('the pure core', () => {
-  it('physics/ and log/ import nothing from store, sync, ui, widgets, timing or cli, and use no platform API', () => {
-    const violations = checkTree(src);
-    expect(violations.map((v) => `${v.file}:${v.line} ${v.rule}: ${v.text}`)).toEqual([]);
+  it('reads no clock and draws no random numbers', { timeout: 60_000 }, () => {
+    const { files, findings } = checkPureCalls(root);
+    expect(findings.map((f) => `${f.file}:${f.line} ${f.rule}: ${f.message}`)).toEqual([]);
+    expect(files).toBeGreaterThan(40);
   });
 
-  it('the checker catches a forbidden import, a package and a browser global', () => {
-    const bad = [
-      "import { openLogStore } from '../store';",
-      "import { openDB } from 'idb';",
-      'const x = window.innerWidth;',
-      "const ok = 'window is only a word in a string';",
-      '// navigator in a comment is fine',
-      'const t = Date.now();',
-    ].join('\n');
-    const rules = checkSource('log/bad.ts', bad, 'log').map((v) => `${v.line}:${v.rule}`);
-    expect(rules).toEqual([
-      '1:log/ may not import from store/',
-      '2:log/ may not import the package "idb"',
-      '3:log/ may not use the platform global "window"',
-      '6:log/ may not use the platform global "Date.now"',
-    ]);
-  });
-
-  it('physics/ and log/ do not lean on each other; analysis/ may join them', () => {
-    const rules = checkSource('physics/x.ts', "import type { SiteRecord } from '../log';", 'physics').map((v) => v.rule);
-    expect(rules).toEqual(['physics/ imports nothing from log/']);
-    expect(checkSource('log/x.ts', "import { fallTime } from '../physics';", 'log').map((v) => v.rule)).toEqual(['log/ imports nothing from physics/']);
-    expect(checkSource('analysis/x.ts', "import { fallTime } from '../physics';\nimport type { DropRecord } from '../log/types';", 'analysis')).toEqual([]);
+  it('is the same list of files for the import rules and for the platform-free compile', () => {
+    const rule = config.forbidden.find((r) => r.name === 'pure-core-no-packages');
+    const patterns = [rule?.from.path ?? []].flat().map((p) => new RegExp(p));
+    expect(patterns.length).toBeGreaterThan(0);
+    const parsed = ts.getParsedCommandLineOfConfigFile(join(root, 'tsconfig.core.json'), {}, { ...ts.sys, onUnRecoverableConfigFileDiagnostic: () => {} });
+    const compiled = (parsed?.fileNames ?? []).map((f) => relative(root, f).split(sep).join('/')).sort();
+    const matched = walk(join(root, 'src'))
+      .filter((f) => /\.tsx?$/.test(f) && patterns.some((p) => p.test(f)))
+      .sort();
+    expect(compiled.length).toBeGreaterThan(40);
+    expect(compiled).toEqual(matched);
   });
 });

@@ -8,8 +8,7 @@ import {
   type SpecimenInput,
   type UncertaintyInput,
 } from '../physics';
-import type { DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log/types';
-import { readingForSeries } from '../log/reading-for-series';
+import { readingForSeries, type DropRecord, type ReadingRecord, type SeriesRecord, type SiteRecord, type SpecimenRecord } from '../log';
 
 export function specimenInput(specimen: SpecimenRecord): { input: SpecimenInput; uncertainty: UncertaintyInput } {
   const s = specimen.shape;

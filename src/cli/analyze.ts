@@ -14,8 +14,7 @@
 import { readFileSync } from 'node:fs';
 import { PlummetError } from '../errors';
 import { analyzeSeries, PhysicsInputError, validateAnalysisRequest } from '../physics/index';
-import { LogFileError, readLogFile } from '../log/export-parse';
-import { seriesInputs } from '../log/csv-tables';
+import { LogFileError, readLogFile, seriesInputs } from '../log';
 import { isLogFile, physicsSeriesComputer, writeLogCsv } from './log-to-csv';
 
 const USAGE =

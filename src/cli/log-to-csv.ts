@@ -9,13 +9,10 @@
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { LogFile } from '../log/export';
-import { readLogFile } from '../log/export-parse';
-import { logCsv, seriesInputs, type ComputeSeries, type SeriesResult } from '../log/csv-tables';
-import { LOG_FORMAT } from '../log/schema';
+import { LOG_FORMAT, logCsv, readLogFile, seriesInputs, type ComputeSeries, type LogFile, type SeriesResult } from '../log';
 
 // The computation over the physics lives beside the share code, so the screens can use it too.
-export { physicsSeriesComputer, seriesComputer, seriesRequest, seriesResultOf } from '../sync/csv-export';
+export { physicsSeriesComputer, seriesComputer, seriesRequest, seriesResultOf } from '../sync';
 
 export interface LogCsvSummary {
   drops_csv: string;

@@ -1,6 +1,6 @@
 /**
- * The IndexedDB schema of the log, as one idb DBSchema from which every store, value and index type derives,
- * and the opening of the database through the versioned upgrades in upgrades.ts.
+ * The opening of the log's IndexedDB through the versioned upgrades in upgrades.ts. Its schema, one idb DBSchema
+ * from which every store, value and index type derives, is in log-db.ts.
  *
  * Platform traps, for whoever changes this file:
  * - Booleans are not valid IndexedDB keys: an index over `deleted` (or any key path reaching a boolean)
@@ -12,26 +12,12 @@
  * - Opening with a version lower than the stored one fails (VersionError): an app rolled back after an
  *   upgrade cannot read the newer database. That is reported as 'database-newer', never "fixed" by deleting.
  */
-import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
-import type { DayRecord, DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
+import { openDB, type IDBPDatabase } from 'idb';
 import { StoreError } from './errors';
-import type { DaySummary, DraftEntry } from './types';
+import type { LogDB } from './log-db';
 import { UPGRADES, type Upgrade } from './upgrades';
 
-export interface LogDB extends DBSchema {
-  site: { key: string; value: SiteRecord };
-  specimen: { key: string; value: SpecimenRecord };
-  day: { key: string; value: DayRecord; indexes: { by_date: string; by_site: string } };
-  reading: { key: string; value: ReadingRecord; indexes: { by_day: string } };
-  series: { key: string; value: SeriesRecord; indexes: { by_day: string; by_specimen: string } };
-  drop: { key: string; value: DropRecord; indexes: { by_series: string } };
-  /** Unsaved form input, by form key. */
-  draft: { key: string; value: DraftEntry };
-  /** Device id, clock stamp, persistence answer, storage estimate, last export, unsent count, settings. */
-  meta: { key: string; value: { key: string; value: unknown } };
-  /** Since version 2: counts per day, so the list of days opens without reading every drop. */
-  day_summary: { key: string; value: DaySummary };
-}
+export type { LogDB };
 
 /** The version this code writes: one more than the last upgrade's index. */
 export const DB_VERSION = UPGRADES.length;

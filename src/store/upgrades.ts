@@ -6,7 +6,7 @@
  * others ran. It awaits nothing but requests of the upgrade transaction.
  */
 import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
-import type { LogDB } from './database';
+import type { LogDB } from './log-db';
 
 export type Upgrade = (
   db: IDBPDatabase<LogDB>,

@@ -6,12 +6,11 @@
  * (src/physics/analysisTypes.ts), the result becomes table values. No Node or DOM API here, so the screens
  * use it as the office command does.
  */
-import { logCsv, type ComputeSeries, type SeriesInput, type SeriesResult } from '../log/csv-tables';
-import type { LogRecord } from '../log/types';
+import { logCsv, type ComputeSeries, type LogRecord, type SeriesInput, type SeriesResult } from '../log';
 import type { AnalysisRequest, AnalysisResult } from '../physics/index';
 import { buildRequest } from '../analysis';
 import { analyzeSeries, validateAnalysisRequest } from '../physics/index';
-import type { ShareableFile } from './share';
+import type { ShareableFile } from './shareable-file';
 import { PlummetError, type PlummetErrorOptions } from '../errors';
 
 class SeriesIncomplete extends PlummetError<'series-without-specimen' | 'series-without-reading' | 'series-without-site' | 'series-without-drops'> {

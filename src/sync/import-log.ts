@@ -7,9 +7,7 @@
  * the list kept in meta ('log_conflicts') after the records are written; were that second write lost, the
  * losing versions would still be in the records' histories.
  */
-import { readLogFile } from '../log/export-parse';
-import { addConflicts, openConflicts, previewMerge, type Conflict, type MergePreview } from '../log/merge';
-import type { LogFile } from '../log/export';
+import { addConflicts, openConflicts, previewMerge, readLogFile, type Conflict, type LogFile, type MergePreview } from '../log';
 import { SYNC_META, type RecordSource } from './record-source';
 
 export interface ImportPreview {

@@ -1,5 +1,7 @@
 // Getting logs off the phone and back: sharing files, importing them, and syncing the office WebDAV folder.
+// This face is worker-safe (the service worker imports it); sharing and picking files are in ./page.
 export * from './errors';
+export * from './shareable-file';
 export * from './folder-url';
 export * from './basic-auth';
 export * from './xml';
@@ -12,6 +14,5 @@ export * from './sync-state';
 export * from './import-log';
 export * from './sync-run';
 export * from './scheduler';
-export * from './share';
 export * from './auto-sync';
 export * from './csv-export';

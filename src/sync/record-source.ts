@@ -2,7 +2,7 @@
  * What sync and import need from the log's storage. The store (src/store, LogStore) satisfies it; the tests
  * use an in-memory twin. Settings, sync state and the conflict list live in the store's meta entries.
  */
-import type { LogRecord } from '../log/types';
+import type { LogRecord } from '../log';
 
 export interface RecordSource {
   /** Every record as stored, tombstones included. */

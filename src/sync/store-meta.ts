@@ -2,7 +2,7 @@
  * Types of the meta entries sync keeps in the store (declaration merging into src/store/types.ts, as that file
  * invites), so LogStore.getMeta/setMeta know them.
  */
-import type { Conflict } from '../log/merge';
+import type { Conflict } from '../log';
 import type { SyncSettings } from './settings';
 import type { SyncState } from './sync-state';
 

@@ -14,9 +14,7 @@
  * the progress made (files merged, the upload) is saved in the sync state as it happens. The run itself never
  * throws: the report carries the error, and the state remembers it for the screens and the back-off.
  */
-import { exportLog } from '../log/export';
-import { LogFileError, readLogFile } from '../log/export-parse';
-import type { Conflict } from '../log/merge';
+import { exportLog, LogFileError, readLogFile, type Conflict } from '../log';
 import { contentHash } from './content-hash';
 import { describeError, SyncError } from './errors';
 import { applyImport } from './import-log';

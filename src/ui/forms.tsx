@@ -1,7 +1,8 @@
 import '../widgets';
 import type { ComponentChildren } from 'preact';
 import { useApp } from './app-context';
-import type { QuantityChangeDetail, QuantityKind } from '../widgets';
+import type { QuantityChangeDetail } from '../widgets';
+import type { QuantityKind } from '../widgets/units';
 
 /** One quantity field of a form: what was typed (kept in the draft), its SI value and its message. */
 export interface FieldState {

@@ -4,7 +4,8 @@ import { App, preloadScreen } from './App';
 import { parseRoute } from './router';
 import { AppProvider, loadSettings } from './app-context';
 import { registerServiceWorker, type UpdateHandle } from './service-worker';
-import { browserEnvironment, openLogStore } from '../store';
+import { openLogStore } from '../store';
+import { browserEnvironment } from '../store/page';
 import { describeError } from './errors';
 
 export async function mountApp(root: HTMLElement): Promise<void> {

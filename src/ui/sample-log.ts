@@ -3,7 +3,7 @@
 // small, seeded scatter, so they are physically plausible without being anyone's measurements.
 import { airProperties, createRandom, fallParameters, fallTime, geometryFromDimensions, localGravity } from '../physics';
 import type { LogStore, LogAction } from '../store';
-import type { SpecimenBody } from '../log/types';
+import type { SpecimenBody } from '../log';
 
 const SAMPLE_MARK = '(sample)';
 

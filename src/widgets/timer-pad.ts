@@ -1,5 +1,5 @@
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import type { RawCapture } from '../log/types';
+import type { RawCapture } from '../log';
 import {
   SoundCapture,
   TimingError,

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { browserEnvironment } from '../../src/store';
+import { browserEnvironment } from '../../src/store/page';
 
 afterEach(() => {
   vi.unstubAllGlobals();

@@ -1,6 +1,6 @@
 // @vitest-environment happy-dom
 import { describe, expect, it, vi } from 'vitest';
-import { pickFile, shareFile, shareFiles, type ShareEnvironment } from '../../src/sync/share';
+import { pickFile, shareFile, shareFiles, type ShareEnvironment } from '../../src/sync/page/share';
 import { logCsvFiles } from '../../src/sync/csv-export';
 import { sampleLog } from './sample-log';
 

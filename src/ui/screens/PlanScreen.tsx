@@ -1,6 +1,6 @@
 import { useMemo } from 'preact/hooks';
 import { planDrop } from '../../physics';
-import type { TimingMethod } from '../../log/types';
+import type { TimingMethod } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../forms';

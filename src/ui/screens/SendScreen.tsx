@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'preact/hooks';
 import { exportLog, logFileName, logCsv, type LogSelection, type MergePreview } from '../../log';
-import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, physicsSeriesComputer, pickFile, previewImport, saveSyncSettings, shareFile, type ImportPreview, type SyncReport } from '../../sync';
+import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, physicsSeriesComputer, previewImport, saveSyncSettings, type ImportPreview, type SyncReport } from '../../sync';
+import { pickFile, shareFile } from '../../sync/page';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { Notice, SelectField, TextField } from '../forms';

@@ -1,5 +1,5 @@
 import { useState } from 'preact/hooks';
-import type { ShapeKind, SpecimenBody, SpecimenRecord, SpecimenShape } from '../../log/types';
+import type { ShapeKind, SpecimenBody, SpecimenRecord, SpecimenShape } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';

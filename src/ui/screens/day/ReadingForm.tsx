@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'preact/hooks';
 import { airProperties, PhysicsInputError } from '../../../physics';
-import type { SiteRecord } from '../../../log/types';
+import type { SiteRecord } from '../../../log';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';

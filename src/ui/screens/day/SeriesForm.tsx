@@ -1,5 +1,5 @@
 import { useState } from 'preact/hooks';
-import type { HeightMethod, ReadingRecord, SpecimenRecord, TimingMethod } from '../../../log/types';
+import type { HeightMethod, ReadingRecord, SpecimenRecord, TimingMethod } from '../../../log';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';

@@ -1,7 +1,7 @@
 import '../../../widgets';
 import { useMemo, useRef, useState } from 'preact/hooks';
 import { planDrop, type AnalysisRequest, type AnalysisResult } from '../../../physics';
-import type { DropRecord, SeriesRecord, SpecimenRecord } from '../../../log/types';
+import type { DropRecord, SeriesRecord, SpecimenRecord } from '../../../log';
 import type { DayView } from '../../../store';
 import { useApp } from '../../app-context';
 import { useDraft, useStoreData } from '../../hooks';

@@ -3,7 +3,7 @@ import { useApp } from '../../app-context';
 import { useDraft, useStoreData } from '../../hooks';
 import { Choice, Notice, QField, SelectField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { navigate } from '../../router';
-import type { SiteBody } from '../../../log/types';
+import type { SiteBody } from '../../../log';
 import { describeError } from '../../errors';
 import { localDate } from '../../dates';
 

@@ -1,5 +1,5 @@
 /** The browser's own facilities for the store: the one file of src/store that reaches for globals. */
-import type { StoreEnvironment } from './types';
+import type { StoreEnvironment } from '../types';
 
 /** Display modes in which the app runs from the home screen rather than in a browser tab. */
 const INSTALLED_MODES = ['standalone', 'fullscreen', 'minimal-ui', 'window-controls-overlay'];

@@ -5,17 +5,11 @@
  * so the crew can send it by mail or a messenger; otherwise a download through a link to a blob URL. Headless
  * Chromium and most desktop browsers have no navigator.share: they take the download. A person closing the
  * share sheet (AbortError) is an answer, not a failure, so no download follows it.
- * In: a file picker (<input type="file">); its text then goes to previewImport (import-log.ts).
+ * In: a file picker (<input type="file">); its text then goes to previewImport (../import-log.ts).
  *
  * The browser pieces are handed in, so the tests can stand in for them.
  */
-
-export interface ShareableFile {
-  name: string;
-  text: string;
-  /** e.g. "application/json" or "text/csv". */
-  type: string;
-}
+import type { ShareableFile } from '../shareable-file';
 
 export interface ShareEnvironment {
   navigator: { canShare?: (data: { files: File[] }) => boolean; share?: (data: { files: File[]; title?: string }) => Promise<void> };
