@@ -15,3 +15,4 @@ export * from './scheduler';
 export * from './share';
 export * from './auto-sync';
 export * from './csv-export';
+export * from './send-log';
