@@ -7,3 +7,4 @@ export * from './drop-rows';
 export * from './series-curves';
 export * from './plan-request';
 export * from './series-key';
+export * from './reading-air';
