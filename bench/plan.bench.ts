@@ -1,5 +1,5 @@
 /**
- * Speed of the planner on this machine: `npx tsx bench/plan.bench.ts`.
+ * Speed of the planner on this machine: `npm run bench:plan`.
  *
  * Prints the median time of one planDrop call with a target (the Planner screen's request: a ball, the day's
  * air, a 5 % target, up to 30 drops from at most 50 m) and of a series' "what would it take" advice (up to

@@ -122,3 +122,9 @@ export function specimenDragCoefficientOfDay(
 export function seriesAdvice(outcome: Extract<SeriesOutcome, { kind: 'ready' }>, series: SeriesRecord): DropPlan['target'] {
   return planDrop(seriesPlanRequest(outcome, series)).target;
 }
+
+/** The Planner screen's plan: the request from the records and the form, planned. */
+export function planFor(inputs: PlanInputs): { plan: DropPlan; sources: PlanSources } {
+  const { request, sources } = planRequest(inputs);
+  return { plan: planDrop(request), sources };
+}

@@ -5,6 +5,7 @@ import {
   analyzeSeriesRecords,
   measuredDragCoefficient,
   PLAN_DEFAULTS,
+  planFor,
   planRequest,
   seriesAdvice,
   seriesPlanRequest,
@@ -52,6 +53,11 @@ describe('the Planner screen’s request', () => {
     expect(request.drag_coefficient).toBe(0.52);
     expect(sources).toEqual({ air: 'reading', site: 'site', dragCoefficient: 'measured' });
     expect(planDrop(request).drag_coefficient_source).toBe('given');
+  });
+
+  it('is planned as built', () => {
+    const inputs = { specimen: day.specimen, reading: day.reading, site: day.site, measuredDragCoefficient: null, ...FORM };
+    expect(planFor(inputs)).toEqual({ plan: planDrop(planRequest(inputs).request), sources: planRequest(inputs).sources });
   });
 
   it('never plans a drop above the highest release point', () => {

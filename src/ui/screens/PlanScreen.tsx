@@ -1,12 +1,12 @@
 import { useMemo } from 'preact/hooks';
-import { planDrop, type DropPlan } from '../../physics';
+import type { DropPlan } from '../../physics';
 import type { TimingMethod } from '../../log/types';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../forms';
 import { routeHref } from '../router';
 import { SafetyCaution, impactEnergyWarning } from '../SafetyCaution';
-import { analyzeDay, PLAN_DEFAULTS, planRequest, specimenDragCoefficientOfDay, type PlanSources } from '../../analysis';
+import { analyzeDay, PLAN_DEFAULTS, planFor, specimenDragCoefficientOfDay, type PlanSources } from '../../analysis';
 import { TIMING_DEFAULTS, TIMING_OPTIONS } from './day/SeriesForm';
 import { describeError } from '../errors';
 import { useSettled } from '../use-settled';
@@ -55,7 +55,7 @@ export function PlanScreen() {
   const plan = useMemo(() => {
     if (!specimen || !fieldsValid(settled.height, settled.uTime, settled.target, settled.maxHeight)) return null;
     try {
-      const { request, sources } = planRequest({
+      return { ok: true as const, ...planFor({
         specimen,
         reading,
         site,
@@ -64,8 +64,7 @@ export function PlanScreen() {
         height_m: settled.height.value!,
         target_relative_uncertainty: settled.target.value! / 100,
         max_height_m: settled.maxHeight.value!,
-      });
-      return { ok: true as const, plan: planDrop(request), sources };
+      }) };
     } catch (e) {
       return { ok: false as const, message: describeError(e) };
     }
