@@ -16,6 +16,8 @@ export interface ExportedLog {
 
 export interface SendLogOptions {
   appVersion: string;
+  /** This phone's id when the caller has read it already; else it is read from the source. */
+  device?: string;
   /** A part of the log; whole when absent. */
   selection?: Partial<LogSelection> | null;
   /** When the log was sent; default the clock at the time of marking. */
@@ -29,7 +31,7 @@ export async function sendLog<T>(
   send: (log: ExportedLog) => Promise<{ sent: boolean; value: T }>,
 ): Promise<T> {
   const unsentBefore = source.status ? (await source.status()).unsentChanges : undefined;
-  const device = await source.deviceId();
+  const device = options.device ?? (await source.deviceId());
   const write = async () =>
     exportLog(await source.allRecords({ includeDeleted: true }), { device, app_version: options.appVersion, ...(options.selection ? { selection: options.selection } : {}) });
   const outcome = await send({ text: await write(), device, again: write });

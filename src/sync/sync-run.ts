@@ -214,7 +214,7 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
   }
 
   // 4. Export, upload, and mark what was sent (sendLog counts the unsent changes before reading the records).
-  await sendLog(source, { appVersion: options.appVersion, now: () => options.now?.() ?? Date.now() }, async (log) => {
+  await sendLog(source, { appVersion: options.appVersion, device, now: () => options.now?.() ?? Date.now() }, async (log) => {
     let text = log.text;
     let hash = contentHash(text);
     if (ownEntry && state.own && hash === state.uploaded_hash && hash === state.own.hash) return { sent: true, value: undefined };
