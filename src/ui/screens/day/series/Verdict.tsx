@@ -122,7 +122,8 @@ function Enough({
     } catch (e) {
       return { message: describeError(e), drops_at_planned_height: null, reachable: false } as const;
     }
-  }, [outcome, series, met]);
+    // A reload hands over a new series object: its revision stamp says whether it changed.
+  }, [outcome, series.id, series.rev, met]);
   return (
     <div class={`enough ${met ? 'enough-yes' : 'enough-no'}`} role="status">
       <strong>{met ? 'Enough: the target is met.' : 'Not enough yet.'}</strong>{' '}
