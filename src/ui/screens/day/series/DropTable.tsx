@@ -12,7 +12,6 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
   const [excluding, setExcluding] = useState<string | null>(null);
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string | null>(null);
-  if (drops.length === 0) return null;
   const rows = seriesDropRows(series, drops, outcome).map((r) => ({
     d: r.drop,
     h: r.height_m,
@@ -20,6 +19,7 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
     predicted: r.predicted_time_s,
     residual: r.residual_s,
   }));
+  if (rows.length === 0) return null;
 
   const toggle = async (d: DropRecord) => {
     setError(null);
