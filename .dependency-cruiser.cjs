@@ -31,11 +31,6 @@ const PURE_CORE = [
  * - csv-export.ts builds physics requests inside sync/; it is moving to analysis/, after which sync/ no longer
  *   imports physics/ and cli/ no longer imports sync/.
  */
-const TEMPORARY = {
-  physicsFromSync: '^src/sync/csv-export\\.ts$',
-  syncFromCli: '^src/cli/log-to-csv\\.ts$',
-};
-
 const folders = Object.keys(LAYERS);
 const any = (names) => `^src/(${names.join('|')})/`;
 
@@ -43,8 +38,6 @@ const layerRules = folders.map((folder) => {
   const allowed = [folder, ...LAYERS[folder]];
   const pathNot = [any(allowed)];
   const fromPathNot = [];
-  if (folder === 'sync') fromPathNot.push(TEMPORARY.physicsFromSync);
-  if (folder === 'cli') fromPathNot.push(TEMPORARY.syncFromCli);
   return {
     name: `layer-${folder}`,
     severity: 'error',
@@ -58,20 +51,6 @@ const layerRules = folders.map((folder) => {
 module.exports = {
   forbidden: [
     ...layerRules,
-    {
-      name: 'layer-sync-temporary',
-      severity: 'error',
-      comment: 'TEMPORARY: src/sync/csv-export.ts may also import physics/ until it moves to analysis/',
-      from: { path: TEMPORARY.physicsFromSync },
-      to: { path: '^(src|sw)/', pathNot: [any(['sync', 'physics', ...LAYERS.sync])] },
-    },
-    {
-      name: 'layer-cli-temporary',
-      severity: 'error',
-      comment: 'TEMPORARY: src/cli/log-to-csv.ts may also import sync/ (csv-export) until csv-export moves to analysis/',
-      from: { path: TEMPORARY.syncFromCli },
-      to: { path: '^(src|sw)/', pathNot: [any(['cli', 'sync', ...LAYERS.cli])] },
-    },
     {
       name: 'layer-sw',
       severity: 'error',

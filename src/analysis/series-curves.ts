@@ -1,5 +1,6 @@
 // Curves of distance fallen against time for the series chart: the fitted C_d, the prediction, no air.
 import {
+  fallBodyOf,
   fallDistance,
   fallParameters,
   fallWithVariableDrag,
@@ -10,17 +11,8 @@ import {
 
 export type Curve = Array<[number, number]>;
 
-function bodyFor(request: AnalysisRequest, result: AnalysisResult, cd: number) {
-  return fallParameters({
-    mass_kg: request.specimen.mass_kg,
-    area_m2: result.model.area_m2,
-    volume_m3: result.model.volume_m3,
-    drag_coefficient: cd,
-    density_kg_m3: result.air.density_kg_m3,
-    gravity_m_s2: result.gravity_m_s2,
-    buoyancy: result.model.buoyancy,
-    added_mass_coefficient: result.model.added_mass_coefficient,
-  });
+function bodyFor(result: AnalysisResult, cd: number) {
+  return fallParameters(fallBodyOf(result, cd));
 }
 
 function sampled(tEnd: number, distance: (t: number) => number, n = 40): Curve {
@@ -35,14 +27,14 @@ function sampled(tEnd: number, distance: (t: number) => number, n = 40): Curve {
 export function seriesCurves(request: AnalysisRequest, result: AnalysisResult): { fitted: Curve | null; predicted: Curve | null; vacuum: Curve } {
   const hMax = Math.max(...request.drops.map((d) => d.height_m));
   const tMax = Math.max(...request.drops.map((d) => d.time_s)) * 1.05;
-  const vacuum = bodyFor(request, result, 0);
+  const vacuum = bodyFor(result, 0);
   const tVac = Math.min(tMax, Math.sqrt((2 * hMax * 1.05) / result.gravity_m_s2));
   const vacuumCurve = sampled(tVac, (t) => fallDistance(t, vacuum));
-  const fitted = result.drag_coefficient !== null ? bodyFor(request, result, result.drag_coefficient) : null;
+  const fitted = result.drag_coefficient !== null ? bodyFor(result, result.drag_coefficient) : null;
   const fittedCurve = fitted ? sampled(tMax, (t) => fallDistance(t, fitted)) : null;
   let predicted: Curve | null = null;
   if (result.prediction.method === 'reference-drag-coefficient' && result.prediction.reference_drag_coefficient !== null) {
-    const p = bodyFor(request, result, result.prediction.reference_drag_coefficient);
+    const p = bodyFor(result, result.prediction.reference_drag_coefficient);
     predicted = sampled(tMax, (t) => fallDistance(t, p));
   } else if (result.prediction.method === 'morrison-sphere-correlation') {
     const rho = result.air.density_kg_m3;

@@ -15,7 +15,8 @@ import { readFileSync } from 'node:fs';
 import { PlummetError } from '../errors';
 import { analyzeSeries, PhysicsInputError, validateAnalysisRequest } from '../physics/index';
 import { LogFileError, readLogFile, seriesInputs } from '../log';
-import { isLogFile, physicsSeriesComputer, writeLogCsv } from './log-to-csv';
+import { physicsSeriesComputer } from '../analysis';
+import { isLogFile, writeLogCsv } from './log-to-csv';
 
 const USAGE =
   'usage: npm run --silent analyze -- request.json        (one series analysis request; see examples/)\n' +

@@ -5,14 +5,14 @@
  *
  * `writeLogCsv` reads and checks the log (the published schema and the record rules), computes every series
  * with the computation handed in, and writes both tables (RFC 4180, UTF-8 with a byte order mark, CRLF).
- * `physicsSeriesComputer` (src/sync/csv-export.ts) is that computation built on the physics' analyzeSeries.
+ * `physicsSeriesComputer` (src/analysis/series-computer.ts) is that computation built on the physics' analyzeSeries.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { LOG_FORMAT, logCsv, readLogFile, seriesInputs, type ComputeSeries, type LogFile, type SeriesResult } from '../log';
 
-// The computation over the physics lives beside the share code, so the screens can use it too.
-export { physicsSeriesComputer, seriesComputer, seriesRequest, seriesResultOf } from '../sync';
+// The computation over the physics lives in src/analysis, so the screens and the office compute alike.
+export { physicsSeriesComputer, seriesComputer, seriesRequest, seriesResultOf } from '../analysis';
 
 export interface LogCsvSummary {
   drops_csv: string;

@@ -24,8 +24,13 @@ export interface SeriesInput {
   drops: DropRecord[];
 }
 
-/** Results for one drop, in the order of SeriesInput.drops. Missing values are left blank in the table. */
+/**
+ * Results for one drop. With drop_id they are joined to the drop by it; without, by their order in
+ * SeriesInput.drops. Missing values are left blank in the table.
+ */
 export interface DropResult {
+  /** The drop record's id. */
+  drop_id?: string;
   drag_coefficient?: number | null;
   predicted_time_s?: number | null;
   residual_s?: number | null;
@@ -188,9 +193,10 @@ function dropRows(rows: Row[]): CsvValue[][] {
   for (const { input, allDrops, result } of rows) {
     const { series, day, site, specimen, reading } = input;
     const [rh, dew] = humidityCells(reading);
+    const byId = new Map((result.drops ?? []).filter((r) => r.drop_id !== undefined).map((r) => [r.drop_id, r]));
     for (const drop of allDrops) {
       const index = input.drops.indexOf(drop);
-      const r: DropResult = index >= 0 ? (result.drops?.[index] ?? {}) : {};
+      const r: DropResult = byId.size > 0 ? (byId.get(drop.id) ?? {}) : index >= 0 ? (result.drops?.[index] ?? {}) : {};
       const used = index >= 0 && !result.error;
       out.push([
         day?.date,

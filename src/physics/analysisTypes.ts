@@ -9,6 +9,8 @@ import type { PhysicsWarning } from './physicsWarning';
 import type { SpecimenInput } from './specimenGeometry';
 
 export interface DropInput {
+  /** The caller's own name for the drop (the log's drop id); carried to its result so rows join by it, never by position. */
+  id?: string;
   /** Release height above the point where the time stops, m. */
   height_m: number;
   /** Measured fall time from release, s. */
@@ -62,6 +64,8 @@ export interface AnalysisRequest {
 }
 
 export interface DropResult {
+  /** The request drop's id, when it had one. */
+  id?: string;
   height_m: number;
   time_s: number;
   /**
@@ -160,6 +164,8 @@ export interface AnalysisResult {
     reference_drag_coefficient: number | null;
   };
   model: {
+    /** The specimen's mass, kg. */
+    mass_kg: number;
     buoyancy: boolean;
     added_mass_coefficient: number;
     area_m2: number;

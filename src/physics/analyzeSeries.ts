@@ -4,296 +4,87 @@
  * coefficient (and optionally a timing offset), builds the GUM budget, propagates the input
  * distributions by Monte Carlo, predicts fall times, and collects every warning on the way.
  */
-import { airProperties } from './airProperties';
 import type { AnalysisRequest, AnalysisResult, BudgetRow, DropResult, HeightResult } from './analysisTypes';
-import { DEFAULT_SEED } from './createRandom';
-import { dragCoefficientFromTime } from './dragCoefficientFromTime';
+import { budgetInputs, type BudgetInputs } from './budgetInputs';
+import { dropDragCoefficients } from './dropDragCoefficient';
+import { groupDrops, type DropGroups } from './dropGroups';
 import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from './fallModel';
 import { fallWithVariableDrag } from './fallWithVariableDrag';
 import { solveFallTimeFactor } from './fitDragConstant';
 import { grubbsTest } from './grubbsTest';
 import { monteCarloPropagation, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
-import { localGravity } from './normalGravity';
-import { PhysicsInputError } from './physicsInputError';
 import type { PhysicsWarning } from './physicsWarning';
-import { SeriesModel } from './seriesModel';
+import { fitSeries, type SeriesFit } from './seriesFit';
+import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
+import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesStatistics } from './seriesStatistics';
-import { checkSpecimen } from './specimenGeometry';
 import { MORRISON_VALID_MAX_REYNOLDS, morrisonSphereDragCoefficient } from './sphereDragCoefficient';
 import { studentTQuantile } from './studentT';
-import { uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
-import { validateAnalysisRequest } from './validateAnalysisRequest';
+import { uncertaintyBudget } from './uncertaintyBudget';
 
-export const DEFAULT_MONTE_CARLO_DRAWS = 20_000;
+export { DEFAULT_MONTE_CARLO_DRAWS };
 /** Reynolds numbers of the drag crisis of smooth spheres (common practice: 2e5 to 5e5). */
 export const DRAG_CRISIS_REYNOLDS: readonly [number, number] = [2e5, 5e5];
 /** Below this the flow is creeping and drag grows linearly with speed, not quadratically. */
 export const CREEPING_FLOW_REYNOLDS = 1;
 
-/** A drop faster than the drag-free time by more than this many standard uncertainties is an error. */
-const FASTER_THAN_FREE_FALL_SIGMAS = 5;
-/** A whole series faster than the drag-free model by more than this many standard uncertainties is an error. */
-const SERIES_FASTER_SIGMAS = 3;
-
 /**
- * Everything up to the uncertainty evaluation: validated inputs, air, gravity, the measurement
- * model at its nominal inputs, the fitted values, the scatter and the list of budget inputs.
- * The planner uses it on synthetic drops, so plans and analyses share one budget.
+ * Everything up to the uncertainty evaluation, as named stages: the setup (validated inputs, air, gravity,
+ * the body), the drops grouped by height, the fit of the measurement model at its nominal inputs, each drop's
+ * own C_d, the scatter and the list of budget inputs. Warnings come in the order the stages meet them.
  */
-export function prepareSeries(request: AnalysisRequest) {
-  const req = validateAnalysisRequest(request);
-  const warnings: PhysicsWarning[] = [];
-  const site = localGravity(req.site);
-  const g = site.gravity_m_s2;
-  const air = airProperties(req.air, req.site.elevation_m);
-  warnings.push(...air.warnings);
-  const rho = air.density_kg_m3;
-  const mu = air.dynamic_viscosity_Pa_s;
-  const specimen = checkSpecimen(req.specimen);
-  const geometry = specimen.geometry;
-  const options = req.options ?? {};
-  const buoyancy = options.buoyancy ?? true;
-  const addedMass = options.added_mass_coefficient ?? geometry.default_added_mass_coefficient;
-  const fitOffset = req.timing.offset === 'fit';
-  const timingU = req.timing.standard_uncertainty_s;
-  const draws = options.monte_carlo_draws ?? DEFAULT_MONTE_CARLO_DRAWS;
-  const seed = options.seed ?? DEFAULT_SEED;
-  const u = req.uncertainty ?? {};
-
-  const body = {
-    mass_kg: specimen.mass_kg,
-    area_m2: geometry.area_m2,
-    volume_m3: geometry.volume_m3,
-    density_kg_m3: rho,
-    gravity_m_s2: g,
-    buoyancy,
-    added_mass_coefficient: addedMass,
-  };
-  const noDrag = fallParameters({ ...body, drag_coefficient: 0 }); // throws when not heavier than air
-  const gEff = noDrag.effective_gravity_m_s2;
-  const mEff = noDrag.effective_mass_kg;
-  const cdFromK = (k: number): number => (2 * mEff * k) / (rho * geometry.area_m2);
-  const kFromCd = (cd: number): number => (rho * cd * geometry.area_m2) / (2 * mEff);
-
-  // Group drops by height, in order of first appearance.
-  const groupOf = new Map<number, number>();
-  const groupHeights: number[] = [];
-  const groupDrops: number[][] = [];
-  req.drops.forEach((drop, i) => {
-    let j = groupOf.get(drop.height_m);
-    if (j === undefined) {
-      j = groupHeights.length;
-      groupOf.set(drop.height_m, j);
-      groupHeights.push(drop.height_m);
-      groupDrops.push([]);
-    }
-    groupDrops[j]!.push(i);
-  });
-  const J = groupHeights.length;
-  const counts = Float64Array.from(groupDrops, (d) => d.length);
-  const groupTimes = groupDrops.map((indices) => indices.map((i) => req.drops[i]!.time_s));
-  const meanTimes = groupTimes.map((times) => seriesStatistics(times).mean);
-
-  // Each drop on its own (its time less the fitted offset, when one is fitted).
-  const heightU = u.height_m ?? 0;
-  const slowDrops: string[] = [];
-  const eachDrop = (offset: number): (number | null)[] =>
-    req.drops.map((drop, i) => {
-      const time = drop.time_s - offset;
-      const noDragTime = fallTime(drop.height_m, noDrag);
-      const sigma = Math.hypot(timingU, (noDragTime * heightU) / (2 * drop.height_m));
-      if (time < noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma) {
-        throw new PhysicsInputError({
-          code: 'faster-than-free-fall',
-          field: `drops[${i}].time_s`,
-          value: drop.time_s,
-          allowed: `at least about ${(noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma + offset).toFixed(4)} s (the drag-free fall from ${drop.height_m} m takes ${noDragTime.toFixed(4)} s${offset !== 0 ? `, plus the fitted timing offset ${offset.toFixed(4)} s` : ''})`,
-        });
-      }
-      if (time <= noDragTime) {
-        slowDrops.push(`drop ${i + 1} of the series (${drop.time_s} s from ${drop.height_m} m, drag-free ${noDragTime.toFixed(4)} s)`);
-        return null;
-      }
-      return dragCoefficientFromTime(body, drop.height_m, time, `drops[${i}].time_s`);
-    });
-  // Without an offset, single drops are checked first: a wild time gets an error naming that drop.
-  let dropCd: (number | null)[] = fitOffset ? [] : eachDrop(0);
-
-  // The measurement model and its nominal inputs.
-  const humidityKind = air.density_source === 'override' ? 'none' : req.air.relative_humidity_pct !== undefined ? 'relative-humidity' : 'dew-point';
-  const model = new SeriesModel({
-    shape: geometry.shape,
-    dimensionCount: specimen.dimensions.length,
-    characteristicLength: geometry.shape === 'custom' ? geometry.characteristic_length_m : undefined,
-    humidity: humidityKind,
-    densityOverride: air.density_source === 'override',
-    co2MoleFraction: req.air.co2_mole_fraction ?? 0.0004,
-    buoyancy,
-    addedMassCoefficient: options.added_mass_coefficient ?? null,
-    fitOffset,
-    counts,
-  });
-  const L = model.layout;
-  const x0 = new Float64Array(L.length);
-  x0[L.temperature_K] = air.temperature_K;
-  x0[L.pressure_Pa] = air.station_pressure_Pa ?? 0;
-  x0[L.humidity] =
-    humidityKind === 'relative-humidity' ? req.air.relative_humidity_pct! / 100 : humidityKind === 'dew-point' ? req.air.dew_point_C! + 273.15 : 0;
-  x0[L.density_kg_m3] = rho;
-  x0[L.gravity_m_s2] = g;
-  x0[L.mass_kg] = specimen.mass_kg;
-  specimen.dimensions.forEach((d, i) => (x0[L.firstDimension + i] = d));
-  for (let j = 0; j < J; j++) {
-    x0[L.firstHeight + j] = groupHeights[j]!;
-    x0[L.firstTime + j] = meanTimes[j]!;
-  }
-  const estimate = model.evaluate(x0);
-  if (model.status !== 'ok') {
-    throw new PhysicsInputError({
-      code: model.status === 'faster-than-free-fall' ? 'faster-than-free-fall' : model.status === 'drag-unexplained' ? 'drag-unexplained' : 'solver-failed',
-      field: 'drops',
-      value: meanTimes.map((t, j) => `${t.toFixed(4)} s from ${groupHeights[j]} m`).join(', '),
-      allowed: 'times a finite, non-negative drag explains for this specimen',
-    });
-  }
-  const kHat = model.dragConstant_per_m;
-  const offsetHat = fitOffset ? model.offset_s : 0;
-  model.startDragConstant = kHat;
-  if (fitOffset) dropCd = eachDrop(offsetHat);
-  if (slowDrops.length > 0) {
-    warnings.push({
-      code: 'drop-not-slower-than-free-fall',
-      message: `No drag coefficient of its own for ${slowDrops.join('; ')}: the time is not longer than a drag-free fall, which timing noise explains. The drop stays in the series fit.`,
-    });
-  }
-  const fitted: FallParameters = { effective_gravity_m_s2: gEff, drag_constant_per_m: kHat, effective_mass_kg: mEff };
-
-  // Residual scatter: Type A.
-  const fittedTimes = req.drops.map((d) => fallTime(d.height_m, fitted) + offsetHat);
-  const residuals = req.drops.map((d, i) => d.time_s - fittedTimes[i]!);
-  const dof = req.drops.length - (fitOffset ? 2 : 1);
-  const scatter = dof > 0 ? Math.sqrt(residuals.reduce((s, r) => s + r * r, 0) / dof) : null;
-  const excess = scatter !== null && scatter > timingU ? Math.sqrt(scatter * scatter - timingU * timingU) : 0;
-  if (scatter === null) {
-    warnings.push({
-      code: 'scatter-not-assessed',
-      message: 'Too few drops to see their scatter: the uncertainty rests on the declared timing uncertainty alone.',
-    });
-  } else if (dof >= 2 && scatter > 2 * timingU) {
-    warnings.push({
-      code: 'scatter-exceeds-timing-uncertainty',
-      message: `The drops scatter by ${scatter.toPrecision(3)} s, more than twice the declared timing uncertainty of ${timingU} s; the excess enters the budget as a Type A component.`,
-    });
-  }
-
-  // Per-height standard uncertainty of a mean time (declared timing and excess scatter).
-  const meanTimeU = (j: number): number => Math.sqrt((timingU * timingU + excess * excess) / counts[j]!);
-
-  // A series faster than the drag-free model by far more than its noise is an error.
-  if (kHat < 0) {
-    for (let j = 0; j < J; j++) {
-      const deficit = fallTime(groupHeights[j]!, noDrag) - fallTime(groupHeights[j]!, fitted);
-      if (deficit > SERIES_FASTER_SIGMAS * meanTimeU(j)) {
-        throw new PhysicsInputError({
-          code: 'faster-than-free-fall',
-          field: 'drops',
-          value: `mean ${meanTimes[j]!.toFixed(4)} s from ${groupHeights[j]} m`,
-          allowed: `no faster than the drag-free fall (${fallTime(groupHeights[j]!, noDrag).toFixed(4)} s) by more than about ${SERIES_FASTER_SIGMAS} standard uncertainties (${(SERIES_FASTER_SIGMAS * meanTimeU(j)).toFixed(4)} s)`,
-        });
-      }
-    }
-  }
-
-  // GUM budget.
-  const specs: BudgetInputSpec[] = [];
-  const missing: string[] = [];
-  const timeIndices = Array.from({ length: J }, (_, j) => L.firstTime + j);
-  const timeWeights = Array.from({ length: J }, (_, j) => 1 / Math.sqrt(counts[j]!));
-  specs.push({
-    input: 'time_s',
-    description: 'random timing error of one drop (declared)',
-    evaluation: 'B',
-    standard_uncertainty: timingU,
-    indices: timeIndices,
-    weights: timeWeights,
-    degrees_of_freedom: Infinity,
-  });
-  if (excess > 0) {
-    specs.push({
-      input: 'scatter_s',
-      description: `scatter between drops beyond the declared timing uncertainty (Type A, ν = ${dof})`,
-      evaluation: 'A',
-      standard_uncertainty: excess,
-      indices: timeIndices,
-      weights: timeWeights,
-      degrees_of_freedom: dof,
-    });
-  }
-  const single = (input: string, description: string, index: number, weight: number, value: number | undefined): void => {
-    if (value === undefined) missing.push(input);
-    specs.push({
-      input,
-      description,
-      evaluation: 'B',
-      standard_uncertainty: value ?? 0,
-      indices: [index],
-      weights: [weight],
-      degrees_of_freedom: Infinity,
-    });
-  };
-  if (u.height_m === undefined) missing.push('height_m');
-  specs.push({
-    input: 'height_m',
-    description: J > 1 ? `release height, independent at each of the ${J} heights` : 'release height',
-    evaluation: 'B',
-    standard_uncertainty: heightU,
-    indices: Array.from({ length: J }, (_, j) => L.firstHeight + j),
-    weights: Array.from({ length: J }, () => 1),
-    degrees_of_freedom: Infinity,
-  });
-  single('mass_kg', 'specimen mass', L.mass_kg, 1, u.mass_kg);
-  specimen.dimension_names.forEach((name, i) => {
-    single(name, `specimen ${name.replace(/_m\d?$/, '').replace('_', ' ')}`, L.firstDimension + i, 1, u[name as keyof typeof u]);
-  });
-  if (air.density_source === 'override') {
-    single('density_kg_m3', 'air density (given)', L.density_kg_m3, 1, u.density_kg_m3);
-  } else {
-    single('temperature_C', 'air temperature', L.temperature_K, 1, u.temperature_C);
-    const pressureWeight = req.air.pressure_reference === 'sea_level' ? air.station_pressure_Pa! / req.air.pressure_Pa! : 1;
-    single('pressure_Pa', req.air.pressure_reference === 'sea_level' ? 'sea-level pressure' : 'station pressure', L.pressure_Pa, pressureWeight, u.pressure_Pa);
-    if (humidityKind === 'relative-humidity') {
-      single('relative_humidity_pct', 'relative humidity', L.humidity, 0.01, u.relative_humidity_pct);
-    } else {
-      single('dew_point_C', 'dew point', L.humidity, 1, u.dew_point_C);
-    }
-  }
-  if (u.gravity_m_s2 !== undefined || site.source === 'override') {
-    single('gravity_m_s2', site.source === 'override' ? 'local gravity (given)' : 'local gravity', L.gravity_m_s2, 1, u.gravity_m_s2);
-  }
-  if (missing.length > 0) {
-    warnings.push({
-      code: 'uncertainty-not-given',
-      message: `No standard uncertainty given for ${missing.join(', ')}: counted as exactly known, so the budget may be too small.`,
-    });
-  }
-  return {
-    req, warnings, site, g, air, rho, mu, specimen, geometry, buoyancy, addedMass, fitOffset, timingU, draws, seed,
-    body, noDrag, gEff, mEff, cdFromK, kFromCd, J, counts, groupHeights, groupDrops, groupTimes, meanTimes, dropCd,
-    humidityKind, model, L, x0, estimate, kHat, offsetHat, fitted, fittedTimes, residuals, dof, scatter, excess,
-    meanTimeU, specs, timeIndices,
-  };
+export interface PreparedSeries {
+  setup: SeriesSetup;
+  groups: DropGroups;
+  fit: SeriesFit;
+  /** Each drop's own C_d (less the fitted offset), in the order of the request's drops. */
+  dropCd: (number | null)[];
+  scatter: SeriesScatter;
+  inputs: BudgetInputs;
+  warnings: PhysicsWarning[];
 }
 
-export type PreparedSeries = ReturnType<typeof prepareSeries>;
+export function prepareSeries(request: AnalysisRequest): PreparedSeries {
+  const setup = prepareSetup(request);
+  const drops = setup.request.drops;
+  const warnings: PhysicsWarning[] = [...setup.warnings];
+  const groups = groupDrops(drops);
+  // Without an offset, single drops are checked first: a wild time gets an error naming that drop.
+  let own = setup.fitOffset ? null : dropDragCoefficients(setup, drops, 0);
+  const fit = fitSeries(setup, groups);
+  if (setup.fitOffset) own = dropDragCoefficients(setup, drops, fit.offset_s);
+  if (own!.slow.length > 0) {
+    warnings.push({
+      code: 'drop-not-slower-than-free-fall',
+      message: `No drag coefficient of its own for ${own!.slow.join('; ')}: the time is not longer than a drag-free fall, which timing noise explains. The drop stays in the series fit.`,
+    });
+  }
+  const scatter = seriesScatter(setup, drops, groups, fit);
+  warnings.push(...scatter.warnings);
+  checkNotFasterThanFreeFall(setup, groups, fit, scatter);
+  const inputs = budgetInputs(setup, groups, fit, scatter);
+  warnings.push(...inputs.warnings);
+  return { setup, groups, fit, dropCd: own!.values, scatter, inputs, warnings };
+}
 
 export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
-  const prepared = prepareSeries(request);
-  const {
-    req, warnings, site, g, air, rho, mu, specimen, geometry, buoyancy, addedMass, fitOffset, timingU, draws, seed,
-    body, noDrag, gEff, mEff, cdFromK, kFromCd, J, counts, groupHeights, groupDrops, groupTimes, dropCd,
-    humidityKind, model, L, x0, estimate, kHat, offsetHat, fitted, fittedTimes, residuals, dof, scatter, excess,
-    meanTimeU, specs, timeIndices,
-  } = prepared;
+  const { setup, groups, fit, dropCd, scatter, inputs, warnings } = prepareSeries(request);
+  const { site, air, specimen, geometry, fitOffset, timingU, draws, seed, body, noDrag, humidityKind } = setup;
+  const req = setup.request;
+  const g = setup.gravity_m_s2;
+  const rho = setup.density_kg_m3;
+  const mu = setup.viscosity_Pa_s;
+  const buoyancy = setup.buoyancy;
+  const addedMass = setup.added_mass_coefficient;
+  const gEff = setup.effectiveGravity_m_s2;
+  const mEff = setup.effectiveMass_kg;
+  const J = groups.heights.length;
+  const { counts, heights: groupHeights, members: groupDrops, times: groupTimes } = groups;
+  const { model, layout: L, x0, estimate, fitted } = fit;
+  const kHat = fit.dragConstant_per_m;
+  const offsetHat = fit.offset_s;
+  const { fittedTimes, residuals, dof, scatter: scatterSd, excess, meanTimeU } = scatter;
+  const { specs, timeIndices } = inputs;
   const budget = uncertaintyBudget(model, x0, specs);
 
   // Monte Carlo.
@@ -343,7 +134,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     if (solved.status === 'ok') detectionK = Math.min(detectionK, solved.x / h);
   }
   const resolved = kHat > 0 && mcCd.interval_95[0] > 0 && bestDelayRatio >= 2;
-  const detectionCd = Number.isFinite(detectionK) ? cdFromK(detectionK) : 0;
+  const detectionCd = Number.isFinite(detectionK) ? cdFromDragConstant(setup, detectionK) : 0;
   const upperBound = Math.max(mcCd.upper_bound_95, detectionCd);
   if (!resolved) {
     warnings.push({
@@ -393,6 +184,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const drops: DropResult[] = req.drops.map((drop, i) => {
     const v = fallSpeedAtHeight(drop.height_m, physical);
     return {
+      ...(drop.id !== undefined ? { id: drop.id } : {}),
       height_m: drop.height_m,
       time_s: drop.time_s,
       drag_coefficient: dropCd[i]!,
@@ -500,6 +292,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     },
     prediction: { method: predictionMethod, reference_drag_coefficient: reference },
     model: {
+      mass_kg: specimen.mass_kg,
       buoyancy,
       added_mass_coefficient: addedMass,
       area_m2: geometry.area_m2,
@@ -508,14 +301,14 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       effective_mass_kg: mEff,
       effective_gravity_m_s2: gEff,
       timing_offset: fitOffset ? 'fit' : 'none',
-      scatter_standard_deviation_s: scatter,
+      scatter_standard_deviation_s: scatterSd,
       scatter_degrees_of_freedom: Math.max(dof, 0),
     },
     warnings,
   };
   if (!resolved) {
     result.drag_coefficient_upper_bound_95 = upperBound;
-    result.terminal_velocity_lower_bound_m_s = Math.sqrt(gEff / kFromCd(upperBound));
+    result.terminal_velocity_lower_bound_m_s = Math.sqrt(gEff / dragConstantFromCd(setup, upperBound));
   }
   if (fitOffset && mc.offset) {
     result.timing_offset_s = offsetHat;

@@ -6,6 +6,16 @@
 // The analysis of a series: used by the screens and the office command.
 export { analyzeSeries, DEFAULT_MONTE_CARLO_DRAWS, DRAG_CRISIS_REYNOLDS, CREEPING_FLOW_REYNOLDS } from './analyzeSeries';
 export { validateAnalysisRequest } from './validateAnalysisRequest';
+// Its named stages (the planner evaluates many drop sets on one setup).
+export { prepareSeries, type PreparedSeries } from './analyzeSeries';
+export { prepareSetup, cdFromDragConstant, dragConstantFromCd, type SeriesSetup } from './seriesSetup';
+export { groupDrops, type DropGroups } from './dropGroups';
+export { fitSeries, type SeriesFit } from './seriesFit';
+export { seriesScatter, checkNotFasterThanFreeFall, type SeriesScatter } from './seriesScatter';
+export { budgetInputs, type BudgetInputs } from './budgetInputs';
+export { seriesBudget, type SeriesBudget } from './seriesBudget';
+export { ownDragCoefficient, dropDragCoefficients, type DropDragCoefficients } from './dropDragCoefficient';
+export { fallBodyOf } from './fallBodyOf';
 export type {
   AnalysisRequest,
   AnalysisResult,

@@ -10,7 +10,6 @@
  */
 import { airProperties, type AirInput } from './airProperties';
 import type { AnalysisRequest, UncertaintyInput } from './analysisTypes';
-import { prepareSeries } from './analyzeSeries';
 import { checkNumber, checkOptionalNumber } from './checkNumber';
 import {
   distanceToTerminalFraction,
@@ -24,7 +23,9 @@ import { PhysicsInputError } from './physicsInputError';
 import type { PhysicsWarning } from './physicsWarning';
 import { checkSpecimen, type SpecimenInput } from './specimenGeometry';
 import { morrisonSphereDragCoefficient } from './sphereDragCoefficient';
-import { uncertaintyBudget } from './uncertaintyBudget';
+import { seriesBudget } from './seriesBudget';
+import { prepareSetup } from './seriesSetup';
+import type { BudgetInputSpec } from './uncertaintyBudget';
 import { DROP_LIMITS } from './validateAnalysisRequest';
 
 export interface DropPlanRequest {
@@ -157,23 +158,24 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   const params = fallParameters({ ...body, drag_coefficient: cd });
   const noDrag = fallParameters({ ...body, drag_coefficient: 0 });
 
+  // One setup (validation, air, gravity, the body) for the whole plan; each height and drop count then costs
+  // only the fit and the budget of drops that fall exactly as predicted.
+  const setupRequest: AnalysisRequest = {
+    site: request.site,
+    air: request.air,
+    specimen: request.specimen,
+    drops: [{ height_m: plannedHeight ?? maxHeight, time_s: fallTime(plannedHeight ?? maxHeight, params) }],
+    timing: { standard_uncertainty_s: timingU },
+    options: { buoyancy, added_mass_coefficient: addedMass },
+  };
+  if (request.uncertainty !== undefined) setupRequest.uncertainty = request.uncertainty;
+  const setup = prepareSetup(setupRequest);
+  const timingOnlySpec = (s: BudgetInputSpec): boolean => s.input === 'time_s';
   const relativeUncertainty = (height: number, drops: number, timingOnly = false): number => {
-    const time = fallTime(height, params);
-    const req: AnalysisRequest = {
-      site: request.site,
-      air: request.air,
-      specimen: request.specimen,
-      drops: Array.from({ length: drops }, () => ({ height_m: height, time_s: time })),
-      timing: { standard_uncertainty_s: timingU },
-      options: { buoyancy, added_mass_coefficient: addedMass },
-    };
-    if (request.uncertainty !== undefined) req.uncertainty = request.uncertainty;
-    const prepared = prepareSeries(req);
-    const specs = timingOnly
-      ? prepared.specs.filter((s) => s.input === 'time_s')
-      : prepared.specs;
-    const budget = uncertaintyBudget(prepared.model, prepared.x0, specs);
-    return budget.combined_standard_uncertainty / prepared.estimate;
+    const time = checkNumber('drops[0].time_s', fallTime(height, params), DROP_LIMITS.time_s);
+    const synthetic = Array.from({ length: drops }, () => ({ height_m: height, time_s: time }));
+    const { budget, estimate } = seriesBudget(setup, synthetic, timingOnly ? timingOnlySpec : undefined);
+    return budget.combined_standard_uncertainty / estimate;
   };
   const systematicOnly = (height: number): number => {
     const total = relativeUncertainty(height, 1);

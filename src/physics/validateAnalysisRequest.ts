@@ -114,8 +114,11 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   const drops: DropInput[] = dropsValue.map((d, i) => {
     const field = `drops[${i}]`;
     const drop = asObject(d, field);
-    rejectUnknown(drop, field, ['height_m', 'time_s']);
+    rejectUnknown(drop, field, ['id', 'height_m', 'time_s']);
+    const id = drop['id'];
+    if (id !== undefined && typeof id !== 'string') throw new PhysicsInputError({ code: 'wrong-type', field: `${field}.id`, value: id, allowed: 'a string (the drop\'s own name)' });
     return {
+      ...(id !== undefined ? { id } : {}),
       height_m: checkNumber(`${field}.height_m`, drop['height_m'], DROP_LIMITS.height_m),
       time_s: checkNumber(`${field}.time_s`, drop['time_s'], DROP_LIMITS.time_s),
     };

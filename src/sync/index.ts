@@ -16,3 +16,4 @@ export * from './sync-run';
 export * from './scheduler';
 export * from './auto-sync';
 export * from './csv-export';
+export * from './send-log';

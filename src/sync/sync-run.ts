@@ -14,11 +14,12 @@
  * the progress made (files merged, the upload) is saved in the sync state as it happens. The run itself never
  * throws: the report carries the error, and the state remembers it for the screens and the back-off.
  */
-import { exportLog, LogFileError, readLogFile, type Conflict } from '../log';
+import { LogFileError, readLogFile, type Conflict } from '../log';
 import { contentHash } from './content-hash';
 import { describeError, SyncError } from './errors';
 import { applyImport } from './import-log';
 import type { RecordSource } from './record-source';
+import { sendLog } from './send-log';
 import { loadSyncSettings, type SyncSettings } from './settings';
 import { isStrongTag, listedUnchanged, loadSyncState, remoteState, saveSyncState, type SyncState } from './sync-state';
 import { WebDavClient, type FetchedFile, type PutConditions } from './webdav-client';
@@ -211,40 +212,38 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
     state.uploaded_hash = null;
   }
 
-  let unsentBefore: number | undefined;
-  if (source.status) unsentBefore = (await source.status()).unsentChanges;
-  let text = exportLog(await source.allRecords({ includeDeleted: true }), { device, app_version: options.appVersion });
-  let hash = contentHash(text);
-  if (ownEntry && state.own && hash === state.uploaded_hash && hash === state.own.hash) {
-    await source.markSent?.(options.now?.() ?? Date.now(), unsentBefore);
-    return;
-  }
-  // Conditions only with a strong tag: a weak one never matches in If-Match (RFC 9110 §13.1.1).
-  let conditions: PutConditions = ownEntry ? (isStrongTag(ownEtag) ? { ifMatch: ownEtag } : {}) : { ifNoneMatch: '*' };
-  const attempts = options.maxPutAttempts ?? 3;
-  for (let attempt = 1; ; attempt++) {
-    try {
-      let version = await client.put(ownName, text, conditions);
-      // Neither Apache nor nginx sends an ETag with a PUT's answer: ask for the version just written.
-      if (!version.etag && !version.lastModified) version = (await client.head(ownName)) ?? version;
-      state.own = remoteState({ ...version, contentLength: new TextEncoder().encode(text).length }, hash);
-      state.uploaded_hash = hash;
-      report.uploaded = true;
-      break;
-    } catch (error) {
-      if (!(error instanceof SyncError) || error.code !== 'sync-precondition' || attempt >= attempts) throw error;
-      const fetched = await client.get(ownName);
-      if (fetched) {
-        await mergeFetched(source, ownName, fetched, report);
-        conditions = isStrongTag(fetched.etag) ? { ifMatch: fetched.etag } : {};
-      } else {
-        conditions = { ifNoneMatch: '*' };
+  // 4. Export, upload, and mark what was sent (sendLog counts the unsent changes before reading the records).
+  await sendLog(source, { appVersion: options.appVersion, device, now: () => options.now?.() ?? Date.now() }, async (log) => {
+    let text = log.text;
+    let hash = contentHash(text);
+    if (ownEntry && state.own && hash === state.uploaded_hash && hash === state.own.hash) return { sent: true, value: undefined };
+    // Conditions only with a strong tag: a weak one never matches in If-Match (RFC 9110 §13.1.1).
+    let conditions: PutConditions = ownEntry ? (isStrongTag(ownEtag) ? { ifMatch: ownEtag } : {}) : { ifNoneMatch: '*' };
+    const attempts = options.maxPutAttempts ?? 3;
+    for (let attempt = 1; ; attempt++) {
+      try {
+        let version = await client.put(ownName, text, conditions);
+        // Neither Apache nor nginx sends an ETag with a PUT's answer: ask for the version just written.
+        if (!version.etag && !version.lastModified) version = (await client.head(ownName)) ?? version;
+        state.own = remoteState({ ...version, contentLength: new TextEncoder().encode(text).length }, hash);
+        state.uploaded_hash = hash;
+        report.uploaded = true;
+        break;
+      } catch (error) {
+        if (!(error instanceof SyncError) || error.code !== 'sync-precondition' || attempt >= attempts) throw error;
+        const fetched = await client.get(ownName);
+        if (fetched) {
+          await mergeFetched(source, ownName, fetched, report);
+          conditions = isStrongTag(fetched.etag) ? { ifMatch: fetched.etag } : {};
+        } else {
+          conditions = { ifNoneMatch: '*' };
+        }
+        text = await log.again();
+        hash = contentHash(text);
       }
-      text = exportLog(await source.allRecords({ includeDeleted: true }), { device, app_version: options.appVersion });
-      hash = contentHash(text);
     }
-  }
-  await saveSyncState(source, state);
-  await source.markSent?.(options.now?.() ?? Date.now(), unsentBefore);
+    await saveSyncState(source, state);
+    return { sent: true, value: undefined };
+  });
 }
 

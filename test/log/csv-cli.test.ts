@@ -67,7 +67,8 @@ describe('writing the CSV tables of an exported log', () => {
       timing: { standard_uncertainty_s: 0.004, offset: 'none' },
       uncertainty: { height_m: 0.01, mass_kg: 0.0001, diameter_m: 0.0001, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3 },
     });
-    expect(request.drops).toEqual(input.drops.map((d) => ({ height_m: 12, time_s: d.time_s })));
+    // Each drop carries its record's id, so its result is joined to it by id.
+    expect(request.drops).toEqual(input.drops.map((d) => ({ id: d.id, height_m: 12, time_s: d.time_s })));
     // A box's vertical extent is what the physics calls its thickness.
     const box = seriesRequest(seriesInputs(log)[1]!);
     expect(box.specimen).toMatchObject({ shape: 'box', length_m: 0.1, width_m: 0.1, thickness_m: 0.1 });

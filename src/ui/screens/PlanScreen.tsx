@@ -1,14 +1,15 @@
 import { useMemo } from 'preact/hooks';
-import { planDrop } from '../../physics';
+import type { DropPlan } from '../../physics';
 import type { TimingMethod } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../forms';
 import { routeHref } from '../router';
 import { SafetyCaution, impactEnergyWarning } from '../SafetyCaution';
-import { airInput, specimenInput } from '../../analysis';
+import { analyzeDay, PLAN_DEFAULTS, planFor, specimenDragCoefficientOfDay, type PlanSources } from '../../analysis';
 import { TIMING_DEFAULTS, TIMING_OPTIONS } from './day/SeriesForm';
 import { describeError } from '../errors';
+import { useSettled } from '../use-settled';
 
 interface PlanDraft {
   specimenId: string;
@@ -17,6 +18,8 @@ interface PlanDraft {
   uTime: FieldState;
   target: FieldState;
   maxHeight: FieldState;
+  /** Plan with the C_d measured today for this specimen, when there is one. */
+  useMeasured?: boolean;
 }
 
 /** Try a drop before making it: fall time, impact, and the height and drops a target uncertainty needs. */
@@ -30,11 +33,12 @@ export function PlanScreen() {
   }, [app.settings.currentDayId]);
   const form = useDraft<PlanDraft>('planner', () => ({
     specimenId: '',
-    height: field(10),
+    height: field(PLAN_DEFAULTS.form.height_m),
     timingMethod: 'tap',
     uTime: field(TIMING_DEFAULTS.tap.u_s),
-    target: field(5),
-    maxHeight: field(50),
+    target: field(PLAN_DEFAULTS.form.target_pct),
+    maxHeight: field(PLAN_DEFAULTS.form.max_height_m),
+    useMeasured: true,
   }));
   const d = form.value;
   const specimens = data.state === 'ready' ? data.value.specimens : [];
@@ -42,30 +46,29 @@ export function PlanScreen() {
   const view = data.state === 'ready' ? data.value.view : null;
   const reading = view?.readings[view.readings.length - 1] ?? null;
   const site = view?.site ?? null;
+  // Only the C_d is taken from today's series: few Monte Carlo draws do.
+  const today = useMemo(() => (view ? analyzeDay(view, { monteCarloDraws: 200 }) : []), [view]);
+  const measured = specimen ? specimenDragCoefficientOfDay(today, specimen.id) : null;
+  // The plan follows the form once typing rests, not every keystroke.
+  const settled = useSettled(d);
 
   const plan = useMemo(() => {
-    if (!specimen || !fieldsValid(d.height, d.uTime, d.target, d.maxHeight)) return null;
+    if (!specimen || !fieldsValid(settled.height, settled.uTime, settled.target, settled.maxHeight)) return null;
     try {
-      const sp = specimenInput(specimen);
-      const air = reading ? airInput(reading) : { air: { temperature_C: 15, pressure_Pa: 101_325, pressure_reference: 'station' as const, relative_humidity_pct: 0 }, uncertainty: {} };
-      return {
-        ok: true as const,
-        plan: planDrop({
-          site: site ? { latitude_deg: site.latitude_deg, elevation_m: site.elevation_m } : { latitude_deg: 45, elevation_m: 0 },
-          air: air.air,
-          specimen: sp.input,
-          timing: { standard_uncertainty_s: d.uTime.value! },
-          uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: 0.01 },
-          height_m: Math.min(d.height.value!, d.maxHeight.value!),
-          target_relative_uncertainty: d.target.value! / 100,
-          max_height_m: d.maxHeight.value!,
-          max_drops: 30,
-        }),
-      };
+      return { ok: true as const, ...planFor({
+        specimen,
+        reading,
+        site,
+        measuredDragCoefficient: settled.useMeasured !== false && measured ? measured.value : null,
+        u_time_s: settled.uTime.value!,
+        height_m: settled.height.value!,
+        target_relative_uncertainty: settled.target.value! / 100,
+        max_height_m: settled.maxHeight.value!,
+      }) };
     } catch (e) {
       return { ok: false as const, message: describeError(e) };
     }
-  }, [specimen, reading, site, d]);
+  }, [specimen, reading, site, measured?.value, settled]);
 
   return (
     <div>
@@ -78,7 +81,7 @@ export function PlanScreen() {
         <section class="card" aria-labelledby="plan-h">
           <h2 id="plan-h">Try a drop</h2>
           <p class="hint">
-            Air: {reading ? `the latest reading of the current day (${app.format(reading.temperature_C, 'temperature')})` : 'standard sea-level air, 15 °C, dry (no current day with a reading)'}.
+            Air: {reading ? `the latest reading of the current day (${app.format(reading.temperature_C, 'temperature')})` : `standard sea-level air, ${app.format(PLAN_DEFAULTS.air.temperature_C, 'temperature')}, dry (no current day with a reading)`}.
           </p>
           <SelectField
             id="plan-specimen"
@@ -98,15 +101,21 @@ export function PlanScreen() {
           <QField label="Timing std. uncertainty per drop" kind="time" delta state={d.uTime} min={0} minExclusive max={1} onChange={(uTime) => form.set({ uTime })} />
           <QField label="Target uncertainty of C_d" kind="percent" state={d.target} min={0} minExclusive max={100} onChange={(target) => form.set({ target })} />
           <QField label="Highest release point available" kind="length" state={d.maxHeight} min={0.5} max={5000} onChange={(maxHeight) => form.set({ maxHeight })} />
+          {measured ? (
+            <label class="check">
+              <input type="checkbox" checked={d.useMeasured !== false} onChange={(e) => form.set({ useMeasured: (e.target as HTMLInputElement).checked })} />
+              <span>Use the C_d measured today for this specimen ({measured.value.toFixed(3)})</span>
+            </label>
+          ) : null}
         </section>
       )}
       {plan && !plan.ok ? <Notice tone="bad">{plan.message}</Notice> : null}
-      {plan && plan.ok ? <PlanResult plan={plan.plan} /> : null}
+      {plan && plan.ok ? <PlanResult plan={plan.plan} sources={plan.sources} /> : null}
     </div>
   );
 }
 
-function PlanResult({ plan }: { plan: ReturnType<typeof planDrop> }) {
+function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources }) {
   const app = useApp();
   const at = plan.at_height;
   const energyWarning = impactEnergyWarning(at?.impact_energy_J);
@@ -114,7 +123,15 @@ function PlanResult({ plan }: { plan: ReturnType<typeof planDrop> }) {
     <section class="card result" aria-labelledby="planres-h" aria-live="polite">
       <h3 id="planres-h">What to expect</h3>
       <p class="hint">
-        Assumed C_d {plan.drag_coefficient.toFixed(3)} ({plan.drag_coefficient_source === 'reference' ? 'the specimen’s reference value' : plan.drag_coefficient_source === 'given' ? 'given' : 'sphere correlation'}).
+        Assumed C_d {plan.drag_coefficient.toFixed(3)} (
+        {sources.dragCoefficient === 'measured'
+          ? 'measured today'
+          : plan.drag_coefficient_source === 'reference'
+            ? 'the specimen’s reference value'
+            : plan.drag_coefficient_source === 'given'
+              ? 'given'
+              : 'sphere correlation'}
+        ).{sources.site === 'default' ? ` Gravity at ${PLAN_DEFAULTS.site.latitude_deg}° latitude at sea level (no current day with a site).` : ''}
       </p>
       {at ? (
         <div class="figures">

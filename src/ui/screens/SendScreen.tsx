@@ -1,6 +1,6 @@
 import { useEffect, useState } from 'preact/hooks';
-import { exportLog, logFileName, logCsv, type LogSelection, type MergePreview } from '../../log';
-import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, physicsSeriesComputer, previewImport, saveSyncSettings, type ImportPreview, type SyncReport } from '../../sync';
+import { logFileName, type LogSelection, type MergePreview } from '../../log';
+import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, logCsvFiles, previewImport, saveSyncSettings, sendLog, type ImportPreview, type SyncReport } from '../../sync';
 import { pickFile, shareFile } from '../../sync/page';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
@@ -23,19 +23,15 @@ export function SendScreen() {
   const exportJson = async () => {
     setMessage(null);
     try {
-      const before = await app.store.status();
-      const records = await app.store.allRecords({ includeDeleted: true });
-      const device = await app.store.deviceId();
       const selection: Partial<LogSelection> | null =
         part === 'all' ? null : part === 'catalogue' ? { kinds: ['specimen', 'site'] } : { day_ids: [part] };
-      const text = exportLog(records, { device, app_version: __APP_VERSION__, selection });
       const label = part === 'all' ? undefined : part === 'catalogue' ? 'catalogue' : `day-${days.state === 'ready' ? (days.value.find((d) => d.id === part)?.date ?? 'chosen') : 'chosen'}`;
-      const outcome = await shareFile({ name: logFileName(device, localDate(), label), text, type: 'application/json' }, undefined, 'Plummet log');
-      // Only the whole log counts as sent: a part leaves the rest of the changes unsent.
-      if (outcome !== 'cancelled' && part === 'all') {
-        await app.store.markSent(new Date(), before.unsentChanges);
-        await app.refreshStatus();
-      }
+      const outcome = await sendLog(app.store, { appVersion: __APP_VERSION__, selection, now: () => new Date() }, async (log) => {
+        const shared = await shareFile({ name: logFileName(log.device, localDate(), label), text: log.text, type: 'application/json' }, undefined, 'Plummet log');
+        // Only the whole log counts as sent: a part leaves the rest of the changes unsent.
+        return { sent: shared !== 'cancelled' && part === 'all', value: shared };
+      });
+      if (outcome !== 'cancelled' && part === 'all') await app.refreshStatus();
       setMessage({ tone: 'good', text: outcome === 'shared' ? 'The log was handed to the share sheet.' : outcome === 'downloaded' ? 'The log file was downloaded.' : 'Sharing was cancelled.' });
     } catch (e) {
       setMessage({ tone: 'bad', text: describeError(e) });
@@ -47,10 +43,9 @@ export function SendScreen() {
     try {
       const records = await app.store.allRecords({ includeDeleted: false });
       const device = await app.store.deviceId();
-      const csv = logCsv(records, physicsSeriesComputer());
-      const base = logFileName(device, localDate()).replace(/\.json$/, '');
-      await shareFile({ name: `${base}-drops.csv`, text: csv.drops, type: 'text/csv' }, undefined, 'Plummet drops');
-      await shareFile({ name: `${base}-series.csv`, text: csv.series, type: 'text/csv' }, undefined, 'Plummet series');
+      const [drops, series] = logCsvFiles(records, logFileName(device, localDate()).replace(/\.json$/, ''));
+      await shareFile(drops!, undefined, 'Plummet drops');
+      await shareFile(series!, undefined, 'Plummet series');
       setMessage({ tone: 'good', text: 'Two CSV files: one row per drop, one row per series.' });
     } catch (e) {
       setMessage({ tone: 'bad', text: describeError(e) });

@@ -1,12 +1,11 @@
 import { useMemo, useState } from 'preact/hooks';
-import { airProperties } from '../../../physics';
 import type { DayView } from '../../../store';
 import { useApp } from '../../app-context';
 import { useStoreData } from '../../hooks';
 import { Notice } from '../../forms';
 import { routeHref } from '../../router';
 import { SafetyCaution } from '../../SafetyCaution';
-import { airInput, analyzeDay } from '../../../analysis';
+import { analyzeDay, readingAirDensity } from '../../../analysis';
 import { ReadingForm } from './ReadingForm';
 import { SeriesForm } from './SeriesForm';
 import { describeError } from '../../errors';
@@ -81,15 +80,8 @@ function ReadingList({ view }: { view: DayView }) {
   return (
     <ul class="rows">
       {view.readings.map((r) => {
-        let density = '—';
-        try {
-          density = format(
-            airProperties(airInput(r).air, view.site?.elevation_m).density_kg_m3,
-            'density',
-          );
-        } catch {
-          density = 'not computable';
-        }
+        const rho = readingAirDensity(r, view.site);
+        const density = rho === null ? 'not computable' : format(rho, 'density');
         return (
           <li key={r.id} class="row">
             <span class="row-main">

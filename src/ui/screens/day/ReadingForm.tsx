@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'preact/hooks';
-import { airProperties, PhysicsInputError } from '../../../physics';
+import { typedAirProperties } from '../../../analysis';
 import type { SiteRecord } from '../../../log';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
@@ -28,20 +28,17 @@ function useAirPreview(d: ReadingDraft, site: SiteRecord | null) {
     const humidityOk = d.humidityKind === 'relative' ? fieldsValid(d.humidity) : fieldsValid(d.dewPoint);
     if (!fieldsValid(d.temperature, d.pressure) || !humidityOk || d.reference === '') return null;
     try {
-      return {
-        ok: true as const,
-        air: airProperties(
-          {
-            temperature_C: d.temperature.value!,
-            pressure_Pa: d.pressure.value!,
-            pressure_reference: d.reference,
-            ...(d.humidityKind === 'relative' ? { relative_humidity_pct: d.humidity.value! } : { dew_point_C: d.dewPoint.value! }),
-          },
-          site?.elevation_m,
-        ),
-      };
+      return typedAirProperties(
+        {
+          temperature_C: d.temperature.value!,
+          pressure_Pa: d.pressure.value!,
+          pressure_reference: d.reference,
+          ...(d.humidityKind === 'relative' ? { relative_humidity_pct: d.humidity.value! } : { dew_point_C: d.dewPoint.value! }),
+        },
+        site,
+      );
     } catch (e) {
-      return { ok: false as const, message: e instanceof PhysicsInputError ? e.message : describeError(e) };
+      return { ok: false as const, message: describeError(e) };
     }
   }, [d, site]);
 }

@@ -1,0 +1,55 @@
+// The rows of a series' drop table: each drop record beside its result, joined by the drop's id.
+import { fallBodyOf, ownDragCoefficient, type AnalysisResult } from '../physics';
+import type { DropRecord, SeriesRecord } from '../log';
+import type { SeriesOutcome } from './series-analysis';
+import { dropHeight } from './series-request';
+
+export interface DropRow {
+  drop: DropRecord;
+  height_m: number;
+  /** Whether the drop is in the series fit (its result is the fit's). */
+  used: boolean;
+  /** The drop's own C_d, excluded drops too; null when not computable (see ownMessage). */
+  own_drag_coefficient: number | null;
+  /** Why there is no own C_d, when a computation refused the drop. */
+  ownMessage: string | null;
+  predicted_time_s: number | null;
+  residual_s: number | null;
+}
+
+/**
+ * One drop's own C_d on the series' body and air, for drops the fit leaves out: the same function the analysis
+ * uses for the drops in the fit, with the same fitted timing offset taken off the time.
+ */
+export function singleDropDragCoefficient(result: AnalysisResult, height_m: number, time_s: number): { value: number | null; message: string | null } {
+  try {
+    return { value: ownDragCoefficient(fallBodyOf(result), height_m, time_s, result.timing_offset_s ?? 0), message: null };
+  } catch (error) {
+    return { value: null, message: error instanceof Error ? error.message : String(error) };
+  }
+}
+
+/** Every live drop of the series (in the order given) with its numbers from the outcome. */
+export function seriesDropRows(series: SeriesRecord, drops: readonly DropRecord[], outcome: SeriesOutcome): DropRow[] {
+  const ready = outcome.kind === 'ready' ? outcome : null;
+  const results = new Map((ready?.result.drops ?? []).map((r) => [r.id, r]));
+  return drops
+    .filter((d) => !d.deleted)
+    .map((drop) => {
+      const height_m = dropHeight(drop, series);
+      const none = { drop, height_m, used: false, own_drag_coefficient: null, ownMessage: null, predicted_time_s: null, residual_s: null };
+      if (!ready) return none;
+      const r = results.get(drop.id);
+      if (r) {
+        return { drop, height_m, used: true, own_drag_coefficient: r.drag_coefficient, ownMessage: null, predicted_time_s: r.predicted_time_s, residual_s: r.residual_s };
+      }
+      const own = singleDropDragCoefficient(ready.result, height_m, drop.time_s);
+      return { ...none, own_drag_coefficient: own.value, ownMessage: own.message };
+    });
+}
+
+/** The drop record behind a result drop index (e.g. Grubbs' suspect), by id. */
+export function dropOfResult(result: AnalysisResult, index: number, drops: readonly DropRecord[]): DropRecord | undefined {
+  const id = result.drops[index]?.id;
+  return id === undefined ? undefined : drops.find((d) => d.id === id);
+}

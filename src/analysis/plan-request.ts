@@ -1,0 +1,130 @@
+/**
+ * The planner's requests, built from the log's records: from the Planner screen (a specimen, and the current
+ * day's reading and site when there is one) and from a series' "what would it take" advice (the series' own
+ * air, site, specimen, uncertainties and measured C_d). Every value the crew did not give is a named default
+ * here, never a number hidden in a screen.
+ */
+import { planDrop, type AnalysisResult, type DropPlan, type DropPlanRequest } from '../physics';
+import type { ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
+import type { SeriesOutcome } from './series-analysis';
+import { airInput, siteInput, specimenInput } from './series-request';
+
+/** What the planner assumes when the crew has not said otherwise. */
+export const PLAN_DEFAULTS = {
+  /**
+   * Air without a reading: the ICAO standard atmosphere at sea level (ISO 2533:1975: 15 °C, 101 325 Pa), taken
+   * as dry (0 % RH). No uncertainty is attached to it (the plan then warns that the air counts as exactly known).
+   */
+  air: { temperature_C: 15, pressure_Pa: 101_325, pressure_reference: 'station', relative_humidity_pct: 0 } as const satisfies DropPlanRequest['air'],
+  /** Site without a record: 45° latitude at sea level, a middle value of normal gravity (9.806 m/s², WGS84). */
+  site: { latitude_deg: 45, elevation_m: 0 } as const satisfies DropPlanRequest['site'],
+  /** Standard uncertainty of a release height measured with a tape over a few metres, m (common practice). */
+  u_height_m: 0.01,
+  /** Most drops the crew will make at one height on the Planner screen. */
+  max_drops: 30,
+  /** The Planner form's starting values: release height (m), target u(C_d)/C_d (%), highest release point (m). */
+  form: { height_m: 10, target_pct: 5, max_height_m: 50 },
+} as const;
+
+/** What a series' advice assumes beyond the series' own records. */
+export const ADVICE_DEFAULTS = {
+  /** The highest release point considered, m, unless the series is already higher. */
+  max_height_m: 100,
+  /** Most drops considered from one height. */
+  max_drops: 50,
+} as const;
+
+export interface PlanInputs {
+  specimen: SpecimenRecord;
+  /** The air reading to plan with; null for PLAN_DEFAULTS.air. */
+  reading: ReadingRecord | null;
+  /** The site to plan at; null for PLAN_DEFAULTS.site. */
+  site: SiteRecord | null;
+  /** A C_d measured for this specimen; null for the specimen's reference value or the sphere correlation. */
+  measuredDragCoefficient: number | null;
+  u_time_s: number;
+  height_m: number;
+  target_relative_uncertainty: number;
+  max_height_m: number;
+  u_height_m?: number;
+  max_drops?: number;
+}
+
+/** Where each part of a plan came from, for the screen to say. */
+export interface PlanSources {
+  air: 'reading' | 'default';
+  site: 'site' | 'default';
+  dragCoefficient: 'measured' | 'specimen';
+}
+
+export function planRequest(inputs: PlanInputs): { request: DropPlanRequest; sources: PlanSources } {
+  const sp = specimenInput(inputs.specimen);
+  const air = inputs.reading ? airInput(inputs.reading) : { air: { ...PLAN_DEFAULTS.air }, uncertainty: {} };
+  const measured = inputs.measuredDragCoefficient !== null && inputs.measuredDragCoefficient > 0 ? inputs.measuredDragCoefficient : null;
+  return {
+    request: {
+      site: inputs.site ? siteInput(inputs.site) : { ...PLAN_DEFAULTS.site },
+      air: air.air,
+      specimen: sp.input,
+      timing: { standard_uncertainty_s: inputs.u_time_s },
+      uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: inputs.u_height_m ?? PLAN_DEFAULTS.u_height_m },
+      ...(measured !== null ? { drag_coefficient: measured } : {}),
+      height_m: Math.min(inputs.height_m, inputs.max_height_m),
+      target_relative_uncertainty: inputs.target_relative_uncertainty,
+      max_height_m: inputs.max_height_m,
+      max_drops: inputs.max_drops ?? PLAN_DEFAULTS.max_drops,
+    },
+    sources: { air: inputs.reading ? 'reading' : 'default', site: inputs.site ? 'site' : 'default', dragCoefficient: measured !== null ? 'measured' : 'specimen' },
+  };
+}
+
+/** The C_d a result measured, or when drag is not resolved its 95 % upper bound; null when neither is positive. */
+export function measuredDragCoefficient(result: AnalysisResult): number | null {
+  const cd = result.drag_coefficient ?? result.drag_coefficient_upper_bound_95 ?? null;
+  return cd !== null && cd > 0 ? cd : null;
+}
+
+/** "What would it take": the plan request on the series' own air, site, specimen, uncertainties and measured C_d. */
+export function seriesPlanRequest(outcome: Extract<SeriesOutcome, { kind: 'ready' }>, series: SeriesRecord): DropPlanRequest {
+  const cd = measuredDragCoefficient(outcome.result);
+  const request: DropPlanRequest = {
+    site: outcome.request.site,
+    air: outcome.request.air,
+    specimen: outcome.request.specimen,
+    timing: { standard_uncertainty_s: series.u_time_s },
+    ...(cd !== null ? { drag_coefficient: cd } : {}),
+    height_m: series.height_m,
+    target_relative_uncertainty: series.target_relative_uncertainty,
+    max_height_m: Math.max(ADVICE_DEFAULTS.max_height_m, series.height_m),
+    max_drops: ADVICE_DEFAULTS.max_drops,
+  };
+  if (outcome.request.uncertainty !== undefined) request.uncertainty = outcome.request.uncertainty;
+  return request;
+}
+
+/**
+ * The C_d measured for a specimen on a day: the latest of its series (by start) whose drag is resolved; null when
+ * none is.
+ */
+export function specimenDragCoefficientOfDay(
+  rows: readonly { series: SeriesRecord; outcome: SeriesOutcome }[],
+  specimenId: string,
+): { value: number; series: SeriesRecord } | null {
+  let best: { value: number; series: SeriesRecord } | null = null;
+  for (const { series, outcome } of rows) {
+    if (series.specimen_id !== specimenId || outcome.kind !== 'ready' || outcome.result.drag_coefficient === null) continue;
+    if (!best || series.started_at > best.series.started_at) best = { value: outcome.result.drag_coefficient, series };
+  }
+  return best;
+}
+
+/** "What would it take" for a series that has not met its target: the planner's answer on the series' own data. */
+export function seriesAdvice(outcome: Extract<SeriesOutcome, { kind: 'ready' }>, series: SeriesRecord): DropPlan['target'] {
+  return planDrop(seriesPlanRequest(outcome, series)).target;
+}
+
+/** The Planner screen's plan: the request from the records and the form, planned. */
+export function planFor(inputs: PlanInputs): { plan: DropPlan; sources: PlanSources } {
+  const { request, sources } = planRequest(inputs);
+  return { plan: planDrop(request), sources };
+}

@@ -1,0 +1,133 @@
+// From the log's records to the physics core's request: the one place a series' request is built, and the one
+// check of what a series still lacks, read alike by the screens, the CSV tables and the office command.
+import type { AnalysisRequest, SpecimenInput, UncertaintyInput } from '../physics';
+import type { DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
+
+export function specimenInput(specimen: SpecimenRecord): { input: SpecimenInput; uncertainty: UncertaintyInput } {
+  const s = specimen.shape;
+  const common = {
+    mass_kg: specimen.mass_kg,
+    ...(specimen.reference_drag_coefficient !== null ? { reference_drag_coefficient: specimen.reference_drag_coefficient } : {}),
+  };
+  const u: UncertaintyInput = { mass_kg: specimen.u_mass_kg };
+  switch (s.kind) {
+    case 'sphere':
+      return { input: { ...common, shape: 'sphere', diameter_m: s.diameter_m }, uncertainty: { ...u, diameter_m: s.u_diameter_m } };
+    case 'cylinder':
+      return {
+        input: { ...common, shape: 'cylinder', diameter_m: s.diameter_m, length_m: s.length_m },
+        uncertainty: { ...u, diameter_m: s.u_diameter_m, length_m: s.u_length_m },
+      };
+    case 'disc':
+      return {
+        input: { ...common, shape: 'disc', diameter_m: s.diameter_m, thickness_m: s.thickness_m },
+        uncertainty: { ...u, diameter_m: s.u_diameter_m, thickness_m: s.u_thickness_m },
+      };
+    case 'box':
+      // The log calls the box's vertical extent its height; the physics core calls it thickness.
+      return {
+        input: { ...common, shape: 'box', length_m: s.length_m, width_m: s.width_m, thickness_m: s.height_m },
+        uncertainty: { ...u, length_m: s.u_length_m, width_m: s.u_width_m, thickness_m: s.u_height_m },
+      };
+    case 'custom':
+      return {
+        input: { ...common, shape: 'custom', area_m2: s.area_m2, volume_m3: s.volume_m3 },
+        uncertainty: { ...u, area_m2: s.u_area_m2, volume_m3: s.u_volume_m3 },
+      };
+  }
+}
+
+export function airInput(reading: ReadingRecord): { air: AnalysisRequest['air']; uncertainty: UncertaintyInput } {
+  const h = reading.humidity;
+  return {
+    air: {
+      temperature_C: reading.temperature_C,
+      pressure_Pa: reading.pressure_Pa,
+      pressure_reference: reading.pressure_reference,
+      ...(h.kind === 'relative' ? { relative_humidity_pct: h.relative_humidity_pct } : { dew_point_C: h.dew_point_C }),
+    },
+    uncertainty: {
+      temperature_C: reading.u_temperature_C,
+      pressure_Pa: reading.u_pressure_Pa,
+      ...(h.kind === 'relative' ? { relative_humidity_pct: h.u_relative_humidity_pct } : { dew_point_C: h.u_dew_point_C }),
+    },
+  };
+}
+
+export function siteInput(site: SiteRecord): AnalysisRequest['site'] {
+  return { latitude_deg: site.latitude_deg, elevation_m: site.elevation_m };
+}
+
+export function dropHeight(drop: DropRecord, series: SeriesRecord): number {
+  return drop.height_m ?? series.height_m;
+}
+
+/** The drops a series' fit uses: live and not excluded, in the order given. */
+export function usedDrops(drops: readonly DropRecord[]): DropRecord[] {
+  return drops.filter((d) => !d.excluded && !d.deleted);
+}
+
+export function buildRequest(
+  site: SiteRecord,
+  reading: ReadingRecord,
+  specimen: SpecimenRecord,
+  series: SeriesRecord,
+  drops: readonly DropRecord[],
+): AnalysisRequest {
+  const sp = specimenInput(specimen);
+  const air = airInput(reading);
+  const used = usedDrops(drops);
+  const distinctHeights = new Set(used.map((d) => dropHeight(d, series))).size;
+  return {
+    site: siteInput(site),
+    air: air.air,
+    specimen: sp.input,
+    // Each drop carries its record's id to its result: rows are joined by it, never by position.
+    drops: used.map((d) => ({ id: d.id, height_m: dropHeight(d, series), time_s: d.time_s })),
+    timing: {
+      standard_uncertainty_s: series.u_time_s,
+      offset: series.timing_offset === 'fit' && distinctHeights >= 3 ? 'fit' : 'none',
+    },
+    uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: series.u_height_m },
+  };
+}
+
+/** What a series can lack before it can be computed; stable codes, shown in the CSV's error_code column. */
+export type MissingPart = 'series-without-site' | 'series-without-specimen' | 'series-without-reading' | 'series-without-drops';
+
+/** For people on the phone: what is missing and what to do. */
+export const MISSING_PART_MESSAGES: Readonly<Record<MissingPart, string>> = {
+  'series-without-site': 'The day’s site record is missing, so gravity cannot be computed.',
+  'series-without-specimen': 'The specimen of this series is missing from the catalogue.',
+  'series-without-reading': 'Add an air reading to this day: the air density is needed for the drag coefficient.',
+  'series-without-drops': 'No drops yet: enter the first fall time.',
+};
+
+export type SeriesParts =
+  | {
+      kind: 'missing';
+      code: MissingPart;
+      /** For the screens (MISSING_PART_MESSAGES). */
+      message: string;
+      /** For the tables and the office: names the series and the record it lacks. */
+      detail: string;
+    }
+  | { kind: 'complete'; site: SiteRecord; specimen: SpecimenRecord; reading: ReadingRecord; drops: DropRecord[] };
+
+/** The one check of a series' parts, in a fixed order: site, specimen, air reading, drops in the fit. */
+export function seriesParts(parts: {
+  series: SeriesRecord;
+  site: SiteRecord | null | undefined;
+  specimen: SpecimenRecord | null | undefined;
+  reading: ReadingRecord | null | undefined;
+  drops: readonly DropRecord[];
+}): SeriesParts {
+  const { series, site, specimen, reading } = parts;
+  const missing = (code: MissingPart, detail: string): SeriesParts => ({ kind: 'missing', code, message: MISSING_PART_MESSAGES[code], detail: `series ${series.id}: ${detail}` });
+  if (!site) return missing('series-without-site', 'its day or site is not in the log');
+  if (!specimen) return missing('series-without-specimen', `its specimen ${series.specimen_id} is not in the log`);
+  if (!reading) return missing('series-without-reading', 'the day has no air reading');
+  const drops = usedDrops(parts.drops);
+  if (drops.length === 0) return missing('series-without-drops', 'no drops to analyse (all excluded or none yet)');
+  return { kind: 'complete', site, specimen, reading, drops };
+}

@@ -1,0 +1,99 @@
+/**
+ * The inputs of a series' GUM budget (JCGM 100:2008): each input's standard uncertainty, its place in the
+ * model's input vector and its weight there. Inputs given without an uncertainty count as exactly known, with a
+ * warning.
+ */
+import type { DropGroups } from './dropGroups';
+import type { PhysicsWarning } from './physicsWarning';
+import type { SeriesFit } from './seriesFit';
+import type { SeriesScatter } from './seriesScatter';
+import type { SeriesSetup } from './seriesSetup';
+import type { BudgetInputSpec } from './uncertaintyBudget';
+
+export interface BudgetInputs {
+  specs: BudgetInputSpec[];
+  /** Where the mean times sit in the model's input vector. */
+  timeIndices: number[];
+  warnings: PhysicsWarning[];
+}
+
+export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: SeriesFit, scatter: SeriesScatter): BudgetInputs {
+  const { request: req, air, site, specimen, timingU, heightU, uncertainty: u } = setup;
+  const L = fit.layout;
+  const J = groups.heights.length;
+  const counts = groups.counts;
+  const { excess, dof } = scatter;
+  const warnings: PhysicsWarning[] = [];
+  const specs: BudgetInputSpec[] = [];
+  const missing: string[] = [];
+  const timeIndices = Array.from({ length: J }, (_, j) => L.firstTime + j);
+  const timeWeights = Array.from({ length: J }, (_, j) => 1 / Math.sqrt(counts[j]!));
+  specs.push({
+    input: 'time_s',
+    description: 'random timing error of one drop (declared)',
+    evaluation: 'B',
+    standard_uncertainty: timingU,
+    indices: timeIndices,
+    weights: timeWeights,
+    degrees_of_freedom: Infinity,
+  });
+  if (excess > 0) {
+    specs.push({
+      input: 'scatter_s',
+      description: `scatter between drops beyond the declared timing uncertainty (Type A, ν = ${dof})`,
+      evaluation: 'A',
+      standard_uncertainty: excess,
+      indices: timeIndices,
+      weights: timeWeights,
+      degrees_of_freedom: dof,
+    });
+  }
+  const single = (input: string, description: string, index: number, weight: number, value: number | undefined): void => {
+    if (value === undefined) missing.push(input);
+    specs.push({
+      input,
+      description,
+      evaluation: 'B',
+      standard_uncertainty: value ?? 0,
+      indices: [index],
+      weights: [weight],
+      degrees_of_freedom: Infinity,
+    });
+  };
+  if (u.height_m === undefined) missing.push('height_m');
+  specs.push({
+    input: 'height_m',
+    description: J > 1 ? `release height, independent at each of the ${J} heights` : 'release height',
+    evaluation: 'B',
+    standard_uncertainty: heightU,
+    indices: Array.from({ length: J }, (_, j) => L.firstHeight + j),
+    weights: Array.from({ length: J }, () => 1),
+    degrees_of_freedom: Infinity,
+  });
+  single('mass_kg', 'specimen mass', L.mass_kg, 1, u.mass_kg);
+  specimen.dimension_names.forEach((name, i) => {
+    single(name, `specimen ${name.replace(/_m\d?$/, '').replace('_', ' ')}`, L.firstDimension + i, 1, u[name as keyof typeof u]);
+  });
+  if (air.density_source === 'override') {
+    single('density_kg_m3', 'air density (given)', L.density_kg_m3, 1, u.density_kg_m3);
+  } else {
+    single('temperature_C', 'air temperature', L.temperature_K, 1, u.temperature_C);
+    const pressureWeight = req.air.pressure_reference === 'sea_level' ? air.station_pressure_Pa! / req.air.pressure_Pa! : 1;
+    single('pressure_Pa', req.air.pressure_reference === 'sea_level' ? 'sea-level pressure' : 'station pressure', L.pressure_Pa, pressureWeight, u.pressure_Pa);
+    if (setup.humidityKind === 'relative-humidity') {
+      single('relative_humidity_pct', 'relative humidity', L.humidity, 0.01, u.relative_humidity_pct);
+    } else {
+      single('dew_point_C', 'dew point', L.humidity, 1, u.dew_point_C);
+    }
+  }
+  if (u.gravity_m_s2 !== undefined || site.source === 'override') {
+    single('gravity_m_s2', site.source === 'override' ? 'local gravity (given)' : 'local gravity', L.gravity_m_s2, 1, u.gravity_m_s2);
+  }
+  if (missing.length > 0) {
+    warnings.push({
+      code: 'uncertainty-not-given',
+      message: `No standard uncertainty given for ${missing.join(', ')}: counted as exactly known, so the budget may be too small.`,
+    });
+  }
+  return { specs, timeIndices, warnings };
+}

@@ -1,0 +1,140 @@
+// Entering one drop: the timer pad (taps or sound) or a typed time, kept as a draft until saved.
+import { useRef, useState } from 'preact/hooks';
+import type { SeriesRecord } from '../../../../log';
+import { useApp } from '../../../app-context';
+import { useDraft } from '../../../hooks';
+import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../../forms';
+import { describeError } from '../../../errors';
+import type { TimeCapturedDetail } from '../../../../widgets';
+
+interface DropDraft {
+  time: FieldState;
+  height: FieldState;
+  otherHeight: boolean;
+  note: string;
+  /** The phone's capture behind `time`, kept until the drop is saved; null when the time was typed. */
+  captured: TimeCapturedDetail['raw'] | null;
+  /** Sound timing: the phone's distance to the release point and to the landing point. */
+  releaseDistance: FieldState;
+  landingDistance: FieldState;
+}
+
+export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; nextSeq: number; airTemperature: number | null }) {
+  const app = useApp();
+  const key = `drop:${series.id}`;
+  const form = useDraft<DropDraft>(key, () => ({
+    time: field(),
+    height: field(),
+    otherHeight: false,
+    note: '',
+    captured: null,
+    releaseDistance: field(series.height_m),
+    landingDistance: field(1),
+  }));
+  const padMode = series.timing_method === 'sound' ? 'listen' : series.timing_method === 'tap' ? 'tap' : null;
+  const [error, setError] = useState<string | null>(null);
+  const [saving, setSaving] = useState(false);
+  const input = useRef<HTMLElement>(null);
+  const d = form.value;
+  const valid = fieldsValid(d.time) && (!d.otherHeight || fieldsValid(d.height));
+
+  const save = async () => {
+    if (!valid || saving) return;
+    setSaving(true);
+    setError(null);
+    try {
+      await app.store.create(
+        'drop',
+        {
+          series_id: series.id,
+          seq: nextSeq,
+          raw: d.captured ?? { kind: 'typed', text: d.time.text ?? String(d.time.value) },
+          time_s: d.time.value!,
+          height_m: d.otherHeight ? d.height.value : null,
+          excluded: false,
+          exclusion_reason: null,
+          note: d.note,
+          captured_at: new Date().toISOString(),
+        },
+        { clearDraft: key },
+      );
+      await form.clear();
+      form.replace({ ...d, time: { value: null, error: null, text: '' }, note: '', captured: null });
+      app.notifyChanged();
+      (input.current as { focus?: () => void } | null)?.focus?.();
+    } catch (e) {
+      setError(describeError(e));
+    } finally {
+      setSaving(false);
+    }
+  };
+
+  return (
+    <section class="card entry" aria-labelledby="entry-h">
+      <h3 id="entry-h">Drop {nextSeq}</h3>
+      <form
+        onSubmit={(e) => {
+          e.preventDefault();
+          void save();
+        }}
+      >
+        {padMode ? (
+          <>
+            {padMode === 'listen' ? (
+              <div class="two">
+                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} min={0} max={5000} onChange={(releaseDistance) => form.set({ releaseDistance })} />
+                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} min={0} max={5000} onChange={(landingDistance) => form.set({ landingDistance })} />
+              </div>
+            ) : null}
+            <pl-timer-pad
+              label={`Drop ${nextSeq} timer`}
+              mode={padMode}
+              releaseHeight={d.otherHeight && d.height.value !== null ? d.height.value : series.height_m}
+              releaseDistance={d.releaseDistance.value ?? undefined}
+              landingDistance={d.landingDistance.value ?? undefined}
+              airTemperature={airTemperature ?? undefined}
+              decimalComma={app.settings.decimalComma}
+              ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
+                const t = e.detail.time_s;
+                const raw = e.detail.raw;
+                const heard = raw.kind === 'sound' ? (raw.onsets_s[1]! - raw.onsets_s[0]!) : t;
+                const correction = t - heard;
+                form.set({
+                  time: { value: t, error: null, text: t.toFixed(4) },
+                  captured: raw,
+                  note: raw.kind === 'sound' && Math.abs(correction) > 1e-9
+                    ? `sound travel correction ${(correction * 1000).toFixed(1)} ms (phone ${d.releaseDistance.value} m from release, ${d.landingDistance.value} m from landing)`
+                    : d.note,
+                });
+              }}
+            />
+          </>
+        ) : null}
+        <div ref={input as never}>
+          <QField
+            label="Fall time"
+            kind="time"
+            state={d.time}
+            min={0}
+            minExclusive
+            max={600}
+            hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
+            onChange={(time) => form.set({ time, captured: null })}
+          />
+        </div>
+        <label class="check">
+          <input type="checkbox" checked={d.otherHeight} onChange={(e) => form.set({ otherHeight: (e.target as HTMLInputElement).checked })} />
+          <span>Dropped from another height</span>
+        </label>
+        {d.otherHeight ? (
+          <QField label="Height of this drop" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+        ) : null}
+        <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
+        {error ? <Notice tone="bad">{error}</Notice> : null}
+        <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
+          Add drop {nextSeq}
+        </button>
+      </form>
+    </section>
+  );
+}

@@ -1,0 +1,128 @@
+// The drop table: each drop beside its own C_d, prediction and residual (rows from src/analysis), and excluding or
+// including a drop with a reason.
+import { useState } from 'preact/hooks';
+import type { DropRecord, SeriesRecord } from '../../../../log';
+import { seriesDropRows, type SeriesOutcome } from '../../../../analysis';
+import { useApp } from '../../../app-context';
+import { Notice, TextField } from '../../../forms';
+import { describeError } from '../../../errors';
+
+export function DropTable({ drops, series, outcome }: { drops: readonly DropRecord[]; series: SeriesRecord; outcome: SeriesOutcome }) {
+  const app = useApp();
+  const [excluding, setExcluding] = useState<string | null>(null);
+  const [reason, setReason] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const rows = seriesDropRows(series, drops, outcome).map((r) => ({
+    d: r.drop,
+    h: r.height_m,
+    own: r.own_drag_coefficient,
+    predicted: r.predicted_time_s,
+    residual: r.residual_s,
+  }));
+  if (rows.length === 0) return null;
+
+  const toggle = async (d: DropRecord) => {
+    setError(null);
+    try {
+      if (d.excluded) {
+        await app.store.revise('drop', d.id, { excluded: false, exclusion_reason: null }, reason.trim() || 'included again');
+      } else {
+        await app.store.revise('drop', d.id, { excluded: true, exclusion_reason: reason.trim() }, reason.trim());
+      }
+      setExcluding(null);
+      setReason('');
+      app.notifyChanged();
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+
+  const oneHeight = new Set(rows.map((r) => r.h)).size === 1;
+  return (
+    <section class="card" aria-labelledby="drops-h">
+      <h3 id="drops-h">Predicted and measured</h3>
+      {oneHeight ? <p class="hint">All drops from {app.format(rows[0]!.h, 'length', 2)}.</p> : null}
+      <div class="table-wrap">
+        <table class="drops">
+          <thead>
+            <tr>
+              <th scope="col">#</th>
+              {oneHeight ? null : <th scope="col">h ({app.unit('length')})</th>}
+              <th scope="col">
+                <abbr title="measured time">t</abbr> (s)
+              </th>
+              <th scope="col">
+                <abbr title="predicted time">pred.</abbr> (s)
+              </th>
+              <th scope="col">C_d</th>
+              <th scope="col">
+                <abbr title="measured minus fitted time">resid.</abbr> (ms)
+              </th>
+              <th scope="col">
+                <span class="sr-only">Action</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map(({ d, h, own, predicted, residual }) => (
+              <tr key={d.id} class={d.excluded ? 'excluded' : ''}>
+                <th scope="row">{d.seq}</th>
+                {oneHeight ? null : <td>{app.format(h, 'length', 2).replace(/ \S+$/, '')}</td>}
+                <td>{d.time_s.toFixed(3)}</td>
+                <td>{predicted !== null ? predicted.toFixed(3) : '—'}</td>
+                <td>{own !== null ? own.toFixed(3) : '—'}</td>
+                <td>{residual !== null ? (residual * 1000).toFixed(1) : d.excluded ? 'excl.' : '—'}</td>
+                <td>
+                  <button
+                    type="button"
+                    class="btn btn-small btn-quiet btn-icon"
+                    title={d.excluded ? 'Include again' : 'Exclude'}
+                    aria-label={d.excluded ? `Include drop ${d.seq} again` : `Exclude drop ${d.seq}`}
+                    onClick={() => {
+                      setExcluding(d.id);
+                      setReason('');
+                    }}
+                  >
+                    <span aria-hidden="true">{d.excluded ? '↺' : '✕'}</span>
+                  </button>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {rows
+        .filter((r) => r.d.excluded)
+        .map((r) => (
+          <p key={r.d.id} class="hint">
+            Drop {r.d.seq} excluded: {r.d.exclusion_reason}
+          </p>
+        ))}
+      {excluding
+        ? (() => {
+            const d = drops.find((x) => x.id === excluding)!;
+            return (
+              <div class="subform" role="group" aria-label={d.excluded ? `Include drop ${d.seq}` : `Exclude drop ${d.seq}`}>
+                <TextField
+                  id="exclude-reason"
+                  label={d.excluded ? `Why include drop ${d.seq} again?` : `Why exclude drop ${d.seq}?`}
+                  hint="The reason is kept in the drop’s history. Nothing is deleted."
+                  value={reason}
+                  onInput={setReason}
+                />
+                {error ? <Notice tone="bad">{error}</Notice> : null}
+                <div class="btn-row">
+                  <button type="button" class="btn" disabled={!d.excluded && reason.trim() === ''} onClick={() => void toggle(d)}>
+                    {d.excluded ? 'Include it' : 'Exclude it'}
+                  </button>
+                  <button type="button" class="btn btn-quiet" onClick={() => setExcluding(null)}>
+                    Cancel
+                  </button>
+                </div>
+              </div>
+            );
+          })()
+        : null}
+    </section>
+  );
+}

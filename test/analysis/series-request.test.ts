@@ -1,0 +1,66 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeSeriesRecords, buildRequest, MISSING_PART_MESSAGES, seriesParts } from '../../src/analysis';
+import { excludedCopy, revise, testDay, DEVICE, HEIGHTS } from './day-records';
+
+describe('a series request built from the records', () => {
+  it('carries the site, the air, the specimen, the used drops with their ids, the timing and every uncertainty', () => {
+    const day = testDay();
+    const copy = excludedCopy(day.drops[0]!, 7, '00000000-0000-4000-8000-000000000007');
+    const request = buildRequest(day.site, day.reading, day.specimen, day.series, [...day.drops, copy]);
+    expect(request).toEqual({
+      site: { latitude_deg: 46.1, elevation_m: 430 },
+      air: { temperature_C: 17.5, pressure_Pa: 96_120, pressure_reference: 'station', relative_humidity_pct: 55 },
+      specimen: { shape: 'sphere', mass_kg: 0.21, diameter_m: 0.095 },
+      drops: day.drops.map((d, i) => ({ id: d.id, height_m: HEIGHTS[i], time_s: d.time_s })),
+      timing: { standard_uncertainty_s: 0.004, offset: 'fit' },
+      uncertainty: { mass_kg: 0.0005, diameter_m: 0.0003, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3, height_m: 0.01 },
+    });
+  });
+
+  it('fits a timing offset only with drops from three heights', () => {
+    const day = testDay();
+    const twoHeights = day.drops.slice(0, 4);
+    expect(buildRequest(day.site, day.reading, day.specimen, day.series, twoHeights).timing.offset).toBe('none');
+  });
+
+  it('uses the series height for a drop without its own', () => {
+    const day = testDay();
+    const plain = revise(day.drops[0]!, { height_m: null }, Date.UTC(2026, 6, 3, 12), DEVICE);
+    expect(buildRequest(day.site, day.reading, day.specimen, day.series, [plain]).drops[0]!.height_m).toBe(day.series.height_m);
+  });
+});
+
+describe('the one missing-parts check', () => {
+  const day = testDay();
+  const parts = { series: day.series, site: day.site, specimen: day.specimen, reading: day.reading, drops: day.drops };
+
+  it('names each missing part by a stable code, in the order site, specimen, reading, drops', () => {
+    expect(seriesParts({ ...parts, site: null, specimen: null, reading: null, drops: [] })).toMatchObject({ kind: 'missing', code: 'series-without-site' });
+    expect(seriesParts({ ...parts, specimen: null, reading: null, drops: [] })).toMatchObject({ kind: 'missing', code: 'series-without-specimen' });
+    expect(seriesParts({ ...parts, reading: null, drops: [] })).toMatchObject({ kind: 'missing', code: 'series-without-reading' });
+    expect(seriesParts({ ...parts, drops: [] })).toMatchObject({ kind: 'missing', code: 'series-without-drops' });
+  });
+
+  it('counts a series whose drops are all excluded or deleted as one without drops', () => {
+    const gone = [revise(day.drops[0]!, { excluded: true, exclusion_reason: 'wind' }, Date.UTC(2026, 6, 3, 12), DEVICE), revise(day.drops[1]!, { deleted: true }, Date.UTC(2026, 6, 3, 12), DEVICE)];
+    expect(seriesParts({ ...parts, drops: gone })).toMatchObject({ kind: 'missing', code: 'series-without-drops' });
+  });
+
+  it('gives the screens a sentence for people and the tables one naming the series', () => {
+    const missing = seriesParts({ ...parts, specimen: undefined });
+    expect(missing).toMatchObject({ message: MISSING_PART_MESSAGES['series-without-specimen'] });
+    expect(missing.kind === 'missing' && missing.detail).toContain(day.series.id);
+    expect(missing.kind === 'missing' && missing.detail).toContain(day.series.specimen_id);
+  });
+
+  it('is what the screens read', () => {
+    const outcome = analyzeSeriesRecords(day.site, [], day.specimen, day.series, day.drops, { monteCarloDraws: 200 });
+    expect(outcome).toEqual({ kind: 'missing', code: 'series-without-reading', message: MISSING_PART_MESSAGES['series-without-reading'] });
+  });
+
+  it('hands back the complete parts with the drops the fit uses', () => {
+    const complete = seriesParts(parts);
+    expect(complete.kind).toBe('complete');
+    expect(complete.kind === 'complete' && complete.drops).toEqual(day.drops);
+  });
+});
