@@ -144,17 +144,9 @@ function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; 
               airTemperature={airTemperature ?? undefined}
               decimalComma={app.settings.decimalComma}
               ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
+                // The capture carries its sound-travel correction as data (raw.sound_travel).
                 const t = e.detail.time_s;
-                const raw = e.detail.raw;
-                const heard = raw.kind === 'sound' ? (raw.onsets_s[1]! - raw.onsets_s[0]!) : t;
-                const correction = t - heard;
-                form.set({
-                  time: { value: t, error: null, text: t.toFixed(4) },
-                  captured: raw,
-                  note: raw.kind === 'sound' && Math.abs(correction) > 1e-9
-                    ? `sound travel correction ${(correction * 1000).toFixed(1)} ms (phone ${d.releaseDistance.value} m from release, ${d.landingDistance.value} m from landing)`
-                    : d.note,
-                });
+                form.set({ time: { value: t, error: null, text: t.toFixed(4) }, captured: e.detail.raw });
               }}
             />
           </>
