@@ -125,7 +125,9 @@ class Checker {
   uncertainty(path: string, value: unknown, ofPath: string, of: unknown, limit: Limit): boolean {
     const unit = limit.unit;
     const known = isFiniteNumber(of) && of > 0;
-    const rule = `must be ≥ 0 and ≤ ${ofPath}${known ? ` (${of} ${unit})` : ''} and ≤ ${limit.max} ${unit}`;
+    // The catalogue's cap is named only where it is the tighter bound.
+    const capped = known ? of > limit.max : isFiniteNumber(value) && value > limit.max;
+    const rule = `must be ≥ 0 and ≤ ${ofPath}${known ? ` (${of} ${unit})` : ''}${capped ? ` and ≤ ${limit.max} ${unit}` : ''}`;
     if (value === undefined) return this.add(path, value, rule, '');
     if (!isFiniteNumber(value)) return this.add(path, value, rule, 'is not a finite number');
     if (value < 0 || (known && value > of) || value > limit.max) return this.add(path, value, rule, 'is out of range');
