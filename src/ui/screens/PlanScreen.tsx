@@ -1,6 +1,7 @@
 import { useMemo } from 'preact/hooks';
 import { planDrop } from '../../physics';
 import type { TimingMethod } from '../../log/types';
+import { inputRange, LIMITS } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../forms';
@@ -87,7 +88,7 @@ export function PlanScreen() {
             options={specimens.map((s) => ({ value: s.id, label: s.name }))}
             onChange={(specimenId) => form.set({ specimenId })}
           />
-          <QField label="Release height" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+          <QField label="Release height" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
           <SelectField
             id="plan-timing"
             label="Timing method"
@@ -97,7 +98,7 @@ export function PlanScreen() {
           />
           <QField label="Timing std. uncertainty per drop" kind="time" delta state={d.uTime} min={0} minExclusive max={1} onChange={(uTime) => form.set({ uTime })} />
           <QField label="Target uncertainty of C_d" kind="percent" state={d.target} min={0} minExclusive max={100} onChange={(target) => form.set({ target })} />
-          <QField label="Highest release point available" kind="length" state={d.maxHeight} min={0.5} max={5000} onChange={(maxHeight) => form.set({ maxHeight })} />
+          <QField label="Highest release point available" kind="length" state={d.maxHeight} min={0.5} max={LIMITS.height_m.max} onChange={(maxHeight) => form.set({ maxHeight })} />
         </section>
       )}
       {plan && !plan.ok ? <Notice tone="bad">{plan.message}</Notice> : null}

@@ -2,6 +2,7 @@ import '../../../widgets';
 import { useMemo, useRef, useState } from 'preact/hooks';
 import { planDrop, type AnalysisRequest, type AnalysisResult } from '../../../physics';
 import type { DropRecord, SeriesRecord, SpecimenRecord } from '../../../log/types';
+import { inputRange, LIMITS } from '../../../log';
 import type { DayView } from '../../../store';
 import { useApp } from '../../app-context';
 import { useDraft, useStoreData } from '../../hooks';
@@ -131,8 +132,8 @@ function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; 
           <>
             {padMode === 'listen' ? (
               <div class="two">
-                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} min={0} max={5000} onChange={(releaseDistance) => form.set({ releaseDistance })} />
-                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} min={0} max={5000} onChange={(landingDistance) => form.set({ landingDistance })} />
+                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(releaseDistance) => form.set({ releaseDistance })} />
+                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(landingDistance) => form.set({ landingDistance })} />
               </div>
             ) : null}
             <pl-timer-pad
@@ -156,9 +157,7 @@ function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; 
             label="Fall time"
             kind="time"
             state={d.time}
-            min={0}
-            minExclusive
-            max={600}
+            {...inputRange(LIMITS.time_s)}
             hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
             onChange={(time) => form.set({ time, captured: null })}
           />
@@ -168,7 +167,7 @@ function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; 
           <span>Dropped from another height</span>
         </label>
         {d.otherHeight ? (
-          <QField label="Height of this drop" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+          <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
         ) : null}
         <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
         {error ? <Notice tone="bad">{error}</Notice> : null}
