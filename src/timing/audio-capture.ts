@@ -300,9 +300,9 @@ export class SoundCapture extends EventTarget {
     try {
       // Computed once here and stored with the capture; the time is the stored capture's own arithmetic.
       raw.sound_travel = this.soundTravel ? soundTravelRecord(this.soundTravel, this.height_m) : null;
-      const corrected = interval.heard_s + (raw.sound_travel?.correction_s ?? 0);
-      const time_s = checkFallTime(corrected, 'time_s');
-      return { ...interval, time_s, sound_travel_correction_s: corrected - interval.heard_s, raw };
+      const correction_s = raw.sound_travel?.correction_s ?? 0;
+      const time_s = checkFallTime(interval.heard_s + correction_s, 'time_s');
+      return { ...interval, time_s, sound_travel_correction_s: correction_s, raw };
     } catch (error) {
       if (!(error instanceof TimingError)) throw error;
       return { ...interval, problem: error, time_s: null, sound_travel_correction_s: 0, raw };
