@@ -1,3 +1,5 @@
+import type { BodyOf, RecordKind } from './types';
+
 /**
  * The field catalogue: every stored field's range, choices and unit, in one place.
  *
@@ -133,6 +135,22 @@ const unc = (limit: LimitName, of: string): FieldSpec => ({ type: 'uncertainty',
 const oneOf = (values: EnumName): FieldSpec => ({ type: 'enum', values });
 const other: FieldSpec = { type: 'other' };
 
+type Leaf = string | number | boolean | null | readonly unknown[];
+/** Every path of a body: its fields, and `a.b` for the fields of a nested object (each variant of a union). */
+export type BodyPath<T> = T extends Leaf
+  ? never
+  : { [K in keyof T & string]: K | (NonNullable<T[K]> extends Leaf ? never : `${K}.${BodyPath<NonNullable<T[K]>>}`) }[keyof T & string];
+/** The paths of a body that hold a number (possibly null). */
+export type NumberPath<T, P extends string = ''> = T extends Leaf
+  ? never
+  : {
+      [K in keyof T & string]: NonNullable<T[K]> extends number
+        ? `${P}${K}`
+        : NonNullable<T[K]> extends Leaf
+          ? never
+          : NumberPath<NonNullable<T[K]>, `${P}${K}.`>;
+    }[keyof T & string];
+
 /**
  * Every stored field of each kind of record, by its path in the body (a nested field as `shape.diameter_m`),
  * with its limit or choices and unit. The unit is also in the field's name, which is the CSV column name.
@@ -222,7 +240,15 @@ export const FIELDS = {
     note: other,
     captured_at: other,
   },
-} as const satisfies Record<string, Record<string, FieldSpec>>;
+} as const satisfies { [K in RecordKind]: { [P in BodyPath<BodyOf[K]>]?: FieldSpec } };
+
+/**
+ * Checked by the compiler: every number of every record type is in the catalogue with a limit (a field added
+ * to types.ts without its limit here does not compile), and the catalogue names no path the types lack.
+ */
+type Unlisted = { [K in RecordKind]: Exclude<NumberPath<BodyOf[K]>, keyof (typeof FIELDS)[K]> }[RecordKind];
+type NoneUnlisted<U extends never> = U;
+export type EveryNumberHasALimit = NoneUnlisted<Unlisted>;
 
 /** The attributes a quantity input takes from a limit: `<QField {...inputRange(LIMITS.height_m)} />`. */
 export function inputRange(limit: Limit): { min: number; max: number; minExclusive: boolean } {

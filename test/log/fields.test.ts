@@ -1,5 +1,5 @@
-import { describe, expect, it } from 'vitest';
-import { BODY_FIELDS, DROP_COLUMNS, ENUMS, FIELDS, LIMITS, LOG_SCHEMA, RECORD_KINDS, SERIES_COLUMNS, type FieldSpec, type Limit } from '../../src/log';
+import { describe, expect, expectTypeOf, it } from 'vitest';
+import { BODY_FIELDS, DROP_COLUMNS, ENUMS, FIELDS, LIMITS, LOG_SCHEMA, RECORD_KINDS, SERIES_COLUMNS, type EveryNumberHasALimit, type FieldSpec, type Limit } from '../../src/log';
 
 type Schema = Record<string, any>;
 const defs = LOG_SCHEMA.$defs as unknown as Record<string, Schema>;
@@ -34,6 +34,10 @@ const numbers = RECORD_KINDS.flatMap((kind) =>
 );
 
 describe('the field catalogue', () => {
+  it('has a limit for every number the record types hold (checked by the compiler; none is left out)', () => {
+    expectTypeOf<EveryNumberHasALimit>().toEqualTypeOf<never>();
+  });
+
   it('lists every body field of every kind, and nothing else at the top level', () => {
     for (const kind of RECORD_KINDS) {
       const top = Object.keys(FIELDS[kind]).filter((p) => !p.includes('.'));
