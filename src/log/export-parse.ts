@@ -1,5 +1,5 @@
 /**
- * Reading a log file: JSON, then the published schema (our compact checker, tested against ajv), then the record model's
+ * Reading a log file: JSON, then an upgrade of an older format (upgrade-export.ts), then the published schema (our compact checker, tested against ajv), then the record model's
  * own rules, then one record per id. The first thing wrong is reported with the field, the value and the rule,
  * e.g. `records[12].time_s (drop 4f…) is -1.6: must be > 0`.
  */
@@ -8,6 +8,7 @@ import type { LogFile } from './export';
 import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
 import { validateRecord } from './validate';
+import { upgradeLogFile } from './upgrade-export';
 import type { LogRecord } from './types';
 
 export type LogFileErrorCode =
@@ -146,6 +147,7 @@ export function readLogFile(text: string): LogFile {
       message: `this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
     });
   }
+  data = upgradeLogFile(data);
   const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: 1 });
   if (problems.length > 0) throw schemaError(data, problems[0]!);
   const file = data as LogFile;

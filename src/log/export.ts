@@ -3,8 +3,8 @@
  * gives the same bytes. The file holds records and a small header, nothing else: no settings and no
  * credentials can reach a file because none are handed in.
  *
- * Format 1 (schema: public/schema/plummet-log-1.schema.json):
- *   { "app_version", "device", "format": "plummet-log", "format_version": 1,
+ * Format 2 (schema: public/schema/plummet-log-2.schema.json; format 1 files are upgraded on import):
+ *   { "app_version", "device", "format": "plummet-log", "format_version": 2,
  *     "records": [every record with its envelope, history and tombstone flag],
  *     "selection": null | { "day_ids", "kinds", "site_ids", "specimen_ids" } }
  */

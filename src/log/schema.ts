@@ -1,23 +1,26 @@
 /**
- * The JSON Schema (draft 2020-12) of the log file, format version 1.
+ * The JSON Schema (draft 2020-12) of the log file, format version 2.
  *
- * This object is the one source: public/schema/plummet-log-1.schema.json is written from it (regenerate with
- * `npx tsx test/log/schema-generate.ts`; a test fails while it is stale). Import checks files against it with
+ * This object is the one source: public/schema/plummet-log-2.schema.json is written from it (regenerate with
+ * `npm run schema`; a test fails while it is stale). The format 1 file stays published, frozen, for readers of
+ * old files; import upgrades a format 1 file (upgrade-export.ts) before checking it against this schema. Import checks files against it with
  * json-schema-check.ts, a small checker of exactly the keywords used here (no code compiled at run time, so a
  * strict Content-Security-Policy is fine, and 3 KB instead of an ajv bundle); the tests compare it with ajv.
  *
- * The ranges are the record model's own (LIMITS in validate.ts), so a file is never refused for a value the
+ * The ranges and choices are the field catalogue's (fields.ts), so a file is never refused for a value the
  * app would have stored. What a schema cannot say (an uncertainty no larger than its quantity, a dew point not
  * above the air temperature) validate.ts checks after the schema, on import.
  */
-import { LIMITS, type Limit } from './validate';
+import { ENUMS, LIMITS, SHAPE_DIMENSIONS, type Limit } from './fields';
 import { RECORD_KINDS, type RecordKind } from './types';
 
 export const LOG_FORMAT = 'plummet-log';
-export const LOG_FORMAT_VERSION = 1;
+export const LOG_FORMAT_VERSION = 2;
+/** Every format version this app reads (older ones are upgraded on import). */
+export const LOG_FORMAT_VERSIONS_READ = [1, 2] as const;
 /** Where the app serves the schema (the file lives in public/schema/). */
-export const LOG_SCHEMA_PATH = '/schema/plummet-log-1.schema.json';
-export const LOG_SCHEMA_ID = 'https://plummet.invalid/schema/plummet-log-1.schema.json';
+export const LOG_SCHEMA_PATH = `/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
+export const LOG_SCHEMA_ID = `https://plummet.invalid/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
 
 type Schema = Record<string, unknown>;
 
@@ -27,7 +30,6 @@ const range = (limit: Limit, description?: string): Schema => ({
   maximum: limit.max,
   ...(description ? { description } : {}),
 });
-const nonNegative: Schema = { type: 'number', minimum: 0 };
 const text: Schema = { type: 'string' };
 const ref = (name: string): Schema => ({ $ref: `#/$defs/${name}` });
 const nullable = (schema: Schema): Schema => ({ anyOf: [schema, { type: 'null' }] });
@@ -57,7 +59,9 @@ function tagged(variants: Record<string, Record<string, Schema>>, description: s
   };
 }
 
+const nonNegative: Schema = { type: 'number', minimum: 0 };
 const length = range(LIMITS.length_m);
+const uLength = range(LIMITS.u_length_m);
 
 const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
   site: {
@@ -65,31 +69,23 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
     latitude_deg: range(LIMITS.latitude_deg),
     longitude_deg: range(LIMITS.longitude_deg),
     elevation_m: range(LIMITS.elevation_m),
-    elevation_source: oneOfStrings(['survey', 'map', 'gps', 'other']),
+    elevation_source: oneOfStrings(ENUMS.elevation_source),
     notes: text,
   },
   specimen: {
     name: text,
     mass_kg: range(LIMITS.mass_kg),
-    u_mass_kg: nonNegative,
+    u_mass_kg: range(LIMITS.u_mass_kg),
     shape: tagged(
       {
-        sphere: { diameter_m: length, u_diameter_m: nonNegative },
-        cylinder: { diameter_m: length, u_diameter_m: nonNegative, length_m: length, u_length_m: nonNegative },
-        disc: { diameter_m: length, u_diameter_m: nonNegative, thickness_m: length, u_thickness_m: nonNegative },
-        box: {
-          length_m: length,
-          u_length_m: nonNegative,
-          width_m: length,
-          u_width_m: nonNegative,
-          height_m: length,
-          u_height_m: nonNegative,
-        },
+        ...Object.fromEntries(
+          Object.entries(SHAPE_DIMENSIONS).map(([kind, dims]) => [kind, Object.fromEntries(dims.flatMap((d) => [[d, length], [`u_${d}`, uLength]]))]),
+        ),
         custom: {
           area_m2: range(LIMITS.area_m2),
-          u_area_m2: nonNegative,
+          u_area_m2: range(LIMITS.u_area_m2),
           volume_m3: range(LIMITS.volume_m3),
-          u_volume_m3: nonNegative,
+          u_volume_m3: range(LIMITS.u_volume_m3),
         },
       },
       'The body: a sphere, an upright cylinder, a flat disc, a box (length × width face down), or custom area and volume.',
@@ -110,7 +106,7 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
     u_temperature_C: range(LIMITS.u_temperature_C),
     pressure_Pa: { type: 'number', description: 'Station or sea-level pressure, as pressure_reference says.' },
     u_pressure_Pa: range(LIMITS.u_pressure_Pa),
-    pressure_reference: oneOfStrings(['station', 'sea_level']),
+    pressure_reference: oneOfStrings(ENUMS.pressure_reference),
     humidity: tagged(
       {
         relative: {
@@ -129,13 +125,13 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
     day_id: ref('id'),
     specimen_id: ref('id'),
     height_m: range(LIMITS.height_m, 'Release height above the landing surface.'),
-    u_height_m: nonNegative,
-    height_method: oneOfStrings(['tape', 'laser', 'survey', 'marked', 'other']),
-    timing_method: oneOfStrings(['typed', 'stopwatch', 'tap', 'sound', 'video', 'gates']),
+    u_height_m: range(LIMITS.u_height_m),
+    height_method: oneOfStrings(ENUMS.height_method),
+    timing_method: oneOfStrings(ENUMS.timing_method),
     u_time_s: range(LIMITS.u_time_s, 'Standard uncertainty of one drop time from random causes.'),
     target_relative_uncertainty: range(LIMITS.target_relative_uncertainty),
     reading_id: nullable(ref('id')),
-    timing_offset: oneOfStrings(['none', 'fit']),
+    timing_offset: oneOfStrings(ENUMS.timing_offset),
     started_at: ref('instant'),
     notes: text,
   },
@@ -146,7 +142,25 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
       {
         typed: { text },
         taps: { timestamps_ms: { type: 'array', minItems: 2, items: nonNegative } },
-        sound: { onsets_s: { type: 'array', minItems: 2, items: nonNegative }, sample_rate_Hz: range(LIMITS.sample_rate_Hz) },
+        sound: {
+          onsets_s: { type: 'array', minItems: 2, items: nonNegative },
+          sample_rate_Hz: range(LIMITS.sample_rate_Hz),
+          sound_travel: nullable(
+            object(
+              {
+                distance_to_release_m: range(LIMITS.sound_distance_m),
+                distance_to_landing_m: range(LIMITS.sound_distance_m),
+                speed_of_sound_m_s: range(LIMITS.speed_of_sound_m_s),
+                temperature_C: nullable(range(LIMITS.temperature_C, 'The air temperature the speed of sound came from; null if assumed.')),
+                correction_s: range(
+                  LIMITS.sound_travel_correction_s,
+                  'Seconds added to the heard interval: (distance_to_release_m − distance_to_landing_m) / speed_of_sound_m_s.',
+                ),
+              },
+              'The sound-travel correction applied to the heard interval; null when none was.',
+            ),
+          ),
+        },
         frames: {
           frames: { type: 'array', minItems: 2, items: { type: 'integer', minimum: 0 } },
           frame_rate_Hz: range(LIMITS.frame_rate_Hz),
@@ -190,7 +204,7 @@ function recordSchema(kind: RecordKind): Schema {
 export const LOG_SCHEMA = {
   $schema: 'https://json-schema.org/draft/2020-12/schema',
   $id: LOG_SCHEMA_ID,
-  title: 'Plummet log file, format 1',
+  title: `Plummet log file, format ${LOG_FORMAT_VERSION}`,
   description:
     'A whole test log or a chosen part of it, written as canonical JSON (RFC 8785). SI units, the unit in each ' +
     'field name; a standard uncertainty of x_unit is u_x_unit. Records are never replaced on import: each is ' +

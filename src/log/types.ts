@@ -136,13 +136,30 @@ export interface SeriesBody {
   notes: string;
 }
 
+/**
+ * The correction for the time sound takes to reach the phone, as computed when the drop was heard (see
+ * timing/sound-travel.ts): its inputs and its value, stored so the time can be recomputed from the record.
+ */
+export interface SoundTravelRecord {
+  distance_to_release_m: number;
+  distance_to_landing_m: number;
+  speed_of_sound_m_s: number;
+  /** The air temperature the speed of sound was computed from; null when a reference temperature was assumed. */
+  temperature_C: number | null;
+  /** (distance_to_release_m − distance_to_landing_m) / speed_of_sound_m_s. */
+  correction_s: number;
+}
+
 /** A capture exactly as it came from the phone or the keyboard; never overwritten. */
 export type RawCapture =
   | { kind: 'typed'; text: string }
   /** Release and impact taps, milliseconds on the page's monotonic clock. */
   | { kind: 'taps'; timestamps_ms: number[] }
-  /** Detected sound onsets in seconds from the start of the recording. */
-  | { kind: 'sound'; onsets_s: number[]; sample_rate_Hz: number }
+  /**
+   * Detected sound onsets in seconds from the start of the recording, and the sound-travel correction
+   * added to the heard interval (null: none), so time_s = onsets_s[1] − onsets_s[0] + correction_s.
+   */
+  | { kind: 'sound'; onsets_s: number[]; sample_rate_Hz: number; sound_travel: SoundTravelRecord | null }
   /** Video frame numbers of release and impact. */
   | { kind: 'frames'; frames: number[]; frame_rate_Hz: number };
 

@@ -2,75 +2,23 @@
  * Validation of record bodies and whole records. Every write goes through here first; nothing invalid is
  * stored. A problem names the field, the value and the rule, in words a person can act on.
  *
- * The ranges are physical bounds, wide enough for any real field day and narrow enough to catch a slip of
- * units (hPa typed as Pa, grams as kilograms, millimetres as metres). Where a bound comes from a known
- * extreme the source is given beside it.
+ * The ranges, choices and text lengths come from the field catalogue (fields.ts).
  */
 import { LogValidationError, type Problem } from './errors';
 import { parseHlc } from './hlc';
 import { isUuid } from './uuid';
 import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
+import { DEW_POINT_MARGIN_C, ENUMS, LIMITS, SHAPE_DIMENSIONS, SOUND_TRAVEL_TOLERANCE_S, TEXT_LIMITS, type Limit } from './fields';
 
-/** A closed or open interval with the unit a person reads it in. */
-export interface Limit {
-  min: number;
-  /** True when the minimum itself is allowed (≥), false for > . */
-  minIncluded: boolean;
-  max: number;
-  unit: string;
-  /** Shown after the range, e.g. "(station pressure)". */
-  note?: string;
-}
+/** The catalogue's limits, also reachable from here where they were first defined. */
+export { LIMITS, type Limit } from './fields';
 
-const atLeast = (min: number, max: number, unit: string, note?: string): Limit => ({ min, minIncluded: true, max, unit, note });
-const above = (min: number, max: number, unit: string, note?: string): Limit => ({ min, minIncluded: false, max, unit, note });
+const NAME_MAX = TEXT_LIMITS.name;
+const NOTES_MAX = TEXT_LIMITS.notes;
+const TYPED_MAX = TEXT_LIMITS.typed;
+const CREW_MAX = TEXT_LIMITS.crew;
+const CAPTURE_MAX = TEXT_LIMITS.capture;
 
-/** The ranges every body field is checked against, for the screens to show beside their inputs too. */
-export const LIMITS = {
-  latitude_deg: atLeast(-90, 90, '°'),
-  longitude_deg: atLeast(-180, 180, '°'),
-  // Lowest dry land, the Dead Sea shore, about −430 m; Everest 8849 m (from memory). A margin on each side.
-  elevation_m: atLeast(-500, 9000, 'm'),
-  // From a seed (well under a gram, but above zero) to a heavy payload a crane can drop.
-  mass_kg: above(0, 1000, 'kg'),
-  // Lengths of a specimen: seeds of a fraction of a millimetre up to a large canopy.
-  length_m: above(0, 20, 'm'),
-  area_m2: above(0, 1000, 'm²'),
-  volume_m3: above(0, 1000, 'm³'),
-  // Bluff bodies lie near 0.4–2; a canopy referred to its own area up to about 2.5 (common practice).
-  reference_drag_coefficient: above(0, 5, ''),
-  // Surface records −89.2 °C (Vostok 1983) and 56.7 °C (Death Valley 1913), WMO extremes archive (from memory).
-  temperature_C: atLeast(-90, 60, '°C'),
-  u_temperature_C: atLeast(0, 10, '°C'),
-  // Station pressure: Everest summit reads about 33.7 kPa, the highest sea-level pressure measured about
-  // 108.4 kPa (from memory). Reduced to sea level the lowest measured is 87.0 kPa, typhoon Tip (from memory).
-  station_pressure_Pa: atLeast(30_000, 110_000, 'Pa', '(station pressure)'),
-  sea_level_pressure_Pa: atLeast(85_000, 110_000, 'Pa', '(reduced to sea level)'),
-  u_pressure_Pa: atLeast(0, 5000, 'Pa'),
-  relative_humidity_pct: atLeast(0, 100, '%'),
-  u_relative_humidity_pct: atLeast(0, 100, '%'),
-  dew_point_C: atLeast(-90, 60, '°C'),
-  u_dew_point_C: atLeast(0, 10, '°C'),
-  // Beyond hurricane force nobody drops anything; the bound catches km/h typed as m/s only above 75.
-  wind_speed_m_s: atLeast(0, 75, 'm/s'),
-  // A drop tower or a tethered balloon at most; drones are held to 120 m in most places.
-  height_m: above(0, 1000, 'm'),
-  u_time_s: atLeast(0, 10, 's'),
-  target_relative_uncertainty: above(0, 1, ''),
-  // A slow seed from a high release can take minutes; an hour is not a drop any more.
-  time_s: above(0, 3600, 's'),
-  sample_rate_Hz: above(0, 384_000, 'Hz'),
-  frame_rate_Hz: above(0, 1_000_000, 'Hz'),
-} as const satisfies Record<string, Limit>;
-
-/** Text lengths in characters. */
-const NAME_MAX = 200;
-const NOTES_MAX = 10_000;
-const TYPED_MAX = 100;
-const CREW_MAX = 50;
-const CAPTURE_MAX = 10_000;
-/** Dew point may read a little above the air temperature through instrument error, never much. */
-const DEW_POINT_MARGIN_C = 1;
 
 export const BODY_FIELDS: { readonly [K in RecordKind]: readonly (keyof BodyOf[K] & string)[] } = {
   site: ['name', 'latitude_deg', 'longitude_deg', 'elevation_m', 'elevation_source', 'notes'],
@@ -108,12 +56,7 @@ export const BODY_FIELDS: { readonly [K in RecordKind]: readonly (keyof BodyOf[K
 
 export const ENVELOPE_FIELDS = ['id', 'kind', 'created_at', 'updated_at', 'rev', 'device', 'deleted', 'history'] as const;
 
-const SHAPE_FIELDS: Record<string, readonly string[]> = {
-  sphere: ['diameter_m'],
-  cylinder: ['diameter_m', 'length_m'],
-  disc: ['diameter_m', 'thickness_m'],
-  box: ['length_m', 'width_m', 'height_m'],
-};
+const SHAPE_FIELDS: Record<string, readonly string[]> = SHAPE_DIMENSIONS;
 
 function show(value: unknown): string {
   if (typeof value === 'string') return JSON.stringify(value);
@@ -175,13 +118,19 @@ class Checker {
     return value === null || this.number(path, value, limit);
   }
 
-  /** A standard uncertainty: not negative, and not larger than the quantity it belongs to. */
-  uncertainty(path: string, value: unknown, ofPath: string, of: unknown, unit: string): boolean {
+  /**
+   * A standard uncertainty: not negative, not larger than the quantity it belongs to, and not beyond the
+   * catalogue's limit (past which the quantity is not measured at all).
+   */
+  uncertainty(path: string, value: unknown, ofPath: string, of: unknown, limit: Limit): boolean {
+    const unit = limit.unit;
     const known = isFiniteNumber(of) && of > 0;
-    const rule = `must be ≥ 0 and ≤ ${ofPath}${known ? ` (${of} ${unit})` : ''}`;
+    // The catalogue's cap is named only where it is the tighter bound.
+    const capped = known ? of > limit.max : isFiniteNumber(value) && value > limit.max;
+    const rule = `must be ≥ 0 and ≤ ${ofPath}${known ? ` (${of} ${unit})` : ''}${capped ? ` and ≤ ${limit.max} ${unit}` : ''}`;
     if (value === undefined) return this.add(path, value, rule, '');
     if (!isFiniteNumber(value)) return this.add(path, value, rule, 'is not a finite number');
-    if (value < 0 || (known && value > of)) return this.add(path, value, rule, 'is out of range');
+    if (value < 0 || (known && value > of) || value > limit.max) return this.add(path, value, rule, 'is out of range');
     return true;
   }
 
@@ -263,27 +212,27 @@ const article = (kind: string) => (/^[aeiou]/.test(kind) ? `an ${kind}` : `a ${k
 
 function checkShape(c: Checker, shape: unknown): void {
   if (!c.object('shape', shape, 'a shape')) return;
-  const kinds = ['sphere', 'cylinder', 'disc', 'box', 'custom'] as const;
+  const kinds = ENUMS.shape_kind;
   if (!c.oneOf('shape.kind', shape.kind, kinds)) return;
   if (shape.kind === 'custom') {
     c.number('shape.area_m2', shape.area_m2, LIMITS.area_m2);
-    c.uncertainty('shape.u_area_m2', shape.u_area_m2, 'shape.area_m2', shape.area_m2, 'm²');
+    c.uncertainty('shape.u_area_m2', shape.u_area_m2, 'shape.area_m2', shape.area_m2, LIMITS.u_area_m2);
     c.number('shape.volume_m3', shape.volume_m3, LIMITS.volume_m3);
-    c.uncertainty('shape.u_volume_m3', shape.u_volume_m3, 'shape.volume_m3', shape.volume_m3, 'm³');
+    c.uncertainty('shape.u_volume_m3', shape.u_volume_m3, 'shape.volume_m3', shape.volume_m3, LIMITS.u_volume_m3);
     c.onlyFields('shape', shape, ['kind', 'area_m2', 'u_area_m2', 'volume_m3', 'u_volume_m3'], 'a custom shape');
     return;
   }
   const dims = SHAPE_FIELDS[shape.kind]!;
   for (const dim of dims) {
     c.number(`shape.${dim}`, shape[dim], LIMITS.length_m);
-    c.uncertainty(`shape.u_${dim}`, shape[`u_${dim}`], `shape.${dim}`, shape[dim], 'm');
+    c.uncertainty(`shape.u_${dim}`, shape[`u_${dim}`], `shape.${dim}`, shape[dim], LIMITS.u_length_m);
   }
   c.onlyFields('shape', shape, ['kind', ...dims.flatMap((d) => [d, `u_${d}`])], article(shape.kind));
 }
 
 function checkHumidity(c: Checker, humidity: unknown, temperature: unknown): void {
   if (!c.object('humidity', humidity, 'humidity')) return;
-  if (!c.oneOf('humidity.kind', humidity.kind, ['relative', 'dew_point'] as const)) return;
+  if (!c.oneOf('humidity.kind', humidity.kind, ENUMS.humidity_kind)) return;
   if (humidity.kind === 'relative') {
     c.number('humidity.relative_humidity_pct', humidity.relative_humidity_pct, LIMITS.relative_humidity_pct);
     c.number('humidity.u_relative_humidity_pct', humidity.u_relative_humidity_pct, LIMITS.u_relative_humidity_pct);
@@ -307,9 +256,44 @@ function checkHumidity(c: Checker, humidity: unknown, temperature: unknown): voi
   c.onlyFields('humidity', humidity, ['kind', 'dew_point_C', 'u_dew_point_C'], 'a dew point');
 }
 
+/**
+ * The sound-travel correction stored with a sound capture: its inputs and its value, which must agree, so a
+ * drop's time can be recomputed from its record alone. null: the interval was not corrected.
+ */
+function checkSoundTravel(c: Checker, travel: unknown): void {
+  if (travel === null) return;
+  if (travel === undefined) {
+    c.add('raw.sound_travel', travel, 'must be the correction applied (its distances, speed of sound and value) or null', '');
+    return;
+  }
+  if (!c.object('raw.sound_travel', travel, 'a sound-travel correction')) return;
+  const d_r = c.number('raw.sound_travel.distance_to_release_m', travel.distance_to_release_m, LIMITS.sound_distance_m);
+  const d_i = c.number('raw.sound_travel.distance_to_landing_m', travel.distance_to_landing_m, LIMITS.sound_distance_m);
+  const speed = c.number('raw.sound_travel.speed_of_sound_m_s', travel.speed_of_sound_m_s, LIMITS.speed_of_sound_m_s);
+  c.nullableNumber('raw.sound_travel.temperature_C', travel.temperature_C, LIMITS.temperature_C);
+  const value = travel.correction_s;
+  if (c.number('raw.sound_travel.correction_s', value, LIMITS.sound_travel_correction_s) && d_r && d_i && speed) {
+    const expected = ((travel.distance_to_release_m as number) - (travel.distance_to_landing_m as number)) / (travel.speed_of_sound_m_s as number);
+    if (Math.abs((value as number) - expected) > SOUND_TRAVEL_TOLERANCE_S) {
+      c.add(
+        'raw.sound_travel.correction_s',
+        value,
+        `must equal (distance_to_release_m − distance_to_landing_m) / speed_of_sound_m_s (${expected} s)`,
+        'does not match its inputs',
+      );
+    }
+  }
+  c.onlyFields(
+    'raw.sound_travel',
+    travel,
+    ['distance_to_release_m', 'distance_to_landing_m', 'speed_of_sound_m_s', 'temperature_C', 'correction_s'],
+    'a sound-travel correction',
+  );
+}
+
 function checkRaw(c: Checker, raw: unknown): void {
   if (!c.object('raw', raw, 'a raw capture')) return;
-  if (!c.oneOf('raw.kind', raw.kind, ['typed', 'taps', 'sound', 'frames'] as const)) return;
+  if (!c.oneOf('raw.kind', raw.kind, ENUMS.raw_kind)) return;
   const finiteAtLeastZero = (p: string, v: unknown) =>
     isFiniteNumber(v) && v >= 0 ? true : c.add(p, v, 'must be a finite number ≥ 0', 'is not a time');
   const wholeAtLeastZero = (p: string, v: unknown) =>
@@ -329,7 +313,8 @@ function checkRaw(c: Checker, raw: unknown): void {
     case 'sound':
       c.series('raw.onsets_s', raw.onsets_s, finiteAtLeastZero);
       c.number('raw.sample_rate_Hz', raw.sample_rate_Hz, LIMITS.sample_rate_Hz);
-      c.onlyFields('raw', raw, ['kind', 'onsets_s', 'sample_rate_Hz'], 'a sound capture');
+      checkSoundTravel(c, raw.sound_travel);
+      c.onlyFields('raw', raw, ['kind', 'onsets_s', 'sample_rate_Hz', 'sound_travel'], 'a sound capture');
       return;
     case 'frames':
       c.series('raw.frames', raw.frames, wholeAtLeastZero);
@@ -354,13 +339,13 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     c.number('latitude_deg', b.latitude_deg, LIMITS.latitude_deg);
     c.number('longitude_deg', b.longitude_deg, LIMITS.longitude_deg);
     c.number('elevation_m', b.elevation_m, LIMITS.elevation_m);
-    c.oneOf('elevation_source', b.elevation_source, ['survey', 'map', 'gps', 'other'] as const);
+    c.oneOf('elevation_source', b.elevation_source, ENUMS.elevation_source);
     c.text('notes', b.notes, NOTES_MAX, false);
   },
   specimen(c, b) {
     c.text('name', b.name, NAME_MAX, true);
     c.number('mass_kg', b.mass_kg, LIMITS.mass_kg);
-    c.uncertainty('u_mass_kg', b.u_mass_kg, 'mass_kg', b.mass_kg, 'kg');
+    c.uncertainty('u_mass_kg', b.u_mass_kg, 'mass_kg', b.mass_kg, LIMITS.u_mass_kg);
     checkShape(c, b.shape);
     c.nullableNumber('reference_drag_coefficient', b.reference_drag_coefficient, LIMITS.reference_drag_coefficient);
     c.text('notes', b.notes, NOTES_MAX, false);
@@ -379,7 +364,7 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     const seaLevel = b.pressure_reference === 'sea_level';
     c.number('pressure_Pa', b.pressure_Pa, seaLevel ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa);
     c.number('u_pressure_Pa', b.u_pressure_Pa, LIMITS.u_pressure_Pa);
-    c.oneOf('pressure_reference', b.pressure_reference, ['station', 'sea_level'] as const);
+    c.oneOf('pressure_reference', b.pressure_reference, ENUMS.pressure_reference);
     checkHumidity(c, b.humidity, b.temperature_C);
     c.nullableNumber('wind_speed_m_s', b.wind_speed_m_s, LIMITS.wind_speed_m_s);
     c.text('instrument', b.instrument, NAME_MAX, false);
@@ -389,13 +374,13 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     c.id('day_id', b.day_id);
     c.id('specimen_id', b.specimen_id);
     c.number('height_m', b.height_m, LIMITS.height_m);
-    c.uncertainty('u_height_m', b.u_height_m, 'height_m', b.height_m, 'm');
-    c.oneOf('height_method', b.height_method, ['tape', 'laser', 'survey', 'marked', 'other'] as const);
-    c.oneOf('timing_method', b.timing_method, ['typed', 'stopwatch', 'tap', 'sound', 'video', 'gates'] as const);
+    c.uncertainty('u_height_m', b.u_height_m, 'height_m', b.height_m, LIMITS.u_height_m);
+    c.oneOf('height_method', b.height_method, ENUMS.height_method);
+    c.oneOf('timing_method', b.timing_method, ENUMS.timing_method);
     c.number('u_time_s', b.u_time_s, LIMITS.u_time_s);
     c.number('target_relative_uncertainty', b.target_relative_uncertainty, LIMITS.target_relative_uncertainty);
     c.id('reading_id', b.reading_id, true);
-    c.oneOf('timing_offset', b.timing_offset, ['none', 'fit'] as const);
+    c.oneOf('timing_offset', b.timing_offset, ENUMS.timing_offset);
     c.instant('started_at', b.started_at);
     c.text('notes', b.notes, NOTES_MAX, false);
   },

@@ -64,4 +64,39 @@ export const upgradeToV2: Upgrade = async (db, tx) => {
   await Promise.all([...summaries.values()].map((s) => store.put(s)));
 };
 
-export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2];
+type Body = Record<string, unknown>;
+
+/** A sound capture stored before version 3 gets `sound_travel: null`; anything else is left as it is. */
+function soundTravelNone(body: Body): Body | null {
+  const raw = body['raw'] as Body | null | undefined;
+  if (!raw || typeof raw !== 'object' || raw['kind'] !== 'sound' || 'sound_travel' in raw) return null;
+  return { ...body, raw: { ...raw, sound_travel: null } };
+}
+
+/**
+ * Version 3: a drop timed by sound stores the sound-travel correction applied to it (log format 2). Drops
+ * stored before did not say, so they get `sound_travel: null`, in their history too; a correction applied
+ * then stays in the drop's note, where it was written. Nothing else changes (not the revision stamp: this
+ * is the same record in the newer shape, as every phone upgrades it the same way).
+ */
+export const upgradeToV3: Upgrade = async (_db, tx) => {
+  const drops = tx.objectStore('drop');
+  let after: string | null = null;
+  for (;;) {
+    const page = await drops.getAll(after === null ? null : IDBKeyRange.lowerBound(after, true), PAGE);
+    const changed = page.flatMap((drop) => {
+      const record = drop as unknown as Body & { history: { body: Body }[] };
+      const history = record.history.map((entry) => {
+        const body = soundTravelNone(entry.body);
+        return body ? { ...entry, body } : entry;
+      });
+      const upgraded = soundTravelNone(record) ?? (history.some((entry, i) => entry !== record.history[i]) ? record : null);
+      return upgraded ? [{ ...upgraded, history }] : [];
+    });
+    await Promise.all(changed.map((drop) => drops.put(drop as unknown as (typeof page)[number])));
+    if (page.length < PAGE) break;
+    after = page[page.length - 1]!.id;
+  }
+};
+
+export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3];

@@ -1,7 +1,8 @@
 import { PlummetError, type PlummetErrorOptions } from '../errors';
+import type { RawCapture } from '../log';
 import { OnsetDetector, type AudioGap, type Onset, type OnsetDetectorOptions } from './onset-detector';
 import { SoundIntervalPairer, type SoundInterval } from './sound-interval';
-import { correctForSoundTravel, type SoundTravel } from './sound-travel';
+import { soundTravelRecord, type SoundTravel } from './sound-travel';
 import { checkFallTime } from './tap-timing';
 import { TimingError } from './timing-error';
 
@@ -36,13 +37,11 @@ export class SoundCaptureError extends PlummetError<SoundCaptureErrorCode> {
   }
 }
 
-/** The raw capture of a sound-timed drop, exactly as RawCapture 'sound' in the record model. */
-export interface SoundRawCapture {
-  kind: 'sound';
-  /** Release and impact onsets in seconds from the first sample of this recording. */
-  onsets_s: number[];
-  sample_rate_Hz: number;
-}
+/**
+ * The raw capture of a sound-timed drop, exactly as RawCapture 'sound' in the record model: onsets in seconds
+ * from the first sample of this recording, and the sound-travel correction applied (null when none).
+ */
+export type SoundRawCapture = Extract<RawCapture, { kind: 'sound' }>;
 
 export interface CapturedInterval extends SoundInterval {
   /** The fall time, corrected for sound travel when distances are given; null when refused. */
@@ -293,12 +292,15 @@ export class SoundCapture extends EventTarget {
       kind: 'sound',
       onsets_s: [this.secondsOf(interval.release_frame), this.secondsOf(interval.impact_frame)],
       sample_rate_Hz: interval.sample_rate_Hz,
+      sound_travel: null,
     };
     if (interval.problem) return { ...interval, time_s: null, sound_travel_correction_s: 0, raw };
     try {
-      const corrected = this.soundTravel ? correctForSoundTravel(interval.heard_s, this.soundTravel, this.height_m) : interval.heard_s;
-      const time_s = checkFallTime(corrected, 'time_s');
-      return { ...interval, time_s, sound_travel_correction_s: corrected - interval.heard_s, raw };
+      // Computed once here and stored with the capture; the time is the stored capture's own arithmetic.
+      raw.sound_travel = this.soundTravel ? soundTravelRecord(this.soundTravel, this.height_m) : null;
+      const correction_s = raw.sound_travel?.correction_s ?? 0;
+      const time_s = checkFallTime(interval.heard_s + correction_s, 'time_s');
+      return { ...interval, time_s, sound_travel_correction_s: correction_s, raw };
     } catch (error) {
       if (!(error instanceof TimingError)) throw error;
       return { ...interval, problem: error, time_s: null, sound_travel_correction_s: 0, raw };

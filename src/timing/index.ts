@@ -5,7 +5,15 @@ export { TimingError, type TimingErrorCode, type TimingErrorDetails } from './ti
 export { fallTimeFromTaps, fallTimeFromTapCapture, checkFallTime, FALL_TIME_LIMITS_S } from './tap-timing';
 export { OnsetDetector, ONSET_DEFAULTS, type OnsetDetectorOptions, type Onset, type AudioGap } from './onset-detector';
 export { SoundIntervalPairer, intervalBetween, type SoundInterval } from './sound-interval';
-export { correctForSoundTravel, soundTravelCorrection, speedOfSoundAt, SOUND_TRAVEL_LIMITS, type SoundTravel } from './sound-travel';
+export {
+  correctForSoundTravel,
+  soundTravelCorrection,
+  soundTravelRecord,
+  fallTimeFromSoundCapture,
+  speedOfSoundAt,
+  SOUND_TRAVEL_LIMITS,
+  type SoundTravel,
+} from './sound-travel';
 export {
   SoundCapture,
   SoundCaptureError,

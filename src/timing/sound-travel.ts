@@ -1,3 +1,4 @@
+import { LIMITS, type Limit, type RawCapture, type SoundTravelRecord } from '../log';
 import { AIR_LIMITS, speedOfSound } from '../physics';
 import { TimingError } from './timing-error';
 
@@ -20,12 +21,16 @@ export interface SoundTravel {
   distance_to_landing_m: number;
   /** Speed of sound in the air of the day (see speedOfSoundAt). */
   speed_of_sound_m_s: number;
+  /** The air temperature the speed of sound came from; null or absent when a reference temperature was assumed. */
+  temperature_C?: number | null;
 }
 
-/** Distances the crew can type: the phone is somewhere near the drop. */
+const rangeOf = (limit: Limit) => ({ min: limit.min, max: limit.max, text: `${limit.min} to ${limit.max} ${limit.unit}` });
+
+/** Distances the crew can type (the phone is somewhere near the drop) and speeds of sound: the log's own limits. */
 export const SOUND_TRAVEL_LIMITS = {
-  distance_m: { min: 0, max: 1000, text: '0 to 1000 m' },
-  speed_of_sound_m_s: { min: 250, max: 420, text: '250 to 420 m/s' },
+  distance_m: rangeOf(LIMITS.sound_distance_m),
+  speed_of_sound_m_s: rangeOf(LIMITS.speed_of_sound_m_s),
 } as const;
 
 /**
@@ -53,7 +58,7 @@ export function soundTravelCorrection(travel: SoundTravel, height_m?: number): n
   const d_i = checkRange('distance_to_landing_m', travel.distance_to_landing_m, SOUND_TRAVEL_LIMITS.distance_m);
   const c = checkRange('speed_of_sound_m_s', travel.speed_of_sound_m_s, SOUND_TRAVEL_LIMITS.speed_of_sound_m_s);
   if (height_m !== undefined) {
-    const h = checkRange('height_m', height_m, { min: 0, max: 5000, text: '0 to 5000 m' });
+    const h = checkRange('height_m', height_m, rangeOf(LIMITS.height_m));
     const difference = Math.abs(d_r - d_i);
     if (difference > h * (1 + 1e-9)) {
       throw new TimingError({
@@ -84,4 +89,28 @@ function checkRange(field: string, value: number, range: { min: number; max: num
     throw new TimingError({ code: 'out-of-range', field, value, allowed: range.text });
   }
   return value;
+}
+
+/**
+ * The correction as it is stored with a sound capture: its inputs and its value, computed here once, so a
+ * screen never recomputes it and the drop's time can be recomputed from its record (fallTimeFromSoundCapture).
+ */
+export function soundTravelRecord(travel: SoundTravel, height_m?: number): SoundTravelRecord {
+  const correction_s = soundTravelCorrection(travel, height_m);
+  return {
+    distance_to_release_m: travel.distance_to_release_m,
+    distance_to_landing_m: travel.distance_to_landing_m,
+    speed_of_sound_m_s: travel.speed_of_sound_m_s,
+    temperature_C: travel.temperature_C ?? null,
+    correction_s,
+  };
+}
+
+/** The fall time of a stored sound capture: the heard interval plus the stored correction (none when null). */
+export function fallTimeFromSoundCapture(raw: Extract<RawCapture, { kind: 'sound' }>): number {
+  const [release, impact] = raw.onsets_s;
+  if (raw.onsets_s.length !== 2 || release === undefined || impact === undefined) {
+    throw new TimingError({ code: 'wrong-count', field: 'onsets_s', value: [...raw.onsets_s], allowed: 'two onsets: release, then impact' });
+  }
+  return impact - release + (raw.sound_travel?.correction_s ?? 0);
 }

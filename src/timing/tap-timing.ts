@@ -1,3 +1,4 @@
+import { LIMITS } from '../log';
 import { TimingError } from './timing-error';
 
 /**
@@ -16,8 +17,12 @@ import { TimingError } from './timing-error';
  * part as a timing offset. The limits below refuse only what cannot be a fall at all.
  */
 
-/** The shortest and longest fall a tap capture may give, in seconds. */
-export const FALL_TIME_LIMITS_S = { min: 0.05, max: 120 } as const;
+/**
+ * The shortest and longest fall a capture may give, in seconds. The longest is the log's own (a time the log
+ * would refuse is not offered); the shortest is stricter than the log's "above 0": a human or a microphone
+ * cannot time a fall shorter than 50 ms, so such a capture is a double tap or one sound heard twice.
+ */
+export const FALL_TIME_LIMITS_S = { min: 0.05, max: LIMITS.time_s.max } as const;
 
 const ALLOWED = `a fall time from ${FALL_TIME_LIMITS_S.min} s to ${FALL_TIME_LIMITS_S.max} s, impact after release`;
 

@@ -223,6 +223,10 @@ export class QuantityInput extends LitElement {
       const sym = this.unitDef.symbol ? ` ${this.unitDef.symbol}` : '';
       return { value: null, error: `${name}: ${text.trim()}${sym} is out of range. Allowed: ${this.rangeText()}.` };
     }
+    // A value let through by the round-off allowance of a unit conversion is the limit itself, so the store
+    // (which allows no round-off) never refuses what this field accepted.
+    if (this.max !== undefined && si > this.max) return { value: this.max, error: null };
+    if (this.min !== undefined && si < this.min) return { value: this.min, error: null };
     return { value: si, error: null };
   }
 

@@ -313,6 +313,7 @@ export class TimerPad extends LitElement {
       distance_to_release_m: d_r,
       distance_to_landing_m: d_i,
       speed_of_sound_m_s: speedOfSoundAt(this.airTemperature ?? REFERENCE_TEMPERATURE_C),
+      temperature_C: this.airTemperature ?? null,
     };
     // Checks the distances now, so a typo shows before the drop rather than after it.
     soundTravelCorrection(travel, this.releaseHeight ?? undefined);

@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { buildLogFile, exportLog, logFileName, selectRecords, writeLogFile } from '../../src/log/export';
 import { LogFileError, readLogFile } from '../../src/log/export-parse';
 import { canonicalJson } from '../../src/log/canonical';
+import { LOG_FORMAT_VERSION } from '../../src/log/schema';
 import { byKind, revise, sampleLog, tombstone } from '../sync/sample-log';
 import type { LogRecord } from '../../src/log/types';
 
@@ -24,7 +25,7 @@ describe('exporting a log', () => {
 
   it('writes the format name, its version, the device and the app version', () => {
     const file = JSON.parse(exportLog(log, META));
-    expect(file).toMatchObject({ format: 'plummet-log', format_version: 1, device: 'phoneA', app_version: '0.1.0', selection: null });
+    expect(file).toMatchObject({ format: 'plummet-log', format_version: LOG_FORMAT_VERSION, device: 'phoneA', app_version: '0.1.0', selection: null });
     expect(file.records).toHaveLength(log.length);
   });
 
@@ -154,10 +155,11 @@ describe('reading a log file', () => {
   });
 
   it('refuses a file written by a newer app, naming both versions', () => {
-    const error = failure(text.replace('"format_version":1', '"format_version":2'));
+    const newer = LOG_FORMAT_VERSION + 1;
+    const error = failure(text.replace(`"format_version":${LOG_FORMAT_VERSION}`, `"format_version":${newer}`));
     expect(error.code).toBe('log-format-too-new');
-    expect(error.value).toBe(2);
-    expect(error.message).toMatch(/format 2.*reads format 1/);
+    expect(error.value).toBe(newer);
+    expect(error.message).toMatch(new RegExp(`format ${newer}.*reads format ${LOG_FORMAT_VERSION}`));
   });
 
   it('names the field, the value and the rule of a value out of range', () => {

@@ -2,7 +2,7 @@ import { describe, expect, expectTypeOf, it } from 'vitest';
 import fc from 'fast-check';
 import Ajv2020 from 'ajv/dist/2020';
 import { checkJsonSchema, JsonSchemaError, SUPPORTED_KEYWORDS, type JsonSchemaProblem } from '../../src/log/json-schema-check';
-import { LOG_SCHEMA } from '../../src/log/schema';
+import { LOG_FORMAT_VERSION, LOG_SCHEMA } from '../../src/log/schema';
 import { LIMITS, type Limit } from '../../src/log/validate';
 import { formatHlc } from '../../src/log/hlc';
 import { RECORD_KINDS } from '../../src/log/types';
@@ -20,7 +20,7 @@ const kindIn = (records: Rec[], kind: string) => records.filter((r) => r.kind ==
 
 const fileOf = (records: unknown[], selection: unknown = null) => ({
   format: 'plummet-log',
-  format_version: 1,
+  format_version: LOG_FORMAT_VERSION,
   app_version: '0.1.0',
   device: 'phoneA',
   selection,
@@ -57,25 +57,26 @@ const envelope = (kind: string) =>
     history: fc.array(revision, { maxLength: 2 }),
   });
 const length = within(LIMITS.length_m);
+const uLength = within(LIMITS.u_length_m);
 const shape = fc.oneof(
-  fc.record({ kind: fc.constant('sphere'), diameter_m: length, u_diameter_m: atLeastZero }),
-  fc.record({ kind: fc.constant('cylinder'), diameter_m: length, u_diameter_m: atLeastZero, length_m: length, u_length_m: atLeastZero }),
-  fc.record({ kind: fc.constant('disc'), diameter_m: length, u_diameter_m: atLeastZero, thickness_m: length, u_thickness_m: atLeastZero }),
+  fc.record({ kind: fc.constant('sphere'), diameter_m: length, u_diameter_m: uLength }),
+  fc.record({ kind: fc.constant('cylinder'), diameter_m: length, u_diameter_m: uLength, length_m: length, u_length_m: uLength }),
+  fc.record({ kind: fc.constant('disc'), diameter_m: length, u_diameter_m: uLength, thickness_m: length, u_thickness_m: uLength }),
   fc.record({
     kind: fc.constant('box'),
     length_m: length,
-    u_length_m: atLeastZero,
+    u_length_m: uLength,
     width_m: length,
-    u_width_m: atLeastZero,
+    u_width_m: uLength,
     height_m: length,
-    u_height_m: atLeastZero,
+    u_height_m: uLength,
   }),
   fc.record({
     kind: fc.constant('custom'),
     area_m2: within(LIMITS.area_m2),
-    u_area_m2: atLeastZero,
+    u_area_m2: within(LIMITS.u_area_m2),
     volume_m3: within(LIMITS.volume_m3),
-    u_volume_m3: atLeastZero,
+    u_volume_m3: within(LIMITS.u_volume_m3),
   }),
 );
 const humidity = fc.oneof(
@@ -93,6 +94,15 @@ const raw = fc.oneof(
     kind: fc.constant('sound'),
     onsets_s: fc.array(atLeastZero, { minLength: 2, maxLength: 4 }),
     sample_rate_Hz: within(LIMITS.sample_rate_Hz),
+    sound_travel: fc.option(
+      fc.record({
+        distance_to_release_m: within(LIMITS.sound_distance_m),
+        distance_to_landing_m: within(LIMITS.sound_distance_m),
+        speed_of_sound_m_s: within(LIMITS.speed_of_sound_m_s),
+        temperature_C: fc.option(within(LIMITS.temperature_C)),
+        correction_s: within(LIMITS.sound_travel_correction_s),
+      }),
+    ),
   }),
   fc.record({
     kind: fc.constant('frames'),
@@ -114,7 +124,7 @@ const bodies: Record<string, fc.Arbitrary<Record<string, unknown>>> = {
   specimen: fc.record({
     name: text,
     mass_kg: within(LIMITS.mass_kg),
-    u_mass_kg: atLeastZero,
+    u_mass_kg: within(LIMITS.u_mass_kg),
     shape,
     reference_drag_coefficient: fc.option(within(LIMITS.reference_drag_coefficient), { nil: null }),
     notes: text,
@@ -141,7 +151,7 @@ const bodies: Record<string, fc.Arbitrary<Record<string, unknown>>> = {
     day_id: uuid,
     specimen_id: uuid,
     height_m: within(LIMITS.height_m),
-    u_height_m: atLeastZero,
+    u_height_m: within(LIMITS.u_height_m),
     height_method: oneOf('tape', 'laser', 'survey', 'marked', 'other'),
     timing_method: oneOf('typed', 'stopwatch', 'tap', 'sound', 'video', 'gates'),
     u_time_s: within(LIMITS.u_time_s),

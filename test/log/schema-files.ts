@@ -1,9 +1,12 @@
 // Writes the published JSON Schema from the schema in src/log/schema.ts.
 // Used by test/log/schema-generate.ts (which writes the files) and by the schema test (which checks they are fresh).
 import Ajv2020 from 'ajv/dist/2020';
-import { LOG_SCHEMA } from '../../src/log/schema';
+import { LOG_FORMAT_VERSION, LOG_SCHEMA } from '../../src/log/schema';
 
-export const SCHEMA_FILE = 'public/schema/plummet-log-1.schema.json';
+/** The current format's schema, written from src/log/schema.ts. */
+export const SCHEMA_FILE = `public/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
+/** Format 1's schema: frozen, kept published for readers of old files; nothing writes it any more. */
+export const SCHEMA_FILE_V1 = 'public/schema/plummet-log-1.schema.json';
 
 /** ajv, the reference validator the tests compare the app's own checker with. */
 export function makeAjv(source: boolean): Ajv2020 {

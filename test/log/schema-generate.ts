@@ -1,5 +1,5 @@
-// Regenerates public/schema/plummet-log-1.schema.json from src/log/schema.ts.
-// Run: npx tsx test/log/schema-generate.ts
+// Regenerates the current format's public/schema/plummet-log-<version>.schema.json from src/log/schema.ts.
+// Run: npm run schema
 import { writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { SCHEMA_FILE, schemaFileText } from './schema-files';

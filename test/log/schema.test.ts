@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { LOG_SCHEMA, LOG_SCHEMA_PATH } from '../../src/log/schema';
+import { LOG_FORMAT_VERSION, LOG_SCHEMA, LOG_SCHEMA_PATH } from '../../src/log/schema';
 import { checkJsonSchema } from '../../src/log/json-schema-check';
 import { LIMITS } from '../../src/log/validate';
 import { validateRecord } from '../../src/log/validate';
@@ -26,7 +26,7 @@ const validators: [string, Validator][] = [
 ];
 
 function fileOf(records: LogRecord[]) {
-  return { format: 'plummet-log', format_version: 1, app_version: '0.1.0', device: 'phoneA', selection: null, records };
+  return { format: 'plummet-log', format_version: LOG_FORMAT_VERSION, app_version: '0.1.0', device: 'phoneA', selection: null, records };
 }
 
 describe('the published log schema', () => {
@@ -79,7 +79,7 @@ describe.each(validators)('validating log files with %s', (_name, validate) => {
   });
 
   it('refuses a file of a newer format version', () => {
-    expect(validate({ ...fileOf(log), format_version: 2 })).toBe(false);
+    expect(validate({ ...fileOf(log), format_version: LOG_FORMAT_VERSION + 1 })).toBe(false);
     expect(validate.errors![0]!.instancePath).toBe('/format_version');
   });
 });

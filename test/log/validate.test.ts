@@ -94,7 +94,7 @@ describe('validateBody', () => {
 
   it('checks the dimensions of each shape and refuses a shape it does not know', () => {
     expect(messages('specimen', { ...demo.steelBall(), shape: { kind: 'sphere', diameter_m: 0, u_diameter_m: 0 } })).toEqual([
-      'shape.diameter_m: 0 is out of range: must be > 0 and ≤ 20 m',
+      'shape.diameter_m: 0 is out of range: must be > 0 and ≤ 10 m',
     ]);
     expect(
       validateBody('specimen', {
@@ -110,7 +110,7 @@ describe('validateBody', () => {
         ...demo.steelBall(),
         shape: { kind: 'box', length_m: 0.2, u_length_m: 0.001, width_m: 0.1, u_width_m: 0.001 },
       }),
-    ).toEqual(['shape.height_m: missing: must be > 0 and ≤ 20 m', 'shape.u_height_m: missing: must be ≥ 0 and ≤ shape.height_m']);
+    ).toEqual(['shape.height_m: missing: must be > 0 and ≤ 10 m', 'shape.u_height_m: missing: must be ≥ 0 and ≤ shape.height_m']);
   });
 
   it('refuses a standard uncertainty larger than the quantity itself', () => {

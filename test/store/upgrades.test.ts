@@ -97,11 +97,11 @@ const byKindAndId = (a: LogRecord, b: LogRecord) => (a.kind + a.id < b.kind + b.
 
 describe('schema upgrades', () => {
   it('ships one upgrade function per version, and the current version is the last', () => {
-    expect(UPGRADES).toHaveLength(2);
-    expect(DB_VERSION).toBe(2);
+    expect(UPGRADES).toHaveLength(3);
+    expect(DB_VERSION).toBe(3);
   });
 
-  it('opens a database filled by version 1 under version 2 with every record, draft and meta entry intact', async () => {
+  it('opens a database filled by version 1 under the current version with every record, draft and meta entry intact', async () => {
     const name = freshName();
     const { records, expected } = await fillVersionOne(name);
     const fake = fakeEnvironment();
@@ -112,7 +112,7 @@ describe('schema upgrades', () => {
     expect((await store.status()).unsentChanges).toBe(17);
     store.close();
     const db = await openDB<LogDB>(name);
-    expect(db.version).toBe(2);
+    expect(db.version).toBe(DB_VERSION);
     db.close();
   });
 
@@ -186,10 +186,38 @@ describe('schema upgrades', () => {
     await store.create('site', demo.site());
     const noop: Upgrade = () => undefined;
     const newer = await openLogDatabase(name, { upgrades: [...UPGRADES, noop] });
-    expect(newer.version).toBe(3);
+    expect(newer.version).toBe(DB_VERSION + 1);
     expect(told).toBe(1);
     await expect(store.list('site')).rejects.toMatchObject({ code: 'store-closed' });
     expect(await newer.count('site')).toBe(1);
     newer.close();
+  });
+
+  it('gives every sound-timed drop stored by version 2 a sound_travel of null (in its history too), and changes nothing else', async () => {
+    const name = freshName();
+    const clock = new HybridLogicalClock(DEVICE);
+    let t = Date.UTC(2026, 3, 1, 8, 0, 0);
+    const ctx = () => ({ device: DEVICE, clock, now: (t += 1000), random: (b: Uint8Array) => webcrypto.getRandomValues(b) });
+    // Version 2 stored sound captures without sound_travel (log format 1): written here as they were.
+    const formatOne = (record: LogRecord): LogRecord => JSON.parse(JSON.stringify(record, (key, value) => (key === 'sound_travel' ? undefined : value)));
+    const raw = { kind: 'sound' as const, onsets_s: [1.5, 2.62], sample_rate_Hz: 44_100, sound_travel: null };
+    const heard = createRecord('drop', { ...demo.drop(1), raw, time_s: 1.12, note: 'sound travel correction 29.1 ms (phone 10 m from release, 0 m from landing)' }, ctx());
+    const revised = reviseRecord(createRecord('drop', { ...demo.drop(2), raw, time_s: 1.12 }, ctx()), { time_s: 1.121 }, { ...ctx(), reason: 'rounding' });
+    const tapped = createRecord('drop', demo.drop(3), ctx());
+    const stored = [heard, revised, tapped].map(formatOne);
+    expect(JSON.stringify(stored)).not.toContain('sound_travel');
+    const old = await openLogDatabase(name, { version: 2 });
+    const tx = old.transaction('drop', 'readwrite');
+    await Promise.all([...stored.map((r) => tx.objectStore('drop').put(r as never)), tx.done]);
+    old.close();
+
+    const db = await openLogDatabase(name);
+    const after = new Map((await db.getAll('drop')).map((d) => [d.id, d]));
+    db.close();
+    // The records as log format 2 writes them: exactly what was created, sound_travel null included.
+    expect(after.get(heard.id)).toEqual(heard);
+    expect(after.get(revised.id)).toEqual(revised);
+    expect(after.get(revised.id)!.history[0]!.body.raw).toEqual(raw);
+    expect(after.get(tapped.id)).toEqual(tapped);
   });
 });

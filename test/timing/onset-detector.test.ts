@@ -227,11 +227,11 @@ describe('intervals from sound onsets', () => {
     ]);
   });
 
-  it('takes an onset more than 120 s after a lone release as the new release', () => {
+  it('takes an onset more than the longest fall (3600 s) after a lone release as the new release', () => {
     const pairer = new SoundIntervalPairer(RATE);
     expect(pairer.push({ frame: 0, amplitude: 0.1, background: 0.001 }, [])).toBeNull();
-    expect(pairer.push({ frame: 121 * RATE, amplitude: 0.1, background: 0.001 }, [])).toBeNull();
-    expect(pairer.pendingRelease?.frame).toBe(121 * RATE);
-    expect(pairer.push({ frame: 122 * RATE, amplitude: 0.1, background: 0.001 }, [])?.frames).toBe(RATE);
+    expect(pairer.push({ frame: 3601 * RATE, amplitude: 0.1, background: 0.001 }, [])).toBeNull();
+    expect(pairer.pendingRelease?.frame).toBe(3601 * RATE);
+    expect(pairer.push({ frame: 3602 * RATE, amplitude: 0.1, background: 0.001 }, [])?.frames).toBe(RATE);
   });
 });

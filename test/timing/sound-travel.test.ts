@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { TimingError, correctForSoundTravel, soundTravelCorrection, speedOfSoundAt } from '../../src/timing';
+import { TimingError, correctForSoundTravel, fallTimeFromSoundCapture, soundTravelCorrection, soundTravelRecord, speedOfSoundAt } from '../../src/timing';
+import { validateBody } from '../../src/log';
 
 describe('correcting a heard interval for sound travel', () => {
   it('matches a worked example: phone on the ground 3 m from the landing point of a 12 m drop at 10 °C', () => {
@@ -58,5 +59,41 @@ describe('correcting a heard interval for sound travel', () => {
     expect(codeOf(() => soundTravelCorrection({ ...ok, speed_of_sound_m_s: 34.3 }))).toEqual(['out-of-range', 'speed_of_sound_m_s', 34.3, '250 to 420 m/s']);
     expect(codeOf(() => speedOfSoundAt(150))).toEqual(['out-of-range', 'temperature_C', 150, '-100 to 100 °C']);
     expect(codeOf(() => correctForSoundTravel(Infinity, ok))).toEqual(['not-finite', 'heard_s', Infinity, 'a finite time in seconds']);
+  });
+});
+
+describe('the correction stored with a sound capture', () => {
+  // The worked example above: 12 m drop, phone on the ground 3 m from the landing point, 10 °C.
+  const travel = { distance_to_release_m: Math.sqrt(153), distance_to_landing_m: 3, speed_of_sound_m_s: speedOfSoundAt(10), temperature_C: 10 };
+
+  it('holds its inputs and its value, computed once here', () => {
+    const stored = soundTravelRecord(travel, 12);
+    expect(stored).toEqual({ ...travel, correction_s: soundTravelCorrection(travel, 12) });
+    expect(stored.correction_s).toBeCloseTo(0.027778, 6);
+    expect(soundTravelRecord({ ...travel, temperature_C: undefined }).temperature_C).toBeNull();
+  });
+
+  it('lets a corrected drop be recomputed from its record alone: heard interval + stored correction', () => {
+    const heard_s = 1.58;
+    const raw = { kind: 'sound' as const, onsets_s: [0.75, 0.75 + heard_s], sample_rate_Hz: 44_100, sound_travel: soundTravelRecord(travel, 12) };
+    const time_s = correctForSoundTravel(heard_s, travel, 12);
+    expect(fallTimeFromSoundCapture(raw)).toBeCloseTo(time_s, 12);
+    expect(fallTimeFromSoundCapture(raw)).toBeCloseTo(1.607778, 6);
+    expect(fallTimeFromSoundCapture({ ...raw, sound_travel: null })).toBeCloseTo(heard_s, 12);
+    // The record the drop entry writes with it is valid as it stands.
+    const body = { series_id: '3f1c2a9e-5b7d-4e21-9c0a-1d2e3f405162', seq: 1, raw, time_s, height_m: null, excluded: false, exclusion_reason: null, note: '', captured_at: '2026-06-14T09:10:12.000Z' };
+    expect(validateBody('drop', body)).toEqual([]);
+  });
+
+  it('refuses a capture without exactly two onsets, naming them', () => {
+    const e = (() => {
+      try {
+        fallTimeFromSoundCapture({ kind: 'sound', onsets_s: [1], sample_rate_Hz: 44_100, sound_travel: null });
+      } catch (error) {
+        return error as TimingError;
+      }
+      throw new Error('expected a refusal');
+    })();
+    expect([e.code, e.field, e.value]).toEqual(['wrong-count', 'onsets_s', [1]]);
   });
 });

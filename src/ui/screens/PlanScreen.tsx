@@ -1,6 +1,6 @@
 import { useMemo } from 'preact/hooks';
 import type { DropPlan } from '../../physics';
-import type { TimingMethod } from '../../log';
+import { inputRange, LIMITS, type TimingMethod } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../forms';
@@ -90,7 +90,7 @@ export function PlanScreen() {
             options={specimens.map((s) => ({ value: s.id, label: s.name }))}
             onChange={(specimenId) => form.set({ specimenId })}
           />
-          <QField label="Release height" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+          <QField label="Release height" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
           <SelectField
             id="plan-timing"
             label="Timing method"
@@ -100,7 +100,7 @@ export function PlanScreen() {
           />
           <QField label="Timing std. uncertainty per drop" kind="time" delta state={d.uTime} min={0} minExclusive max={1} onChange={(uTime) => form.set({ uTime })} />
           <QField label="Target uncertainty of C_d" kind="percent" state={d.target} min={0} minExclusive max={100} onChange={(target) => form.set({ target })} />
-          <QField label="Highest release point available" kind="length" state={d.maxHeight} min={0.5} max={5000} onChange={(maxHeight) => form.set({ maxHeight })} />
+          <QField label="Highest release point available" kind="length" state={d.maxHeight} min={0.5} max={LIMITS.height_m.max} onChange={(maxHeight) => form.set({ maxHeight })} />
           {measured ? (
             <label class="check">
               <input type="checkbox" checked={d.useMeasured !== false} onChange={(e) => form.set({ useMeasured: (e.target as HTMLInputElement).checked })} />

@@ -1,5 +1,5 @@
 import { useState } from 'preact/hooks';
-import type { ShapeKind, SpecimenBody, SpecimenRecord, SpecimenShape } from '../../log';
+import { inputRange, LIMITS, type ShapeKind, type SpecimenBody, type SpecimenRecord, type SpecimenShape } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';
@@ -168,19 +168,11 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
   const measuredChanged =
     record !== null && shape !== null && (JSON.stringify(shape) !== JSON.stringify(record.shape) || d.mass.value !== record.mass_kg || d.uMass.value !== record.u_mass_kg);
   const needsReason = measuredChanged && d.reason.trim() === '';
-  const S = (props: { label: string; f: keyof SpecimenDraft & string; u: keyof SpecimenDraft & string; kind?: 'smallLength' | 'area' | 'volume'; max?: number }) => (
-    <MeasuredField
-      form={form}
-      name={props.f}
-      uName={props.u}
-      label={props.label}
-      kind={props.kind ?? 'smallLength'}
-      min={0}
-      minExclusive={props.kind !== 'volume'}
-      max={props.max ?? 10}
-      uMax={props.max ?? 10}
-    />
-  );
+  const S = (props: { label: string; f: keyof SpecimenDraft & string; u: keyof SpecimenDraft & string; kind?: 'smallLength' | 'area' | 'volume' }) => {
+    const [limit, uLimit] =
+      props.kind === 'area' ? [LIMITS.area_m2, LIMITS.u_area_m2] : props.kind === 'volume' ? [LIMITS.volume_m3, LIMITS.u_volume_m3] : [LIMITS.length_m, LIMITS.u_length_m];
+    return <MeasuredField form={form} name={props.f} uName={props.u} label={props.label} kind={props.kind ?? 'smallLength'} {...inputRange(limit)} uMax={uLimit.max} />;
+  };
 
   const save = async () => {
     if (!shape) return;
@@ -212,7 +204,7 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
       <h2 id="spec-h">{record ? `Edit ${record.name}` : 'New specimen'}</h2>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
       <TextField id="spec-name" label="Name" value={d.name} required onInput={(name) => form.set({ name })} />
-      <MeasuredField form={form} name="mass" uName="uMass" label="Mass" kind="mass" min={0} minExclusive max={1000} uMax={100} />
+      <MeasuredField form={form} name="mass" uName="uMass" label="Mass" kind="mass" {...inputRange(LIMITS.mass_kg)} uMax={LIMITS.u_mass_kg.max} />
       <Choice legend="Shape" name="shape" value={d.shape} options={SHAPES} onChange={(s) => form.set({ shape: s })} />
       {d.shape === 'sphere' ? S({ label: 'Diameter', f: 'diameter', u: 'uDiameter' }) : null}
       {d.shape === 'cylinder' ? (
@@ -239,8 +231,8 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
       ) : null}
       {d.shape === 'custom' ? (
         <>
-          {S({ label: 'Frontal area', f: 'area', u: 'uArea', kind: 'area' as const, max: 100 })}
-          {S({ label: 'Volume', f: 'volume', u: 'uVolume', kind: 'volume' as const, max: 100 })}
+          {S({ label: 'Frontal area', f: 'area', u: 'uArea', kind: 'area' as const })}
+          {S({ label: 'Volume', f: 'volume', u: 'uVolume', kind: 'volume' as const })}
         </>
       ) : null}
       <QField
@@ -248,9 +240,7 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
         kind="ratio"
         required={false}
         state={d.referenceCd}
-        min={0}
-        minExclusive
-        max={100}
+        {...inputRange(LIMITS.reference_drag_coefficient)}
         hint="From a handbook or a wind tunnel; used to predict fall times. Spheres without one use a published correlation."
         onChange={(referenceCd) => form.set({ referenceCd })}
       />

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'preact/hooks';
 import { typedAirProperties } from '../../../analysis';
-import type { SiteRecord } from '../../../log';
+import { inputRange, LIMITS, type SiteRecord } from '../../../log';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
@@ -101,7 +101,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
     <section class="card" aria-labelledby="reading-h">
       <h3 id="reading-h">New air reading</h3>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
-      <MeasuredField form={form} name="temperature" uName="uTemperature" label="Air temperature" kind="temperature" min={-60} max={60} uMax={20} />
+      <MeasuredField form={form} name="temperature" uName="uTemperature" label="Air temperature" kind="temperature" {...inputRange(LIMITS.temperature_C)} uMax={LIMITS.u_temperature_C.max} />
       <Choice
         legend="The barometer shows"
         name="pref"
@@ -113,7 +113,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
         onChange={(reference) => form.set({ reference })}
         hint="Station pressure is what the air presses here; weather reports give sea-level pressure (QNH)."
       />
-      <MeasuredField form={form} name="pressure" uName="uPressure" label="Pressure" kind="pressure" min={30_000} max={110_000} uMax={5000} />
+      <MeasuredField form={form} name="pressure" uName="uPressure" label="Pressure" kind="pressure" {...inputRange(d.reference === 'sea_level' ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa)} uMax={LIMITS.u_pressure_Pa.max} />
       <Choice
         legend="Humidity as"
         name="hkind"
@@ -125,11 +125,11 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
         onChange={(humidityKind) => form.set({ humidityKind })}
       />
       {d.humidityKind === 'relative' ? (
-        <MeasuredField form={form} name="humidity" uName="uHumidity" label="Relative humidity" kind="percent" min={0} max={100} uMax={50} />
+        <MeasuredField form={form} name="humidity" uName="uHumidity" label="Relative humidity" kind="percent" {...inputRange(LIMITS.relative_humidity_pct)} uMax={LIMITS.u_relative_humidity_pct.max} />
       ) : (
-        <MeasuredField form={form} name="dewPoint" uName="uDewPoint" label="Dew point" kind="temperature" min={-80} max={60} uMax={20} />
+        <MeasuredField form={form} name="dewPoint" uName="uDewPoint" label="Dew point" kind="temperature" {...inputRange(LIMITS.dew_point_C)} uMax={LIMITS.u_dew_point_C.max} />
       )}
-      <QField label="Wind speed (optional)" kind="speed" required={false} state={d.wind} min={0} max={60} onChange={(wind) => form.set({ wind })} />
+      <QField label="Wind speed (optional)" kind="speed" required={false} state={d.wind} {...inputRange(LIMITS.wind_speed_m_s)} onChange={(wind) => form.set({ wind })} />
       <TextField id="instrument" label="Instrument" value={d.instrument} onInput={(instrument) => form.set({ instrument })} />
       <AirFigures preview={preview} />
       {error ? <Notice tone="bad">{error}</Notice> : null}

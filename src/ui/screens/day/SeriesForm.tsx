@@ -1,5 +1,5 @@
 import { useState } from 'preact/hooks';
-import type { HeightMethod, ReadingRecord, SpecimenRecord, TimingMethod } from '../../../log';
+import { inputRange, LIMITS, type HeightMethod, type ReadingRecord, type SpecimenRecord, type TimingMethod } from '../../../log';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
@@ -43,6 +43,9 @@ interface SeriesDraft {
   readingId: string;
   fitOffset: boolean;
 }
+
+/** The stored fraction's limit, as the percent the crew types. */
+const TARGET_PERCENT = { ...LIMITS.target_relative_uncertainty, max: LIMITS.target_relative_uncertainty.max * 100, unit: '%' };
 
 export function SeriesForm({
   dayId,
@@ -126,7 +129,7 @@ export function SeriesForm({
         options={specimens.map((s) => ({ value: s.id, label: s.name }))}
         onChange={(specimenId) => form.set({ specimenId })}
       />
-      <MeasuredField form={form} name="height" uName="uHeight" label="Release height" kind="length" min={0} minExclusive max={5000} uMax={10} />
+      <MeasuredField form={form} name="height" uName="uHeight" label="Release height" kind="length" {...inputRange(LIMITS.height_m)} uMax={LIMITS.u_height_m.max} />
       <SelectField
         id="height-method"
         label="Height measured by"
@@ -149,9 +152,7 @@ export function SeriesForm({
         kind="time"
         delta
         state={d.uTime}
-        min={0}
-        minExclusive
-        max={1}
+        {...inputRange(LIMITS.u_time_s)}
         hint="Random spread of one drop’s time. A steady start/stop delay belongs in the offset fit instead."
         onChange={(uTime) => form.set({ uTime })}
       />
@@ -159,9 +160,7 @@ export function SeriesForm({
         label="Target uncertainty of the drag coefficient"
         kind="percent"
         state={d.target}
-        min={0}
-        minExclusive
-        max={100}
+        {...inputRange(TARGET_PERCENT)}
         hint="Relative standard uncertainty the crew aims for."
         onChange={(target) => form.set({ target })}
       />

@@ -3,7 +3,7 @@ import { useApp } from '../../app-context';
 import { useDraft, useStoreData } from '../../hooks';
 import { Choice, Notice, QField, SelectField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { navigate } from '../../router';
-import type { SiteBody } from '../../../log';
+import { inputRange, LIMITS, type SiteBody } from '../../../log';
 import { describeError } from '../../errors';
 import { localDate } from '../../dates';
 
@@ -135,15 +135,14 @@ export function StartDayForm() {
           </button>
           {locating ? <p class="hint" role="status">{locating}</p> : null}
           <div class="two">
-            <QField label="Latitude" kind="angle" state={f.latitude} min={-90} max={90} onChange={(latitude) => form.set({ latitude })} compact />
-            <QField label="Longitude" kind="angle" state={f.longitude} min={-180} max={180} onChange={(longitude) => form.set({ longitude })} compact />
+            <QField label="Latitude" kind="angle" state={f.latitude} {...inputRange(LIMITS.latitude_deg)} onChange={(latitude) => form.set({ latitude })} compact />
+            <QField label="Longitude" kind="angle" state={f.longitude} {...inputRange(LIMITS.longitude_deg)} onChange={(longitude) => form.set({ longitude })} compact />
           </div>
           <QField
             label="Elevation"
             kind="length"
             state={f.elevation}
-            min={-500}
-            max={9000}
+            {...inputRange(LIMITS.elevation_m)}
             hint="Height above sea level of the landing surface."
             onChange={(elevation) => form.set({ elevation })}
           />

@@ -1,6 +1,6 @@
 // Entering one drop: the timer pad (taps or sound) or a typed time, kept as a draft until saved.
 import { useRef, useState } from 'preact/hooks';
-import type { SeriesRecord } from '../../../../log';
+import { inputRange, LIMITS, type SeriesRecord } from '../../../../log';
 import { useApp } from '../../../app-context';
 import { useDraft } from '../../../hooks';
 import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../../forms';
@@ -82,8 +82,8 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
           <>
             {padMode === 'listen' ? (
               <div class="two">
-                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} min={0} max={5000} onChange={(releaseDistance) => form.set({ releaseDistance })} />
-                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} min={0} max={5000} onChange={(landingDistance) => form.set({ landingDistance })} />
+                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(releaseDistance) => form.set({ releaseDistance })} />
+                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(landingDistance) => form.set({ landingDistance })} />
               </div>
             ) : null}
             <pl-timer-pad
@@ -95,17 +95,9 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
               airTemperature={airTemperature ?? undefined}
               decimalComma={app.settings.decimalComma}
               ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
+                // The capture carries its sound-travel correction as data (raw.sound_travel).
                 const t = e.detail.time_s;
-                const raw = e.detail.raw;
-                const heard = raw.kind === 'sound' ? (raw.onsets_s[1]! - raw.onsets_s[0]!) : t;
-                const correction = t - heard;
-                form.set({
-                  time: { value: t, error: null, text: t.toFixed(4) },
-                  captured: raw,
-                  note: raw.kind === 'sound' && Math.abs(correction) > 1e-9
-                    ? `sound travel correction ${(correction * 1000).toFixed(1)} ms (phone ${d.releaseDistance.value} m from release, ${d.landingDistance.value} m from landing)`
-                    : d.note,
-                });
+                form.set({ time: { value: t, error: null, text: t.toFixed(4) }, captured: e.detail.raw });
               }}
             />
           </>
@@ -115,9 +107,7 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
             label="Fall time"
             kind="time"
             state={d.time}
-            min={0}
-            minExclusive
-            max={600}
+            {...inputRange(LIMITS.time_s)}
             hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
             onChange={(time) => form.set({ time, captured: null })}
           />
@@ -127,7 +117,7 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
           <span>Dropped from another height</span>
         </label>
         {d.otherHeight ? (
-          <QField label="Height of this drop" kind="length" state={d.height} min={0} minExclusive max={5000} onChange={(height) => form.set({ height })} />
+          <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
         ) : null}
         <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
         {error ? <Notice tone="bad">{error}</Notice> : null}

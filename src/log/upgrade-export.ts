@@ -1,0 +1,56 @@
+/**
+ * Upgrading a log file written in an older format to the current one, before it is checked and merged.
+ *
+ * One function per format step, like the store's upgrades: each is history and never changes once shipped.
+ * An upgrade only adds what the newer format requires and the older file could not say; it never changes a
+ * value that was there.
+ */
+
+type Json = Record<string, unknown>;
+
+const isObject = (v: unknown): v is Json => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/** A sound capture of format 1 did not say whether a sound-travel correction was applied: it records none. */
+function soundCaptureToV2(body: Json): Json {
+  const raw = body['raw'];
+  if (!isObject(raw) || raw['kind'] !== 'sound' || 'sound_travel' in raw) return body;
+  return { ...body, raw: { ...raw, sound_travel: null } };
+}
+
+/**
+ * Format 1 → 2: a sound capture carries `sound_travel` (the correction applied, or null). Format 1 kept any
+ * correction only in the drop's note, as text: it stays there, and the capture says null (none recorded).
+ */
+function upgradeToV2(file: Json): Json {
+  const records = Array.isArray(file['records'])
+    ? file['records'].map((record: unknown) => {
+        if (!isObject(record) || record['kind'] !== 'drop') return record;
+        const history = Array.isArray(record['history'])
+          ? record['history'].map((entry: unknown) =>
+              isObject(entry) && isObject(entry['body']) ? { ...entry, body: soundCaptureToV2(entry['body']) } : entry,
+            )
+          : record['history'];
+        return { ...soundCaptureToV2(record), history };
+      })
+    : file['records'];
+  return { ...file, format_version: 2, records };
+}
+
+/** LOG_FILE_UPGRADES[n − 1] takes a file from format n to n + 1. */
+const LOG_FILE_UPGRADES: readonly ((file: Json) => Json)[] = [upgradeToV2];
+
+/**
+ * The file in the current format: older formats are upgraded step by step; anything else (the current format,
+ * a newer one, or not a log at all) is returned as it is, for the checks that follow to judge.
+ */
+export function upgradeLogFile(data: unknown): unknown {
+  if (!isObject(data)) return data;
+  let file = data;
+  for (;;) {
+    const version = file['format_version'];
+    if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) return file;
+    const step = LOG_FILE_UPGRADES[version - 1];
+    if (!step) return file;
+    file = step(file);
+  }
+}
