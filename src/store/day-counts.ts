@@ -2,7 +2,9 @@
  * The counts kept per day (live readings, live series, and the live drops of those series), so the list of
  * days opens without reading every drop. One algorithm keeps them, for a user action and for a merged batch
  * alike: the counts stored before a write plus what the write changes (dayCountsAfter). countDay, a count
- * made afresh from the stored records, is only the starting point of a day that had no counts.
+ * made afresh from the stored records, only gives the starting point of a day that had no counts (new,
+ * revived, or missing them by a fault, which listDays also survives this way). The upgrade to version 2
+ * (upgrades.ts) fills the counts once with its own frozen copy of the rule, as upgrades use no app code.
  * test/store/day-counts.property.test.ts checks that the kept counts always equal a recount.
  */
 import type { LogRecord, SeriesRecord } from '../log';
