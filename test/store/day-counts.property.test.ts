@@ -95,7 +95,8 @@ const byDay = (list: DaySummary[]) => [...list].sort((a, b) => (a.day_id < b.day
 function restored<R extends LogRecord>(record: R, clock: HybridLogicalClock, now: number): R {
   const versions = recordHistory(record);
   const last = { ...versions[versions.length - 1]!, reason: 'removed by mistake' };
-  return { ...record, deleted: false, rev: clock.receive(record.rev, now), device: clock.device, updated_at: new Date(now).toISOString(), history: [...record.history, last] };
+  const rev = clock.receive(record.rev, now);
+  return { ...record, deleted: false, rev, device: clock.device, updated_at: new Date(now).toISOString(), history: [...record.history, last] };
 }
 
 /** A revision that changes no count: a note. */
