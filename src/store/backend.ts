@@ -3,7 +3,7 @@
  * The log logic (create-log-store.ts) is written once over this; IndexedDB and the in-memory twin implement it.
  */
 import type { LogRecord, RecordKind, RecordOf } from '../log';
-import type { DaySummary, DraftEntry } from './types';
+import type { DaySummary, DraftEntry, MetaKey, MetaValues } from './types';
 
 /** The indexes the screens need, by store, and the record field each one is over. */
 export const INDEX_FIELDS = {
@@ -35,8 +35,9 @@ export interface StoreTx {
   putSummary(summary: DaySummary): Promise<void>;
   deleteSummary(dayId: string): Promise<void>;
 
-  getMeta(key: string): Promise<unknown>;
-  putMeta(key: string, value: unknown): Promise<void>;
+  /** Typed by the key (MetaValues): the engine keeps what was put under a key and gives it back as it was. */
+  getMeta<K extends MetaKey>(key: K): Promise<MetaValues[K] | undefined>;
+  putMeta<K extends MetaKey>(key: K, value: MetaValues[K]): Promise<void>;
 
   getDraft(key: string): Promise<DraftEntry | undefined>;
   putDraft(entry: DraftEntry): Promise<void>;

@@ -19,7 +19,7 @@ import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
 import { DEFAULT_DB_NAME, openLogDatabase, type LogDB, type OpenLogDatabaseOptions } from './database';
 import { StoreError, isQuotaError, storageFull } from './errors';
 import type { LogStore } from './log-store';
-import type { DaySummary, DraftEntry, StoreEnvironment } from './types';
+import type { DaySummary, DraftEntry, MetaKey, MetaValues, StoreEnvironment } from './types';
 
 type Names = StoreNames<LogDB>[];
 type AnyTx = IDBPTransaction<LogDB, Names, 'readonly' | 'readwrite'>;
@@ -99,11 +99,12 @@ class IdbTx implements StoreTx {
     await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('day_summary').delete(dayId);
   }
 
-  async getMeta(key: string): Promise<unknown> {
-    return (await this.tx.objectStore('meta').get(key))?.value;
+  async getMeta<K extends MetaKey>(key: K): Promise<MetaValues[K] | undefined> {
+    // What putMeta stored under this key: MetaValues[K] by the engine's promise (see StoreTx).
+    return (await this.tx.objectStore('meta').get(key))?.value as MetaValues[K] | undefined;
   }
 
-  async putMeta(key: string, value: unknown): Promise<void> {
+  async putMeta<K extends MetaKey>(key: K, value: MetaValues[K]): Promise<void> {
     await (this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>).objectStore('meta').put({ key, value });
   }
 

@@ -8,7 +8,7 @@ import { INDEX_FIELDS, type IndexedKind, type IndexName, type StoreBackend, type
 import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
 import { StoreError, storageFull } from './errors';
 import type { LogStore } from './log-store';
-import type { DaySummary, DraftEntry, StoreEnvironment } from './types';
+import type { DaySummary, DraftEntry, MetaKey, MetaValues, StoreEnvironment } from './types';
 
 type StoreName = RecordKind | 'day_summary' | 'draft' | 'meta';
 const STORE_NAMES: readonly StoreName[] = ['site', 'specimen', 'day', 'reading', 'series', 'drop', 'day_summary', 'draft', 'meta'];
@@ -139,11 +139,12 @@ class MemoryTx implements StoreTx {
     this.write('day_summary', dayId, REMOVED);
   }
 
-  async getMeta(key: string): Promise<unknown> {
-    return structuredClone(this.read('meta', key));
+  async getMeta<K extends MetaKey>(key: K): Promise<MetaValues[K] | undefined> {
+    // What putMeta stored under this key: MetaValues[K] by the engine's promise (see StoreTx).
+    return structuredClone(this.read('meta', key)) as MetaValues[K] | undefined;
   }
 
-  async putMeta(key: string, value: unknown): Promise<void> {
+  async putMeta<K extends MetaKey>(key: K, value: MetaValues[K]): Promise<void> {
     this.write('meta', key, value);
   }
 

@@ -3,7 +3,8 @@
 // and a wrong type or a @ts-expect-error with nothing to expect fails the type check.
 import { describe, expectTypeOf, it } from 'vitest';
 import type { DayBody, DayRecord, DropRecord, Revision, SeriesBody, SeriesRecord } from '../../src/log/types';
-import type { DayListItem, DayView, DraftEntry, LogAction, LogStore, MetaValues, StoreStatus } from '../../src/store';
+import type { DayListItem, DayView, DraftEntry, ErasedLog, LogAction, LogStore, MetaValues, StoreStatus } from '../../src/store';
+import type { StoreTx } from '../../src/store/backend';
 
 describe('LogStore types', () => {
   it('returns the record type of the kind asked for', () => {
@@ -37,5 +38,20 @@ describe('LogStore types', () => {
     // @ts-expect-error a remove needs a reason
     const noReason: LogAction = { op: 'remove', kind: 'drop', id: 'x' };
     void noReason;
+  });
+
+  it('types each meta value by its key, in the store and in the engine under it', () => {
+    const typesOnly = (store: LogStore, tx: StoreTx) => {
+      expectTypeOf(store.getMeta('unsent_changes')).resolves.toEqualTypeOf<number | undefined>();
+      expectTypeOf(tx.getMeta('unsent_changes')).resolves.toEqualTypeOf<number | undefined>();
+      expectTypeOf(tx.getMeta('erased_log')).resolves.toEqualTypeOf<ErasedLog | null | undefined>();
+      // @ts-expect-error the clock stamp is a string
+      void tx.putMeta('clock', 5);
+      // @ts-expect-error no such meta key
+      void tx.getMeta('no_such_key');
+      // @ts-expect-error the unsent count is a number
+      void store.setMeta('unsent_changes', '3');
+    };
+    expectTypeOf(typesOnly).toBeFunction();
   });
 });

@@ -1,0 +1,77 @@
+/**
+ * Writing records merged from elsewhere (an imported file, the office folder) exactly as they are: the whole
+ * batch validated before anything is written, then one transaction with the day counts, the clock (local
+ * edits made later must sort after everything merged in) and the erased-log note.
+ */
+import { LogValidationError, compareHlc, validateRecord, type LogRecord, type Problem, type RecordKind } from '../log';
+import type { StoreTx } from './backend';
+import { dayCountsAfter, writeDayCounts } from './day-counts';
+import { keyOf } from './live-records';
+import type { LogStore } from './log-store';
+import type { StoreContext } from './store-context';
+
+/** Every problem of the batch, each named by its position; a record that appears twice is one. */
+function problemsOfBatch(records: readonly LogRecord[]): Problem[] {
+  const problems: Problem[] = [];
+  const seen = new Set<string>();
+  for (let i = 0; i < records.length; i++) {
+    const record = records[i]!;
+    const where = `[${i}]`;
+    for (const p of validateRecord(record)) {
+      problems.push({ ...p, path: `${where}.${p.path}`, message: `${where} ${String(record?.kind)} ${String(record?.id)}: ${p.message}` });
+    }
+    const key = keyOf(record?.kind, record?.id);
+    if (seen.has(key)) {
+      const rule = 'each record may appear once';
+      problems.push({ path: `${where}.id`, value: record.id, rule, message: `${where}.id: ${record.id} appears twice: ${rule}` });
+    }
+    seen.add(key);
+  }
+  return problems;
+}
+
+/** The stored version of each record of a batch, in the batch's order (undefined for new ones). */
+async function previousVersions(tx: StoreTx, records: readonly LogRecord[]): Promise<(LogRecord | undefined)[]> {
+  const byKind = new Map<RecordKind, number[]>();
+  records.forEach((r, i) => {
+    let list = byKind.get(r.kind);
+    if (!list) byKind.set(r.kind, (list = []));
+    list.push(i);
+  });
+  const previous: (LogRecord | undefined)[] = new Array(records.length);
+  await Promise.all(
+    [...byKind].map(async ([kind, positions]) => {
+      const found = await tx.getMany(kind, positions.map((i) => records[i]!.id));
+      positions.forEach((at, j) => (previous[at] = found[j]));
+    }),
+  );
+  return previous;
+}
+
+export function mergedRecordWrites(ctx: StoreContext): Pick<LogStore, 'putRecords'> {
+  const { backend, env, clock } = ctx;
+  return {
+    async putRecords(records) {
+      ctx.ensureOpen();
+      const problems = problemsOfBatch(records);
+      if (problems.length > 0) throw new LogValidationError(problems, 'record');
+      if (records.length === 0) return;
+      const now = env.now();
+      await backend.write(async (tx) => {
+        const [storedClock, erasedLog, previous] = await Promise.all([tx.getMeta('clock'), tx.getMeta('erased_log'), previousVersions(tx, records)]);
+        ctx.catchUpClock(storedClock, now);
+        // Counted from the state before the batch, so every read happens before the first put.
+        const counts = await dayCountsAfter(tx, records, previous);
+        const newest = records.reduce((max, r) => (compareHlc(r.rev, max) > 0 ? r.rev : max), records[0]!.rev);
+        if (compareHlc(newest, clock.latest) > 0) clock.receive(newest, now);
+        const writes: Promise<unknown>[] = [tx.putRecords(records), ...writeDayCounts(tx, counts), tx.putMeta('clock', clock.latest)];
+        // The erased log's records are back once an import brings records that its device wrote.
+        if (erasedLog && records.some((r) => r.device === erasedLog.device_id || r.history.some((h) => h.device === erasedLog.device_id))) {
+          writes.push(tx.putMeta('erased_log', null));
+        }
+        await Promise.all(writes);
+      }, ctx.recordDurability);
+      ctx.recordsWritten();
+    },
+  };
+}

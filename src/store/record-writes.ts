@@ -1,0 +1,129 @@
+/**
+ * The user's changes to the log: create, revise and remove records, one transaction per user action.
+ * Each step is validated (by the record functions of log/) and its references checked before anything is
+ * written; removal cascades into what a day or a series holds; the day counts, the clock stamp and the count
+ * of unsent changes are written in the same transaction as the records they describe.
+ */
+import {
+  createRecord,
+  deleteRecord,
+  reviseRecord,
+  uuidV4,
+  type BodyOf,
+  type LogRecord,
+  type RecordContext,
+  type RecordKind,
+  type RecordOf,
+} from '../log';
+import { dayCountsAfter, writeDayCounts } from './day-counts';
+import { StoreError } from './errors';
+import { isKind } from './live-records';
+import type { LogStore } from './log-store';
+import { checkReferences } from './record-references';
+import { removalSet } from './removal-set';
+import { Staging } from './staging';
+import type { StoreContext } from './store-context';
+import type { LogAction, WriteOptions } from './types';
+
+/**
+ * One step of an action, with kind and body not tied together: every LogAction is one, and so is the action
+ * create(), revise() and remove() make from their generic arguments. The record functions check the body.
+ */
+type Step =
+  | { op: 'create'; kind: RecordKind; body: BodyOf[RecordKind]; id?: string | undefined }
+  | { op: 'revise'; kind: RecordKind; id: string; patch: Partial<BodyOf[RecordKind]>; reason?: string | null }
+  | { op: 'remove'; kind: RecordKind; id: string; reason: string };
+
+export function recordWrites(
+  ctx: StoreContext,
+  askPersistenceOnce: () => void,
+): Pick<LogStore, 'create' | 'revise' | 'remove' | 'commit' | 'newId'> {
+  const { backend, env, clock } = ctx;
+
+  async function runSteps(steps: readonly Step[], options: WriteOptions = {}): Promise<LogRecord[]> {
+    ctx.ensureOpen();
+    const now = env.now();
+    const written = await backend.write(async (tx) => {
+      const [storedClock, unsentBefore] = await Promise.all([tx.getMeta('clock'), tx.getMeta('unsent_changes')]);
+      ctx.catchUpClock(storedClock, now);
+      const recordCtx: RecordContext = { device: ctx.deviceId, clock, now, random: env.random };
+      const staging = new Staging(tx);
+      for (const step of steps) {
+        if (step.op === 'create') {
+          const record = createRecord(step.kind, step.body, { ...recordCtx, id: step.id });
+          const [existing, referenceError] = await Promise.all([
+            staging.lookup(record.kind, record.id),
+            checkReferences(record, undefined, staging).then(
+              () => null,
+              (error: unknown) => error,
+            ),
+          ]);
+          if (existing) throw new StoreError({ code: 'already-exists', field: null, value: record.id, allowed: null, message: `${record.kind} ${record.id} already exists` });
+          if (referenceError) throw referenceError;
+          staging.stage(record, undefined);
+          continue;
+        }
+        const current = await staging.lookup(step.kind, step.id);
+        if (!current) throw new StoreError({ code: 'not-found', field: null, value: step.id, allowed: null, message: `no ${step.kind} ${step.id}` });
+        if (step.op === 'revise') {
+          const next = reviseRecord(current, step.patch, { ...recordCtx, reason: step.reason ?? null });
+          if (next === current) continue;
+          await checkReferences(next, current, staging);
+          staging.stage(next, current);
+        } else {
+          if (current.deleted) continue;
+          for (const record of await removalSet(current, staging)) staging.stage(deleteRecord(record, { ...recordCtx, reason: step.reason }), record);
+        }
+      }
+      const records = [...staging.records.values()];
+      const writes: Promise<unknown>[] = [];
+      if (records.length > 0) {
+        // Counted from the state before the action, so every read happens before the first put.
+        const counts = await dayCountsAfter(tx, records, records.map((r) => staging.storedBefore(r)));
+        writes.push(
+          tx.putRecords(records),
+          ...writeDayCounts(tx, counts),
+          tx.putMeta('unsent_changes', (unsentBefore ?? 0) + records.length),
+          tx.putMeta('clock', clock.latest),
+        );
+      }
+      if (options.clearDraft !== undefined) writes.push(tx.deleteDraft(options.clearDraft));
+      await Promise.all(writes);
+      return records;
+    }, ctx.recordDurability);
+    if (written.length > 0) {
+      ctx.recordsWritten();
+      askPersistenceOnce();
+    }
+    return written;
+  }
+
+  /** The record of `kind` and `id` as the action left it (written by it, or as stored when it changed nothing). */
+  async function resultOf<K extends RecordKind>(written: readonly LogRecord[], kind: K, id: string | undefined): Promise<RecordOf[K]> {
+    const own = written.find((r): r is RecordOf[K] => isKind(r, kind) && (id === undefined || r.id === id));
+    const record = own ?? (id === undefined ? undefined : await backend.read((tx) => tx.get(kind, id)));
+    if (!record) throw new StoreError({ code: 'not-found', field: null, value: id ?? null, allowed: null, message: `no ${kind} ${id ?? ''}`.trimEnd() });
+    return record;
+  }
+
+  return {
+    async create(kind, body, options = {}) {
+      const written = await runSteps([{ op: 'create', kind, body, id: options.id }], options);
+      return resultOf(written, kind, written[0]?.id);
+    },
+
+    async revise(kind, id, patch, reason = null, options = {}) {
+      return resultOf(await runSteps([{ op: 'revise', kind, id, patch, reason }], options), kind, id);
+    },
+
+    async remove(kind, id, reason, options = {}) {
+      return resultOf(await runSteps([{ op: 'remove', kind, id, reason }], options), kind, id);
+    },
+
+    commit: (actions: LogAction[], options?: WriteOptions) => runSteps(actions, options),
+
+    newId() {
+      return uuidV4(env.random);
+    },
+  };
+}
