@@ -2,6 +2,8 @@ import '../widgets';
 import type { ComponentChildren } from 'preact';
 import { useApp } from './app-context';
 import type { QuantityChangeDetail, QuantityKind } from '../widgets';
+// A notice needs no form kit: screens that show one without a form import it from ./Notice.
+export { Notice } from './Notice';
 
 /** One quantity field of a form: what was typed (kept in the draft), its SI value and its message. */
 export interface FieldState {
@@ -128,15 +130,6 @@ export function Choice<T extends string>(props: {
       </div>
       {props.hint ? <div class="hint">{props.hint}</div> : null}
     </fieldset>
-  );
-}
-
-export function Notice({ tone, children, title }: { tone: 'warn' | 'bad' | 'good' | 'info'; children: ComponentChildren; title?: string }) {
-  return (
-    <div class={`notice notice-${tone}`} role={tone === 'bad' ? 'alert' : undefined}>
-      {title ? <strong class="notice-title">{title}</strong> : null}
-      <div>{children}</div>
-    </div>
   );
 }
 

@@ -4,8 +4,11 @@ import { App, preloadScreen } from './App';
 import { parseRoute } from './router';
 import { AppProvider, loadSettings } from './app-context';
 import { registerServiceWorker, type UpdateHandle } from './service-worker';
-import { browserEnvironment, openLogStore } from '../store';
+import { browserEnvironment, openLogStore, type LogStore } from '../store';
+import { SYNC_META } from '../sync';
 import { describeError } from './errors';
+import { provideSyncWiring } from './sync-wiring';
+import { whenIdle } from './lazy';
 
 export async function mountApp(root: HTMLElement): Promise<void> {
   let pending: UpdateHandle | null = null;
@@ -17,12 +20,17 @@ export async function mountApp(root: HTMLElement): Promise<void> {
       return () => void listeners.delete(fn);
     },
   };
-  registerServiceWorker((u) => {
-    pending = u;
-    for (const fn of listeners) fn(u);
-  });
+  // The worker registers after the page has loaded: its install downloads the whole precache, which must not
+  // compete with the first screen.
+  afterLoad(() =>
+    registerServiceWorker((u) => {
+      pending = u;
+      for (const fn of listeners) fn(u);
+    }),
+  );
   // The first screen's code loads while the store opens, not after.
-  preloadScreen(parseRoute(location.hash).screen);
+  const route = parseRoute(location.hash);
+  preloadScreen(route);
   try {
     const store = await openLogStore({
       environment: browserEnvironment(),
@@ -32,6 +40,7 @@ export async function mountApp(root: HTMLElement): Promise<void> {
       },
     });
     const settings = await loadSettings(store);
+    preloadScreen(route, settings.currentDayId);
     let bump: () => void = () => undefined;
     render(
       <AppProvider store={store} initialSettings={settings} onReady={(notify) => (bump = notify)}>
@@ -39,8 +48,7 @@ export async function mountApp(root: HTMLElement): Promise<void> {
       </AppProvider>,
       root,
     );
-    // Sync code loads after the first paint: the shell stays small, and a phone without a folder never needs it.
-    void import('./sync-service').then((m) => m.startSyncService(store, () => bump()));
+    startSyncWhenWanted(store, () => bump());
   } catch (error) {
     root.innerHTML = '';
     const p = document.createElement('p');
@@ -49,4 +57,26 @@ export async function mountApp(root: HTMLElement): Promise<void> {
     p.textContent = `Plummet cannot open its storage on this phone: ${describeError(error)} If the browser is in a private mode, open Plummet in a normal tab.`;
     root.append(p);
   }
+}
+
+/**
+ * The sync code loads only where it has work: after the first screen, when an office folder is set up; when the
+ * Send screen asks for it; or when the service worker asks the page to sync. A phone without a folder never
+ * downloads it at start.
+ */
+function startSyncWhenWanted(store: LogStore, onChanged: () => void): void {
+  provideSyncWiring({ store, onChanged });
+  const start = () => import('./sync-service').then((m) => m.startSyncService(store, onChanged));
+  window.addEventListener('plummet-sync-now', () => void start().then((s) => s.syncNow('background').catch(() => undefined)));
+  void store.getMeta(SYNC_META.settings).then(
+    (settings) => {
+      if (settings) afterLoad(() => void whenIdle().then(start));
+    },
+    () => undefined,
+  );
+}
+
+function afterLoad(fn: () => void): void {
+  if (document.readyState === 'complete') fn();
+  else window.addEventListener('load', () => fn(), { once: true });
 }
