@@ -120,37 +120,40 @@ export async function measurePage(context, url, { ready = async () => undefined,
   return { scripts, afterIdle, total: sum(scripts, 'bytes'), wire: sum(scripts, 'wire'), afterIdleTotal: sum(afterIdle, 'bytes'), idleMarked: mark !== null };
 }
 
+/** How long a screen may take to show what it must (PLUMMET_BUDGET_READY_MS overrides: the tests shorten it). */
+const READY_MS = Number(process.env.PLUMMET_BUDGET_READY_MS ?? 30_000);
+
 /** The two first screens of the real app. `seed` runs once before the screen is measured, in the same profile. */
 export const APP_SCREENS = [
   {
     name: 'empty app',
     path: '/',
     async ready(page) {
-      await page.getByRole('heading', { name: 'Start a test day' }).waitFor({ timeout: 30_000 });
+      await page.getByRole('heading', { name: 'Start a test day' }).waitFor({ timeout: READY_MS });
     },
   },
   {
     name: 'day with 3 series',
     async seed(page, baseUrl) {
       await page.goto(`${baseUrl}/#/settings`);
-      await page.getByRole('button', { name: 'Load the sample log' }).click({ timeout: 30_000 });
-      await page.getByText('The sample log is loaded').waitFor({ timeout: 30_000 });
+      await page.getByRole('button', { name: 'Load the sample log' }).click({ timeout: READY_MS });
+      await page.getByText('The sample log is loaded').waitFor({ timeout: READY_MS });
       await page.goto(`${baseUrl}/#/log`);
       const link = page.locator('a.row-link[href^="#/day/"]').first();
-      await link.waitFor({ timeout: 30_000 });
+      await link.waitFor({ timeout: READY_MS });
       return `/${await link.getAttribute('href')}`;
     },
     async ready(page) {
       // The series list is shown at once and its C_d figures fill in when the analysis has run.
       const list = page.locator('section[aria-labelledby="serieslist-h"]');
-      await list.locator('a.row-link').nth(2).waitFor({ timeout: 30_000 });
+      await list.locator('a.row-link').nth(2).waitFor({ timeout: READY_MS });
       await page.waitForFunction(
         () => {
           const sides = [...document.querySelectorAll('section[aria-labelledby="serieslist-h"] .row-side')];
           return sides.length === 3 && sides.every((s) => /C_d \d/.test(s.textContent ?? ''));
         },
         undefined,
-        { timeout: 30_000 },
+        { timeout: READY_MS },
       );
     },
   },
