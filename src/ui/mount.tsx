@@ -20,13 +20,15 @@ export async function mountApp(root: HTMLElement): Promise<void> {
       return () => void listeners.delete(fn);
     },
   };
-  // The worker registers after the page has loaded: its install downloads the whole precache, which must not
-  // compete with the first screen.
+  // The worker registers once the page has loaded and the browser is idle: its install downloads the whole
+  // precache, which must not compete with the first screen's own code.
   afterLoad(() =>
-    registerServiceWorker((u) => {
-      pending = u;
-      for (const fn of listeners) fn(u);
-    }),
+    idleCallback(() =>
+      registerServiceWorker((u) => {
+        pending = u;
+        for (const fn of listeners) fn(u);
+      }),
+    ),
   );
   // The first screen's code loads while the store opens, not after.
   const route = parseRoute(location.hash);
@@ -39,11 +41,11 @@ export async function mountApp(root: HTMLElement): Promise<void> {
         root.insertAdjacentHTML('afterbegin', '<p class="notice notice-warn" role="alert">Plummet was updated in another tab. Reload this page to go on.</p>');
       },
     });
-    const settings = await loadSettings(store);
+    const [settings, status] = await Promise.all([loadSettings(store), store.status().catch(() => undefined)]);
     preloadScreen(route, settings.currentDayId);
     let bump: () => void = () => undefined;
     render(
-      <AppProvider store={store} initialSettings={settings} onReady={(notify) => (bump = notify)}>
+      <AppProvider store={store} initialSettings={settings} initialStatus={status} onReady={(notify) => (bump = notify)}>
         <App updates={updates} />
       </AppProvider>,
       root,
@@ -74,6 +76,12 @@ function startSyncWhenWanted(store: LogStore, onChanged: () => void): void {
     },
     () => undefined,
   );
+}
+
+/** Idle time without the idle-loads mark (lazy.tsx): registering the worker adds no script to the page. */
+function idleCallback(fn: () => void): void {
+  if (typeof requestIdleCallback === 'function') requestIdleCallback(() => fn(), { timeout: 2000 });
+  else setTimeout(fn, 50);
 }
 
 function afterLoad(fn: () => void): void {
