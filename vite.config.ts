@@ -51,6 +51,22 @@ export default defineConfig({
     target: 'es2022',
     sourcemap: false,
     reportCompressedSize: false,
+    // Every browser the app supports has <link rel="modulepreload">: no polyfill in the first screen's code.
+    modulePreload: { polyfill: false },
+    rolldownOptions: {
+      output: {
+        codeSplitting: {
+          groups: [
+            // The physics and the analysis on it travel together: one request after the first render for the
+            // figures the day overview fills in, the same one for any later screen that computes. The planner's
+            // search and the series curves stay with the screens that draw or plan.
+            // Preact and the bundler's small runtime: one file the shell and every screen share.
+            { name: 'preact', test: /[\\/]node_modules[\\/]preact[\\/]|rolldown[\\/]runtime/ },
+            { name: 'physics', test: /[\\/]src[\\/](physics[\\/](?!planDrop)|analysis[\\/](?!series-curves))|[\\/]day-figures\.ts$/ },
+          ],
+        },
+      },
+    },
   },
   preview: { host: '127.0.0.1', port: 4173, strictPort: true },
   test: {

@@ -1,23 +1,28 @@
 import { useEffect, useState } from 'preact/hooks';
 import { Nav } from './Nav';
 import { UpdateNotice } from './UpdateNotice';
-import { routeHref, useRoute, type ScreenName } from './router';
+import { routeHref, useRoute, type Route, type ScreenName } from './router';
 import type { UpdateHandle } from './service-worker';
 import { useApp } from './app-context';
 import { lazyScreen } from './lazy';
+// The day is the screen the app opens on: its router is small and comes with the shell; its parts load lazily.
+import { DayScreen, preloadDayScreen } from './screens/DayScreen';
 
-const DayScreen = lazyScreen(() => import('./screens/DayScreen').then((m) => m.DayScreen));
 const PlanScreen = lazyScreen(() => import('./screens/PlanScreen').then((m) => m.PlanScreen));
 const SpecimensScreen = lazyScreen(() => import('./screens/SpecimensScreen').then((m) => m.SpecimensScreen));
 const LogScreen = lazyScreen(() => import('./screens/LogScreen').then((m) => m.LogScreen));
 const SendScreen = lazyScreen(() => import('./screens/SendScreen').then((m) => m.SendScreen));
 const SettingsScreen = lazyScreen(() => import('./screens/SettingsScreen').then((m) => m.SettingsScreen));
 
-const SCREENS = { day: DayScreen, plan: PlanScreen, specimens: SpecimensScreen, log: LogScreen, send: SendScreen, settings: SettingsScreen };
+const SCREENS = { plan: PlanScreen, specimens: SpecimensScreen, log: LogScreen, send: SendScreen, settings: SettingsScreen };
 
-/** Starts loading a screen's code before the app renders it. */
-export function preloadScreen(screen: ScreenName): void {
-  SCREENS[screen].preload();
+/**
+ * Starts loading a screen's code before the app renders it. The bare #/day needs the current day (from the
+ * settings) to know whether it shows a day or the form to start one: until then it waits.
+ */
+export function preloadScreen(route: Route, currentDayId?: string | null): void {
+  if (route.screen === 'day') preloadDayScreen(route.params, currentDayId);
+  else SCREENS[route.screen].preload();
 }
 
 const TITLES: Record<ScreenName, string> = {

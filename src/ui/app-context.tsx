@@ -1,5 +1,5 @@
 import { createContext, type ComponentChildren } from 'preact';
-import { useCallback, useContext, useEffect, useMemo, useState } from 'preact/hooks';
+import { useCallback, useContext, useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import type { LogStore, StoreStatus } from '../store';
 import { DEFAULT_UNITS, formatQuantity, type QuantityKind, type UnitChoice } from '../widgets/units';
 
@@ -56,18 +56,22 @@ function applyTheme(theme: AppSettings['theme']) {
 export function AppProvider({
   store,
   initialSettings,
+  initialStatus,
   children,
   onReady,
 }: {
   store: LogStore;
   initialSettings: AppSettings;
+  /** The store's status read before the first render, so the app does not render twice to show it. */
+  initialStatus?: StoreStatus;
   children: ComponentChildren;
   /** Hands out the change notifier to code outside the tree (the sync service). */
   onReady?: (notifyChanged: () => void) => void;
 }) {
   const [settings, setSettings] = useState(initialSettings);
   const [changes, setChanges] = useState(0);
-  const [status, setStatus] = useState<StoreStatus | null>(null);
+  const [status, setStatus] = useState<StoreStatus | null>(initialStatus ?? null);
+  const statusFresh = useRef(initialStatus !== undefined);
 
   const refreshStatus = useCallback(async () => {
     setStatus(await store.status());
@@ -82,6 +86,10 @@ export function AppProvider({
   }, [settings.theme]);
 
   useEffect(() => {
+    if (statusFresh.current) {
+      statusFresh.current = false;
+      return;
+    }
     void refreshStatus();
   }, [changes, refreshStatus]);
 

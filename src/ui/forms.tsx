@@ -3,6 +3,8 @@ import type { ComponentChildren } from 'preact';
 import { useApp } from './app-context';
 import type { QuantityChangeDetail } from '../widgets';
 import type { QuantityKind } from '../widgets/units';
+// A notice needs no form kit: screens that show one without a form import it from ./Notice.
+export { Notice } from './Notice';
 
 /** One quantity field of a form: what was typed (kept in the draft), its SI value and its message. */
 export interface FieldState {
@@ -129,15 +131,6 @@ export function Choice<T extends string>(props: {
       </div>
       {props.hint ? <div class="hint">{props.hint}</div> : null}
     </fieldset>
-  );
-}
-
-export function Notice({ tone, children, title }: { tone: 'warn' | 'bad' | 'good' | 'info'; children: ComponentChildren; title?: string }) {
-  return (
-    <div class={`notice notice-${tone}`} role={tone === 'bad' ? 'alert' : undefined}>
-      {title ? <strong class="notice-title">{title}</strong> : null}
-      <div>{children}</div>
-    </div>
   );
 }
 

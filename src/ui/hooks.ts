@@ -3,25 +3,8 @@ import { createDraftSaver, type DraftSaver } from '../store';
 import { useApp } from './app-context';
 import { registerDraftFlusher } from './draft-registry';
 
-export type Loaded<T> = { state: 'loading' } | { state: 'ready'; value: T } | { state: 'failed'; error: Error };
-
-/** Loads data from the store and loads it again after every write (and when `deps` change). */
-export function useStoreData<T>(load: () => Promise<T>, deps: unknown[]): Loaded<T> {
-  const { changes } = useApp();
-  const [result, setResult] = useState<Loaded<T>>({ state: 'loading' });
-  useEffect(() => {
-    let live = true;
-    load().then(
-      (value) => live && setResult({ state: 'ready', value }),
-      (error: unknown) => live && setResult({ state: 'failed', error: error instanceof Error ? error : new Error(String(error)) }),
-    );
-    return () => {
-      live = false;
-    };
-    // `load` is a new closure every render: `deps` names what it reads, so only those (and writes) reload.
-  }, [changes, ...deps]);
-  return result;
-}
+// useStoreData lives apart, so the shell (which needs it for the first screen) does not carry the draft code.
+export { useStoreData, type Loaded } from './use-store-data';
 
 /**
  * A form's state that survives a reload, a crash or an update: every change is saved as a draft within

@@ -1,8 +1,10 @@
 // The office-folder sync as the page runs it: the sync layer's auto-sync (on start, on the online event, after
-// failures with back-off, Background Sync registered after a failure), plus the service worker's wake-up
-// message and a report for the screens to show.
+// failures with back-off, Background Sync registered after a failure), and a report for the screens to show.
+// Its code loads only when it is needed: at start where an office folder is set up, or when a screen or the
+// service worker asks for it.
 import { startAutoSync, type AutoSync, type SyncReport } from '../sync';
 import type { LogStore } from '../store';
+import { syncWiring } from './sync-wiring';
 
 export interface SyncService {
   /** A sync now, or right after the one running. */
@@ -13,8 +15,10 @@ export interface SyncService {
 
 let running: SyncService | null = null;
 
-/** The app's sync service, once started (the page starts it right after the first paint). */
+/** The app's sync service, started on first use once the shell has handed over the store (null before that). */
 export function currentSyncService(): SyncService | null {
+  const wiring = syncWiring();
+  if (!running && wiring) running = createSyncService(wiring.store, () => wiring.onChanged());
   return running;
 }
 
@@ -43,6 +47,5 @@ function createSyncService(store: LogStore, onChanged: () => void): SyncService 
       for (const fn of listeners) fn(report);
     },
   });
-  window.addEventListener('plummet-sync-now', () => void auto.syncNow('background').catch(() => undefined));
   return service;
 }

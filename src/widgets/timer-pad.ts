@@ -1,16 +1,30 @@
-import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
+import { LitElement, html, nothing, type PropertyValues } from 'lit';
 import type { RawCapture } from '../log';
+import { SoundCapture, type CapturedInterval, type OnsetHeard, type SoundCaptureOptions, type SoundTravel } from '../timing';
+import { PadMicrophone, REFERENCE_TEMPERATURE_C, soundTravelFor } from './timer-pad-microphone';
 import {
-  SoundCapture,
-  TimingError,
-  fallTimeFromTaps,
-  soundTravelCorrection,
-  speedOfSoundAt,
-  type CapturedInterval,
-  type OnsetHeard,
-  type SoundCaptureOptions,
-  type SoundTravel,
-} from '../timing';
+  captured,
+  captureFailed,
+  clicked,
+  initialPadState,
+  intervalRefused,
+  listenFailed,
+  listenStarted,
+  listenStarting,
+  listenStopped,
+  modeSwitched,
+  openPressGate,
+  padDisabled,
+  pressed,
+  releaseHeard,
+  tapMark,
+  withProblem,
+  type PadPhase,
+  type PadState,
+  type PadTarget,
+} from './timer-pad-state';
+import { timerPadStyles } from './timer-pad-styles';
+import { PAD_TEXT, formatSeconds } from './timer-pad-text';
 
 /** Detail of `time-captured`: the fall time and the capture it came from, ready for a drop record. */
 export interface TimeCapturedDetail {
@@ -19,11 +33,6 @@ export interface TimeCapturedDetail {
 }
 
 export type TimerMode = 'tap' | 'listen';
-
-type Phase = 'ready' | 'timing' | 'listening' | 'starting' | 'done';
-
-/** The speed of sound assumed when no air temperature is given: ISO 9613-1's reference at 20 °C. */
-const REFERENCE_TEMPERATURE_C = 20;
 
 let nextId = 0;
 
@@ -70,7 +79,7 @@ export class TimerPad extends LitElement {
   declare releaseHeight: number | null;
   declare disabled: boolean;
   declare decimalComma: boolean;
-  declare phase: Phase;
+  declare phase: PadPhase;
   /** The last captured fall time, s. */
   declare time: number | null;
   /** Seconds since the release tap, while timing. */
@@ -82,10 +91,23 @@ export class TimerPad extends LitElement {
 
   private readonly baseId = `pl-timer-${++nextId}`;
   private releaseAt: number | null = null;
-  /** Set when a press was handled by pointerdown or keydown, so the click that follows is not a second tap. */
-  private readonly pressed = { release: false, impact: false };
+  /** Which presses were handled by pointerdown or keydown, so the click that follows is not a second tap. */
+  private gate = openPressGate();
   private frame = 0;
-  private capture: SoundCapture | null = null;
+  private readonly microphone = new PadMicrophone((options) => this.createSoundCapture(options), {
+    onset: (heard: OnsetHeard) => {
+      if (heard.role === 'release') this.apply(releaseHeard(this.state()));
+    },
+    interval: (interval: CapturedInterval) => {
+      if (interval.problem || interval.time_s === null) {
+        this.apply(intervalRefused(this.state(), interval.problem));
+        return;
+      }
+      void this.microphone.close();
+      this.captured(interval.time_s, interval.raw);
+    },
+    failed: (reason: unknown) => this.apply(captureFailed(this.state(), reason)),
+  });
 
   constructor() {
     super();
@@ -104,182 +126,85 @@ export class TimerPad extends LitElement {
     this.problem = null;
   }
 
-  static override styles = css`
-    :host {
-      display: block;
-      font: inherit;
-      color: var(--pl-ink, #111);
-      margin: 0 0 var(--pl-gap, 0.9rem);
-    }
-    .pad {
-      border: 2px solid var(--pl-line, #444);
-      border-radius: 12px;
-      padding: 0.75rem;
-      background: var(--pl-field, #fff);
-    }
-    .title {
-      font-weight: 600;
-      margin: 0 0 0.5rem;
-    }
-    .modes {
-      display: flex;
-      gap: 0.5rem;
-      margin-bottom: 0.75rem;
-    }
-    button {
-      font: inherit;
-      color: inherit;
-      border-radius: 10px;
-      border: 2px solid var(--pl-line, #444);
-      background: var(--pl-field, #fff);
-      touch-action: manipulation;
-      -webkit-tap-highlight-color: transparent;
-      user-select: none;
-    }
-    button:focus-visible {
-      outline: 4px solid var(--pl-focus, #f2a900);
-      outline-offset: 2px;
-    }
-    button:disabled {
-      opacity: 0.5;
-    }
-    .mode {
-      flex: 1;
-      min-height: 48px;
-      font-weight: 600;
-    }
-    .mode[aria-pressed='true'] {
-      background: var(--pl-brand, #0b3d2e);
-      border-color: var(--pl-brand, #0b3d2e);
-      color: var(--pl-brand-ink, #fff);
-    }
-    .time {
-      font-size: 3.2rem;
-      line-height: 1.1;
-      font-weight: 700;
-      font-variant-numeric: tabular-nums;
-      text-align: center;
-      margin: 0.25rem 0 0.5rem;
-      min-height: 1.1em;
-    }
-    .time .unit {
-      font-size: 1.6rem;
-      font-weight: 600;
-    }
-    .big {
-      display: grid;
-      grid-template-columns: 1fr 1fr;
-      gap: 0.75rem;
-    }
-    .big.one {
-      grid-template-columns: 1fr;
-    }
-    .target {
-      min-height: 96px;
-      min-width: 64px;
-      font-size: 1.5rem;
-      font-weight: 700;
-    }
-    .target.release[data-armed] {
-      background: var(--pl-good-bg, #dcefe6);
-    }
-    .status {
-      margin: 0.6rem 0 0;
-      font-size: 0.95rem;
-      color: var(--pl-ink-soft, #333);
-      min-height: 1.3em;
-    }
-    .problem {
-      margin: 0.5rem 0 0;
-      font-weight: 600;
-      color: var(--pl-bad, #b00020);
-    }
-  `;
+  static override styles = timerPadStyles;
 
   override disconnectedCallback(): void {
     super.disconnectedCallback();
     this.stopRunningClock();
-    void this.stopListening();
+    void this.microphone.close();
   }
 
   protected override willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('mode') && changed.get('mode') !== undefined) {
       // Switching mode abandons what was half done in the other one.
-      this.releaseAt = null;
       this.stopRunningClock();
-      if (this.mode !== 'listen') void this.stopListening();
-      this.phase = 'ready';
-      this.problem = null;
-      this.message = '';
+      if (this.mode !== 'listen') void this.microphone.close();
+      this.apply(modeSwitched(this.state()));
     }
     if (changed.has('disabled') && this.disabled) {
-      void this.stopListening();
-      this.releaseAt = null;
+      void this.microphone.close();
       this.stopRunningClock();
-      if (this.phase !== 'done') this.phase = 'ready';
+      this.apply(padDisabled(this.state()));
     }
-    if (this.capture && (changed.has('releaseDistance') || changed.has('landingDistance') || changed.has('airTemperature') || changed.has('releaseHeight'))) {
+    if (this.microphone.listening && (changed.has('releaseDistance') || changed.has('landingDistance') || changed.has('airTemperature') || changed.has('releaseHeight'))) {
       try {
-        this.capture.soundTravel = this.soundTravel();
-        this.capture.height_m = this.releaseHeight ?? undefined;
+        this.microphone.retune(this.soundTravel(), this.releaseHeight ?? undefined);
       } catch (error) {
-        this.problem = describe(error);
+        this.apply(withProblem(this.state(), error));
       }
     }
   }
 
+  /** The pad's state as the pure state machine sees it (timer-pad-state.ts). */
+  private state(): PadState {
+    return { phase: this.phase, releaseAt: this.releaseAt, time: this.time, message: this.message, problem: this.problem };
+  }
+
+  private apply(next: PadState): void {
+    this.phase = next.phase;
+    this.releaseAt = next.releaseAt;
+    this.time = next.time;
+    this.message = next.message;
+    this.problem = next.problem;
+  }
+
   // ---- Tap timing -------------------------------------------------------------------------------------
 
-  private press(which: 'release' | 'impact', timeStamp: number): void {
+  private press(which: PadTarget, timeStamp: number): void {
     if (this.disabled) return;
+    const before = this.releaseAt;
+    const { state, capture } = tapMark(this.state(), which, timeStamp);
+    this.apply(state);
     if (which === 'release') {
-      this.releaseAt = timeStamp;
-      this.problem = null;
-      this.phase = 'timing';
-      this.message = 'Timing: tap Impact when it lands.';
       this.startRunningClock();
       return;
     }
-    if (this.releaseAt === null) {
-      this.problem = 'Tap Release first, at the moment the specimen is let go.';
-      return;
-    }
-    const release = this.releaseAt;
-    this.releaseAt = null;
+    if (before === null) return;
     this.stopRunningClock();
-    try {
-      const time_s = fallTimeFromTaps(release, timeStamp);
-      this.captured(time_s, { kind: 'taps', timestamps_ms: [release, timeStamp] });
-    } catch (error) {
-      this.phase = 'ready';
-      this.elapsed = null;
-      this.message = '';
-      this.problem = describe(error);
-    }
+    this.elapsed = null;
+    if (capture) this.captured(capture.time_s, capture.raw);
   }
 
-  private onPointerDown(which: 'release' | 'impact', event: PointerEvent): void {
+  private onPointerDown(which: PadTarget, event: PointerEvent): void {
     if (event.pointerType === 'mouse' && event.button !== 0) return;
-    this.pressed[which] = true;
+    this.gate = pressed(this.gate, which);
     this.press(which, event.timeStamp);
   }
 
-  private onKeyDown(which: 'release' | 'impact', event: KeyboardEvent): void {
+  private onKeyDown(which: PadTarget, event: KeyboardEvent): void {
     if (event.key !== ' ' && event.key !== 'Enter') return;
     // Space would scroll the page; a held key repeats, and only the first press is the mark.
     event.preventDefault();
     if (event.repeat) return;
-    this.pressed[which] = true;
+    this.gate = pressed(this.gate, which);
     this.press(which, event.timeStamp);
   }
 
   /** A click without a press before it comes from assistive technology: it is the mark. */
-  private onClick(which: 'release' | 'impact', event: MouseEvent): void {
-    if (this.pressed[which]) {
-      this.pressed[which] = false;
-      return;
-    }
-    this.press(which, event.timeStamp);
+  private onClick(which: PadTarget, event: MouseEvent): void {
+    const { gate, mark } = clicked(this.gate, which);
+    this.gate = gate;
+    if (mark) this.press(which, event.timeStamp);
   }
 
   private startRunningClock(): void {
@@ -306,25 +231,13 @@ export class TimerPad extends LitElement {
   }
 
   private soundTravel(): SoundTravel | null {
-    const d_r = this.releaseDistance;
-    const d_i = this.landingDistance;
-    if (d_r === null || d_r === undefined || d_i === null || d_i === undefined) return null;
-    const travel: SoundTravel = {
-      distance_to_release_m: d_r,
-      distance_to_landing_m: d_i,
-      speed_of_sound_m_s: speedOfSoundAt(this.airTemperature ?? REFERENCE_TEMPERATURE_C),
-      temperature_C: this.airTemperature ?? null,
-    };
-    // Checks the distances now, so a typo shows before the drop rather than after it.
-    soundTravelCorrection(travel, this.releaseHeight ?? undefined);
-    return travel;
+    return soundTravelFor(this);
   }
 
   private async toggleListening(): Promise<void> {
-    if (this.capture) {
-      await this.stopListening();
-      this.phase = this.time === null ? 'ready' : 'done';
-      this.message = 'Stopped listening.';
+    if (this.microphone.listening) {
+      await this.microphone.close();
+      this.apply(listenStopped(this.state()));
       return;
     }
     if (this.disabled) return;
@@ -332,79 +245,31 @@ export class TimerPad extends LitElement {
     try {
       travel = this.soundTravel();
     } catch (error) {
-      this.problem = describe(error);
+      this.apply(withProblem(this.state(), error));
       return;
     }
-    const capture = this.createSoundCapture({ soundTravel: travel, ...(this.releaseHeight != null ? { height_m: this.releaseHeight } : {}) });
-    this.capture = capture;
-    this.problem = null;
-    this.phase = 'starting';
-    this.message = 'Opening the microphone…';
-    capture.addEventListener('sound-onset', this.onOnset);
-    capture.addEventListener('sound-interval', this.onInterval);
-    capture.addEventListener('sound-error', this.onCaptureError);
+    const opening = this.microphone.open({ soundTravel: travel, ...(this.releaseHeight != null ? { height_m: this.releaseHeight } : {}) });
+    this.apply(listenStarting(this.state()));
     try {
-      await capture.start();
+      if ((await opening) === 'superseded') return;
     } catch (error) {
-      if (this.capture === capture) this.capture = null;
-      this.phase = 'ready';
-      this.message = '';
-      this.problem = describe(error);
+      this.apply(listenFailed(this.state(), error));
       return;
     }
-    if (this.capture !== capture) return;
-    this.phase = 'listening';
-    const assumed = travel && (this.airTemperature === null || this.airTemperature === undefined) ? ` (speed of sound at ${REFERENCE_TEMPERATURE_C} °C assumed)` : '';
-    this.message = `Listening: make the release sound, then let it land.${travel ? ` Corrected for sound travel${assumed}.` : ''}`;
+    const assumed = travel && (this.airTemperature === null || this.airTemperature === undefined) ? REFERENCE_TEMPERATURE_C : null;
+    this.apply(listenStarted(this.state(), travel !== null, assumed));
   }
-
-  private async stopListening(): Promise<void> {
-    const capture = this.capture;
-    if (!capture) return;
-    this.capture = null;
-    capture.removeEventListener('sound-onset', this.onOnset);
-    capture.removeEventListener('sound-interval', this.onInterval);
-    capture.removeEventListener('sound-error', this.onCaptureError);
-    await capture.stop().catch(() => undefined);
-  }
-
-  private readonly onOnset = (event: Event): void => {
-    const heard = (event as CustomEvent<OnsetHeard>).detail;
-    if (heard.role === 'release') this.message = 'Release heard: waiting for the impact…';
-  };
-
-  private readonly onInterval = (event: Event): void => {
-    const interval = (event as CustomEvent<CapturedInterval>).detail;
-    if (interval.problem || interval.time_s === null) {
-      this.problem = `${describe(interval.problem)} Still listening: drop again.`;
-      this.message = 'Listening: make the release sound, then let it land.';
-      return;
-    }
-    void this.stopListening();
-    this.captured(interval.time_s, interval.raw);
-  };
-
-  private readonly onCaptureError = (event: Event): void => {
-    this.capture = null;
-    this.phase = this.time === null ? 'ready' : 'done';
-    this.message = '';
-    this.problem = describe((event as CustomEvent<unknown>).detail);
-  };
 
   // ---- Output -----------------------------------------------------------------------------------------
 
   private captured(time_s: number, raw: TimeCapturedDetail['raw']): void {
-    this.time = time_s;
     this.elapsed = null;
-    this.phase = 'done';
-    this.problem = null;
-    this.message = `Fall time ${this.format(time_s)} s captured.`;
+    this.apply(captured(this.state(), time_s, this.format(time_s)));
     this.dispatchEvent(new CustomEvent<TimeCapturedDetail>('time-captured', { detail: { time_s, raw }, bubbles: true, composed: true }));
   }
 
   private format(seconds: number, decimals = 3): string {
-    const text = seconds.toFixed(decimals);
-    return this.decimalComma ? text.replace('.', ',') : text;
+    return formatSeconds(seconds, this.decimalComma, decimals);
   }
 
   private setMode(mode: TimerMode): void {
@@ -416,8 +281,8 @@ export class TimerPad extends LitElement {
   override render() {
     const titleId = `${this.baseId}-title`;
     const running = this.phase === 'timing' && this.elapsed !== null;
-    const shown = running ? this.format(this.elapsed!, 1) : this.time !== null ? this.format(this.time) : '–.–––';
-    const listening = this.capture !== null;
+    const shown = running ? this.format(this.elapsed!, 1) : this.time !== null ? this.format(this.time) : PAD_TEXT.noTime;
+    const listening = this.microphone.listening;
     return html`
       <div class="pad" role="group" aria-labelledby=${titleId}>
         <p class="title" id=${titleId}>${this.label}</p>
@@ -472,31 +337,6 @@ export class TimerPad extends LitElement {
       </div>
     `;
   }
-}
-
-/** What each field is called on the pad. */
-const FIELD_WORDS: Record<string, { name: string; unit: string }> = {
-  distance_to_release_m: { name: 'Distance to the release point', unit: ' m' },
-  distance_to_landing_m: { name: 'Distance to the landing point', unit: ' m' },
-  speed_of_sound_m_s: { name: 'Speed of sound', unit: ' m/s' },
-  temperature_C: { name: 'Air temperature', unit: ' °C' },
-  height_m: { name: 'Drop height', unit: ' m' },
-  onsets: { name: 'Sound timing', unit: '' },
-};
-
-/** A sentence for the crew naming the field, the value and the allowed range. */
-function describe(error: unknown): string {
-  if (error instanceof TimingError) {
-    const words = FIELD_WORDS[error.field] ?? { name: 'Fall time', unit: ' s' };
-    if (error.code === 'out-of-range' || error.code === 'not-finite') {
-      const what = error.code === 'not-finite' ? 'is not a number' : 'is out of range';
-      return `${words.name}: ${String(error.value)}${words.unit} ${what}. Allowed: ${error.allowed}.`;
-    }
-    const reason = error.reason.charAt(0).toUpperCase() + error.reason.slice(1);
-    return `${words.name}: ${reason}. Allowed: ${error.allowed}.`;
-  }
-  if (error instanceof Error) return error.message;
-  return String(error);
 }
 
 if (!customElements.get('pl-timer-pad')) customElements.define('pl-timer-pad', TimerPad);

@@ -1,14 +1,17 @@
 import { useMemo, useState } from 'preact/hooks';
 import type { DayView } from '../../../store';
 import { useApp } from '../../app-context';
-import { useStoreData } from '../../hooks';
-import { Notice } from '../../forms';
+import { useStoreData } from '../../use-store-data';
+import { Notice } from '../../Notice';
 import { routeHref } from '../../router';
-import { SafetyCaution } from '../../SafetyCaution';
-import { analyzeDay, readingAirDensity } from '../../../analysis';
-import { ReadingForm } from './ReadingForm';
-import { SeriesForm } from './SeriesForm';
 import { describeError } from '../../errors';
+import { lazyModule, lazyScreen } from '../../lazy';
+
+// The overview shows the day at once; the physics behind its figures, and the forms it opens on a tap, load apart.
+const useDayFigures = lazyModule(() => import('./day-figures'));
+const ReadingForm = lazyScreen(() => import('./ReadingForm').then((m) => m.ReadingForm));
+const SeriesForm = lazyScreen(() => import('./SeriesForm').then((m) => m.SeriesForm));
+const SafetyCaution = lazyScreen(() => import('../../SafetyCaution').then((m) => m.SafetyCaution));
 
 export function DayOverview({ dayId }: { dayId: string }) {
   const app = useApp();
@@ -77,11 +80,15 @@ export function DayHeader({ view }: { view: DayView }) {
 
 function ReadingList({ view }: { view: DayView }) {
   const { format } = useApp();
+  const figures = useDayFigures();
   return (
     <ul class="rows">
       {view.readings.map((r) => {
-        const rho = readingAirDensity(r, view.site);
-        const density = rho === null ? 'not computable' : format(rho, 'density');
+        let density = '…';
+        if (figures) {
+          const rho = figures.readingAirDensity(r, view.site);
+          density = rho === null ? 'not computable' : format(rho, 'density');
+        }
         return (
           <li key={r.id} class="row">
             <span class="row-main">
@@ -99,26 +106,35 @@ function ReadingList({ view }: { view: DayView }) {
 
 function SeriesList({ view }: { view: DayView }) {
   const { format } = useApp();
+  const figures = useDayFigures();
   // Only the C_d is shown here: the Monte Carlo interval needs no full draw count.
-  const rows = useMemo(() => analyzeDay(view, { monteCarloDraws: 200 }), [view]);
+  const rows = useMemo(() => figures?.analyzeDay(view, { monteCarloDraws: 200 }) ?? null, [view, figures]);
+  // The list shows at once from the day's records; each C_d fills in when the analysis has arrived.
   return (
-    <ul class="rows">
-      {rows.map(({ series: s, drops, specimen, outcome }) => (
-        <li key={s.id}>
-          <a class="row row-link" href={routeHref('day', view.day.id, 'series', s.id)}>
-            <span class="row-main">
-              <strong>{specimen?.name ?? 'Unknown specimen'}</strong> from {format(s.height_m, 'length', 2)} · {drops.filter((d) => !d.excluded).length} drops
-            </span>
-            <span class="row-side">
-              {outcome.kind === 'ready'
-                ? outcome.result.drag_coefficient !== null
-                  ? `C_d ${outcome.result.drag_coefficient.toFixed(3)}`
-                  : 'drag not resolved'
-                : '—'}
-            </span>
-          </a>
-        </li>
-      ))}
+    <ul class="rows" aria-busy={rows ? undefined : 'true'}>
+      {view.series.map((s) => {
+        const specimen = view.specimens.find((p) => p.id === s.specimen_id);
+        const drops = view.drops.filter((d) => d.series_id === s.id);
+        const outcome = rows?.find((r) => r.series.id === s.id)?.outcome;
+        return (
+          <li key={s.id}>
+            <a class="row row-link" href={routeHref('day', view.day.id, 'series', s.id)}>
+              <span class="row-main">
+                <strong>{specimen?.name ?? 'Unknown specimen'}</strong> from {format(s.height_m, 'length', 2)} · {drops.filter((d) => !d.excluded).length} drops
+              </span>
+              <span class="row-side">
+                {!outcome
+                  ? '…'
+                  : outcome.kind === 'ready'
+                    ? outcome.result.drag_coefficient !== null
+                      ? `C_d ${outcome.result.drag_coefficient.toFixed(3)}`
+                      : 'drag not resolved'
+                    : '—'}
+              </span>
+            </a>
+          </li>
+        );
+      })}
     </ul>
   );
 }
