@@ -44,7 +44,9 @@ export function airInput(reading: ReadingRecord): { air: AnalysisRequest['air'];
       temperature_C: reading.temperature_C,
       pressure_Pa: reading.pressure_Pa,
       pressure_reference: reading.pressure_reference,
-      ...(h.kind === 'relative' ? { relative_humidity_pct: h.relative_humidity_pct } : { dew_point_C: h.dew_point_C }),
+      // The log keeps a dew point up to 1 °C above the air temperature (a hygrometer's error near saturation);
+      // the physics takes such air as saturated, so the dew point is capped at the temperature (common practice).
+      ...(h.kind === 'relative' ? { relative_humidity_pct: h.relative_humidity_pct } : { dew_point_C: Math.min(h.dew_point_C, reading.temperature_C) }),
     },
     uncertainty: {
       temperature_C: reading.u_temperature_C,

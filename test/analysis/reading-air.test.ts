@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { readingAirDensity, typedAirProperties } from '../../src/analysis';
+import { airInput, readingAirDensity, typedAirProperties } from '../../src/analysis';
 import { airProperties } from '../../src/physics';
 import { testDay } from './day-records';
 
@@ -16,5 +16,14 @@ describe('the air of a reading', () => {
     expect(typed.ok).toBe(false);
     expect(!typed.ok && typed.message).toContain('temperature_C');
     expect(typedAirProperties({ temperature_C: 17.5, pressure_Pa: 96_120, pressure_reference: 'station', relative_humidity_pct: 55 }, day.site)).toMatchObject({ ok: true });
+  });
+
+  it('takes a stored dew point a little above the air temperature as saturated air, as the log allows', () => {
+    const reading = { ...day.reading, temperature_C: 12, humidity: { kind: 'dew_point' as const, dew_point_C: 12.6, u_dew_point_C: 0.5 } };
+    expect(airInput(reading).air.dew_point_C).toBe(12);
+    // Saturated air: the same density as a dew point equal to the temperature (CIPM-2007 through the physics).
+    const saturated = airProperties({ temperature_C: 12, pressure_Pa: 96_120, pressure_reference: 'station', dew_point_C: 12 }, 430).density_kg_m3;
+    expect(readingAirDensity(reading, day.site)).toBe(saturated);
+    expect(airInput({ ...reading, humidity: { ...reading.humidity, dew_point_C: 8 } }).air.dew_point_C).toBe(8);
   });
 });

@@ -147,9 +147,10 @@ describe('one error shape', () => {
   });
 
   it('writes a JSON-safe summary for the office command and stored states', () => {
-    const error = catchFrom(() => checkFallTime(700)) as PlummetError;
+    // Above the catalogue's longest fall time (3600 s).
+    const error = catchFrom(() => checkFallTime(7200)) as PlummetError;
     const json = JSON.parse(JSON.stringify(error));
-    expect(json).toEqual({ code: error.code, field: 'time_s', value: '700', allowed: error.allowed, message: error.message });
+    expect(json).toEqual({ code: error.code, field: 'time_s', value: '7200', allowed: error.allowed, message: error.message });
     const cyclic: Record<string, unknown> = {};
     cyclic.self = cyclic;
     expect(() => JSON.stringify(new PlummetError({ code: 'x', field: null, value: cyclic, allowed: null }))).not.toThrow();

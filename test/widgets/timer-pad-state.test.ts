@@ -133,7 +133,9 @@ describe('the timer pad wording and sound-travel set-up', () => {
     expect(soundTravelFor({ releaseDistance: 3, landingDistance: null, airTemperature: 15, releaseHeight: 10 })).toBeNull();
     const assumed = soundTravelFor({ releaseDistance: 12, landingDistance: 2, airTemperature: null, releaseHeight: 10 });
     const at20 = soundTravelFor({ releaseDistance: 12, landingDistance: 2, airTemperature: 20, releaseHeight: 10 });
-    expect(assumed).toEqual(at20);
+    // The same speed of sound; the record keeps that the temperature was assumed (null), not measured.
+    expect(assumed).toEqual({ ...at20, temperature_C: null });
+    expect(at20?.temperature_C).toBe(20);
     expect(assumed?.distance_to_release_m).toBe(12);
   });
 
