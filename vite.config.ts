@@ -62,6 +62,9 @@ export default defineConfig({
             // search and the series curves stay with the screens that draw or plan.
             // Preact and the bundler's small runtime: one file the shell and every screen share.
             { name: 'preact', test: /[\\/]node_modules[\\/]preact[\\/]|rolldown[\\/]runtime/ },
+            // The error base every layer extends: its own small file, or the bundler would put it in the physics
+            // group (which imports it too) and the shell, whose store errors extend it, would load all the physics.
+            { name: 'errors', test: /[\\/]src[\\/]errors[\\/]/ },
             { name: 'physics', test: /[\\/]src[\\/](physics[\\/](?!planDrop)|analysis[\\/](?!series-curves))|[\\/]day-figures\.ts$/ },
           ],
         },

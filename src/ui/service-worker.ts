@@ -4,39 +4,27 @@ export interface UpdateHandle {
 }
 
 /**
- * Registers the service worker. `onUpdateReady` is called when a new version has installed and waits (found
- * waiting at registration, or installed while the page is open); nothing switches until `apply()` is called
- * (the user tapped the notice), which sends the worker SKIP_WAITING and reloads once it has taken over.
- * A first install is no update: the worker claims the page itself. Written on the platform API alone (it is
- * this small), so the first screen carries no registration library.
+ * Registers the service worker with workbox-window. `onUpdateReady` is called when a new version has
+ * installed and waits; nothing switches until `apply()` is called (the user tapped the notice). The page calls
+ * this once it is idle after load, and workbox-window is loaded then, so the first screen does not carry it
+ * (it is precached like every chunk, so this works offline too).
  * Development builds skip registration (the dev server has no precache manifest).
  */
-export function registerServiceWorker(onUpdateReady: (update: UpdateHandle) => void): void {
+export async function registerServiceWorker(onUpdateReady: (update: UpdateHandle) => void): Promise<void> {
   if (import.meta.env.DEV || !('serviceWorker' in navigator)) return;
-  const container = navigator.serviceWorker;
-  const offer = (worker: ServiceWorker) =>
+  const { Workbox } = await import('workbox-window');
+  const wb = new Workbox(`${import.meta.env.BASE_URL}sw.js`);
+  wb.addEventListener('waiting', () => {
     onUpdateReady({
       apply() {
-        container.addEventListener('controllerchange', () => window.location.reload(), { once: true });
-        worker.postMessage({ type: 'SKIP_WAITING' });
+        wb.addEventListener('controlling', () => window.location.reload());
+        wb.messageSkipWaiting();
       },
     });
-  container.addEventListener('message', (event: MessageEvent) => {
+  });
+  wb.addEventListener('message', (event) => {
     const data = event.data as { type?: string } | null;
     if (data?.type === 'SYNC_NOW') window.dispatchEvent(new CustomEvent('plummet-sync-now'));
   });
-  container.register(`${import.meta.env.BASE_URL}sw.js`).then(
-    (registration) => {
-      if (registration.waiting && container.controller) offer(registration.waiting);
-      registration.addEventListener('updatefound', () => {
-        const worker = registration.installing;
-        // Without a controller this is the first install, which takes over by itself.
-        if (!worker || !container.controller) return;
-        worker.addEventListener('statechange', () => {
-          if (worker.state === 'installed') offer(worker);
-        });
-      });
-    },
-    () => undefined,
-  );
+  await wb.register();
 }
