@@ -7,6 +7,7 @@ import type { AirInput } from './airProperties';
 import type { SiteInput } from './normalGravity';
 import type { PhysicsWarning } from './physicsWarning';
 import type { SpecimenInput } from './specimenGeometry';
+import type { TimingMethod } from './timingMethodDefaults';
 
 export interface DropInput {
   /** The caller's own name for the drop (the log's drop id); carried to its result so rows join by it, never by position. */
@@ -18,10 +19,22 @@ export interface DropInput {
 }
 
 export interface TimingInput {
-  /** Standard uncertainty of one drop's time from random causes, s (shrinks with more drops). */
+  /**
+   * Standard uncertainty of one drop's time from random causes, s (shrinks with more drops). A JSON request may
+   * leave it out when `method` has a default (see timingMethodDefaults.ts); the validated request always has it.
+   */
   standard_uncertainty_s: number;
   /** "fit": fit a constant start/stop delay together with C_d (needs three distinct heights). */
   offset?: 'none' | 'fit';
+  /** How the times were taken; gives defaults for the random and the systematic parts (explicit values win). */
+  method?: TimingMethod;
+  /**
+   * A declared constant delay, measured minus true, s (a timer that stops late reads positive); default 0, or the
+   * method's. Subtracted from every time; with "fit" it is the prior the fitted offset is checked against.
+   */
+  offset_s?: number;
+  /** Standard uncertainty of the declared delay, s: one error shared by every drop of the series. */
+  offset_standard_uncertainty_s?: number;
 }
 
 /** Standard uncertainties of the inputs, in the inputs' own units. Missing ones count as zero (with a warning). */
@@ -137,6 +150,14 @@ export interface AnalysisResult {
   timing_offset_s?: number;
   timing_offset_standard_uncertainty_s?: number;
   timing_offset_interval_95_s?: [number, number];
+  /** Only when a delay was declared (offset_s, its uncertainty or a timing method): what the analysis used. */
+  declared_timing_offset?: {
+    offset_s: number;
+    standard_uncertainty_s: number;
+    method: TimingMethod | null;
+    /** Where the values come from: "given", or the method's source. */
+    source: string;
+  };
   /** Null when drag is not resolved. */
   terminal_velocity_m_s: number | null;
   /** Only when drag is not resolved. */

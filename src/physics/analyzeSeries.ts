@@ -50,7 +50,7 @@ export function prepareSeries(request: AnalysisRequest): PreparedSeries {
   const warnings: PhysicsWarning[] = [...setup.warnings];
   const groups = groupDrops(drops);
   // Without an offset, single drops are checked first: a wild time gets an error naming that drop.
-  let own = setup.fitOffset ? null : dropDragCoefficients(setup, drops, 0);
+  let own = setup.fitOffset ? null : dropDragCoefficients(setup, drops, setup.subtractedOffset_s);
   const fit = fitSeries(setup, groups);
   if (setup.fitOffset) own = dropDragCoefficients(setup, drops, fit.offset_s);
   if (own!.slow.length > 0) {
@@ -314,6 +314,21 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     result.timing_offset_s = offsetHat;
     result.timing_offset_standard_uncertainty_s = mc.offset.standard_deviation;
     result.timing_offset_interval_95_s = mc.offset.interval_95;
+  }
+  if (setup.declaredOffset !== null) {
+    result.declared_timing_offset = { ...setup.declaredOffset };
+    if (fitOffset && mc.offset) {
+      // The declared delay is the prior the fit is checked against: the two disagree when they differ by more than
+      // twice the standard uncertainty of their difference (independent estimates, about a 95 % two-sided test).
+      const declared = setup.declaredOffset;
+      const uDifference = Math.hypot(mc.offset.standard_deviation, declared.standard_uncertainty_s);
+      if (Math.abs(offsetHat - declared.offset_s) > 2 * uDifference) {
+        warnings.push({
+          code: 'timing-offset-disagrees',
+          message: `The fitted timing offset ${(offsetHat * 1000).toFixed(1)} ± ${(mc.offset.standard_deviation * 1000).toFixed(1)} ms differs from the declared ${(declared.offset_s * 1000).toFixed(1)} ± ${(declared.standard_uncertainty_s * 1000).toFixed(1)} ms by more than twice the uncertainty of the difference (${(2 * uDifference * 1000).toFixed(1)} ms): check the timing method, or the drag law (a speed-dependent drag can look like an offset).`,
+        });
+      }
+    }
   }
   return result;
 }

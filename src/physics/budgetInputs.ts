@@ -48,6 +48,19 @@ export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: Series
       degrees_of_freedom: dof,
     });
   }
+  if (setup.declaredOffset !== null && !setup.fitOffset) {
+    // One delay for the whole series: a single input on one model position, so the budget and the Monte Carlo
+    // (one draw per series) both treat its error as fully correlated across the drops.
+    specs.push({
+      input: 'timing_offset_s',
+      description: `declared constant start/stop delay of ${setup.declaredOffset.offset_s} s, the same in every drop (systematic)`,
+      evaluation: 'B',
+      standard_uncertainty: setup.subtractedOffsetU_s,
+      indices: [L.timingOffset_s],
+      weights: [1],
+      degrees_of_freedom: Infinity,
+    });
+  }
   const single = (input: string, description: string, index: number, weight: number, value: number | undefined): void => {
     if (value === undefined) missing.push(input);
     specs.push({
