@@ -53,6 +53,11 @@ export interface UncertaintyInput {
   dew_point_C?: number;
   density_kg_m3?: number;
   gravity_m_s2?: number;
+  /**
+   * Of the added-mass coefficient C_a (dimensionless). Without it C_a counts as exactly known, as before, and a
+   * warning gives the shape's default (addedMassCoefficient.ts) when it would matter.
+   */
+  added_mass_coefficient?: number;
 }
 
 export interface AnalysisOptions {

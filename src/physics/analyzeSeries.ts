@@ -5,6 +5,7 @@
  * distributions by Monte Carlo, predicts fall times, and collects every warning on the way.
  */
 import type { AnalysisRequest, AnalysisResult, BudgetRow, DropResult, HeightResult } from './analysisTypes';
+import { defaultAddedMassUncertainty } from './addedMassCoefficient';
 import { budgetInputs, type BudgetInputs } from './budgetInputs';
 import { dropDragCoefficients } from './dropDragCoefficient';
 import { groupDrops, type DropGroups } from './dropGroups';
@@ -20,7 +21,7 @@ import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prep
 import { seriesStatistics } from './seriesStatistics';
 import { MORRISON_VALID_MAX_REYNOLDS, morrisonSphereDragCoefficient } from './sphereDragCoefficient';
 import { studentTQuantile } from './studentT';
-import { uncertaintyBudget } from './uncertaintyBudget';
+import { modelDerivatives, uncertaintyBudget } from './uncertaintyBudget';
 
 export { DEFAULT_MONTE_CARLO_DRAWS };
 /** Reynolds numbers of the drag crisis of smooth spheres (common practice: 2e5 to 5e5). */
@@ -97,6 +98,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
         input.min = 0;
         input.max = 1;
       }
+      // A drawn C_a below zero has no meaning: clip the change at minus the nominal value.
+      if (spec.input === 'added_mass_coefficient') input.min = -addedMass;
       normals.push(input);
     });
   }
@@ -145,6 +148,23 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
 
   // GUM interval (for comparison with the Monte Carlo one).
   const nuEff = budget.effective_degrees_of_freedom;
+  if (setup.uncertainty.added_mass_coefficient === undefined) {
+    // C_a taken as exact: say so when the shape's default uncertainty would add more than a tenth to u_c
+    // (a contribution above √(1.1² − 1) ≈ 0.46·u_c). The derivative is taken on the side, the result is unchanged.
+    const uDefault = defaultAddedMassUncertainty(addedMass, geometry.shape === 'custom');
+    if (uDefault > 0) {
+      const step = 1e-3 * uDefault;
+      const derivative = modelDerivatives(model, x0, new Map([[L.addedMassChange, step]])).get(L.addedMassChange)!;
+      model.evaluate(x0);
+      const contribution = Math.abs(derivative) * uDefault;
+      if (contribution > 0.46 * budget.combined_standard_uncertainty) {
+        warnings.push({
+          code: 'added-mass-uncertainty-not-given',
+          message: `The added-mass coefficient ${addedMass.toPrecision(3)} is taken as exact, but this body is light for its size: the usual doubt about it (standard uncertainty ${uDefault.toPrecision(2)}) would move C_d by ${contribution.toPrecision(2)}, against the stated ${budget.combined_standard_uncertainty.toPrecision(2)}. Give uncertainty.added_mass_coefficient.`,
+        });
+      }
+    }
+  }
   const coverageFactor = nuEff === null ? 1.959963984540054 : studentTQuantile(0.975, nuEff);
   const uc = budget.combined_standard_uncertainty;
 

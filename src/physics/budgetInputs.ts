@@ -102,6 +102,18 @@ export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: Series
   if (u.gravity_m_s2 !== undefined || site.source === 'override') {
     single('gravity_m_s2', site.source === 'override' ? 'local gravity (given)' : 'local gravity', L.gravity_m_s2, 1, u.gravity_m_s2);
   }
+  if (u.added_mass_coefficient !== undefined) {
+    // Not in the "missing" list when absent: a request without it is analysed exactly as before.
+    specs.push({
+      input: 'added_mass_coefficient',
+      description: `added-mass coefficient ${setup.added_mass_coefficient.toPrecision(3)} (potential-flow value; real accelerating flow differs)`,
+      evaluation: 'B',
+      standard_uncertainty: u.added_mass_coefficient,
+      indices: [L.addedMassChange],
+      weights: [1],
+      degrees_of_freedom: Infinity,
+    });
+  }
   if (missing.length > 0) {
     warnings.push({
       code: 'uncertainty-not-given',

@@ -52,6 +52,8 @@ const UNCERTAINTY_LIMITS: Record<keyof UncertaintyInput, { max: number; text: st
   dew_point_C: { max: 20, text: '0 to 20 °C' },
   density_kg_m3: { max: 0.5, text: '0 to 0.5 kg/m³' },
   gravity_m_s2: { max: 0.05, text: '0 to 0.05 m/s²' },
+  // Ten times the largest shape default (a very flat disc), so any honest doubt fits.
+  added_mass_coefficient: { max: 10, text: '0 to 10' },
 };
 
 function asObject(value: unknown, field: string): Record<string, unknown> {
@@ -184,7 +186,7 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
     if (air.pressure_Pa !== undefined) allowed.push('pressure_Pa');
     if (air.relative_humidity_pct !== undefined) allowed.push('relative_humidity_pct');
     if (air.dew_point_C !== undefined) allowed.push('dew_point_C');
-    allowed.push('gravity_m_s2');
+    allowed.push('gravity_m_s2', 'added_mass_coefficient');
     rejectUnknown(u, 'uncertainty', allowed);
     const uncertainty: UncertaintyInput = {};
     for (const key of Object.keys(u) as (keyof UncertaintyInput)[]) {
