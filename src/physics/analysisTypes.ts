@@ -93,7 +93,7 @@ export interface DropResult {
   drag_coefficient: number | null;
   /** √(2h/g): no air at all. */
   vacuum_time_s: number;
-  /** From the reference C_d, or for a sphere from the Morrison correlation; null without either. */
+  /** From the reference C_d, or for a sphere from the standard drag curve (standardSphereDrag.ts); null without either. */
   predicted_time_s: number | null;
   /** The fitted series model's time (offset included when fitted). */
   fitted_time_s: number;
@@ -186,8 +186,13 @@ export interface AnalysisResult {
     upper_bound_95: number;
   };
   prediction: {
-    method: 'reference-drag-coefficient' | 'morrison-sphere-correlation' | 'none';
+    /** 'morrison-sphere-correlation' only in results made before the standard curve replaced it. */
+    method: 'reference-drag-coefficient' | 'standard-sphere-drag-curve' | 'morrison-sphere-correlation' | 'none';
     reference_drag_coefficient: number | null;
+    /** Only for the standard sphere curve: its own relative standard uncertainty of C_d (0.05). */
+    drag_coefficient_relative_standard_uncertainty?: number;
+    /** Only for the standard sphere curve: per height, the predicted time and that uncertainty carried to it. */
+    heights?: { height_m: number; time_s: number; time_standard_uncertainty_s: number }[];
   };
   model: {
     /** The specimen's mass, kg. */

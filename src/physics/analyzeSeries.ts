@@ -19,7 +19,7 @@ import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
 import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesStatistics } from './seriesStatistics';
-import { MORRISON_VALID_MAX_REYNOLDS, morrisonSphereDragCoefficient } from './sphereDragCoefficient';
+import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
 import { studentTQuantile } from './studentT';
 import { modelDerivatives, uncertaintyBudget } from './uncertaintyBudget';
 
@@ -172,27 +172,33 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const reference = specimen.reference_drag_coefficient;
   let predictionMethod: AnalysisResult['prediction']['method'] = 'none';
   const predictedByHeight = new Map<number, number>();
+  const predictedUByHeight = new Map<number, number>();
   if (reference !== null) {
     predictionMethod = 'reference-drag-coefficient';
     const refParams = fallParameters({ ...body, drag_coefficient: reference });
     for (const h of groupHeights) predictedByHeight.set(h, fallTime(h, refParams));
   } else if (geometry.shape === 'sphere') {
-    predictionMethod = 'morrison-sphere-correlation';
+    predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
-    for (const h of groupHeights) {
-      const fall = fallWithVariableDrag(h, {
+    const sphereFall = (h: number, scale: number) =>
+      fallWithVariableDrag(h, {
         effective_gravity_m_s2: gEff,
         drag_constant_per_unit_cd_per_m: (rho * geometry.area_m2) / (2 * mEff),
         reynolds_per_speed_s_m: (rho * geometry.characteristic_length_m) / mu,
-        dragCoefficient: morrisonSphereDragCoefficient,
+        dragCoefficient: scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re),
       });
+    for (const h of groupHeights) {
+      const fall = sphereFall(h, 1);
       predictedByHeight.set(h, fall.time_s);
+      // The curve's own standard uncertainty, carried to the time by scaling it up and down (central difference).
+      const u = STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY;
+      predictedUByHeight.set(h, Math.abs(sphereFall(h, 1 + u).time_s - sphereFall(h, 1 - u).time_s) / 2);
       maxRe = Math.max(maxRe, fall.reynolds_number);
     }
-    if (maxRe > MORRISON_VALID_MAX_REYNOLDS) {
+    if (maxRe > STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS) {
       warnings.push({
         code: 'outside-sphere-correlation-range',
-        message: `The predicted fall reaches Re = ${maxRe.toPrecision(3)}, beyond the Morrison correlation's range (Re ≤ 1e6); the prediction is extrapolated.`,
+        message: `The predicted fall reaches Re = ${maxRe.toPrecision(3)}, beyond the standard sphere curve's stated accuracy (±5 % up to Re = 2e5); near the drag crisis the prediction may be far off.`,
       });
     }
   }
@@ -220,7 +226,9 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const reynolds = drops.map((d) => d.reynolds_number);
   const maxRe = Math.max(...reynolds);
   const minRe = Math.min(...reynolds);
-  if (drops.some((d) => d.reynolds_number >= DRAG_CRISIS_REYNOLDS[0] && d.reynolds_number <= DRAG_CRISIS_REYNOLDS[1])) {
+  // Only a smooth, rounded body has a drag crisis (the boundary layer's separation point moves when it turns
+  // turbulent). A cylinder here falls axis vertical and a disc flat: their sharp edges fix separation, as on a box.
+  if (geometry.shape === 'sphere' && drops.some((d) => d.reynolds_number >= DRAG_CRISIS_REYNOLDS[0] && d.reynolds_number <= DRAG_CRISIS_REYNOLDS[1])) {
     warnings.push({
       code: 'near-drag-crisis',
       message: `The Reynolds number at impact (up to ${maxRe.toPrecision(3)}) lies in the drag crisis (2e5 to 5e5), where C_d can drop sharply with small changes in speed or surface roughness; repeated drops may disagree.`,
@@ -310,7 +318,20 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       interval_95: mcCd.interval_95,
       upper_bound_95: mcCd.upper_bound_95,
     },
-    prediction: { method: predictionMethod, reference_drag_coefficient: reference },
+    prediction: {
+      method: predictionMethod,
+      reference_drag_coefficient: reference,
+      ...(predictedUByHeight.size > 0
+        ? {
+            drag_coefficient_relative_standard_uncertainty: STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY,
+            heights: groupHeights.map((h) => ({
+              height_m: h,
+              time_s: predictedByHeight.get(h)!,
+              time_standard_uncertainty_s: predictedUByHeight.get(h)!,
+            })),
+          }
+        : {}),
+    },
     model: {
       mass_kg: specimen.mass_kg,
       buoyancy,
