@@ -45,3 +45,25 @@ export function equivalentSpheroidAddedMassCoefficient(area_m2: number, length_m
   const spheroidVolume = (4 / 3) * Math.PI * radial * radial * axial;
   return (spheroidAddedMassCoefficient(axial, radial) * spheroidVolume) / volume_m3;
 }
+
+/**
+ * The standard uncertainty of C_a when the crew gives none, by shape. Potential flow is the ideal: a real body
+ * accelerating from rest sheds a boundary layer and a wake, and its effective added mass (with the history force
+ * folded in) moves away from the ideal value as the flow develops. Measured on spheres oscillating in water,
+ * C_a rose from the ideal 0.5 at small acceleration numbers A_c = v²/(d·|dv/dt|) to about 1.05 at large ones
+ * (Odar & Hamilton, J. Fluid Mech. 18, 302 (1964): C_a = 1.05 − 0.066/(A_c² + 0.12), from memory); a light sphere
+ * moving in a straight line through air near rest follows the ideal 0.5 (Pantaleone & Messer, "The added mass of
+ * a spherical projectile", Am. J. Phys. 79, 1202 (2011)). A falling body passes from A_c = 0 at release to large
+ * A_c near terminal speed, so half the ideal value is the standard uncertainty we state for a sphere (common
+ * practice reading of those two sources: ±2u spans 0 to 1.0). Cylinders, discs and boxes carry the same relative
+ * uncertainty on their equivalent-spheroid estimate (its approximation error is smaller than the flow's, common
+ * practice); a custom shape, whose nominal value is 0, gets 0.5 of its volume (common practice), drawn no lower
+ * than zero.
+ */
+export const ADDED_MASS_RELATIVE_UNCERTAINTY = 0.5;
+export const CUSTOM_ADDED_MASS_UNCERTAINTY = 0.5;
+
+/** The default standard uncertainty of a nominal added-mass coefficient (see above). */
+export function defaultAddedMassUncertainty(nominal: number, custom: boolean): number {
+  return custom ? CUSTOM_ADDED_MASS_UNCERTAINTY : ADDED_MASS_RELATIVE_UNCERTAINTY * nominal;
+}

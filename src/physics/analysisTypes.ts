@@ -7,6 +7,7 @@ import type { AirInput } from './airProperties';
 import type { SiteInput } from './normalGravity';
 import type { PhysicsWarning } from './physicsWarning';
 import type { SpecimenInput } from './specimenGeometry';
+import type { TimingMethod } from './timingMethodDefaults';
 
 export interface DropInput {
   /** The caller's own name for the drop (the log's drop id); carried to its result so rows join by it, never by position. */
@@ -18,10 +19,22 @@ export interface DropInput {
 }
 
 export interface TimingInput {
-  /** Standard uncertainty of one drop's time from random causes, s (shrinks with more drops). */
+  /**
+   * Standard uncertainty of one drop's time from random causes, s (shrinks with more drops). A JSON request may
+   * leave it out when `method` has a default (see timingMethodDefaults.ts); the validated request always has it.
+   */
   standard_uncertainty_s: number;
   /** "fit": fit a constant start/stop delay together with C_d (needs three distinct heights). */
   offset?: 'none' | 'fit';
+  /** How the times were taken; gives defaults for the random and the systematic parts (explicit values win). */
+  method?: TimingMethod;
+  /**
+   * A declared constant delay, measured minus true, s (a timer that stops late reads positive); default 0, or the
+   * method's. Subtracted from every time; with "fit" it is the prior the fitted offset is checked against.
+   */
+  offset_s?: number;
+  /** Standard uncertainty of the declared delay, s: one error shared by every drop of the series. */
+  offset_standard_uncertainty_s?: number;
 }
 
 /** Standard uncertainties of the inputs, in the inputs' own units. Missing ones count as zero (with a warning). */
@@ -40,6 +53,11 @@ export interface UncertaintyInput {
   dew_point_C?: number;
   density_kg_m3?: number;
   gravity_m_s2?: number;
+  /**
+   * Of the added-mass coefficient C_a (dimensionless). Without it C_a counts as exactly known, as before, and a
+   * warning gives the shape's default (addedMassCoefficient.ts) when it would matter.
+   */
+  added_mass_coefficient?: number;
 }
 
 export interface AnalysisOptions {
@@ -75,7 +93,7 @@ export interface DropResult {
   drag_coefficient: number | null;
   /** √(2h/g): no air at all. */
   vacuum_time_s: number;
-  /** From the reference C_d, or for a sphere from the Morrison correlation; null without either. */
+  /** From the reference C_d, or for a sphere from the standard drag curve (standardSphereDrag.ts); null without either. */
   predicted_time_s: number | null;
   /** The fitted series model's time (offset included when fitted). */
   fitted_time_s: number;
@@ -137,6 +155,14 @@ export interface AnalysisResult {
   timing_offset_s?: number;
   timing_offset_standard_uncertainty_s?: number;
   timing_offset_interval_95_s?: [number, number];
+  /** Only when a delay was declared (offset_s, its uncertainty or a timing method): what the analysis used. */
+  declared_timing_offset?: {
+    offset_s: number;
+    standard_uncertainty_s: number;
+    method: TimingMethod | null;
+    /** Where the values come from: "given", or the method's source. */
+    source: string;
+  };
   /** Null when drag is not resolved. */
   terminal_velocity_m_s: number | null;
   /** Only when drag is not resolved. */
@@ -160,8 +186,13 @@ export interface AnalysisResult {
     upper_bound_95: number;
   };
   prediction: {
-    method: 'reference-drag-coefficient' | 'morrison-sphere-correlation' | 'none';
+    /** 'morrison-sphere-correlation' only in results made before the standard curve replaced it. */
+    method: 'reference-drag-coefficient' | 'standard-sphere-drag-curve' | 'morrison-sphere-correlation' | 'none';
     reference_drag_coefficient: number | null;
+    /** Only for the standard sphere curve: its own relative standard uncertainty of C_d (0.05). */
+    drag_coefficient_relative_standard_uncertainty?: number;
+    /** Only for the standard sphere curve: per height, the predicted time and that uncertainty carried to it. */
+    heights?: { height_m: number; time_s: number; time_standard_uncertainty_s: number }[];
   };
   model: {
     /** The specimen's mass, kg. */

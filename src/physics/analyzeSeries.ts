@@ -5,6 +5,7 @@
  * distributions by Monte Carlo, predicts fall times, and collects every warning on the way.
  */
 import type { AnalysisRequest, AnalysisResult, BudgetRow, DropResult, HeightResult } from './analysisTypes';
+import { defaultAddedMassUncertainty } from './addedMassCoefficient';
 import { budgetInputs, type BudgetInputs } from './budgetInputs';
 import { dropDragCoefficients } from './dropDragCoefficient';
 import { groupDrops, type DropGroups } from './dropGroups';
@@ -18,9 +19,9 @@ import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
 import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesStatistics } from './seriesStatistics';
-import { MORRISON_VALID_MAX_REYNOLDS, morrisonSphereDragCoefficient } from './sphereDragCoefficient';
+import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
 import { studentTQuantile } from './studentT';
-import { uncertaintyBudget } from './uncertaintyBudget';
+import { modelDerivatives, uncertaintyBudget } from './uncertaintyBudget';
 
 export { DEFAULT_MONTE_CARLO_DRAWS };
 /** Reynolds numbers of the drag crisis of smooth spheres (common practice: 2e5 to 5e5). */
@@ -50,7 +51,7 @@ export function prepareSeries(request: AnalysisRequest): PreparedSeries {
   const warnings: PhysicsWarning[] = [...setup.warnings];
   const groups = groupDrops(drops);
   // Without an offset, single drops are checked first: a wild time gets an error naming that drop.
-  let own = setup.fitOffset ? null : dropDragCoefficients(setup, drops, 0);
+  let own = setup.fitOffset ? null : dropDragCoefficients(setup, drops, setup.subtractedOffset_s);
   const fit = fitSeries(setup, groups);
   if (setup.fitOffset) own = dropDragCoefficients(setup, drops, fit.offset_s);
   if (own!.slow.length > 0) {
@@ -97,6 +98,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
         input.min = 0;
         input.max = 1;
       }
+      // A drawn C_a below zero has no meaning: clip the change at minus the nominal value.
+      if (spec.input === 'added_mass_coefficient') input.min = -addedMass;
       normals.push(input);
     });
   }
@@ -145,6 +148,23 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
 
   // GUM interval (for comparison with the Monte Carlo one).
   const nuEff = budget.effective_degrees_of_freedom;
+  if (setup.uncertainty.added_mass_coefficient === undefined) {
+    // C_a taken as exact: say so when the shape's default uncertainty would add more than a tenth to u_c
+    // (a contribution above √(1.1² − 1) ≈ 0.46·u_c). The derivative is taken on the side, the result is unchanged.
+    const uDefault = defaultAddedMassUncertainty(addedMass, geometry.shape === 'custom');
+    if (uDefault > 0) {
+      const step = 1e-3 * uDefault;
+      const derivative = modelDerivatives(model, x0, new Map([[L.addedMassChange, step]])).get(L.addedMassChange)!;
+      model.evaluate(x0);
+      const contribution = Math.abs(derivative) * uDefault;
+      if (contribution > 0.46 * budget.combined_standard_uncertainty) {
+        warnings.push({
+          code: 'added-mass-uncertainty-not-given',
+          message: `The added-mass coefficient ${addedMass.toPrecision(3)} is taken as exact, but this body is light for its size: the usual doubt about it (standard uncertainty ${uDefault.toPrecision(2)}) would move C_d by ${contribution.toPrecision(2)}, against the stated ${budget.combined_standard_uncertainty.toPrecision(2)}. Give uncertainty.added_mass_coefficient.`,
+        });
+      }
+    }
+  }
   const coverageFactor = nuEff === null ? 1.959963984540054 : studentTQuantile(0.975, nuEff);
   const uc = budget.combined_standard_uncertainty;
 
@@ -152,27 +172,33 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const reference = specimen.reference_drag_coefficient;
   let predictionMethod: AnalysisResult['prediction']['method'] = 'none';
   const predictedByHeight = new Map<number, number>();
+  const predictedUByHeight = new Map<number, number>();
   if (reference !== null) {
     predictionMethod = 'reference-drag-coefficient';
     const refParams = fallParameters({ ...body, drag_coefficient: reference });
     for (const h of groupHeights) predictedByHeight.set(h, fallTime(h, refParams));
   } else if (geometry.shape === 'sphere') {
-    predictionMethod = 'morrison-sphere-correlation';
+    predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
-    for (const h of groupHeights) {
-      const fall = fallWithVariableDrag(h, {
+    const sphereFall = (h: number, scale: number) =>
+      fallWithVariableDrag(h, {
         effective_gravity_m_s2: gEff,
         drag_constant_per_unit_cd_per_m: (rho * geometry.area_m2) / (2 * mEff),
         reynolds_per_speed_s_m: (rho * geometry.characteristic_length_m) / mu,
-        dragCoefficient: morrisonSphereDragCoefficient,
+        dragCoefficient: scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re),
       });
+    for (const h of groupHeights) {
+      const fall = sphereFall(h, 1);
       predictedByHeight.set(h, fall.time_s);
+      // The curve's own standard uncertainty, carried to the time by scaling it up and down (central difference).
+      const u = STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY;
+      predictedUByHeight.set(h, Math.abs(sphereFall(h, 1 + u).time_s - sphereFall(h, 1 - u).time_s) / 2);
       maxRe = Math.max(maxRe, fall.reynolds_number);
     }
-    if (maxRe > MORRISON_VALID_MAX_REYNOLDS) {
+    if (maxRe > STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS) {
       warnings.push({
         code: 'outside-sphere-correlation-range',
-        message: `The predicted fall reaches Re = ${maxRe.toPrecision(3)}, beyond the Morrison correlation's range (Re ≤ 1e6); the prediction is extrapolated.`,
+        message: `The predicted fall reaches Re = ${maxRe.toPrecision(3)}, beyond the standard sphere curve's stated accuracy (±5 % up to Re = 2e5); near the drag crisis the prediction may be far off.`,
       });
     }
   }
@@ -200,7 +226,9 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const reynolds = drops.map((d) => d.reynolds_number);
   const maxRe = Math.max(...reynolds);
   const minRe = Math.min(...reynolds);
-  if (drops.some((d) => d.reynolds_number >= DRAG_CRISIS_REYNOLDS[0] && d.reynolds_number <= DRAG_CRISIS_REYNOLDS[1])) {
+  // Only a smooth, rounded body has a drag crisis (the boundary layer's separation point moves when it turns
+  // turbulent). A cylinder here falls axis vertical and a disc flat: their sharp edges fix separation, as on a box.
+  if (geometry.shape === 'sphere' && drops.some((d) => d.reynolds_number >= DRAG_CRISIS_REYNOLDS[0] && d.reynolds_number <= DRAG_CRISIS_REYNOLDS[1])) {
     warnings.push({
       code: 'near-drag-crisis',
       message: `The Reynolds number at impact (up to ${maxRe.toPrecision(3)}) lies in the drag crisis (2e5 to 5e5), where C_d can drop sharply with small changes in speed or surface roughness; repeated drops may disagree.`,
@@ -290,7 +318,20 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       interval_95: mcCd.interval_95,
       upper_bound_95: mcCd.upper_bound_95,
     },
-    prediction: { method: predictionMethod, reference_drag_coefficient: reference },
+    prediction: {
+      method: predictionMethod,
+      reference_drag_coefficient: reference,
+      ...(predictedUByHeight.size > 0
+        ? {
+            drag_coefficient_relative_standard_uncertainty: STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY,
+            heights: groupHeights.map((h) => ({
+              height_m: h,
+              time_s: predictedByHeight.get(h)!,
+              time_standard_uncertainty_s: predictedUByHeight.get(h)!,
+            })),
+          }
+        : {}),
+    },
     model: {
       mass_kg: specimen.mass_kg,
       buoyancy,
@@ -314,6 +355,21 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     result.timing_offset_s = offsetHat;
     result.timing_offset_standard_uncertainty_s = mc.offset.standard_deviation;
     result.timing_offset_interval_95_s = mc.offset.interval_95;
+  }
+  if (setup.declaredOffset !== null) {
+    result.declared_timing_offset = { ...setup.declaredOffset };
+    if (fitOffset && mc.offset) {
+      // The declared delay is the prior the fit is checked against: the two disagree when they differ by more than
+      // twice the standard uncertainty of their difference (independent estimates, about a 95 % two-sided test).
+      const declared = setup.declaredOffset;
+      const uDifference = Math.hypot(mc.offset.standard_deviation, declared.standard_uncertainty_s);
+      if (Math.abs(offsetHat - declared.offset_s) > 2 * uDifference) {
+        warnings.push({
+          code: 'timing-offset-disagrees',
+          message: `The fitted timing offset ${(offsetHat * 1000).toFixed(1)} ± ${(mc.offset.standard_deviation * 1000).toFixed(1)} ms differs from the declared ${(declared.offset_s * 1000).toFixed(1)} ± ${(declared.standard_uncertainty_s * 1000).toFixed(1)} ms by more than twice the uncertainty of the difference (${(2 * uDifference * 1000).toFixed(1)} ms): check the timing method, or the drag law (a speed-dependent drag can look like an offset).`,
+        });
+      }
+    }
   }
   return result;
 }

@@ -48,6 +48,19 @@ export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: Series
       degrees_of_freedom: dof,
     });
   }
+  if (setup.declaredOffset !== null && !setup.fitOffset) {
+    // One delay for the whole series: a single input on one model position, so the budget and the Monte Carlo
+    // (one draw per series) both treat its error as fully correlated across the drops.
+    specs.push({
+      input: 'timing_offset_s',
+      description: `declared constant start/stop delay of ${setup.declaredOffset.offset_s} s, the same in every drop (systematic)`,
+      evaluation: 'B',
+      standard_uncertainty: setup.subtractedOffsetU_s,
+      indices: [L.timingOffset_s],
+      weights: [1],
+      degrees_of_freedom: Infinity,
+    });
+  }
   const single = (input: string, description: string, index: number, weight: number, value: number | undefined): void => {
     if (value === undefined) missing.push(input);
     specs.push({
@@ -88,6 +101,18 @@ export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: Series
   }
   if (u.gravity_m_s2 !== undefined || site.source === 'override') {
     single('gravity_m_s2', site.source === 'override' ? 'local gravity (given)' : 'local gravity', L.gravity_m_s2, 1, u.gravity_m_s2);
+  }
+  if (u.added_mass_coefficient !== undefined) {
+    // Not in the "missing" list when absent: a request without it is analysed exactly as before.
+    specs.push({
+      input: 'added_mass_coefficient',
+      description: `added-mass coefficient ${setup.added_mass_coefficient.toPrecision(3)} (potential-flow value; real accelerating flow differs)`,
+      evaluation: 'B',
+      standard_uncertainty: u.added_mass_coefficient,
+      indices: [L.addedMassChange],
+      weights: [1],
+      degrees_of_freedom: Infinity,
+    });
   }
   if (missing.length > 0) {
     warnings.push({

@@ -36,20 +36,24 @@ export interface DropDragCoefficients {
   slow: string[];
 }
 
-/** Every drop's own C_d; a drop faster than free fall by far more than its noise is an error naming it. */
+/**
+ * Every drop's own C_d from its time less `offset` (the fitted offset, or the declared delay); a drop faster than
+ * free fall by far more than its noise is an error naming it.
+ */
 export function dropDragCoefficients(setup: SeriesSetup, drops: readonly DropInput[], offset: number): DropDragCoefficients {
   const { noDrag, timingU, heightU, body } = setup;
   const slow: string[] = [];
   const values = drops.map((drop, i) => {
     const time = drop.time_s - offset;
     const noDragTime = fallTime(drop.height_m, noDrag);
-    const sigma = Math.hypot(timingU, (noDragTime * heightU) / (2 * drop.height_m));
+    const heightTerm = (noDragTime * heightU) / (2 * drop.height_m);
+    const sigma = setup.subtractedOffsetU_s > 0 ? Math.hypot(timingU, heightTerm, setup.subtractedOffsetU_s) : Math.hypot(timingU, heightTerm);
     if (time < noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma) {
       throw new PhysicsInputError({
         code: 'faster-than-free-fall',
         field: `drops[${i}].time_s`,
         value: drop.time_s,
-        allowed: `at least about ${(noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma + offset).toFixed(4)} s (the drag-free fall from ${drop.height_m} m takes ${noDragTime.toFixed(4)} s${offset !== 0 ? `, plus the fitted timing offset ${offset.toFixed(4)} s` : ''})`,
+        allowed: `at least about ${(noDragTime - FASTER_THAN_FREE_FALL_SIGMAS * sigma + offset).toFixed(4)} s (the drag-free fall from ${drop.height_m} m takes ${noDragTime.toFixed(4)} s${offset !== 0 ? `, plus the ${setup.fitOffset ? 'fitted' : 'declared'} timing offset ${offset.toFixed(4)} s` : ''})`,
       });
     }
     const value = ownDragCoefficient(body, drop.height_m, drop.time_s, offset, `drops[${i}].time_s`, noDrag);

@@ -70,6 +70,13 @@ export {
 export { fallWithVariableDrag, type VariableDragBody, type VariableDragFall } from './fallWithVariableDrag';
 export { integrateDormandPrince, type OdeRightHandSide, type DormandPrinceOptions, type DormandPrinceResult } from './integrateDormandPrince';
 export { morrisonSphereDragCoefficient, MORRISON_VALID_MAX_REYNOLDS } from './sphereDragCoefficient';
+export {
+  standardSphereDragCoefficient,
+  STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS,
+  STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY,
+} from './standardSphereDrag';
+export { TIMING_METHOD_DEFAULTS, TIMING_METHODS, type TimingMethod, type TimingMethodDefaults } from './timingMethodDefaults';
+export { defaultAddedMassUncertainty, ADDED_MASS_RELATIVE_UNCERTAINTY, CUSTOM_ADDED_MASS_UNCERTAINTY } from './addedMassCoefficient';
 
 // Drag from times.
 export { dragCoefficientFromTime } from './dragCoefficientFromTime';

@@ -38,7 +38,7 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
     counts: groups.counts,
   });
   const L = model.layout;
-  const x0 = new Float64Array(L.length);
+  const x0 = new Float64Array(L.fullLength);
   x0[L.temperature_K] = air.temperature_K;
   x0[L.pressure_Pa] = air.station_pressure_Pa ?? 0;
   x0[L.humidity] =
@@ -51,6 +51,8 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
     x0[L.firstHeight + j] = groups.heights[j]!;
     x0[L.firstTime + j] = groups.meanTimes[j]!;
   }
+  x0[L.timingOffset_s] = setup.subtractedOffset_s;
+  x0[L.addedMassChange] = 0;
   const estimate = model.evaluate(x0);
   if (model.status !== 'ok') {
     throw new PhysicsInputError({

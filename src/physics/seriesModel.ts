@@ -1,7 +1,11 @@
 /**
  * The measurement model of one series as a single function of all its inputs:
  *
- *   C_d = f(T, p, humidity, [ρ], g, m, dimensions…, h_1…h_J, t̄_1…t̄_J)
+ *   C_d = f(T, p, humidity, [ρ], g, m, dimensions…, h_1…h_J, t̄_1…t̄_J, δt, δC_a)
+ *
+ * δt is the declared constant start/stop delay (one value for every drop, so its error is fully correlated
+ * across them) and δC_a a change of the added-mass coefficient from its nominal value; both are 0 at the
+ * nominal point unless declared, and t − 0 and C_a + 0 are exact, so requests without them are unchanged.
  *
  * The GUM budget differentiates it, the Monte Carlo propagation samples it, and the reported
  * value is it at the nominal inputs, so the three can never disagree about what is computed.
@@ -46,7 +50,14 @@ export interface SeriesModelLayout {
   firstDimension: number;
   firstHeight: number;
   firstTime: number;
+  /** The inputs every series has (up to the last mean time). */
   length: number;
+  /** Optional trailing position: the declared constant delay subtracted from every mean time, s (0 when absent). */
+  timingOffset_s: number;
+  /** Optional trailing position: added to the added-mass coefficient (0 when absent). */
+  addedMassChange: number;
+  /** With the optional trailing positions; a shorter vector reads them as 0. */
+  fullLength: number;
 }
 
 export interface SeriesEvaluation {
@@ -92,6 +103,9 @@ export class SeriesModel {
       firstHeight,
       firstTime,
       length: firstTime + J,
+      timingOffset_s: firstTime + J,
+      addedMassChange: firstTime + J + 1,
+      fullLength: firstTime + J + 2,
     };
     this.heights = new Float64Array(J);
     this.times = new Float64Array(J);
@@ -126,7 +140,7 @@ export class SeriesModel {
     const rho = this.density(x);
     for (let i = 0; i < this.dims.length; i++) this.dims[i] = x[L.firstDimension + i]!;
     const geometry = geometryFromDimensions(this.setup.shape, this.dims, this.setup.characteristicLength);
-    const Ca = this.setup.addedMassCoefficient ?? geometry.default_added_mass_coefficient;
+    const Ca = (this.setup.addedMassCoefficient ?? geometry.default_added_mass_coefficient) + (x[L.addedMassChange] ?? 0);
     const m = x[L.mass_kg]!;
     const displaced = rho * geometry.volume_m3;
     const effectiveMass = m + Ca * displaced;
@@ -143,9 +157,10 @@ export class SeriesModel {
       this.dragConstant_per_m = NaN;
       return NaN;
     }
+    const delay = x[L.timingOffset_s] ?? 0;
     for (let j = 0; j < this.groups; j++) {
       this.heights[j] = x[L.firstHeight + j]!;
-      this.times[j] = x[L.firstTime + j]!;
+      this.times[j] = x[L.firstTime + j]! - delay;
     }
     const fit = fitDragConstant(effectiveGravity, this.heights, this.times, this.setup.counts, this.setup.fitOffset, this.startDragConstant);
     this.offset_s = fit.offset_s;

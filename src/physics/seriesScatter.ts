@@ -24,7 +24,7 @@ export interface SeriesScatter {
   scatter: number | null;
   /** The scatter beyond the declared timing uncertainty, s (0 when within it). */
   excess: number;
-  /** Standard uncertainty of the mean time at height j (declared timing and excess scatter). */
+  /** Standard uncertainty of the mean time at height j (declared timing, excess scatter and the declared delay's). */
   meanTimeU(j: number): number;
   warnings: PhysicsWarning[];
 }
@@ -32,7 +32,9 @@ export interface SeriesScatter {
 export function seriesScatter(setup: SeriesSetup, drops: readonly DropInput[], groups: DropGroups, fit: SeriesFit): SeriesScatter {
   const { timingU } = setup;
   const warnings: PhysicsWarning[] = [];
-  const fittedTimes = drops.map((d) => fallTime(d.height_m, fit.fitted) + fit.offset_s);
+  // The model's time: the fitted offset, or the declared delay (one of them is 0).
+  const delay = fit.offset_s + setup.subtractedOffset_s;
+  const fittedTimes = drops.map((d) => fallTime(d.height_m, fit.fitted) + delay);
   const residuals = drops.map((d, i) => d.time_s - fittedTimes[i]!);
   const dof = drops.length - (setup.fitOffset ? 2 : 1);
   const scatter = dof > 0 ? Math.sqrt(residuals.reduce((s, r) => s + r * r, 0) / dof) : null;
@@ -49,7 +51,8 @@ export function seriesScatter(setup: SeriesSetup, drops: readonly DropInput[], g
     });
   }
   const counts = groups.counts;
-  const meanTimeU = (j: number): number => Math.sqrt((timingU * timingU + excess * excess) / counts[j]!);
+  const uDelay = setup.subtractedOffsetU_s;
+  const meanTimeU = (j: number): number => Math.sqrt((timingU * timingU + excess * excess) / counts[j]! + uDelay * uDelay);
   return { fittedTimes, residuals, dof, scatter, excess, meanTimeU, warnings };
 }
 

@@ -11,6 +11,7 @@ import { localGravity, type SiteGravity } from './normalGravity';
 import type { PhysicsWarning } from './physicsWarning';
 import type { HumidityKind } from './seriesModel';
 import { checkSpecimen, type CheckedSpecimen, type SpecimenGeometry } from './specimenGeometry';
+import { TIMING_METHOD_DEFAULTS, type TimingMethod } from './timingMethodDefaults';
 import { validateAnalysisRequest } from './validateAnalysisRequest';
 
 export const DEFAULT_MONTE_CARLO_DRAWS = 20_000;
@@ -32,6 +33,15 @@ export interface SeriesSetup {
   fitOffset: boolean;
   /** Declared standard uncertainty of one drop's time, s. */
   timingU: number;
+  /**
+   * The declared constant delay (measured minus true) and its standard uncertainty, s; null when none was declared
+   * (then the analysis is exactly the one without it). With a fitted offset it is only the prior the fit is checked against.
+   */
+  declaredOffset: { offset_s: number; standard_uncertainty_s: number; method: TimingMethod | null; source: string } | null;
+  /** The delay subtracted from every time before the fit: the declared one, 0 when fitting or none declared. */
+  subtractedOffset_s: number;
+  /** Its standard uncertainty, shared by all drops (0 when fitting or none declared). */
+  subtractedOffsetU_s: number;
   /** Declared standard uncertainty of a release height, m (0 when not given). */
   heightU: number;
   uncertainty: UncertaintyInput;
@@ -70,6 +80,21 @@ export function prepareSetup(request: AnalysisRequest): SeriesSetup {
     added_mass_coefficient: addedMass,
   };
   const noDrag = fallParameters({ ...body, drag_coefficient: 0 }); // throws when not heavier than air
+  const timing = req.timing;
+  const methodDefaults = timing.method !== undefined ? TIMING_METHOD_DEFAULTS[timing.method] : null;
+  const declared = timing.offset_s !== undefined || timing.offset_standard_uncertainty_s !== undefined || methodDefaults !== null;
+  const declaredOffset = declared
+    ? {
+        offset_s: timing.offset_s ?? methodDefaults?.offset_s ?? 0,
+        standard_uncertainty_s: timing.offset_standard_uncertainty_s ?? methodDefaults?.offset_standard_uncertainty_s ?? 0,
+        method: timing.method ?? null,
+        source:
+          timing.offset_s !== undefined && timing.offset_standard_uncertainty_s !== undefined
+            ? 'given'
+            : `${timing.offset_s !== undefined || timing.offset_standard_uncertainty_s !== undefined ? 'partly given; ' : ''}${methodDefaults?.source ?? 'nothing declared counts as 0'}`,
+      }
+    : null;
+  const fitOffset = timing.offset === 'fit';
   const humidityKind: HumidityKind =
     air.density_source === 'override' ? 'none' : req.air.relative_humidity_pct !== undefined ? 'relative-humidity' : 'dew-point';
   return {
@@ -84,8 +109,11 @@ export function prepareSetup(request: AnalysisRequest): SeriesSetup {
     geometry,
     buoyancy,
     added_mass_coefficient: addedMass,
-    fitOffset: req.timing.offset === 'fit',
+    fitOffset,
     timingU: req.timing.standard_uncertainty_s,
+    declaredOffset,
+    subtractedOffset_s: fitOffset || declaredOffset === null ? 0 : declaredOffset.offset_s,
+    subtractedOffsetU_s: fitOffset || declaredOffset === null ? 0 : declaredOffset.standard_uncertainty_s,
     heightU: u.height_m ?? 0,
     uncertainty: u,
     draws: options.monte_carlo_draws ?? DEFAULT_MONTE_CARLO_DRAWS,

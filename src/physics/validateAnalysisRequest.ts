@@ -10,6 +10,7 @@ import { checkNumber, checkOptionalNumber } from './checkNumber';
 import { localGravity, type SiteInput } from './normalGravity';
 import { PhysicsInputError } from './physicsInputError';
 import { checkSpecimen, SHAPE_DIMENSIONS } from './specimenGeometry';
+import { TIMING_METHOD_DEFAULTS, TIMING_METHODS, type TimingMethod } from './timingMethodDefaults';
 
 /**
  * The physics' own limits. It may not import the log's field catalogue (the two are independent), so a test
@@ -21,6 +22,12 @@ export const DROP_LIMITS = {
   // A slow seed (about 0.3 m/s) from the highest release takes close to an hour (the log stores up to 3600 s).
   time_s: { min: 0, minExclusive: true, max: 3600, text: 'above 0 and at most 3600 s' },
   standard_uncertainty_s: { min: 0, minExclusive: true, max: 10, text: 'above 0 and at most 10 s' },
+} as const;
+
+/** A declared start/stop delay: hand timing is off by a few tenths of a second at worst (see timingMethodDefaults.ts). */
+export const TIMING_OFFSET_LIMITS = {
+  offset_s: { min: -2, max: 2, text: '-2 to 2 s' },
+  offset_standard_uncertainty_s: { min: 0, max: 2, text: '0 to 2 s' },
 } as const;
 
 export const OPTION_LIMITS = {
@@ -45,6 +52,8 @@ const UNCERTAINTY_LIMITS: Record<keyof UncertaintyInput, { max: number; text: st
   dew_point_C: { max: 20, text: '0 to 20 °C' },
   density_kg_m3: { max: 0.5, text: '0 to 0.5 kg/m³' },
   gravity_m_s2: { max: 0.05, text: '0 to 0.05 m/s²' },
+  // Ten times the largest shape default (a very flat disc), so any honest doubt fits.
+  added_mass_coefficient: { max: 10, text: '0 to 10' },
 };
 
 function asObject(value: unknown, field: string): Record<string, unknown> {
@@ -130,10 +139,24 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   });
 
   const timingObject = asObject(root['timing'], 'timing');
-  rejectUnknown(timingObject, 'timing', ['standard_uncertainty_s', 'offset']);
+  rejectUnknown(timingObject, 'timing', ['standard_uncertainty_s', 'offset', 'method', 'offset_s', 'offset_standard_uncertainty_s']);
+  const methodValue = timingObject['method'];
+  if (methodValue !== undefined && !TIMING_METHODS.includes(methodValue as TimingMethod)) {
+    throw new PhysicsInputError({ code: 'out-of-range', field: 'timing.method', value: methodValue, allowed: TIMING_METHODS.map((m) => `"${m}"`).join(', ') });
+  }
+  const method = methodValue as TimingMethod | undefined;
+  const methodRandom = method === undefined ? null : TIMING_METHOD_DEFAULTS[method].standard_uncertainty_s;
   const timing: TimingInput = {
-    standard_uncertainty_s: checkNumber('timing.standard_uncertainty_s', timingObject['standard_uncertainty_s'], DROP_LIMITS.standard_uncertainty_s),
+    standard_uncertainty_s:
+      timingObject['standard_uncertainty_s'] === undefined && methodRandom !== null
+        ? methodRandom
+        : checkNumber('timing.standard_uncertainty_s', timingObject['standard_uncertainty_s'], DROP_LIMITS.standard_uncertainty_s),
   };
+  if (method !== undefined) timing.method = method;
+  const offsetS = checkOptionalNumber('timing.offset_s', timingObject['offset_s'], TIMING_OFFSET_LIMITS.offset_s);
+  if (offsetS !== undefined) timing.offset_s = offsetS;
+  const offsetU = checkOptionalNumber('timing.offset_standard_uncertainty_s', timingObject['offset_standard_uncertainty_s'], TIMING_OFFSET_LIMITS.offset_standard_uncertainty_s);
+  if (offsetU !== undefined) timing.offset_standard_uncertainty_s = offsetU;
   const offset = timingObject['offset'];
   if (offset !== undefined) {
     if (offset !== 'none' && offset !== 'fit') {
@@ -163,7 +186,7 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
     if (air.pressure_Pa !== undefined) allowed.push('pressure_Pa');
     if (air.relative_humidity_pct !== undefined) allowed.push('relative_humidity_pct');
     if (air.dew_point_C !== undefined) allowed.push('dew_point_C');
-    allowed.push('gravity_m_s2');
+    allowed.push('gravity_m_s2', 'added_mass_coefficient');
     rejectUnknown(u, 'uncertainty', allowed);
     const uncertainty: UncertaintyInput = {};
     for (const key of Object.keys(u) as (keyof UncertaintyInput)[]) {

@@ -47,10 +47,27 @@ describe('the analyze command', () => {
   });
 
   it('analyses every example in examples/', () => {
-    for (const name of ['footbridge-ball.json', 'stairwell-box-offset.json', 'meadow-seed-pod.json']) {
+    for (const name of ['footbridge-ball.json', 'stairwell-box-offset.json', 'meadow-seed-pod.json', 'gym-beach-ball-video.json']) {
       const outcome = runAnalyze([join(root, 'examples', name)], (p) => readFileSync(p, 'utf8'));
       expect(outcome.exitCode, `${name}: ${outcome.stderr}`).toBe(0);
       expect(JSON.parse(outcome.stdout).drag_resolved).toBe(true);
     }
+  });
+
+  it('takes a timing method, a declared delay and the added-mass uncertainty, and refuses bad ones naming the field and range', () => {
+    const read = (p: string) => readFileSync(p, 'utf8');
+    const ok = runAnalyze([join(root, 'examples/gym-beach-ball-video.json')], read);
+    const json = JSON.parse(ok.stdout);
+    expect(json.declared_timing_offset).toMatchObject({ method: 'video', offset_s: 0, standard_uncertainty_s: 0.01 });
+    expect(json.budget.map((r: { input: string }) => r.input)).toEqual(expect.arrayContaining(['timing_offset_s', 'added_mass_coefficient']));
+    const request = JSON.parse(read(join(root, 'examples/gym-beach-ball-video.json')));
+    const badMethod = runAnalyze(['x.json'], () => JSON.stringify({ ...request, timing: { method: 'sundial' } }));
+    expect(badMethod.exitCode).toBe(1);
+    expect(badMethod.stderr).toContain('timing.method');
+    expect(badMethod.stderr).toContain('"gates"');
+    const badDelay = runAnalyze(['x.json'], () => JSON.stringify({ ...request, timing: { method: 'video', offset_s: 5 } }));
+    expect(badDelay.exitCode).toBe(1);
+    expect(badDelay.stderr).toContain('timing.offset_s = 5');
+    expect(badDelay.stderr).toContain('-2 to 2 s');
   });
 });

@@ -4,7 +4,7 @@ import type { AnalysisRequest } from '../../src/physics/analysisTypes';
 import { fallParameters, fallTime } from '../../src/physics/fallModel';
 import { fallWithVariableDrag } from '../../src/physics/fallWithVariableDrag';
 import { PhysicsInputError } from '../../src/physics/physicsInputError';
-import { morrisonSphereDragCoefficient } from '../../src/physics/sphereDragCoefficient';
+import { standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
 import { AIR, BALL, createRandom, exactTimes, measuredSeries, SITE, UNCERTAINTY } from './syntheticSeries';
 
 const exactRequest = (cd: number, heights: number[], extra: Partial<AnalysisRequest> = {}): AnalysisRequest => {
@@ -188,7 +188,7 @@ describe('analyzeSeries', () => {
     expect(result.monte_carlo.standard_deviation / result.drag_coefficient_standard_uncertainty).toBeLessThan(1.1);
   });
 
-  it('predicts from the reference C_d when the specimen has one, otherwise from the Morrison correlation for a sphere', () => {
+  it('predicts from the reference C_d when the specimen has one, otherwise from the standard drag curve for a sphere', () => {
     const withReference = analyzeSeries(exactRequest(0.47, [12], { specimen: { ...BALL, reference_drag_coefficient: 0.5 } }));
     expect(withReference.prediction.method).toBe('reference-drag-coefficient');
     const m = withReference.model;
@@ -203,15 +203,15 @@ describe('analyzeSeries', () => {
     });
     expect(withReference.drops[0]!.predicted_time_s).toBeCloseTo(fallTime(12, ref), 12);
 
-    const morrison = analyzeSeries(exactRequest(0.47, [12]));
-    expect(morrison.prediction.method).toBe('morrison-sphere-correlation');
+    const sphere = analyzeSeries(exactRequest(0.47, [12]));
+    expect(sphere.prediction.method).toBe('standard-sphere-drag-curve');
     const fall = fallWithVariableDrag(12, {
-      effective_gravity_m_s2: morrison.model.effective_gravity_m_s2,
-      drag_constant_per_unit_cd_per_m: (morrison.air.density_kg_m3 * m.area_m2) / (2 * morrison.model.effective_mass_kg),
-      reynolds_per_speed_s_m: (morrison.air.density_kg_m3 * 0.095) / morrison.air.dynamic_viscosity_Pa_s,
-      dragCoefficient: morrisonSphereDragCoefficient,
+      effective_gravity_m_s2: sphere.model.effective_gravity_m_s2,
+      drag_constant_per_unit_cd_per_m: (sphere.air.density_kg_m3 * m.area_m2) / (2 * sphere.model.effective_mass_kg),
+      reynolds_per_speed_s_m: (sphere.air.density_kg_m3 * 0.095) / sphere.air.dynamic_viscosity_Pa_s,
+      dragCoefficient: standardSphereDragCoefficient,
     });
-    expect(morrison.drops[0]!.predicted_time_s).toBeCloseTo(fall.time_s, 12);
+    expect(sphere.drops[0]!.predicted_time_s).toBeCloseTo(fall.time_s, 12);
   });
 
   it('warns near the drag crisis', () => {
