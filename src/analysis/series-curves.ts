@@ -5,6 +5,7 @@ import {
   fallParameters,
   fallWithVariableDrag,
   morrisonSphereDragCoefficient,
+  standardSphereDragCoefficient,
   type AnalysisRequest,
   type AnalysisResult,
 } from '../physics';
@@ -36,13 +37,14 @@ export function seriesCurves(request: AnalysisRequest, result: AnalysisResult): 
   if (result.prediction.method === 'reference-drag-coefficient' && result.prediction.reference_drag_coefficient !== null) {
     const p = bodyFor(result, result.prediction.reference_drag_coefficient);
     predicted = sampled(tMax, (t) => fallDistance(t, p));
-  } else if (result.prediction.method === 'morrison-sphere-correlation') {
+  } else if (result.prediction.method === 'standard-sphere-drag-curve' || result.prediction.method === 'morrison-sphere-correlation') {
     const rho = result.air.density_kg_m3;
     const body = {
       effective_gravity_m_s2: result.model.effective_gravity_m_s2,
       drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
       reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
-      dragCoefficient: morrisonSphereDragCoefficient,
+      // The same sphere curve the prediction used.
+      dragCoefficient: result.prediction.method === 'standard-sphere-drag-curve' ? standardSphereDragCoefficient : morrisonSphereDragCoefficient,
     };
     predicted = [[0, 0]];
     for (let i = 1; i <= 16; i++) {
