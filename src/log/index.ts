@@ -5,6 +5,7 @@ export * from './errors';
 export * from './uuid';
 export * from './fields';
 export * from './validate';
+export * from './record-gate';
 export * from './records';
 export * from './canonical';
 export * from './schema';
