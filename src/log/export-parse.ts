@@ -7,7 +7,7 @@ import { PlummetError, type PlummetErrorOptions } from '../errors';
 import type { LogFile } from './export';
 import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
-import { checkJsonValue, DUPLICATE_ID_RULE, gateRecords, RECORD_NESTING_LIMIT } from './record-gate';
+import { checkJsonValue, DUPLICATE_ID_RULE, gateRecords, RECORD_NESTING_LIMIT, recordName } from './record-gate';
 import type { Problem } from './errors';
 import { upgradeLogFile } from './upgrade-export';
 import type { LogRecord } from './types';
@@ -138,7 +138,10 @@ function gateError(data: unknown, problem: Problem, text: string, at: string): L
   const within = parts ? field.slice(parts[0].length + 1) : field;
   const label = parts ? `records[${parts[1]}]${recordLabel(data, ['records', Number(parts[1])])}` : '';
   let value = problem.value;
-  let message = parts ? `${label} ${problem.message.replace(/^(?:records)?\[\d+\] \([^)]*\) /, '').replace(/^records\[\d+\]\.?/, '')}` : problem.message;
+  // The gate's own lead ("records[3] drop 4f0c…: ") gives way to the file's (the kind and id in brackets).
+  const lead = parts ? `records[${parts[1]}] ${recordName(record)}: ` : '';
+  const own = lead && problem.message.startsWith(lead) ? problem.message.slice(lead.length) : problem.message.replace(/^records\[\d+\]\.?/, '');
+  let message = parts ? `${label} ${own}` : problem.message;
   if (typeof value === 'number' && !Number.isFinite(value) && !Number.isNaN(value)) {
     const written = writtenTooLarge(text);
     if (written !== null) value = written;

@@ -11,6 +11,7 @@ export * from './canonical';
 export * from './schema';
 export * from './export';
 export * from './export-parse';
+export * from './import-gate';
 export * from './upgrade-export';
 export * from './merge';
 export * from './csv';

@@ -119,18 +119,21 @@ export interface GateOptions {
 
 type Loose = { kind?: unknown; id?: unknown; [field: string]: unknown };
 
+/** How a message names a record: "drop 4f0c…" (kind and id as far as they are text). */
+export const recordName = (record: unknown): string => label(record as Loose);
+
 const label = (record: Loose) =>
   `${typeof record?.kind === 'string' ? show(record.kind).slice(1, -1) : 'record'}${typeof record?.id === 'string' ? ` ${show(record.id).slice(1, -1)}` : ''}`;
 
 /**
  * Every problem of a batch of records about to enter the store (an empty list: it may be written). Each problem's
- * path is the record's position and its field ("[3].history[0].body.name"), its message names the record.
+ * path is the record's position and its field ("[3].history[0].body.name"), its message names the record ("[3] drop 4f0c…: history[0].body.name: …").
  */
 export function gateRecords(records: readonly unknown[], options: GateOptions = {}): Problem[] {
   const where = options.where ?? ((i: number) => `[${i}]`);
   const problems: Problem[] = [];
   const push = (i: number, record: Loose, p: Problem) =>
-    problems.push({ ...p, path: `${where(i)}.${p.path}`, message: `${where(i)} (${label(record)}) ${p.message}` });
+    problems.push({ ...p, path: `${where(i)}.${p.path}`, message: `${where(i)} ${label(record)}: ${p.message}` });
   /** The batch's own ids and kinds, from the records that passed on their own. */
   const batch = new Map<string, { kind: RecordKind; index: number }>();
   const good: number[] = [];
