@@ -9,6 +9,7 @@ import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
 import { checkJsonValue, DUPLICATE_ID_RULE, gateRecords, RECORD_NESTING_LIMIT, recordName } from './record-gate';
 import type { Problem } from './errors';
+import { findDuplicateKey } from './duplicate-keys';
 import { upgradeLogFile } from './upgrade-export';
 import type { LogRecord } from './types';
 
@@ -18,7 +19,9 @@ export type LogFileErrorCode =
   | 'log-format-too-new'
   | 'log-schema'
   | 'log-record-invalid'
-  | 'log-duplicate-id';
+  | 'log-duplicate-id'
+  /** One object names a field twice (I-JSON, RFC 7493 §2.3, forbids it; JSON.parse would keep the last). */
+  | 'log-duplicate-key';
 
 /** `field` is where in the file, e.g. "records[12].time_s" ("(file)" for the file as a whole); `allowed` the rule
  *  broken, in words, e.g. "must be > 0". */
@@ -193,6 +196,19 @@ export function readLogFile(text: string, options: ReadLogFileOptions = {}): Log
       value: head.format_version,
       allowed: `must be ${LOG_FORMAT_VERSION} or older`,
       message: `${at}this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
+    });
+  }
+  const duplicate = findDuplicateKey(text);
+  if (duplicate) {
+    const parts = [...pointerParts(duplicate.pointer), duplicate.key];
+    const field = fieldName(parts);
+    const rule = 'a log names each field of an object once (I-JSON, RFC 7493 §2.3)';
+    throw new LogFileError({
+      code: 'log-duplicate-key',
+      field,
+      value: duplicate.key,
+      allowed: rule,
+      message: `${at}${field}${recordLabel(data, parts)}: the field ${show(duplicate.key)} appears twice in one object, and which one counts is a guess: ${rule}`,
     });
   }
   // What JSON cannot carry and nesting no log has, before anything walks the values (the file and its records
