@@ -6,32 +6,42 @@
  */
 import { LogFileError } from './export-parse';
 import type { LogFile } from './export';
-import { gateRecords, recordName } from './record-gate';
+import type { Problem } from './errors';
+import { previewMerge, type MergePreview } from './merge';
+import { gateAgainstLog, gateRecords, recordName } from './record-gate';
 import type { LogRecord, RecordKind } from './types';
 
-/**
- * Throws LogFileError ('log-record-invalid') for the first record of `changes` (what previewMerge would write)
- * the store would refuse beside `local`; names it by its place in `file`.
- */
-export function assertImportable(file: LogFile, changes: readonly LogRecord[], local: readonly LogRecord[], name?: string): void {
-  if (changes.length === 0) return;
-  const known = new Map<string, RecordKind>();
-  for (const r of local) if (!known.has(r.id)) known.set(r.id, r.kind);
-  const problems = gateRecords(changes, { known: (id) => known.get(id) });
-  if (problems.length === 0) return;
-  const p = problems[0]!;
+/** The first problem as the file's error, the record named by its place in `file`. */
+function refusal(file: LogFile, batch: readonly LogRecord[], p: Problem, name?: string): LogFileError {
   const at = /^\[(\d+)\]/.exec(p.path);
-  const record = changes[Number(at?.[1] ?? 0)]!;
-  const index = file.records.findIndex((r) => r.id === record.id);
+  const record = batch[Number(at?.[1] ?? 0)]!;
+  const index = file.records.findIndex((r) => r.id === record.id && r.kind === record.kind);
   const where = index >= 0 ? `records[${index}]` : `(merged ${recordName(record)})`;
   const lead = `${at?.[0] ?? ''} ${recordName(record)}: `;
   const own = p.message.startsWith(lead) ? p.message.slice(lead.length) : p.message;
-  const field = `${where}${p.path.slice(at?.[0].length ?? 0)}`;
-  throw new LogFileError({
+  return new LogFileError({
     code: 'log-record-invalid',
-    field,
+    field: `${where}${p.path.slice(at?.[0].length ?? 0)}`,
     value: p.value,
     allowed: p.rule,
     message: `${name ? `${name}: ` : ''}${where} (${recordName(record)}) ${own}`,
   });
+}
+
+/**
+ * The merge of a file (read and checked by readLogFile) into the local log, through the store's gate: first the
+ * file's records against the log (an id the log holds as another kind, a link to the wrong kind), then what the
+ * merge would write, as the store will check it. Throws LogFileError ('log-record-invalid') naming the file, the
+ * record, the field and the value; the store runs the same gate before its write.
+ */
+export function previewGatedMerge(file: LogFile, local: readonly LogRecord[], name?: string): MergePreview {
+  const known = new Map<string, RecordKind>();
+  for (const r of local) if (!known.has(r.id)) known.set(r.id, r.kind);
+  const options = { known: (id: string) => known.get(id) };
+  const clash = gateAgainstLog(file.records, options);
+  if (clash.length > 0) throw refusal(file, file.records, clash[0]!, name);
+  const preview = previewMerge(local, file.records);
+  const problems = gateRecords(preview.changes, options);
+  if (problems.length > 0) throw refusal(file, preview.changes, problems[0]!, name);
+  return preview;
 }

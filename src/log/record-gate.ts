@@ -153,9 +153,28 @@ export function gateRecords(records: readonly unknown[], options: GateOptions = 
     batch.set(id, { kind, index: i });
     good.push(i);
   }
+  problems.push(...kindProblems(records, good, batch, options, GATE_PROBLEM_LIMIT - problems.length));
+  return problems;
+}
+
+/**
+ * The batch against the log: an id the log holds as another kind, a link naming a record of the wrong kind.
+ * `good` are the positions of records that passed on their own, `batch` their ids.
+ */
+function kindProblems(
+  records: readonly unknown[],
+  good: readonly number[],
+  batch: ReadonlyMap<string, { kind: RecordKind }>,
+  options: GateOptions,
+  limit: number,
+): Problem[] {
+  const where = options.where ?? ((i: number) => `[${i}]`);
+  const problems: Problem[] = [];
+  const push = (i: number, record: Loose, p: Problem) =>
+    problems.push({ ...p, path: `${where(i)}.${p.path}`, message: `${where(i)} ${label(record)}: ${p.message}` });
   const kindOf = (id: string): RecordKind | undefined => batch.get(id)?.kind ?? options.known?.(id);
   for (const i of good) {
-    if (problems.length >= GATE_PROBLEM_LIMIT) break;
+    if (problems.length >= limit) break;
     const record = records[i] as Loose;
     const kind = record.kind as RecordKind;
     const id = record.id as string;
@@ -176,6 +195,19 @@ export function gateRecords(records: readonly unknown[], options: GateOptions = 
   }
   return problems;
 }
+
+/**
+ * Only the batch against the log (kindProblems), for records that passed the gate on their own already (a file
+ * the reader accepted): what an import checks before it merges, since a merge of two kinds under one id is
+ * meaningless.
+ */
+export function gateAgainstLog(records: readonly LogRecordLike[], options: GateOptions): Problem[] {
+  const batch = new Map<string, { kind: RecordKind }>();
+  records.forEach((r) => batch.set(r.id, { kind: r.kind }));
+  return kindProblems(records, records.map((_, i) => i), batch, options, GATE_PROBLEM_LIMIT);
+}
+
+type LogRecordLike = { id: string; kind: RecordKind };
 
 /** The ids a batch's gate may ask `known` about: the records' own ids and the ids they link to. */
 export function gateLookups(records: readonly unknown[]): string[] {
