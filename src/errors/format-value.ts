@@ -1,7 +1,8 @@
-/** A short, readable rendering of an offending value for messages: numbers as written, text quoted, long values cut. */
+/** A short, readable rendering of an offending value for messages: numbers as written, text quoted, long values cut
+ *  (a refusal quotes an excerpt, never the megabyte a hostile file may hold). */
 export function formatValue(value: unknown): string {
   if (typeof value === 'number') return String(value);
-  if (typeof value === 'string') return JSON.stringify(value);
+  if (typeof value === 'string') return value.length > 80 ? `${JSON.stringify(value.slice(0, 77))}... (${value.length} characters)` : JSON.stringify(value);
   if (value === undefined) return '(missing)';
   try {
     const text = JSON.stringify(value);

@@ -32,6 +32,9 @@ export interface Problem {
   message: string;
 }
 
+/** How many problems a message lists; the rest are counted (all are in `problems`). */
+const MESSAGE_PROBLEMS = 10;
+
 /** A record refused before any write, with every problem found (not just the first); `field`, `value` and `allowed`
  *  are those of the first. */
 export class LogValidationError extends LogError {
@@ -44,7 +47,7 @@ export class LogValidationError extends LogError {
       field: problems[0]?.path ?? null,
       value: problems[0]?.value,
       allowed: problems[0]?.rule ?? null,
-      message: `invalid ${kind}: ${problems.map((p) => p.message).join('; ')}`,
+      message: `invalid ${kind}: ${problems.slice(0, MESSAGE_PROBLEMS).map((p) => p.message).join('; ')}${problems.length > MESSAGE_PROBLEMS ? `; and ${problems.length - MESSAGE_PROBLEMS} more` : ''}`,
     });
     this.name = 'LogValidationError';
   }

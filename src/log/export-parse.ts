@@ -7,7 +7,9 @@ import { PlummetError, type PlummetErrorOptions } from '../errors';
 import type { LogFile } from './export';
 import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
-import { validateRecord } from './validate';
+import { checkJsonValue, DUPLICATE_ID_RULE, gateRecords, RECORD_NESTING_LIMIT, recordName } from './record-gate';
+import type { Problem } from './errors';
+import { findDuplicateKey } from './duplicate-keys';
 import { upgradeLogFile } from './upgrade-export';
 import type { LogRecord } from './types';
 
@@ -17,7 +19,9 @@ export type LogFileErrorCode =
   | 'log-format-too-new'
   | 'log-schema'
   | 'log-record-invalid'
-  | 'log-duplicate-id';
+  | 'log-duplicate-id'
+  /** One object names a field twice (I-JSON, RFC 7493 §2.3, forbids it; JSON.parse would keep the last). */
+  | 'log-duplicate-key';
 
 /** `field` is where in the file, e.g. "records[12].time_s" ("(file)" for the file as a whole); `allowed` the rule
  *  broken, in words, e.g. "must be > 0". */
@@ -62,6 +66,7 @@ function valueAt(data: unknown, parts: (string | number)[]): unknown {
 
 function show(value: unknown): string {
   if (value === undefined) return 'missing';
+  if (typeof value === 'number') return String(value);
   const text = JSON.stringify(value) ?? String(value);
   return text.length > 60 ? `${text.slice(0, 57)}...` : text;
 }
@@ -113,18 +118,64 @@ function schemaError(data: unknown, problem: JsonSchemaProblem): LogFileError {
   return new LogFileError({ code: 'log-schema', field, value, allowed: rule, message });
 }
 
-/** Reads and checks a log file's text. Throws LogFileError for the first thing wrong. */
-export function readLogFile(text: string): LogFile {
+/**
+ * How a number too large for JSON was written in the file: JSON.parse makes Infinity of 1e999999 and of a
+ * 400-digit integer alike, and a message showing "Infinity" or "null" would point at nothing in the file.
+ * Scans the text (only when such a number was found) for the first number literal that does not fit.
+ */
+function writtenTooLarge(text: string): string | null {
+  const token = /"(?:[^"\\]|\\.)*"|-?\d[\d.eE+-]*/g;
+  for (let m = token.exec(text); m; m = token.exec(text)) {
+    const literal = m[0];
+    if (literal.startsWith('"')) continue;
+    if (!Number.isFinite(Number(literal))) return literal.length > 40 ? `${literal.slice(0, 37)}...` : literal;
+  }
+  return null;
+}
+
+/** A problem the gate found, as the file's error: where in the file, which record, the value and the rule. */
+function gateError(data: unknown, problem: Problem, text: string, at: string): LogFileError {
+  const field = problem.path;
+  const parts = /^records\[(\d+)\]/.exec(field);
+  const record = parts ? valueAt(data, ['records', Number(parts[1])]) : undefined;
+  const within = parts ? field.slice(parts[0].length + 1) : field;
+  const label = parts ? `records[${parts[1]}]${recordLabel(data, ['records', Number(parts[1])])}` : '';
+  let value = problem.value;
+  // The gate's own lead ("records[3] drop 4f0c…: ") gives way to the file's (the kind and id in brackets).
+  const lead = parts ? `records[${parts[1]}] ${recordName(record)}: ` : '';
+  const own = lead && problem.message.startsWith(lead) ? problem.message.slice(lead.length) : problem.message.replace(/^records\[\d+\]\.?/, '');
+  let message = parts ? `${label} ${own}` : problem.message;
+  if (typeof value === 'number' && !Number.isFinite(value) && !Number.isNaN(value)) {
+    const written = writtenTooLarge(text);
+    if (written !== null) value = written;
+    message = `${label ? `${label} ` : ''}${within || field}: ${written ?? 'a number'} is a number too large for JSON: must be a finite number`;
+  }
+  const code: LogFileErrorCode = problem.rule === DUPLICATE_ID_RULE ? 'log-duplicate-id' : record !== undefined ? 'log-record-invalid' : 'log-schema';
+  return new LogFileError({ code, field, value, allowed: problem.rule, message: `${at}${message}` });
+}
+
+export interface ReadLogFileOptions {
+  /** The file's name, for the messages: "plummet-log-phoneB.json: records[3] …". */
+  name?: string;
+}
+
+/**
+ * Reads and checks a log file's text. Throws LogFileError for the first thing wrong. Every record passes the
+ * store's gate (record-gate.ts) here, so what this accepts can be written.
+ */
+export function readLogFile(text: string, options: ReadLogFileOptions = {}): LogFile {
+  const at = options.name ? `${options.name}: ` : '';
   let data: unknown;
   try {
     data = JSON.parse(text);
   } catch (error) {
+    const why = String((error as Error).message).slice(0, 160);
     throw new LogFileError({
       code: 'log-not-json',
       field: '(file)',
       value: text.slice(0, 40),
       allowed: 'must be JSON (RFC 8259)',
-      message: `the file is not JSON (${(error as Error).message}); a Plummet log is a .json file`,
+      message: `${at}the file is not JSON (${why}); a Plummet log is a .json file`,
     });
   }
   const head = data as { format?: unknown; format_version?: unknown } | null;
@@ -135,7 +186,7 @@ export function readLogFile(text: string): LogFile {
       field: 'format',
       value: value,
       allowed: `must be "${LOG_FORMAT}"`,
-      message: `this JSON file is not a Plummet log (its "format" is ${show(value)}, a log says "${LOG_FORMAT}")`,
+      message: `${at}this JSON file is not a Plummet log (its "format" is ${show(value)}, a log says "${LOG_FORMAT}")`,
     });
   }
   if (typeof head.format_version === 'number' && head.format_version > LOG_FORMAT_VERSION) {
@@ -144,32 +195,35 @@ export function readLogFile(text: string): LogFile {
       field: 'format_version',
       value: head.format_version,
       allowed: `must be ${LOG_FORMAT_VERSION} or older`,
-      message: `this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
+      message: `${at}this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
     });
   }
+  const duplicate = findDuplicateKey(text);
+  if (duplicate) {
+    const parts = [...pointerParts(duplicate.pointer), duplicate.key];
+    const field = fieldName(parts);
+    const rule = 'a log names each field of an object once (I-JSON, RFC 7493 §2.3)';
+    throw new LogFileError({
+      code: 'log-duplicate-key',
+      field,
+      value: duplicate.key,
+      allowed: rule,
+      message: `${at}${field}${recordLabel(data, parts)}: the field ${show(duplicate.key)} appears twice in one object, and which one counts is a guess: ${rule}`,
+    });
+  }
+  // What JSON cannot carry and nesting no log has, before anything walks the values (the file and its records
+  // are two levels above a record).
+  const structural = checkJsonValue(data, '', RECORD_NESTING_LIMIT + 2, 1);
+  if (structural.length > 0) throw gateError(data, structural[0]!, text, at);
   data = upgradeLogFile(data);
   const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: 1 });
-  if (problems.length > 0) throw schemaError(data, problems[0]!);
+  if (problems.length > 0) {
+    const error = schemaError(data, problems[0]!);
+    if (at) Object.defineProperty(error, 'message', { value: `${at}${error.message}` });
+    throw error;
+  }
   const file = data as LogFile;
-  const seen = new Map<string, number>();
-  file.records.forEach((record, i) => {
-    const problems = validateRecord(record);
-    if (problems.length > 0) {
-      const p = problems[0]!;
-      const field = `records[${i}].${p.path}`;
-      throw new LogFileError({ code: 'log-record-invalid', field, value: p.value, allowed: p.rule, message: `records[${i}] (${record.kind} ${record.id}): ${p.message}` });
-    }
-    const earlier = seen.get(record.id);
-    if (earlier !== undefined) {
-      throw new LogFileError({
-        code: 'log-duplicate-id',
-        field: `records[${i}].id`,
-        value: record.id,
-        allowed: 'each record appears once',
-        message: `records[${i}].id ${record.id} is the id of records[${earlier}] too; a file holds each record once`,
-      });
-    }
-    seen.set(record.id, i);
-  });
+  const refused = gateRecords(file.records, { where: (i) => `records[${i}]` });
+  if (refused.length > 0) throw gateError(data, refused[0]!, text, at);
   return file;
 }

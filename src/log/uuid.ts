@@ -33,6 +33,17 @@ export function isUuid(value: unknown): value is string {
   return typeof value === 'string' && UUID_PATTERN.test(value);
 }
 
+const RECORD_ID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/;
+
+/**
+ * A record id as stored: a UUID in lower case. RFC 9562 (section 4) makes the hex digits case-insensitive on
+ * input, but the store looks ids up as text, so "ABC…" and "abc…" would be two records: lower case is the one
+ * form kept, and ids made elsewhere are lowered where they come in (createRecord) or refused (the gate).
+ */
+export function isRecordId(value: unknown): value is string {
+  return typeof value === 'string' && RECORD_ID_PATTERN.test(value);
+}
+
 /**
  * A device id: 64 random bits as 16 hex digits. It names the phone in clock stamps (hlc.ts allows only
  * letters, digits, _ . :, so no hyphens) and in every record it writes.

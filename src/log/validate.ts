@@ -5,8 +5,8 @@
  * The ranges, choices and text lengths come from the field catalogue (fields.ts).
  */
 import { LogValidationError, type Problem } from './errors';
-import { parseHlc } from './hlc';
-import { isUuid } from './uuid';
+import { parseHlc, type HlcStamp } from './hlc';
+import { isRecordId, isUuid } from './uuid';
 import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
 import { DEW_POINT_MARGIN_C, ENUMS, LIMITS, SHAPE_DIMENSIONS, SOUND_TRAVEL_TOLERANCE_S, TEXT_LIMITS, type Limit } from './fields';
 
@@ -58,12 +58,28 @@ export const ENVELOPE_FIELDS = ['id', 'kind', 'created_at', 'updated_at', 'rev',
 
 const SHAPE_FIELDS: Record<string, readonly string[]> = SHAPE_DIMENSIONS;
 
+/** How much of an offending value a message quotes: enough to find it, never the whole of a long text. */
+export const EXCERPT_CHARS = 80;
+
+/** An offending value as a message quotes it: text quoted and cut to an excerpt, numbers as they are. */
 function show(value: unknown): string {
-  if (typeof value === 'string') return JSON.stringify(value);
+  if (typeof value === 'string') {
+    if (value.length <= EXCERPT_CHARS) return JSON.stringify(value);
+    return `${JSON.stringify(value.slice(0, EXCERPT_CHARS))}... (${value.length} characters)`;
+  }
   if (typeof value === 'number' || typeof value === 'boolean' || value === null || value === undefined) return String(value);
-  const text = JSON.stringify(value) ?? String(value);
+  let text: string;
+  try {
+    text = JSON.stringify(value) ?? String(value);
+  } catch {
+    // Nested too deep for the engine's writer, or a cycle: say what it is instead.
+    return Array.isArray(value) ? '[a list]' : '{an object}';
+  }
   return text.length > 60 ? `${text.slice(0, 57)}...` : text;
 }
+
+/** The same, for the gate's messages. */
+export const showValue = show;
 
 function limitRule(limit: Limit): string {
   const unit = limit.unit ? ` ${limit.unit}` : '';
@@ -146,6 +162,8 @@ class Checker {
     if (value === undefined) return this.add(path, value, rule, '');
     if (typeof value !== 'string') return this.add(path, value, rule, 'is not text');
     if (required && value.trim() === '') return this.add(path, value, rule, 'is empty');
+    const lone = loneSurrogateAt(value);
+    if (lone >= 0) return this.add(path, value, UNICODE_RULE, `holds a lone UTF-16 surrogate at character ${lone + 1}`);
     if (value.length > max) return this.add(path, value, rule, 'is too long', `${show(value.slice(0, 20))}… (${value.length} characters)`);
     return true;
   }
@@ -163,7 +181,8 @@ class Checker {
   }
 
   id(path: string, value: unknown, nullable = false): boolean {
-    if (isUuid(value) || (nullable && value === null)) return true;
+    if (isRecordId(value) || (nullable && value === null)) return true;
+    if (isUuid(value)) return this.add(path, value, 'must be a UUID in lower case, as the app writes ids', 'is in upper case');
     return this.add(path, value, `must be a UUID${nullable ? ' or null' : ''}`, 'is not a record id');
   }
 
@@ -205,6 +224,20 @@ class Checker {
     });
     return ok;
   }
+}
+
+/**
+ * Text must be well-formed Unicode: a lone UTF-16 surrogate (an escaped "\\ud800" without its pair) cannot be
+ * written to a JSON file (RFC 7493 §2.1), so a log holding one could never be exported or synced again.
+ */
+export const UNICODE_RULE = 'text must be valid Unicode, without lone UTF-16 surrogates (RFC 7493 §2.1)';
+const SURROGATE = /[\uD800-\uDFFF]/;
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+/** The position of the first lone surrogate in the text, or -1. */
+export function loneSurrogateAt(text: string): number {
+  if (!SURROGATE.test(text)) return -1;
+  return LONE_SURROGATE.exec(text)?.index ?? -1;
 }
 
 const join = (prefix: string, key: string) => (prefix ? `${prefix}.${key}` : key);
@@ -423,53 +456,117 @@ export function assertValidBody<K extends RecordKind>(kind: K, body: unknown): a
   if (problems.length > 0) throw new LogValidationError(problems, kind);
 }
 
-function checkStamp(c: Checker, path: string, value: unknown): void {
+/**
+ * The largest counter a stamp may carry (hlc.ts writes it in 6 digits). A stamp already at it leaves no room
+ * for the next edit in the same millisecond, so such a record could be stored but never changed: refused.
+ */
+export const REV_COUNTER_LIMIT = 999_999;
+
+/** A stamp's parts, or null (with the problem added) when it is not one. */
+function checkStamp(c: Checker, path: string, value: unknown): HlcStamp | null {
+  let stamp: HlcStamp;
   try {
     if (typeof value !== 'string') throw new Error();
-    parseHlc(value);
+    stamp = parseHlc(value);
   } catch {
     c.add(path, value, 'must be ms-counter-device', 'is not a clock stamp');
+    return null;
+  }
+  if (!/^[A-Za-z0-9_.:]+$/.test(stamp.device)) {
+    c.add(path, value, 'its device must be letters, digits, _ . : only', 'is not a clock stamp');
+    return null;
+  }
+  if (stamp.counter >= REV_COUNTER_LIMIT) {
+    c.add(path, value, `its counter must be below ${REV_COUNTER_LIMIT}, or no later edit could follow it`, 'is at the limit of the clock');
+    return null;
+  }
+  return stamp;
+}
+
+function checkDevice(c: Checker, path: string, value: unknown): boolean {
+  if (typeof value !== 'string' || !/^[A-Za-z0-9_.:]+$/.test(value)) {
+    c.add(path, value, 'must be letters, digits, _ . : only', 'is not a device id');
+    return false;
+  }
+  return true;
+}
+
+/** A version's device is the device of its stamp: the phone that made the edit. */
+function checkStampDevice(c: Checker, at: string, stamp: HlcStamp | null, device: unknown): void {
+  if (stamp && typeof device === 'string' && checkDevice(c, join(at, 'device'), device) && stamp.device !== device) {
+    c.add(join(at, 'device'), device, `must be the device of its stamp (${stamp.device})`, 'does not match the stamp');
   }
 }
 
-function checkDevice(c: Checker, path: string, value: unknown): void {
-  if (typeof value !== 'string' || !/^[A-Za-z0-9_.:]+$/.test(value)) {
-    c.add(path, value, 'must be letters, digits, _ . : only', 'is not a device id');
+const REVISION_FIELDS = ['rev', 'device', 'updated_at', 'reason', 'deleted', 'body'] as const;
+
+/** The body fields of a record, on an object without a prototype: a key "__proto__" stays an own key (and is refused). */
+function bodyFields(record: Record<string, unknown>): Record<string, unknown> {
+  const body: Record<string, unknown> = Object.create(null);
+  for (const key of Object.keys(record)) {
+    if (!(ENVELOPE_FIELDS as readonly string[]).includes(key)) body[key] = record[key];
   }
+  return body;
+}
+
+/** An object's own fields on an object without a prototype, so nothing is read from Object.prototype. */
+function ownFields(value: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = Object.create(null);
+  for (const key of Object.keys(value)) out[key] = value[key];
+  return out;
 }
 
 /**
- * Every problem with a whole record as stored or exported: its envelope, its body, and the envelope of each
- * earlier version in its history (the bodies of earlier versions are kept as they were and not re-checked).
+ * Every problem with a whole record as stored or exported: its envelope, its body, and each earlier version in
+ * its history, whose body is checked as a body of the record's kind (an earlier version can become current in a
+ * merge). Stamps must rise through the history to the current one, each version's device must be its stamp's.
+ * Fields are read as own fields only: nothing can be inherited from a prototype.
  */
-export function validateRecord(record: unknown): Problem[] {
+export function validateRecord(input: unknown): Problem[] {
   const c = new Checker();
-  if (!c.object('(record)', record, 'a record')) return c.problems;
+  if (!c.object('(record)', input, 'a record')) return c.problems;
+  const record = ownFields(input);
   const kind = record.kind;
   if (!c.oneOf('kind', kind, RECORD_KINDS)) return c.problems;
   c.id('id', record.id);
   c.instant('created_at', record.created_at);
   c.instant('updated_at', record.updated_at);
-  checkStamp(c, 'rev', record.rev);
-  checkDevice(c, 'device', record.device);
+  const stamp = checkStamp(c, 'rev', record.rev);
+  if (stamp) checkStampDevice(c, '', stamp, record.device);
+  else checkDevice(c, 'device', record.device);
   c.boolean('deleted', record.deleted);
+  const problems: Problem[] = [];
   if (!Array.isArray(record.history)) {
     c.add('history', record.history, 'must be a list of earlier versions', 'is not a list');
   } else {
-    record.history.forEach((entry: unknown, i: number) => {
+    let previous: string | null = null;
+    record.history.forEach((item: unknown, i: number) => {
       const at = `history[${i}]`;
-      if (!c.object(at, entry, 'an earlier version')) return;
-      checkStamp(c, `${at}.rev`, entry.rev);
-      checkDevice(c, `${at}.device`, entry.device);
+      if (!c.object(at, item, 'an earlier version')) return;
+      const entry = ownFields(item);
+      const revStamp = checkStamp(c, `${at}.rev`, entry.rev);
+      if (revStamp) {
+        const rev = entry.rev as string;
+        checkStampDevice(c, at, revStamp, entry.device);
+        if (previous !== null && !(rev > previous)) {
+          c.add(`${at}.rev`, rev, `must be newer than history[${i - 1}].rev (${previous}): the history runs oldest first`, 'is out of order');
+        } else if (stamp && !(rev < (record.rev as string))) {
+          c.add(`${at}.rev`, rev, `must be older than the record's rev (${record.rev as string}): an earlier version cannot be newer than the current one`, 'is out of order');
+        }
+        previous = rev;
+      } else checkDevice(c, `${at}.device`, entry.device);
       c.instant(`${at}.updated_at`, entry.updated_at);
-      if (entry.reason !== null && typeof entry.reason !== 'string') c.add(`${at}.reason`, entry.reason, 'must be text or null', 'is not text');
+      if (entry.reason !== null) c.text(`${at}.reason`, entry.reason, NOTES_MAX, false);
       c.boolean(`${at}.deleted`, entry.deleted);
-      c.object(`${at}.body`, entry.body, 'the body of an earlier version');
+      c.onlyFields(at, entry, REVISION_FIELDS, 'an earlier version');
+      if (entry.body === undefined) c.add(`${at}.body`, undefined, 'the body of an earlier version', '');
+      else if (c.object(`${at}.body`, entry.body, 'the body of an earlier version')) {
+        for (const p of validateBody(kind, ownFields(entry.body))) {
+          const path = `${at}.body.${p.path}`;
+          problems.push({ ...p, path, message: `${at}.body.${p.message}` });
+        }
+      }
     });
   }
-  const body: Record<string, unknown> = {};
-  for (const [key, value] of Object.entries(record)) {
-    if (!(ENVELOPE_FIELDS as readonly string[]).includes(key)) body[key] = value;
-  }
-  return [...c.problems, ...validateBody(kind, body)];
+  return [...c.problems, ...validateBody(kind, bodyFields(record)), ...problems];
 }

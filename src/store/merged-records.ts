@@ -1,34 +1,14 @@
 /**
  * Writing records merged from elsewhere (an imported file, the office folder) exactly as they are: the whole
- * batch validated before anything is written, then one transaction with the day counts, the clock (local
+ * batch passes the gate (log/record-gate.ts, the same the import preview runs) before anything is written, then one transaction with the day counts, the clock (local
  * edits made later must sort after everything merged in) and the erased-log note.
  */
-import { LogValidationError, compareHlc, validateRecord, type LogRecord, type Problem, type RecordKind } from '../log';
+import { LogValidationError, compareHlc, gateLookups, gateRecords, type LogRecord, type RecordKind } from '../log';
 import type { StoreTx } from './backend';
 import { dayCountsAfter, writeDayCounts } from './day-counts';
-import { keyOf } from './live-records';
+import { knownKinds } from './known-kinds';
 import type { LogStore } from './log-store';
 import type { StoreContext } from './store-context';
-
-/** Every problem of the batch, each named by its position; a record that appears twice is one. */
-function problemsOfBatch(records: readonly LogRecord[]): Problem[] {
-  const problems: Problem[] = [];
-  const seen = new Set<string>();
-  for (let i = 0; i < records.length; i++) {
-    const record = records[i]!;
-    const where = `[${i}]`;
-    for (const p of validateRecord(record)) {
-      problems.push({ ...p, path: `${where}.${p.path}`, message: `${where} ${String(record?.kind)} ${String(record?.id)}: ${p.message}` });
-    }
-    const key = keyOf(record?.kind, record?.id);
-    if (seen.has(key)) {
-      const rule = 'each record may appear once';
-      problems.push({ path: `${where}.id`, value: record.id, rule, message: `${where}.id: ${record.id} appears twice: ${rule}` });
-    }
-    seen.add(key);
-  }
-  return problems;
-}
 
 /** The stored version of each record of a batch, in the batch's order (undefined for new ones). */
 async function previousVersions(tx: StoreTx, records: readonly LogRecord[]): Promise<(LogRecord | undefined)[]> {
@@ -53,11 +33,13 @@ export function mergedRecordWrites(ctx: StoreContext): Pick<LogStore, 'putRecord
   return {
     async putRecords(records) {
       ctx.ensureOpen();
-      const problems = problemsOfBatch(records);
-      if (problems.length > 0) throw new LogValidationError(problems, 'record');
       if (records.length === 0) return;
       const now = env.now();
       await backend.write(async (tx) => {
+        // Each record whole, and against the log: an id stored under another kind, a link to the wrong kind.
+        const known = await knownKinds(tx, gateLookups(records));
+        const problems = gateRecords(records, { known: (id) => known.get(id) });
+        if (problems.length > 0) throw new LogValidationError(problems, 'record');
         const [storedClock, erasedLog, previous] = await Promise.all([tx.getMeta('clock'), tx.getMeta('erased_log'), previousVersions(tx, records)]);
         ctx.catchUpClock(storedClock, now);
         // Counted from the state before the batch, so every read happens before the first put.

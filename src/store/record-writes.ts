@@ -5,6 +5,7 @@
  * of unsent changes are written in the same transaction as the records they describe.
  */
 import {
+  assertGateRecords,
   createRecord,
   deleteRecord,
   reviseRecord,
@@ -17,6 +18,7 @@ import {
 } from '../log';
 import { dayCountsAfter, writeDayCounts } from './day-counts';
 import { StoreError } from './errors';
+import { knownKinds } from './known-kinds';
 import { isKind } from './live-records';
 import type { LogStore } from './log-store';
 import { checkReferences } from './record-references';
@@ -78,6 +80,11 @@ export function recordWrites(
       const records = [...staging.records.values()];
       const writes: Promise<unknown>[] = [];
       if (records.length > 0) {
+        // The gate every record passes before the store (log/record-gate.ts). Links were checked against their
+        // kinds above; a new id is looked up under every kind, so it cannot reuse another record's id.
+        const created = records.filter((r) => staging.storedBefore(r) === undefined).map((r) => r.id);
+        const known = await knownKinds(tx, created);
+        assertGateRecords(records, { known: (id) => known.get(id) });
         // Counted from the state before the action, so every read happens before the first put.
         const counts = await dayCountsAfter(tx, records, records.map((r) => staging.storedBefore(r)));
         writes.push(

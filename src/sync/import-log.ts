@@ -7,7 +7,7 @@
  * the list kept in meta ('log_conflicts') after the records are written; were that second write lost, the
  * losing versions would still be in the records' histories.
  */
-import { addConflicts, openConflicts, previewMerge, readLogFile, type Conflict, type LogFile, type MergePreview } from '../log';
+import { addConflicts, openConflicts, previewGatedMerge, readLogFile, type Conflict, type LogFile, type MergePreview } from '../log';
 import { SYNC_META, type RecordSource } from './record-source';
 
 export interface ImportPreview {
@@ -15,17 +15,21 @@ export interface ImportPreview {
   preview: MergePreview;
 }
 
-/** Reads and checks the text (throws LogFileError naming the field, value and rule), then previews the merge. */
-export async function previewImport(source: RecordSource, text: string): Promise<ImportPreview> {
-  const file = readLogFile(text);
+/**
+ * Reads and checks the text (throws LogFileError naming the file, the record, the field, the value and the rule),
+ * then previews the merge, whose records pass the store's own gate here (log/import-gate.ts): what the preview
+ * accepts, the write accepts.
+ */
+export async function previewImport(source: RecordSource, text: string, name?: string): Promise<ImportPreview> {
+  const file = readLogFile(text, { name });
   const local = await source.allRecords({ includeDeleted: true });
-  return { file, preview: previewMerge(local, file.records) };
+  return { file, preview: previewGatedMerge(file, local, name) };
 }
 
-/** Merges the file into the store in one transaction; returns what was done. */
-export async function applyImport(source: RecordSource, file: LogFile): Promise<MergePreview> {
+/** Merges the file into the store in one transaction; returns what was done. Refused as the preview refuses. */
+export async function applyImport(source: RecordSource, file: LogFile, name?: string): Promise<MergePreview> {
   const local = await source.allRecords({ includeDeleted: true });
-  const preview = previewMerge(local, file.records);
+  const preview = previewGatedMerge(file, local, name);
   if (preview.changes.length > 0) await source.putRecords(preview.changes);
   if (preview.conflicts.length > 0) {
     const existing = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];

@@ -58,7 +58,7 @@ export function SendScreen() {
     try {
       const file = await pickFile();
       if (!file) return;
-      setIncoming(await previewImport(app.store, await file.text()));
+      setIncoming(await previewImport(app.store, await file.text(), file.name));
     } catch (e) {
       setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
     }
