@@ -5,7 +5,8 @@
  * The ranges, choices and text lengths come from the field catalogue (fields.ts).
  */
 import { LogValidationError, type Problem } from './errors';
-import { parseHlc } from './hlc';
+import { STAMP_MAX_MS, STAMP_MIN_MS, stampProblem } from './hlc';
+import { deletionReasonProblems } from './deletion-reason';
 import { isUuid } from './uuid';
 import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
 import { DEW_POINT_MARGIN_C, ENUMS, LIMITS, SHAPE_DIMENSIONS, SOUND_TRAVEL_TOLERANCE_S, TEXT_LIMITS, type Limit } from './fields';
@@ -424,12 +425,17 @@ export function assertValidBody<K extends RecordKind>(kind: K, body: unknown): a
 }
 
 function checkStamp(c: Checker, path: string, value: unknown): void {
-  try {
-    if (typeof value !== 'string') throw new Error();
-    parseHlc(value);
-  } catch {
-    c.add(path, value, 'must be ms-counter-device', 'is not a clock stamp');
-  }
+  const problem = stampProblem(value);
+  if (problem) c.add(path, value, problem.rule, problem.what);
+}
+
+const CLOCK_RANGE = `must be from ${new Date(STAMP_MIN_MS).toISOString()} to ${new Date(STAMP_MAX_MS).toISOString()}`;
+
+/** A time the phone's clock wrote into the envelope: an instant within the clock's range (no year 0). */
+function checkClockInstant(c: Checker, path: string, value: unknown): void {
+  if (!c.instant(path, value)) return;
+  const ms = Date.parse(value as string);
+  if (ms < STAMP_MIN_MS || ms > STAMP_MAX_MS) c.add(path, value, CLOCK_RANGE, "is beyond the clock's range");
 }
 
 function checkDevice(c: Checker, path: string, value: unknown): void {
@@ -448,8 +454,8 @@ export function validateRecord(record: unknown): Problem[] {
   const kind = record.kind;
   if (!c.oneOf('kind', kind, RECORD_KINDS)) return c.problems;
   c.id('id', record.id);
-  c.instant('created_at', record.created_at);
-  c.instant('updated_at', record.updated_at);
+  checkClockInstant(c, 'created_at', record.created_at);
+  checkClockInstant(c, 'updated_at', record.updated_at);
   checkStamp(c, 'rev', record.rev);
   checkDevice(c, 'device', record.device);
   c.boolean('deleted', record.deleted);
@@ -461,7 +467,7 @@ export function validateRecord(record: unknown): Problem[] {
       if (!c.object(at, entry, 'an earlier version')) return;
       checkStamp(c, `${at}.rev`, entry.rev);
       checkDevice(c, `${at}.device`, entry.device);
-      c.instant(`${at}.updated_at`, entry.updated_at);
+      checkClockInstant(c, `${at}.updated_at`, entry.updated_at);
       if (entry.reason !== null && typeof entry.reason !== 'string') c.add(`${at}.reason`, entry.reason, 'must be text or null', 'is not text');
       c.boolean(`${at}.deleted`, entry.deleted);
       c.object(`${at}.body`, entry.body, 'the body of an earlier version');
@@ -471,5 +477,5 @@ export function validateRecord(record: unknown): Problem[] {
   for (const [key, value] of Object.entries(record)) {
     if (!(ENVELOPE_FIELDS as readonly string[]).includes(key)) body[key] = value;
   }
-  return [...c.problems, ...validateBody(kind, body)];
+  return [...c.problems, ...deletionReasonProblems(record), ...validateBody(kind, body)];
 }

@@ -6,7 +6,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { canonicalJson } from '../../src/log/canonical';
 import { exportLog } from '../../src/log/export';
-import { parseHlc, formatHlc } from '../../src/log/hlc';
+import { CLOCK_AHEAD_LIMIT_MS, parseHlc, formatHlc } from '../../src/log/hlc';
+import { recordsFromClockAhead } from '../../src/log/clock-ahead';
 import type { LogRecord, SiteRecord } from '../../src/log/types';
 import { createMemoryStore, type LogStore } from '../../src/store';
 import { applyImport, previewImport } from '../../src/sync/import-log';
@@ -83,6 +84,10 @@ async function save(p: Phone, name: string): Promise<SiteRecord> {
 const CEILING_MS = 999_999_999_999_999;
 
 describe('a clock that cannot be poisoned', () => {
+  it('states the bound this test holds phones to', () => {
+    expect(CLOCK_AHEAD_LIMIT_MS).toBe(AHEAD_LIMIT_MS);
+  });
+
   it('a file stamped at the top of the clock’s range is refused with the field and range named, and saving goes on', async () => {
     const p = await phone(0);
     const text = fileStampedAt(CEILING_MS, 999_999, idMaker(7)());
@@ -96,6 +101,7 @@ describe('a clock that cannot be poisoned', () => {
     const id = idMaker(8)();
     expect(await offer(p, fileStampedAt(T0 + 40 * YEAR, 999_999, id))).toBe(true);
     expect((await p.store.allRecords()).map((r) => r.id)).toContain(id);
+    expect(recordsFromClockAhead(await p.store.allRecords(), p.fake.environment.now()).map((r) => r.id)).toEqual([id]);
     await save(p, 'after the far-ahead file');
     // The crew can still change and remove the far-ahead record; the new version sorts after it.
     const renamed = await p.store.revise('site', id, { name: 'renamed here' });
