@@ -12,6 +12,13 @@
  * every phone agrees), the other stays in the history (so nothing is lost), and the pair is reported as a
  * conflict for a person to look at. Conflicts are a phone's own notices, kept beside the log (see
  * src/sync/import-log.ts); the records themselves carry everything needed to resolve one.
+ *
+ * A version is its stamp together with what it says (version-order.ts). Two copies under one stamp that say
+ * different things (a file changed by hand: 2.511 s typed over as 2511 s) are two versions: both are kept,
+ * the one first in a fixed order is current, and the pair is a conflict (same_stamp). Nothing is chosen in
+ * silence. The union is still a union of sets with a fixed rule for the current one, so the merge stays
+ * commutative, associative and idempotent (test/log/merge.test.ts, test/log/same-stamp.test.ts), given the
+ * gate's rule that no history entry of a record sorts after its current version.
  */
 import { canonicalJson } from './canonical';
 import { compareHlc } from './hlc';

@@ -254,7 +254,7 @@ function ConflictRow({ conflict: c }: { conflict: Conflict }) {
   };
   return (
     <li class="row">
-      <span class="row-main">
+      <div class="row-main">
         <strong>
           {c.kind} {c.id.slice(0, 8)}
         </strong>
@@ -269,7 +269,7 @@ function ConflictRow({ conflict: c }: { conflict: Conflict }) {
         </span>
         <TextField id={id} label="Why the record is right as it is" value={reason} onInput={setReason} />
         {error ? <Notice tone="bad">{error}</Notice> : null}
-      </span>
+      </div>
       <button type="button" class="btn btn-small btn-quiet" disabled={reason.trim() === ''} onClick={settle}>
         Checked
       </button>
