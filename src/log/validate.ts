@@ -7,6 +7,7 @@
 import { LogValidationError, type Problem } from './errors';
 import { STAMP_MAX_MS, STAMP_MIN_MS, stampProblem } from './hlc';
 import { deletionReasonProblems } from './deletion-reason';
+import { historyOrderProblems } from './version-order';
 import { isUuid } from './uuid';
 import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
 import { DEW_POINT_MARGIN_C, ENUMS, LIMITS, SHAPE_DIMENSIONS, SOUND_TRAVEL_TOLERANCE_S, TEXT_LIMITS, type Limit } from './fields';
@@ -477,5 +478,5 @@ export function validateRecord(record: unknown): Problem[] {
   for (const [key, value] of Object.entries(record)) {
     if (!(ENVELOPE_FIELDS as readonly string[]).includes(key)) body[key] = value;
   }
-  return [...c.problems, ...deletionReasonProblems(record), ...validateBody(kind, body)];
+  return [...c.problems, ...deletionReasonProblems(record), ...historyOrderProblems(record, body), ...validateBody(kind, body)];
 }

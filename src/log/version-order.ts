@@ -5,7 +5,8 @@
  * lists them as a conflict, instead of keeping whichever text sorts higher.
  */
 import { canonicalJson } from './canonical';
-import { compareHlc } from './hlc';
+import { compareHlc, stampProblem } from './hlc';
+import type { Problem } from './errors';
 import type { Revision } from './types';
 
 type AnyRevision = Revision<Record<string, unknown>>;
@@ -34,4 +35,36 @@ export function versionDigest(v: AnyRevision): string {
     h2 = Math.imul(h2 ^ c, 0x5bd1e995) >>> 0;
   }
   return h1.toString(16).padStart(8, '0') + h2.toString(16).padStart(8, '0');
+}
+
+/** Whether `a` sorts before `b`; a value canonical JSON cannot write is left to the field checks (true). */
+function sortsBefore(a: AnyRevision, b: AnyRevision): boolean {
+  try {
+    return compareVersions(a, b) < 0;
+  } catch {
+    return true;
+  }
+}
+
+/**
+ * Every earlier version must sort before the current one: a history entry after it would become the current
+ * version in a merge (taking the place of the record's own body), and the merge's order would then depend on
+ * which copies met first. Under the same stamp an entry may differ from the current one (a same-stamp
+ * conflict kept by the merge) as long as it sorts before it.
+ */
+export function historyOrderProblems(record: { rev?: unknown; device?: unknown; updated_at?: unknown; deleted?: unknown; history?: unknown; [key: string]: unknown }, body: Record<string, unknown>): Problem[] {
+  if (!Array.isArray(record.history) || stampProblem(record.rev) !== null) return [];
+  const current = { rev: record.rev, device: record.device, updated_at: record.updated_at, reason: null, deleted: record.deleted, body } as AnyRevision;
+  const rule = 'every earlier version must be older than the current one (under the same stamp: sort before it)';
+  const problems: Problem[] = [];
+  (record.history as unknown[]).forEach((h, i) => {
+    const entry = h as AnyRevision | null;
+    // A stamp that is no stamp at all is reported by the envelope checks.
+    if (entry === null || typeof entry !== 'object' || stampProblem(entry.rev) !== null) return;
+    if (compareHlc(entry.rev, current.rev) < 0) return;
+    if (entry.rev === current.rev && sortsBefore(entry, current)) return;
+    const path = `history[${i}].rev`;
+    problems.push({ path, value: entry.rev, rule, message: `${path}: ${JSON.stringify(entry.rev)} is not older than the current version (rev ${JSON.stringify(current.rev)}): ${rule}` });
+  });
+  return problems;
 }

@@ -179,3 +179,23 @@ describe('merging with bodies that differ under one stamp (fast-check properties
     );
   });
 });
+
+describe('the order of a record’s versions at the gate', () => {
+  it('refuses a history entry newer than the current version, or one that would win under the same stamp', async () => {
+    const { validateRecord } = await import('../../src/log/validate');
+    const v2 = revise(drop, { note: 'wet' }, T, 'phoneA', null);
+    expect(validateRecord(v2)).toEqual([]);
+    expect(validateRecord(mergeRecord(drop, handEdited(drop, { time_s: 2511 })))).toEqual([]);
+    const future = handEdited(v2, { history: [{ ...v2.history[0]!, rev: '002000000000000-000000-phoneZ' }] } as Partial<DropRecord>);
+    expect(validateRecord(future).map((p) => p.path)).toEqual(['history[0].rev']);
+    // The merge puts the body that sorts first under the stamp current; the same pair the other way round is refused.
+    const merged = mergeRecord(drop, handEdited(drop, { time_s: 2511 })) as DropRecord;
+    const loser = merged.history[0]!;
+    const swapped = {
+      ...merged,
+      ...loser.body,
+      history: [{ ...loser, body: { ...loser.body, time_s: merged.time_s } }],
+    } as LogRecord;
+    expect(validateRecord(swapped).map((p) => p.path)).toEqual(['history[0].rev']);
+  });
+});
