@@ -1,6 +1,8 @@
 // The record model of a test log: pure data and functions, no storage, no network, no DOM.
 export * from './types';
 export * from './hlc';
+export * from './clock-ahead';
+export * from './version-order';
 export * from './errors';
 export * from './uuid';
 export * from './fields';

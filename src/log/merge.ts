@@ -12,9 +12,17 @@
  * every phone agrees), the other stays in the history (so nothing is lost), and the pair is reported as a
  * conflict for a person to look at. Conflicts are a phone's own notices, kept beside the log (see
  * src/sync/import-log.ts); the records themselves carry everything needed to resolve one.
+ *
+ * A version is its stamp together with what it says (version-order.ts). Two copies under one stamp that say
+ * different things (a file changed by hand: 2.511 s typed over as 2511 s) are two versions: both are kept,
+ * the one first in a fixed order is current, and the pair is a conflict (same_stamp). Nothing is chosen in
+ * silence. The union is still a union of sets with a fixed rule for the current one, so the merge stays
+ * commutative, associative and idempotent (test/log/merge.test.ts, test/log/same-stamp.test.ts), given the
+ * gate's rule that no history entry of a record sorts after its current version.
  */
 import { canonicalJson } from './canonical';
 import { compareHlc } from './hlc';
+import { compareVersions, versionDigest, versionIdentity } from './version-order';
 import { bodyOf, REASON_REQUIRED_FIELDS, sameValue } from './records';
 import { sortRecords } from './export';
 import type { LogRecord, RecordKind, Revision } from './types';
@@ -34,6 +42,13 @@ export interface Conflict {
   fields: string[];
   /** True when a measured value, an exclusion or the deletion itself differs (not only names or notes). */
   measured: boolean;
+  /**
+   * Present when both versions carry the same stamp but say different things (a file changed by hand, a
+   * broken tool): kept_* is the version this phone held, other_* the one that came in; both are kept.
+   */
+  same_stamp?: true;
+  /** For a same-stamp conflict: which of the bodies under other_rev came in (versionDigest). */
+  other_version?: string;
 }
 
 export interface MergePreview {
@@ -60,9 +75,9 @@ function revisionOf(record: LogRecord): AnyRevision {
 }
 
 /**
- * Of two copies of the same version, the one to keep: the one with the reason it was replaced (a copy made
- * when it lost a conflict has none), else the greater canonical text. A total order, so the choice does not
- * depend on which copy came first.
+ * Of two copies of the same version (same identity, see version-order.ts), the one to keep: the one with the
+ * reason it was replaced (a copy made when it lost a conflict has none), else the greater canonical text. A
+ * total order, so the choice does not depend on which copy came first.
  */
 function preferred(a: AnyRevision, b: AnyRevision): AnyRevision {
   if (sameValue(a, b)) return a;
@@ -71,38 +86,45 @@ function preferred(a: AnyRevision, b: AnyRevision): AnyRevision {
 }
 
 function addVersion(versions: Map<string, AnyRevision>, revision: AnyRevision): void {
-  const seen = versions.get(revision.rev);
-  versions.set(revision.rev, seen ? preferred(seen, revision) : revision);
+  const key = versionIdentity(revision);
+  const seen = versions.get(key);
+  versions.set(key, seen ? preferred(seen, revision) : revision);
 }
 
-/** The union of two copies of one record. Returns `a` itself when the copies are the same. */
+/** Every version of a record, the current one included (with reason null), by identity. */
+function versionsOf(record: LogRecord): Map<string, AnyRevision> {
+  const versions = new Map<string, AnyRevision>();
+  for (const h of record.history as unknown as AnyRevision[]) addVersion(versions, h);
+  addVersion(versions, revisionOf(record));
+  return versions;
+}
+
+/**
+ * The union of two copies of one record. Returns `a` itself when the copies are the same.
+ * Versions are told apart by what they say, not by their stamp alone: two bodies under one stamp are both
+ * kept, the one first in merge order (version-order.ts) current, the other in the history.
+ */
 export function mergeRecord<R extends LogRecord>(a: R, b: R): R {
   if (a === b || sameValue(a, b)) return a;
   const versions = new Map<string, AnyRevision>();
   for (const h of a.history as unknown as AnyRevision[]) addVersion(versions, h);
   for (const h of b.history as unknown as AnyRevision[]) addVersion(versions, h);
   // The current versions go in last; a copy of the same version in a history keeps its reason.
-  const currents = new Map<string, AnyRevision>();
-  for (const r of [a, b]) {
-    const own = revisionOf(r);
-    const seen = currents.get(own.rev);
-    currents.set(own.rev, seen ? preferred(seen, own) : own);
-  }
-  let top: AnyRevision | undefined;
-  for (const v of [...versions.values(), ...currents.values()]) if (!top || compareHlc(v.rev, top.rev) > 0) top = v;
-  const current = currents.get(top!.rev) ?? top!;
-  for (const v of currents.values()) if (v.rev !== current.rev) addVersion(versions, v);
-  versions.delete(current.rev);
-  const history = [...versions.values()].sort((x, y) => compareHlc(x.rev, y.rev));
+  addVersion(versions, revisionOf(a));
+  addVersion(versions, revisionOf(b));
+  let current: AnyRevision | undefined;
+  for (const v of versions.values()) if (!current || compareVersions(v, current) > 0) current = v;
+  versions.delete(versionIdentity(current!));
+  const history = [...versions.values()].sort(compareVersions);
   return {
-    ...current.body,
+    ...current!.body,
     id: a.id,
     kind: a.kind,
     created_at: a.created_at <= b.created_at ? a.created_at : b.created_at,
-    updated_at: current.updated_at,
-    rev: current.rev,
-    device: current.device,
-    deleted: current.deleted,
+    updated_at: current!.updated_at,
+    rev: current!.rev,
+    device: current!.device,
+    deleted: current!.deleted,
     history,
   } as unknown as R;
 }
@@ -120,15 +142,11 @@ export function mergeLogs(a: readonly LogRecord[], b: readonly LogRecord[]): Log
 
 /** The conflict between two copies of a record, or null when one was made from the other or they agree. */
 export function conflictBetween(a: LogRecord, b: LogRecord): Conflict | null {
-  if (a.id !== b.id || a.rev === b.rev) return null;
+  if (a.id !== b.id) return null;
+  if (a.rev === b.rev) return sameStampConflict(a, revisionOf(a), revisionOf(b));
   if (b.history.some((h) => h.rev === a.rev) || a.history.some((h) => h.rev === b.rev)) return null;
-  const bodyA = bodyOf(a) as unknown as Record<string, unknown>;
-  const bodyB = bodyOf(b) as unknown as Record<string, unknown>;
-  const fields = Object.keys({ ...bodyA, ...bodyB }).filter((k) => !sameValue(bodyA[k], bodyB[k]));
-  if (a.deleted !== b.deleted) fields.push('deleted');
+  const fields = differingFields(revisionOf(a), revisionOf(b), false);
   if (fields.length === 0) return null;
-  fields.sort();
-  const measuredFields = new Set<string>([...(REASON_REQUIRED_FIELDS[a.kind] ?? []), 'raw', 'deleted']);
   const [kept, other] = compareHlc(a.rev, b.rev) > 0 ? [a, b] : [b, a];
   return {
     id: a.id,
@@ -138,8 +156,62 @@ export function conflictBetween(a: LogRecord, b: LogRecord): Conflict | null {
     other_rev: other.rev,
     other_device: other.device,
     fields,
-    measured: fields.some((f) => measuredFields.has(f)),
+    measured: isMeasured(a.kind, fields),
   };
+}
+
+/** The body fields (and "deleted"; with `envelope`, the device and time too) whose values differ, sorted. */
+function differingFields(a: AnyRevision, b: AnyRevision, envelope: boolean): string[] {
+  const fields = Object.keys({ ...a.body, ...b.body }).filter((k) => !sameValue(a.body[k], b.body[k]));
+  if (a.deleted !== b.deleted) fields.push('deleted');
+  if (envelope && a.device !== b.device) fields.push('device');
+  if (envelope && a.updated_at !== b.updated_at) fields.push('updated_at');
+  return fields.sort();
+}
+
+function isMeasured(kind: RecordKind, fields: readonly string[]): boolean {
+  const measuredFields = new Set<string>([...(REASON_REQUIRED_FIELDS[kind] ?? []), 'raw', 'deleted']);
+  return fields.some((f) => measuredFields.has(f));
+}
+
+/** Two versions under one stamp that say different things: `held` was on this phone, `came` arrived. */
+function sameStampConflict(record: LogRecord, held: AnyRevision, came: AnyRevision): Conflict | null {
+  if (versionIdentity(held) === versionIdentity(came)) return null;
+  return {
+    id: record.id,
+    kind: record.kind,
+    kept_rev: held.rev,
+    kept_device: held.device,
+    other_rev: came.rev,
+    other_device: came.device,
+    fields: differingFields(held, came, true),
+    measured: isMeasured(record.kind, differingFields(held, came, false)),
+    same_stamp: true,
+    other_version: versionDigest(came),
+  };
+}
+
+/**
+ * The versions an incoming copy brings under stamps this phone already holds with something else said: one
+ * conflict for each such incoming version (against the version held that comes last in merge order). Only
+ * versions new to this phone count, so a file merged again reports nothing again.
+ */
+export function sameStampConflicts(local: LogRecord, incoming: LogRecord): Conflict[] {
+  if (local.id !== incoming.id) return [];
+  const mine = versionsOf(local);
+  const byStamp = new Map<string, AnyRevision>();
+  for (const v of mine.values()) {
+    const seen = byStamp.get(v.rev);
+    if (!seen || compareVersions(v, seen) > 0) byStamp.set(v.rev, v);
+  }
+  const found: Conflict[] = [];
+  for (const [key, v] of versionsOf(incoming)) {
+    const held = byStamp.get(v.rev);
+    if (!held || mine.has(key)) continue;
+    const conflict = sameStampConflict(local, held, v);
+    if (conflict) found.push(conflict);
+  }
+  return found;
 }
 
 /** What merging `incoming` into `local` would do, without doing it. */
@@ -160,14 +232,16 @@ export function previewMerge(local: readonly LogRecord[], incoming: readonly Log
     const after = mergeRecord(before, record);
     if (after === before || sameValue(after, before)) preview.unchanged++;
     else preview.updated.push({ before, after });
-    const conflict = conflictBetween(before, record);
-    if (conflict) preview.conflicts.push(conflict);
+    const found = sameStampConflicts(before, record);
+    const conflict = before.rev === record.rev ? null : conflictBetween(before, record);
+    if (conflict) found.push(conflict);
+    preview.conflicts.push(...found);
   }
   preview.changes = [...preview.added, ...preview.updated.map((u) => u.after)];
   return preview;
 }
 
-const conflictKey = (c: Conflict) => `${c.id} ${c.other_rev}`;
+const conflictKey = (c: Conflict) => `${c.id} ${c.other_rev}${c.other_version ? ` ${c.other_version}` : ''}`;
 
 /** The list with the newly found conflicts added, each (record, losing version) once. */
 export function addConflicts(existing: readonly Conflict[], found: readonly Conflict[]): Conflict[] {

@@ -118,9 +118,9 @@ function asRevision<R extends LogRecord>(record: R, reason: string | null): Revi
 
 /** The next version of `record`: new stamp and time, previous version appended to the history. */
 function nextVersion<R extends LogRecord>(record: R, body: BodyOf[R['kind']], deleted: boolean, reason: string | null, ctx: RecordContext): R {
-  // receive() rather than tick(): the new stamp must sort after the record's own, even when the record came
-  // from a phone whose clock runs ahead of this one.
-  const rev = ctx.clock.receive(record.rev, millis(ctx.now));
+  // stampAfter() rather than tick(): the new stamp must sort after the record's own, even when the record came
+  // from a phone whose clock runs ahead of this one (far ahead: then without dragging this clock along).
+  const rev = ctx.clock.stampAfter(record.rev, millis(ctx.now));
   return {
     ...copy(body),
     id: record.id,

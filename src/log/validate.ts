@@ -5,7 +5,9 @@
  * The ranges, choices and text lengths come from the field catalogue (fields.ts).
  */
 import { LogValidationError, type Problem } from './errors';
-import { parseHlc, type HlcStamp } from './hlc';
+import { STAMP_MAX_MS, STAMP_MIN_MS, parseHlc, stampProblem, type HlcStamp } from './hlc';
+import { deletionReasonProblems } from './deletion-reason';
+import { historyOrderProblems } from './version-order';
 import { isRecordId, isUuid } from './uuid';
 import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
 import { DEW_POINT_MARGIN_C, ENUMS, LIMITS, SHAPE_DIMENSIONS, SOUND_TRAVEL_TOLERANCE_S, TEXT_LIMITS, type Limit } from './fields';
@@ -457,27 +459,18 @@ export function assertValidBody<K extends RecordKind>(kind: K, body: unknown): a
 }
 
 /**
- * The largest counter a stamp may carry (hlc.ts writes it in 6 digits). A stamp already at it leaves no room
- * for the next edit in the same millisecond, so such a record could be stored but never changed: refused.
+ * A stamp's parts, or null (with the problem added) when it is not one. The clock rolls a full counter over into
+ * the next millisecond, so a counter at its top is a stamp like any other.
  */
-export const REV_COUNTER_LIMIT = 999_999;
-
-/** A stamp's parts, or null (with the problem added) when it is not one. */
 function checkStamp(c: Checker, path: string, value: unknown): HlcStamp | null {
-  let stamp: HlcStamp;
-  try {
-    if (typeof value !== 'string') throw new Error();
-    stamp = parseHlc(value);
-  } catch {
-    c.add(path, value, 'must be ms-counter-device', 'is not a clock stamp');
+  const problem = stampProblem(value);
+  if (problem) {
+    c.add(path, value, problem.rule, problem.what);
     return null;
   }
+  const stamp = parseHlc(value as string);
   if (!/^[A-Za-z0-9_.:]+$/.test(stamp.device)) {
     c.add(path, value, 'its device must be letters, digits, _ . : only', 'is not a clock stamp');
-    return null;
-  }
-  if (stamp.counter >= REV_COUNTER_LIMIT) {
-    c.add(path, value, `its counter must be below ${REV_COUNTER_LIMIT}, or no later edit could follow it`, 'is at the limit of the clock');
     return null;
   }
   return stamp;
@@ -496,6 +489,15 @@ function checkStampDevice(c: Checker, at: string, stamp: HlcStamp | null, device
   if (stamp && typeof device === 'string' && checkDevice(c, join(at, 'device'), device) && stamp.device !== device) {
     c.add(join(at, 'device'), device, `must be the device of its stamp (${stamp.device})`, 'does not match the stamp');
   }
+}
+
+const CLOCK_RANGE = `must be from ${new Date(STAMP_MIN_MS).toISOString()} to ${new Date(STAMP_MAX_MS).toISOString()}`;
+
+/** A time the phone's clock wrote into the envelope: an instant within the clock's range (no year 0). */
+function checkClockInstant(c: Checker, path: string, value: unknown): void {
+  if (!c.instant(path, value)) return;
+  const ms = Date.parse(value as string);
+  if (ms < STAMP_MIN_MS || ms > STAMP_MAX_MS) c.add(path, value, CLOCK_RANGE, "is beyond the clock's range");
 }
 
 const REVISION_FIELDS = ['rev', 'device', 'updated_at', 'reason', 'deleted', 'body'] as const;
@@ -529,8 +531,8 @@ export function validateRecord(input: unknown): Problem[] {
   const kind = record.kind;
   if (!c.oneOf('kind', kind, RECORD_KINDS)) return c.problems;
   c.id('id', record.id);
-  c.instant('created_at', record.created_at);
-  c.instant('updated_at', record.updated_at);
+  checkClockInstant(c, 'created_at', record.created_at);
+  checkClockInstant(c, 'updated_at', record.updated_at);
   const stamp = checkStamp(c, 'rev', record.rev);
   if (stamp) checkStampDevice(c, '', stamp, record.device);
   else checkDevice(c, 'device', record.device);
@@ -548,14 +550,14 @@ export function validateRecord(input: unknown): Problem[] {
       if (revStamp) {
         const rev = entry.rev as string;
         checkStampDevice(c, at, revStamp, entry.device);
-        if (previous !== null && !(rev > previous)) {
-          c.add(`${at}.rev`, rev, `must be newer than history[${i - 1}].rev (${previous}): the history runs oldest first`, 'is out of order');
-        } else if (stamp && !(rev < (record.rev as string))) {
-          c.add(`${at}.rev`, rev, `must be older than the record's rev (${record.rev as string}): an earlier version cannot be newer than the current one`, 'is out of order');
+        if (previous !== null && rev < previous) {
+          c.add(`${at}.rev`, rev, `must not be older than history[${i - 1}].rev (${previous}): the history runs oldest first`, 'is out of order');
         }
+        // Whether an earlier version stands after the current one is historyOrderProblems' rule (version-order.ts),
+        // which also orders two versions under one stamp.
         previous = rev;
       } else checkDevice(c, `${at}.device`, entry.device);
-      c.instant(`${at}.updated_at`, entry.updated_at);
+      checkClockInstant(c, `${at}.updated_at`, entry.updated_at);
       if (entry.reason !== null) c.text(`${at}.reason`, entry.reason, NOTES_MAX, false);
       c.boolean(`${at}.deleted`, entry.deleted);
       c.onlyFields(at, entry, REVISION_FIELDS, 'an earlier version');
@@ -568,5 +570,7 @@ export function validateRecord(input: unknown): Problem[] {
       }
     });
   }
-  return [...c.problems, ...validateBody(kind, bodyFields(record)), ...problems];
+  const body = bodyFields(record);
+  // Same-stamp versions sort by what they say (version-order.ts): no history entry may sort after the current one.
+  return [...c.problems, ...deletionReasonProblems(record), ...historyOrderProblems(record, body), ...validateBody(kind, body), ...problems];
 }

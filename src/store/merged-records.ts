@@ -3,7 +3,7 @@
  * batch passes the gate (log/record-gate.ts, the same the import preview runs) before anything is written, then one transaction with the day counts, the clock (local
  * edits made later must sort after everything merged in) and the erased-log note.
  */
-import { LogValidationError, compareHlc, gateLookups, gateRecords, type LogRecord, type RecordKind } from '../log';
+import { LogValidationError, clockAhead, compareHlc, gateLookups, gateRecords, type LogRecord, type RecordKind } from '../log';
 import type { StoreTx } from './backend';
 import { dayCountsAfter, writeDayCounts } from './day-counts';
 import { knownKinds } from './known-kinds';
@@ -44,7 +44,9 @@ export function mergedRecordWrites(ctx: StoreContext): Pick<LogStore, 'putRecord
         ctx.catchUpClock(storedClock, now);
         // Counted from the state before the batch, so every read happens before the first put.
         const counts = await dayCountsAfter(tx, records, previous);
-        const newest = records.reduce((max, r) => (compareHlc(r.rev, max) > 0 ? r.rev : max), records[0]!.rev);
+        // The newest stamp the clock may follow; one from a clock far ahead is stored but not followed (hlc.ts).
+        const followed = records.filter((r) => !clockAhead(r.rev, now));
+        const newest = followed.reduce((max, r) => (compareHlc(r.rev, max) > 0 ? r.rev : max), clock.latest);
         if (compareHlc(newest, clock.latest) > 0) clock.receive(newest, now);
         const writes: Promise<unknown>[] = [tx.putRecords(records), ...writeDayCounts(tx, counts), tx.putMeta('clock', clock.latest)];
         // The erased log's records are back once an import brings records that its device wrote.

@@ -21,7 +21,7 @@ export interface StoreContext {
   /** Throws 'store-closed' once the store is closed (by close(), another tab's upgrade, or the browser). */
   ensureOpen(): void;
   /** Another tab of this app writes with the same device id: take in its newest stamp so ours sort after it. */
-  catchUpClock(stored: string | undefined, now: number): void;
+  catchUpClock(stored: string | undefined, now?: number): void;
   /** Records were written: the loss witness notes that this log holds some. */
   recordsWritten(): void;
 }
@@ -42,8 +42,10 @@ export function storeContext(
     ensureOpen() {
       if (backend.closed) throw new StoreError({ code: 'store-closed', field: null, value: null, allowed: null, message: 'the log store is closed; reload the app to open it again' });
     },
-    catchUpClock(stored, now) {
-      if (stored !== undefined && compareHlc(stored, clock.latest) > 0) clock.receive(stored, now);
+    catchUpClock(stored) {
+      // This device's own stamps (another tab's): taken in at any distance, they only ever rise. Stamps from
+      // elsewhere go through clock.receive(), which is bounded (CLOCK_AHEAD_LIMIT_MS).
+      if (stored !== undefined && compareHlc(stored, clock.latest) > 0) clock.catchUp(stored);
     },
     recordsWritten: identity.noteRecordsExist,
   };

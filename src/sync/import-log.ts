@@ -7,7 +7,7 @@
  * the list kept in meta ('log_conflicts') after the records are written; were that second write lost, the
  * losing versions would still be in the records' histories.
  */
-import { addConflicts, openConflicts, previewGatedMerge, readLogFile, type Conflict, type LogFile, type MergePreview } from '../log';
+import { LogError, addConflicts, openConflicts, previewGatedMerge, readLogFile, type Conflict, type LogFile, type MergePreview } from '../log';
 import { SYNC_META, type RecordSource } from './record-source';
 
 export interface ImportPreview {
@@ -47,11 +47,39 @@ export async function loadConflicts(source: RecordSource): Promise<Conflict[]> {
   return open;
 }
 
-/** A person has looked at the conflict and keeps the record as it is. */
-export async function dismissConflict(source: RecordSource, id: string, otherRev: string): Promise<void> {
+/** A conflict a person has settled, and why; kept on this phone beside the conflict list. */
+export interface SettledConflict {
+  conflict: Conflict;
+  reason: string;
+  settled_at: string;
+  device: string;
+}
+
+/**
+ * A person has looked at the conflict and keeps the record as it is, saying why (both versions stay in the
+ * record either way). `otherVersion` tells apart two bodies that came in under one stamp (Conflict.other_version).
+ */
+export async function dismissConflict(
+  source: RecordSource,
+  id: string,
+  otherRev: string,
+  reason: string,
+  now: Date | number = Date.now(),
+  otherVersion?: string,
+): Promise<void> {
+  if (typeof reason !== 'string' || reason.trim() === '') {
+    throw new LogError({ code: 'reason-required', field: 'reason', value: reason ?? null, allowed: 'a non-empty reason', message: 'settling a conflict needs a reason: say which value is right and why' });
+  }
   const all = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];
+  const matches = (c: Conflict) => c.id === id && c.other_rev === otherRev && (otherVersion === undefined || c.other_version === otherVersion);
+  const settled = ((await source.getMeta(SYNC_META.settled)) as SettledConflict[] | undefined) ?? [];
+  const at = new Date(typeof now === 'number' ? now : now.getTime()).toISOString();
+  const device = await source.deviceId();
+  const added = all.filter(matches).map((conflict) => ({ conflict, reason: reason.trim(), settled_at: at, device }));
+  // The reason first, then the list: were the second write lost, the conflict would only be shown again.
+  if (added.length > 0) await source.setMeta(SYNC_META.settled, [...settled, ...added]);
   await source.setMeta(
     SYNC_META.conflicts,
-    all.filter((c) => !(c.id === id && c.other_rev === otherRev)),
+    all.filter((c) => !matches(c)),
   );
 }

@@ -24,4 +24,6 @@ export const SYNC_META = {
   settings: 'sync_settings',
   state: 'sync_state',
   conflicts: 'log_conflicts',
+  /** Conflicts a person settled, with the reason (import-log.ts SettledConflict). */
+  settled: 'log_conflicts_settled',
 } as const;

@@ -5,12 +5,14 @@
 import type { Conflict } from '../log';
 import type { SyncSettings } from './settings';
 import type { SyncState } from './sync-state';
+import type { SettledConflict } from './import-log';
 
 declare module '../store/types' {
   interface MetaValues {
     sync_settings: SyncSettings;
     sync_state: SyncState;
     log_conflicts: Conflict[];
+    log_conflicts_settled: SettledConflict[];
   }
 }
 

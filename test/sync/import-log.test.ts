@@ -106,7 +106,7 @@ describe.each(sources)('importing a log file into %s', (_name, make) => {
     expect(done.conflicts).toHaveLength(1);
     const shown = await loadConflicts(source);
     expect(shown).toEqual(done.conflicts);
-    await dismissConflict(source, drop.id, mine.rev);
+    await dismissConflict(source, drop.id, mine.rev, 'the video shows the earlier value');
     expect(await loadConflicts(source)).toEqual([]);
   });
 });

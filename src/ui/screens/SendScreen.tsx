@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'preact/hooks';
-import { logFileName, type LogSelection, type MergePreview } from '../../log';
+import { logFileName, recordsFromClockAhead, type Conflict, type LogSelection, type MergePreview } from '../../log';
 import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, logCsvFiles, previewImport, saveSyncSettings, sendLog, type ImportPreview, type SyncReport } from '../../sync';
 import { pickFile, shareFile } from '../../sync/page';
 import { useApp } from '../app-context';
@@ -128,6 +128,7 @@ export function SendScreen() {
         ) : null}
       </section>
       <Conflicts />
+      <ClockAhead />
       <FolderSync sync={sync} />
       {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
     </div>
@@ -226,35 +227,82 @@ function Conflicts() {
     <section class="card" aria-labelledby="conflicts-h">
       <h2 id="conflicts-h">Conflicts to look at ({list.value.length})</h2>
       <p class="hint">
-        Two phones changed the same record. The newer change is in use; the other is kept in the record’s history, nothing was dropped. Check the
-        values and correct the record if needed.
+        Two phones changed the same record, or a file brought a different version under the same stamp. One version is in use; the other is kept in
+        the record’s history, nothing was dropped. Check the values, correct the record if needed, and say why the record is right as it is.
       </p>
       <ul class="rows">
         {list.value.map((c) => (
-          <li key={`${c.id}-${c.other_rev}`} class="row">
+          <ConflictRow key={`${c.id}-${c.other_rev}-${c.other_version ?? ''}`} conflict={c} />
+        ))}
+      </ul>
+    </section>
+  );
+}
+
+function ConflictRow({ conflict: c }: { conflict: Conflict }) {
+  const app = useApp();
+  const [reason, setReason] = useState('');
+  const [error, setError] = useState<string | null>(null);
+  const id = `settle-${c.id}-${c.other_version ?? c.other_rev}`;
+  const settle = async () => {
+    try {
+      await dismissConflict(app.store, c.id, c.other_rev, reason, new Date(), c.other_version);
+      app.notifyChanged();
+    } catch (e) {
+      setError(describeError(e));
+    }
+  };
+  return (
+    <li class="row">
+      <div class="row-main">
+        <strong>
+          {c.kind} {c.id.slice(0, 8)}
+        </strong>
+        {c.measured ? ' · a measured value differs' : ''}
+        {c.same_stamp ? ' · two versions under the same stamp (a file changed by hand?)' : ''}
+        <br />
+        <span class="hint">
+          fields: {c.fields.join(', ')} ·{' '}
+          {c.same_stamp
+            ? `this phone held the version from ${c.kept_device}; the other one came in from a file, both are kept`
+            : `kept the change from ${c.kept_device}, the one from ${c.other_device} is in the history`}
+        </span>
+        <TextField id={id} label="Why the record is right as it is" value={reason} onInput={setReason} />
+        {error ? <Notice tone="bad">{error}</Notice> : null}
+      </div>
+      <button type="button" class="btn btn-small btn-quiet" disabled={reason.trim() === ''} onClick={settle}>
+        Checked
+      </button>
+    </li>
+  );
+}
+
+/** Records whose stamp is far ahead of this phone's time: kept, but from a phone whose clock is wrong. */
+function ClockAhead() {
+  const app = useApp();
+  const list = useStoreData(async () => recordsFromClockAhead(await app.store.allRecords({ includeDeleted: true }), Date.now()), []);
+  if (list.state !== 'ready' || list.value.length === 0) return null;
+  const shown = list.value.slice(0, 10);
+  return (
+    <section class="card" aria-labelledby="ahead-h">
+      <h2 id="ahead-h">From a clock far ahead ({list.value.length})</h2>
+      <p class="hint">
+        These records carry a time stamp more than an hour ahead of this phone’s clock: the phone that wrote them had a wrong date. They are kept
+        and sent like any other record and did not move this phone’s clock, but their version wins over changes made elsewhere before it was seen.
+      </p>
+      <ul class="rows">
+        {shown.map((r) => (
+          <li key={r.id} class="row">
             <span class="row-main">
               <strong>
-                {c.kind} {c.id.slice(0, 8)}
-              </strong>
-              {c.measured ? ' · a measured value differs' : ''}
-              <br />
-              <span class="hint">
-                fields: {c.fields.join(', ')} · kept the change from {c.kept_device}, the one from {c.other_device} is in the history
-              </span>
+                {r.kind} {r.id.slice(0, 8)}
+              </strong>{' '}
+              from <span class="mono">{r.device}</span> · stamped {new Date(Number(r.rev.slice(0, 15))).toISOString().slice(0, 10)}
             </span>
-            <button
-              type="button"
-              class="btn btn-small btn-quiet"
-              onClick={async () => {
-                await dismissConflict(source, c.id, c.other_rev);
-                app.notifyChanged();
-              }}
-            >
-              Checked
-            </button>
           </li>
         ))}
       </ul>
+      {list.value.length > shown.length ? <p class="hint">and {list.value.length - shown.length} more.</p> : null}
     </section>
   );
 }
