@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'preact/hooks';
-import { logFileName, type LogSelection, type MergePreview } from '../../log';
+import { decodeLogBytes, logFileName, type LogSelection, type MergePreview } from '../../log';
 import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, logCsvFiles, previewImport, saveSyncSettings, sendLog, type ImportPreview, type SyncReport } from '../../sync';
 import { pickFile, shareFile } from '../../sync/page';
 import { useApp } from '../app-context';
@@ -58,7 +58,8 @@ export function SendScreen() {
     try {
       const file = await pickFile();
       if (!file) return;
-      setIncoming(await previewImport(app.store, await file.text()));
+      // The same decoding as the office command: UTF-8 with or without its mark, UTF-16 with one; malformed bytes refused.
+      setIncoming(await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()))));
     } catch (e) {
       setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
     }
