@@ -117,6 +117,9 @@ function schemaError(data: unknown, problem: JsonSchemaProblem): LogFileError {
 /** Code units collected before they become a string: small enough for String.fromCharCode's argument list. */
 const DECODE_CHUNK = 8192;
 
+/** A run of UTF-16 code units as a string (apply takes the typed array as it is; a spread would iterate it). */
+const unitsToString = (units: Uint16Array): string => String.fromCharCode.apply(null, units as unknown as number[]);
+
 function notText(encoding: string, offset: number, bytes: Uint8Array, why: string): LogFileError {
   const shown = Array.from(bytes.subarray(offset, offset + 4), (b) => `0x${b.toString(16).toUpperCase().padStart(2, '0')}`).join(' ');
   return new LogFileError({
@@ -176,11 +179,11 @@ function decodeUtf8(bytes: Uint8Array, start: number): string {
       } else units[n++] = cp;
     }
     if (n >= DECODE_CHUNK) {
-      parts.push(String.fromCharCode(...units.subarray(0, n)));
+      parts.push(unitsToString(units.subarray(0, n)));
       n = 0;
     }
   }
-  parts.push(String.fromCharCode(...units.subarray(0, n)));
+  parts.push(unitsToString(units.subarray(0, n)));
   return parts.join('');
 }
 
@@ -201,16 +204,16 @@ function decodeUtf16(bytes: Uint8Array, littleEndian: boolean): string {
     pendingHigh = isHigh ? i : -1;
     units[n++] = u;
     if (n === DECODE_CHUNK && pendingHigh < 0) {
-      parts.push(String.fromCharCode(...units));
+      parts.push(unitsToString(units));
       n = 0;
     } else if (n === DECODE_CHUNK) {
-      parts.push(String.fromCharCode(...units.subarray(0, n - 1)));
+      parts.push(unitsToString(units.subarray(0, n - 1)));
       units[0] = u;
       n = 1;
     }
   }
   if (pendingHigh >= 0) throw notText(encoding, pendingHigh, bytes, 'is a high surrogate without its low half');
-  parts.push(String.fromCharCode(...units.subarray(0, n)));
+  parts.push(unitsToString(units.subarray(0, n)));
   return parts.join('');
 }
 
