@@ -223,13 +223,24 @@ function decodeUtf16(bytes: Uint8Array, littleEndian: boolean): string {
  * with that byte-order mark (what "Unicode" means in some editors' save dialogs). JSON text begins with ASCII
  * (RFC 8259 §2), so a NUL in its first two bytes means UTF-16 or UTF-32 without a mark: refused by name.
  * Throws LogFileError 'log-not-text' naming the byte offset.
+ *
+ * `strictUtf8`, when given, is the platform's own strict decoder (TextDecoder with fatal: true, ignoreBOM: true),
+ * about five times faster on a large log; it is used for well-formed UTF-8 only: when it refuses, the bytes are
+ * decoded here again to name the offending byte. Both follow the Unicode Standard's table 3-7 (a test compares them).
  */
-export function decodeLogBytes(bytes: Uint8Array): string {
+export function decodeLogBytes(bytes: Uint8Array, strictUtf8?: (bytes: Uint8Array) => string): string {
   if (bytes.length >= 2 && bytes[0] === 0xff && bytes[1] === 0xfe) return decodeUtf16(bytes, true);
   if (bytes.length >= 2 && bytes[0] === 0xfe && bytes[1] === 0xff) return decodeUtf16(bytes, false);
   const start = bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0;
   if (bytes.length - start >= 2 && (bytes[start] === 0 || bytes[start + 1] === 0)) {
     throw notText('UTF-8', start, bytes, 'NUL bytes begin the file: UTF-16 or UTF-32 without a byte-order mark, which is not accepted (save it as UTF-8)');
+  }
+  if (strictUtf8) {
+    try {
+      return strictUtf8(bytes.subarray(start));
+    } catch {
+      // Malformed: decoded below, which names the byte.
+    }
   }
   return decodeUtf8(bytes, start);
 }

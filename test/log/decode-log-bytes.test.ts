@@ -97,4 +97,16 @@ describe('decoding a log file', () => {
     const le = new Uint8Array(Buffer.from(`\ufeff${long}`, 'utf16le'));
     expect(decodeLogBytes(le)).toBe(long);
   });
+
+  it('gives the same text and the same refusals with the platform strict decoder handed in', () => {
+    const native = (bytes: Uint8Array) => new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
+    const withBom = new Uint8Array([0xef, 0xbb, 0xbf, ...new TextEncoder().encode(text)]);
+    expect(decodeLogBytes(withBom, native)).toBe(text);
+    expect(decodeLogBytes(new Uint8Array(Buffer.from(`\ufeff${text}`, 'utf16le')), native)).toBe(text);
+    const bad = new Uint8Array([...new TextEncoder().encode('{"a":"caf'), 0xe9, 0x22, 0x7d]);
+    expect(() => decodeLogBytes(bad, native)).toThrow('the file is not UTF-8 text: at byte 9 (0xE9 0x22 0x7D)');
+    let used = 0;
+    expect(decodeLogBytes(withBom, (b) => (used++, native(b)))).toBe(text);
+    expect(used).toBe(1);
+  });
 });

@@ -58,8 +58,10 @@ export function SendScreen() {
     try {
       const file = await pickFile();
       if (!file) return;
-      // The same decoding as the office command: UTF-8 with or without its mark, UTF-16 with one; malformed bytes refused.
-      setIncoming(await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()))));
+      // The same decoding as the office command: UTF-8 with or without its mark, UTF-16 with one; malformed bytes
+      // refused by offset (file.text() would put U+FFFD in their place). The browser's strict decoder does the work.
+      const strictUtf8 = (bytes: Uint8Array) => new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
+      setIncoming(await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()), strictUtf8)));
     } catch (e) {
       setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
     }
