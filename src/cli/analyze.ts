@@ -6,21 +6,25 @@
  *   npm run --silent analyze -- log.json --csv out/     (writes out/drops.csv and out/series.csv)
  *   npm run --silent analyze -- log.json                (prints every series' results as JSON)
  *
- * Exit status: 0 with the result on stdout; 1 for bad input (unreadable file, invalid JSON,
- * a field out of range: the message names the field, the value and the allowed range);
- * 2 for a fault of our own. The request format is described in src/physics/analysisTypes.ts and
+ * Exit status: 0 with the result on stdout; 1 for bad input or an output it cannot write (the message names the
+ * path or field, the value and what is allowed: an unreadable or non-regular file, one over the size cap of
+ * read-input.ts, text that is not UTF-8/UTF-16 or not JSON, nesting too deep, neither a log nor a request, a field
+ * out of range, an output folder that is a file or cannot be written); 2 for a fault of our own (no stack trace
+ * unless PLUMMET_DEBUG is set). The request format is described in src/physics/analysisTypes.ts and
  * examples/ holds worked requests.
  */
-import { readFileSync } from 'node:fs';
 import { PlummetError } from '../errors';
 import { analyzeSeries, PhysicsInputError, validateAnalysisRequest } from '../physics/index';
 import { LogFileError, readLogFile, seriesInputs } from '../log';
 import { physicsSeriesComputer } from '../analysis';
-import { isLogFile, writeLogCsv } from './log-to-csv';
+import { inputKind, writeLogCsv } from './log-to-csv';
+import { nestedTooDeeply, parseJsonText } from './parse-json';
+import { readInputFile, readInputStream } from './read-input';
 
 const USAGE =
   'usage: npm run --silent analyze -- request.json        (one series analysis request; see examples/)\n' +
-  '       npm run --silent analyze -- log.json [--csv DIR] (an exported log: every series, or its CSV tables in DIR)';
+  '       npm run --silent analyze -- log.json [--csv DIR] (an exported log: every series, or its CSV tables in DIR)\n' +
+  '       a file name of - reads standard input';
 
 export interface CliOutcome {
   exitCode: 0 | 1 | 2;
@@ -28,46 +32,66 @@ export interface CliOutcome {
   stderr: string;
 }
 
+const refused = (stderr: string): CliOutcome => ({ exitCode: 1, stdout: '', stderr });
+
+/** A coded error as the command prints it: its message, then where, what and what is allowed. */
+function report(error: PlummetError, prefix = ''): string {
+  const value = JSON.stringify(error.value) ?? 'undefined';
+  const shownValue = value.length > 80 ? `${value.slice(0, 77)}...` : value;
+  const rule = error instanceof LogFileError ? 'rule' : 'allowed';
+  return `${prefix}${error.message}\n  field: ${error.field ?? '(none)'}\n  value: ${shownValue}\n  ${rule}: ${error.allowed ?? '(none)'}\n  code: ${error.code}\n`;
+}
+
+/** The stack overflows only on input nested deeper than any check walks; said as such, never as a stack trace. */
+const isStackOverflow = (error: unknown) => error instanceof RangeError && /call stack/i.test(error.message);
+
+/** A fault of our own: exit 2 with its message; the stack only when PLUMMET_DEBUG is set. */
+function internal(path: string, error: unknown): CliOutcome {
+  const debug = typeof process !== 'undefined' && Boolean(process.env['PLUMMET_DEBUG']);
+  const reason = error instanceof Error ? (debug ? (error.stack ?? error.message) : `${error.name}: ${error.message}`) : String(error);
+  return { exitCode: 2, stdout: '', stderr: `internal error while analysing ${path}: ${reason}\n(this is a fault of the office command; set PLUMMET_DEBUG=1 for its stack)\n` };
+}
+
 /** The whole command as a function of its arguments and a file reader, so it can be tested without spawning. */
 export function runAnalyze(args: string[], readText: (path: string) => string): CliOutcome {
   const rest = args.filter((a) => a !== '--');
   const csvAt = rest.indexOf('--csv');
   const csvDir = csvAt >= 0 ? rest[csvAt + 1] : undefined;
-  if (csvAt >= 0 && (!csvDir || csvDir.startsWith('--'))) return { exitCode: 1, stdout: '', stderr: `--csv needs a folder to write to\n${USAGE}\n` };
+  if (csvAt >= 0 && (!csvDir || csvDir.startsWith('--'))) return refused(`--csv needs a folder to write to\n${USAGE}\n`);
   const files = csvAt >= 0 ? rest.filter((_, i) => i !== csvAt && i !== csvAt + 1) : rest;
   if (files.length !== 1 || files[0] === '--help' || files[0] === '-h') {
     return { exitCode: files[0] === '--help' || files[0] === '-h' ? 0 : 1, stdout: '', stderr: `${USAGE}\n` };
   }
-  const path = files[0]!;
+  const file = files[0]!;
+  const path = file === '-' ? '(standard input)' : file;
   let text: string;
   try {
-    text = readText(path);
+    text = readText(file);
   } catch (error) {
+    if (error instanceof PlummetError) return refused(report(error, error.code.startsWith('log-') ? `${path}: ` : ''));
     const reason = error instanceof Error ? error.message : String(error);
-    return { exitCode: 1, stdout: '', stderr: `cannot read ${path}: ${reason}\n` };
+    return refused(`cannot read ${path}: ${reason}\n`);
   }
   let json: unknown;
   try {
-    json = JSON.parse(text);
+    json = parseJsonText(path, text);
   } catch (error) {
-    const reason = error instanceof Error ? error.message : String(error);
-    return { exitCode: 1, stdout: '', stderr: `${path} is not valid JSON: ${reason}\n` };
+    if (error instanceof PlummetError) return refused(report(error));
+    return internal(path, error);
   }
-  if (isLogFile(json)) return analyzeLog(path, text, csvDir);
-  if (csvDir !== undefined) return { exitCode: 1, stdout: '', stderr: `${path} is a single-series request: --csv needs an exported log file\n` };
+  const kind = inputKind(json);
+  if (kind.kind === 'log') return analyzeLog(path, text, csvDir);
+  if (kind.kind === 'neither') return refused(`${path} is not a Plummet log file nor a series request: ${kind.why}\n`);
+  if (csvDir !== undefined) return refused(`${path} is a series request: --csv needs an exported log file\n`);
   try {
     const result = analyzeSeries(validateAnalysisRequest(json));
     return { exitCode: 0, stdout: `${JSON.stringify(result, null, 2)}\n`, stderr: '' };
   } catch (error) {
     if (error instanceof PhysicsInputError) {
-      return {
-        exitCode: 1,
-        stdout: '',
-        stderr: `${path}: ${error.message}\n  field: ${error.field}\n  value: ${JSON.stringify(error.value) ?? 'undefined'}\n  allowed: ${error.allowed}\n  code: ${error.code}\n`,
-      };
+      return refused(`${path}: ${error.message}\n  field: ${error.field}\n  value: ${JSON.stringify(error.value) ?? 'undefined'}\n  allowed: ${error.allowed}\n  code: ${error.code}\n`);
     }
-    const reason = error instanceof Error ? (error.stack ?? error.message) : String(error);
-    return { exitCode: 2, stdout: '', stderr: `internal error while analysing ${path}: ${reason}\n` };
+    if (isStackOverflow(error)) return refused(report(nestedTooDeeply(path, null)));
+    return internal(path, error);
   }
 }
 
@@ -92,22 +116,27 @@ function analyzeLog(path: string, text: string, csvDir: string | undefined): Cli
     });
     return { exitCode: 0, stdout: `${JSON.stringify({ device: file.device, series: results }, null, 2)}\n`, stderr: '' };
   } catch (error) {
-    if (error instanceof LogFileError) {
-      return {
-        exitCode: 1,
-        stdout: '',
-        stderr: `${path}: ${error.message}\n  field: ${error.field}\n  value: ${JSON.stringify(error.value) ?? 'undefined'}\n  rule: ${error.rule}\n  code: ${error.code}\n`,
-      };
-    }
-    const reason = error instanceof Error ? (error.stack ?? error.message) : String(error);
-    return { exitCode: 2, stdout: '', stderr: `internal error while analysing ${path}: ${reason}\n` };
+    if (error instanceof LogFileError) return refused(report(error, `${path}: `));
+    // The output folder refused (a file in the way, no permission, a read-only place).
+    if (error instanceof PlummetError) return refused(report(error));
+    if (isStackOverflow(error)) return refused(report(nestedTooDeeply(path, null)));
+    return internal(path, error);
   }
 }
 
 const isMain = process.argv[1] !== undefined && /analyze\.ts$/.test(process.argv[1]);
 if (isMain) {
-  const outcome = runAnalyze(process.argv.slice(2), (path) => readFileSync(path, 'utf8'));
-  if (outcome.stdout) process.stdout.write(outcome.stdout);
-  if (outcome.stderr) process.stderr.write(outcome.stderr);
-  process.exitCode = outcome.exitCode;
+  const args = process.argv.slice(2);
+  // Standard input is read before the command runs (its size is known only while reading: capped as it comes).
+  const stdin = args.includes('-') ? readInputStream(process.stdin).then((text) => ({ text }), (error: unknown) => ({ error })) : Promise.resolve(null);
+  void stdin.then((piped) => {
+    const outcome = runAnalyze(args, (path) => {
+      if (path !== '-') return readInputFile(path);
+      if (piped && 'error' in piped) throw piped.error;
+      return piped?.text ?? '';
+    });
+    if (outcome.stdout) process.stdout.write(outcome.stdout);
+    if (outcome.stderr) process.stderr.write(outcome.stderr);
+    process.exitCode = outcome.exitCode;
+  });
 }

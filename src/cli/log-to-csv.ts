@@ -7,9 +7,8 @@
  * with the computation handed in, and writes both tables (RFC 4180, UTF-8 with a byte order mark, CRLF).
  * `physicsSeriesComputer` (src/analysis/series-computer.ts) is that computation built on the physics' analyzeSeries.
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { LOG_FORMAT, logCsv, readLogFile, seriesInputs, type ComputeSeries, type LogFile, type SeriesResult } from '../log';
+import { writeOutputFiles } from './write-output';
 
 // The computation over the physics lives in src/analysis, so the screens and the office compute alike.
 export { physicsSeriesComputer, seriesComputer, seriesRequest, seriesResultOf } from '../analysis';
@@ -26,6 +25,32 @@ export interface LogCsvSummary {
 /** True when parsed JSON is a Plummet log file (rather than a single-series analysis request). */
 export function isLogFile(json: unknown): boolean {
   return typeof json === 'object' && json !== null && (json as { format?: unknown }).format === LOG_FORMAT;
+}
+
+/** The keys every single-series analysis request has (src/physics/analysisTypes.ts). */
+export const REQUEST_KEYS = ['site', 'air', 'specimen', 'drops', 'timing'] as const;
+
+/**
+ * What a parsed JSON file is meant to be: a log (it has a "format" field: readLogFile then says whether it is
+ * ours and which version), a series request (it has a request's keys), or neither, with why.
+ */
+export function inputKind(json: unknown): { kind: 'log' } | { kind: 'request' } | { kind: 'neither'; why: string } {
+  if (typeof json !== 'object' || json === null || Array.isArray(json)) {
+    const what = json === null ? 'null' : Array.isArray(json) ? 'an array' : `a ${typeof json}`;
+    return { kind: 'neither', why: `it is ${what}, and both are JSON objects` };
+  }
+  if (Object.hasOwn(json, 'format')) return { kind: 'log' };
+  const has = REQUEST_KEYS.filter((k) => Object.hasOwn(json, k));
+  if (has.length === REQUEST_KEYS.length) return { kind: 'request' };
+  const keys = Object.keys(json);
+  const shown = keys.slice(0, 8).map((k) => JSON.stringify(k.length > 30 ? `${k.slice(0, 27)}...` : k)).join(', ') + (keys.length > 8 ? `, and ${keys.length - 8} more` : '');
+  return {
+    kind: 'neither',
+    why:
+      `a log has "format": "${LOG_FORMAT}", a request has ${REQUEST_KEYS.join(', ')}; ` +
+      (keys.length === 0 ? 'this object is empty' : `this one has ${shown}`) +
+      (has.length > 0 ? ` (a request would also need ${REQUEST_KEYS.filter((k) => !has.includes(k)).join(', ')})` : ''),
+  };
 }
 
 /**
@@ -47,11 +72,11 @@ export function writeLogCsv(logJson: string | LogFile, outDir: string, computeSe
     return result;
   };
   const tables = logCsv(file.records, recording);
-  mkdirSync(outDir, { recursive: true });
-  const drops_csv = join(outDir, 'drops.csv');
-  const series_csv = join(outDir, 'series.csv');
-  writeFileSync(drops_csv, tables.drops);
-  writeFileSync(series_csv, tables.series);
+  // Never through a symbolic link planted in the folder, and both tables or neither (see write-output.ts).
+  const [drops_csv, series_csv] = writeOutputFiles(outDir, [
+    { name: 'drops.csv', content: tables.drops },
+    { name: 'series.csv', content: tables.series },
+  ]) as [string, string];
   const inputs = seriesInputs(file.records);
   return { drops_csv, series_csv, series: inputs.length, drops: inputs.reduce((n, i) => n + i.allDrops.length, 0), failed };
 }

@@ -14,6 +14,7 @@ import { upgradeLogFile } from './upgrade-export';
 import type { LogRecord } from './types';
 
 export type LogFileErrorCode =
+  | 'log-not-text'
   | 'log-not-json'
   | 'log-not-a-log'
   | 'log-format-too-new'
@@ -116,6 +117,137 @@ function schemaError(data: unknown, problem: JsonSchemaProblem): LogFileError {
   const label = `${field}${recordLabel(data, parts)}`;
   const message = value === undefined ? `${label} is missing; it is required` : `${label} is ${show(value)}: ${rule}`;
   return new LogFileError({ code: 'log-schema', field, value, allowed: rule, message });
+}
+
+/** Code units collected before they become a string: small enough for String.fromCharCode's argument list. */
+const DECODE_CHUNK = 8192;
+
+/** A run of UTF-16 code units as a string (apply takes the typed array as it is; a spread would iterate it). */
+const unitsToString = (units: Uint16Array): string => String.fromCharCode.apply(null, units as unknown as number[]);
+
+function notText(encoding: string, offset: number, bytes: Uint8Array, why: string): LogFileError {
+  const shown = Array.from(bytes.subarray(offset, offset + 4), (b) => `0x${b.toString(16).toUpperCase().padStart(2, '0')}`).join(' ');
+  return new LogFileError({
+    code: 'log-not-text',
+    field: '(file)',
+    value: `byte ${offset}: ${shown || 'end of file'}`,
+    allowed: 'UTF-8 (with or without a byte-order mark), or UTF-16 LE/BE with a byte-order mark',
+    message: `the file is not ${encoding} text: at byte ${offset} (${shown || 'end of file'}) ${why}; a Plummet log is UTF-8 text (a byte-order mark, or UTF-16 with one, is accepted too)`,
+  });
+}
+
+/**
+ * UTF-8 to a string, refusing what is not well-formed (the Unicode Standard, ch. 3, table 3-7: no overlong forms,
+ * no surrogates, nothing above U+10FFFF) rather than putting U+FFFD in a measurement's text in silence.
+ * Written out because the pure core has no TextDecoder.
+ */
+function decodeUtf8(bytes: Uint8Array, start: number): string {
+  const parts: string[] = [];
+  const units = new Uint16Array(DECODE_CHUNK + 2);
+  let n = 0;
+  let i = start;
+  while (i < bytes.length) {
+    const c = bytes[i]!;
+    if (c < 0x80) {
+      units[n++] = c;
+      i++;
+    } else {
+      let need: number;
+      let cp: number;
+      let lo = 0x80;
+      let hi = 0xbf;
+      if (c >= 0xc2 && c <= 0xdf) (need = 1), (cp = c & 0x1f);
+      else if (c >= 0xe0 && c <= 0xef) {
+        need = 2;
+        cp = c & 0x0f;
+        if (c === 0xe0) lo = 0xa0;
+        if (c === 0xed) hi = 0x9f;
+      } else if (c >= 0xf0 && c <= 0xf4) {
+        need = 3;
+        cp = c & 0x07;
+        if (c === 0xf0) lo = 0x90;
+        if (c === 0xf4) hi = 0x8f;
+      } else throw notText('UTF-8', i, bytes, 'is a byte that cannot start a UTF-8 sequence');
+      if (i + need >= bytes.length) throw notText('UTF-8', i, bytes, 'a UTF-8 sequence is cut off by the end of the file');
+      for (let k = 1; k <= need; k++) {
+        const x = bytes[i + k]!;
+        if (x < lo || x > hi) throw notText('UTF-8', i, bytes, 'is not a well-formed UTF-8 sequence');
+        lo = 0x80;
+        hi = 0xbf;
+        cp = (cp << 6) | (x & 0x3f);
+      }
+      i += need + 1;
+      if (cp >= 0x10000) {
+        cp -= 0x10000;
+        units[n++] = 0xd800 + (cp >> 10);
+        units[n++] = 0xdc00 + (cp & 0x3ff);
+      } else units[n++] = cp;
+    }
+    if (n >= DECODE_CHUNK) {
+      parts.push(unitsToString(units.subarray(0, n)));
+      n = 0;
+    }
+  }
+  parts.push(unitsToString(units.subarray(0, n)));
+  return parts.join('');
+}
+
+/** UTF-16 after its byte-order mark; an unpaired surrogate is refused like malformed UTF-8. */
+function decodeUtf16(bytes: Uint8Array, littleEndian: boolean): string {
+  const encoding = littleEndian ? 'UTF-16LE' : 'UTF-16BE';
+  if (bytes.length % 2 !== 0) throw notText(encoding, bytes.length - 1, bytes, 'the file ends in the middle of a UTF-16 code unit');
+  const parts: string[] = [];
+  const units = new Uint16Array(DECODE_CHUNK);
+  let n = 0;
+  let pendingHigh = -1;
+  for (let i = 2; i < bytes.length; i += 2) {
+    const u = littleEndian ? bytes[i]! | (bytes[i + 1]! << 8) : (bytes[i]! << 8) | bytes[i + 1]!;
+    const isHigh = u >= 0xd800 && u <= 0xdbff;
+    const isLow = u >= 0xdc00 && u <= 0xdfff;
+    if (pendingHigh >= 0 && !isLow) throw notText(encoding, pendingHigh, bytes, 'is a high surrogate without its low half');
+    if (isLow && pendingHigh < 0) throw notText(encoding, i, bytes, 'is a low surrogate without its high half');
+    pendingHigh = isHigh ? i : -1;
+    units[n++] = u;
+    if (n === DECODE_CHUNK && pendingHigh < 0) {
+      parts.push(unitsToString(units));
+      n = 0;
+    } else if (n === DECODE_CHUNK) {
+      parts.push(unitsToString(units.subarray(0, n - 1)));
+      units[0] = u;
+      n = 1;
+    }
+  }
+  if (pendingHigh >= 0) throw notText(encoding, pendingHigh, bytes, 'is a high surrogate without its low half');
+  parts.push(unitsToString(units.subarray(0, n)));
+  return parts.join('');
+}
+
+/**
+ * A log file's bytes as text, the one decoding used by the phone's import and the office command: UTF-8, with
+ * its byte-order mark dropped if it has one (an editor on Windows adds it), or UTF-16 LE/BE when the file starts
+ * with that byte-order mark (what "Unicode" means in some editors' save dialogs). JSON text begins with ASCII
+ * (RFC 8259 §2), so a NUL in its first two bytes means UTF-16 or UTF-32 without a mark: refused by name.
+ * Throws LogFileError 'log-not-text' naming the byte offset.
+ *
+ * `strictUtf8`, when given, is the platform's own strict decoder (TextDecoder with fatal: true, ignoreBOM: true),
+ * about five times faster on a large log; it is used for well-formed UTF-8 only: when it refuses, the bytes are
+ * decoded here again to name the offending byte. Both follow the Unicode Standard's table 3-7 (a test compares them).
+ */
+export function decodeLogBytes(bytes: Uint8Array, strictUtf8?: (bytes: Uint8Array) => string): string {
+  if (bytes.length >= 2 && bytes[0] === 0xff && bytes[1] === 0xfe) return decodeUtf16(bytes, true);
+  if (bytes.length >= 2 && bytes[0] === 0xfe && bytes[1] === 0xff) return decodeUtf16(bytes, false);
+  const start = bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0;
+  if (bytes.length - start >= 2 && (bytes[start] === 0 || bytes[start + 1] === 0)) {
+    throw notText('UTF-8', start, bytes, 'NUL bytes begin the file: UTF-16 or UTF-32 without a byte-order mark, which is not accepted (save it as UTF-8)');
+  }
+  if (strictUtf8) {
+    try {
+      return strictUtf8(bytes.subarray(start));
+    } catch {
+      // Malformed: decoded below, which names the byte.
+    }
+  }
+  return decodeUtf8(bytes, start);
 }
 
 /**

@@ -143,6 +143,38 @@ export interface CheckedSpecimen {
   reference_drag_coefficient: number | null;
 }
 
+/** The smallest positive normal double (IEEE 754-2019 binary64; Number.MIN_VALUE, 5e-324, is subnormal). */
+const MIN_NORMAL = 2.2250738585072014e-308;
+
+/**
+ * A dimension that is above 0 can still give a frontal area or a Reynolds length that underflows to 0 or to a
+ * subnormal number (a diameter of 5e-324 m squares to 0), where the drag laws divide by zero. Refused by the
+ * field that caused it, with the range it must be in.
+ */
+function checkRepresentable(
+  geometry: SpecimenGeometry,
+  shape: SpecimenShape,
+  field: string,
+  names: readonly string[],
+  dims: readonly number[],
+  characteristic: number | undefined,
+): void {
+  const lengthBad = !(geometry.characteristic_length_m >= MIN_NORMAL);
+  if (!(geometry.area_m2 >= MIN_NORMAL) || lengthBad) {
+    const byCharacteristic = lengthBad && characteristic !== undefined;
+    const name = byCharacteristic ? 'characteristic_length_m' : names[dims.indexOf(Math.min(...dims))]!;
+    const value = byCharacteristic ? characteristic : dims[names.indexOf(name)];
+    const range = name === 'area_m2' ? SPECIMEN_LIMITS.area_m2 : SPECIMEN_LIMITS.length;
+    throw new PhysicsInputError({
+      code: 'out-of-range',
+      field: `${field}.${name}`,
+      value,
+      allowed: `${range.text}, large enough that the ${shape}'s frontal area and Reynolds length are normal numbers (at least ${MIN_NORMAL} m² and m)`,
+      reason: 'too small to compute with: its frontal area or Reynolds length underflows',
+    });
+  }
+}
+
 /** Validate a specimen (untrusted shape) and derive its geometry. */
 export function checkSpecimen(specimen: unknown, field = 'specimen'): CheckedSpecimen {
   if (typeof specimen !== 'object' || specimen === null || Array.isArray(specimen)) {
@@ -182,12 +214,14 @@ export function checkSpecimen(specimen: unknown, field = 'specimen'): CheckedSpe
   const reference =
     checkOptionalNumber(`${field}.reference_drag_coefficient`, s['reference_drag_coefficient'], SPECIMEN_LIMITS.reference_drag_coefficient) ??
     null;
+  const geometry = geometryFromDimensions(typedShape, dims, characteristic);
+  checkRepresentable(geometry, typedShape, field, names, dims, characteristic);
   return {
     input: specimen as SpecimenInput,
     mass_kg: mass,
     dimensions: dims,
     dimension_names: names,
-    geometry: geometryFromDimensions(typedShape, dims, characteristic),
+    geometry,
     reference_drag_coefficient: reference,
   };
 }

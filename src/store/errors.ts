@@ -10,6 +10,8 @@ export type StoreErrorCode =
   | 'reference-missing'
   /** A record that live records still point at cannot be deleted. */
   | 'record-in-use'
+  /** The record changed (another tab, a sync) since the form that edits it was opened: "changed elsewhere: reload". */
+  | 'changed-elsewhere'
   /** The store was closed: by close(), by a newer version of the app in another tab, or by the browser. */
   | 'store-closed'
   /** The database on this phone was written by a newer version of the app than the one running. */

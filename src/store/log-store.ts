@@ -10,6 +10,7 @@ import type {
   LogAction,
   MetaKey,
   MetaValues,
+  ReviseOptions,
   StoreStatus,
   WriteOptions,
 } from './types';
@@ -23,8 +24,11 @@ export interface LogStore {
   /** One day with everything needed to show it; 'not-found' when there is no such day or it is deleted. */
   loadDay(dayId: string): Promise<DayView>;
 
+  /** A drop's `seq` is the one asked for or, if a live drop of its series already has it or a higher one, the next
+   *  after the highest: derived inside the write, so two tabs adding to one series never give one number twice. */
   create<K extends RecordKind>(kind: K, body: BodyOf[K], options?: WriteOptions & { id?: string }): Promise<RecordOf[K]>;
-  revise<K extends RecordKind>(kind: K, id: string, patch: Partial<BodyOf[K]>, reason?: string | null, options?: WriteOptions): Promise<RecordOf[K]>;
+  /** With `expectedRev`, refused ('changed-elsewhere') when the record is no longer at that revision. */
+  revise<K extends RecordKind>(kind: K, id: string, patch: Partial<BodyOf[K]>, reason?: string | null, options?: ReviseOptions): Promise<RecordOf[K]>;
   /** Leaves a tombstone. Removing a day or a series removes what is inside it in the same transaction. */
   remove<K extends RecordKind>(kind: K, id: string, reason: string, options?: WriteOptions): Promise<RecordOf[K]>;
   /** Several steps of one user action in one transaction: all are written or none. Returns what was written. */

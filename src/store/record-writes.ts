@@ -33,8 +33,31 @@ import type { LogAction, WriteOptions } from './types';
  */
 type Step =
   | { op: 'create'; kind: RecordKind; body: BodyOf[RecordKind]; id?: string | undefined }
-  | { op: 'revise'; kind: RecordKind; id: string; patch: Partial<BodyOf[RecordKind]>; reason?: string | null }
+  | { op: 'revise'; kind: RecordKind; id: string; patch: Partial<BodyOf[RecordKind]>; reason?: string | null; expectedRev?: string | undefined }
   | { op: 'remove'; kind: RecordKind; id: string; reason: string };
+
+/**
+ * A new drop's number, read from the drops stored (and staged by this action) inside the write transaction, not
+ * from the form's view: two tabs that both show "drop 6" get 6 and 7. The number asked for is kept when no live
+ * drop of the series has it or a higher one.
+ */
+async function withFreeSeq(body: BodyOf['drop'], staging: Staging): Promise<BodyOf['drop']> {
+  // A number the record check refuses stays as it is, to be refused with its own message.
+  if (!Number.isInteger(body.seq) || body.seq < 1 || typeof body.series_id !== 'string') return body;
+  const drops = await staging.referrers('drop', 'by_series', body.series_id, (d) => d.series_id);
+  const highest = drops.reduce((m, d) => Math.max(m, d.seq), 0);
+  return body.seq > highest ? body : { ...body, seq: highest + 1 };
+}
+
+function changedElsewhere(current: LogRecord, expectedRev: string): StoreError {
+  return new StoreError({
+    code: 'changed-elsewhere',
+    field: 'rev',
+    value: current.rev,
+    allowed: `the revision the form was opened with (${expectedRev})`,
+    message: `changed elsewhere: reload. This ${current.kind} was changed (in another tab, or by a sync or an import) after the form was opened; nothing was saved. Reload it and make the change again.`,
+  });
+}
 
 export function recordWrites(
   ctx: StoreContext,
@@ -52,7 +75,8 @@ export function recordWrites(
       const staging = new Staging(tx);
       for (const step of steps) {
         if (step.op === 'create') {
-          const record = createRecord(step.kind, step.body, { ...recordCtx, id: step.id });
+          const body = step.kind === 'drop' ? await withFreeSeq(step.body as BodyOf['drop'], staging) : step.body;
+          const record = createRecord(step.kind, body, { ...recordCtx, id: step.id });
           const [existing, referenceError] = await Promise.all([
             staging.lookup(record.kind, record.id),
             checkReferences(record, undefined, staging).then(
@@ -68,6 +92,7 @@ export function recordWrites(
         const current = await staging.lookup(step.kind, step.id);
         if (!current) throw new StoreError({ code: 'not-found', field: null, value: step.id, allowed: null, message: `no ${step.kind} ${step.id}` });
         if (step.op === 'revise') {
+          if (step.expectedRev !== undefined && current.rev !== step.expectedRev) throw changedElsewhere(current, step.expectedRev);
           const next = reviseRecord(current, step.patch, { ...recordCtx, reason: step.reason ?? null });
           if (next === current) continue;
           await checkReferences(next, current, staging);
@@ -120,7 +145,7 @@ export function recordWrites(
     },
 
     async revise(kind, id, patch, reason = null, options = {}) {
-      return resultOf(await runSteps([{ op: 'revise', kind, id, patch, reason }], options), kind, id);
+      return resultOf(await runSteps([{ op: 'revise', kind, id, patch, reason, expectedRev: options.expectedRev }], options), kind, id);
     },
 
     async remove(kind, id, reason, options = {}) {

@@ -48,7 +48,7 @@ export interface DaySummary {
 }
 
 type CreateAction<K extends RecordKind> = { op: 'create'; kind: K; body: BodyOf[K]; id?: string };
-type ReviseAction<K extends RecordKind> = { op: 'revise'; kind: K; id: string; patch: Partial<BodyOf[K]>; reason?: string | null };
+type ReviseAction<K extends RecordKind> = { op: 'revise'; kind: K; id: string; patch: Partial<BodyOf[K]>; reason?: string | null; expectedRev?: string };
 type RemoveAction<K extends RecordKind> = { op: 'remove'; kind: K; id: string; reason: string };
 
 /** One step of a user action; commit() applies a list of them in one transaction. */
@@ -59,6 +59,14 @@ export type LogAction = {
 export interface WriteOptions {
   /** Delete this draft in the same transaction: if the save fails, the draft stays. */
   clearDraft?: string;
+}
+
+export interface ReviseOptions extends WriteOptions {
+  /**
+   * The record's `rev` when the form was opened. Compared inside the write: if the record changed since (another
+   * tab, a sync, an import), the revision is refused with StoreError 'changed-elsewhere' and nothing is written.
+   */
+  expectedRev?: string;
 }
 
 export interface DraftEntry<T = unknown> {

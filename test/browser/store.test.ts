@@ -45,6 +45,30 @@ describe.skipIf(!haveChromium)('the log store in Chromium', () => {
   const allRecords = (page: Page) => ok(page.evaluate(() => window.store.call('allRecords')));
   const freshName = () => `plummet-browser-${++n}-${Date.now()}`;
 
+  it('gives two tabs saving a drop to one series at once two numbers, and refuses an edit from a stale form', async () => {
+    const name = freshName();
+    const a = await openPage(name);
+    const seeded = await ok(a.evaluate(() => window.store.seedDay('2026-06-21', 3)));
+    const b = await openPage(name);
+    type Rec = Record<string, unknown> & { kind: string; id: string; rev: string; seq?: number; series_id?: string };
+    const drop = ((await allRecords(a)) as Rec[]).find((r) => r.kind === 'drop' && r.series_id === seeded.seriesId)!;
+    const { id: _id, kind: _kind, created_at: _c, updated_at: _u, rev: _r, device: _d, deleted: _x, history: _h, ...body } = drop;
+    // Both tabs' forms show "drop 4" and both save at once.
+    const both = [a, b].map((page) => ok(page.evaluate((body) => window.store.call('create', 'drop', body), { ...body, seq: 4 })));
+    const saved = (await Promise.all(both)) as Rec[];
+    expect(saved.map((d) => d.seq).sort()).toEqual([4, 5]);
+
+    const specimen = (await ok(a.evaluate((id) => window.store.call('get', 'specimen', id), seeded.specimenId))) as Rec;
+    await ok(b.evaluate(([id, rev]) => window.store.call('revise', 'specimen', id, { name: 'Renamed in tab B' }, null, { expectedRev: rev }), [specimen.id, specimen.rev]));
+    const stale = await a.evaluate(([id, rev]) => window.store.call('revise', 'specimen', id, { notes: 'typed in tab A' }, null, { expectedRev: rev }), [specimen.id, specimen.rev]);
+    expect(stale).toMatchObject({ ok: false, code: 'changed-elsewhere' });
+    expect(stale.ok ? '' : stale.message).toMatch(/^changed elsewhere: reload/);
+    const now = (await ok(a.evaluate((id) => window.store.call('get', 'specimen', id), seeded.specimenId))) as Rec;
+    expect(now).toMatchObject({ name: 'Renamed in tab B', notes: specimen['notes'] });
+    await a.close();
+    await b.close();
+  });
+
   it('keeps a day, its series and its drops through a reload', async () => {
     const name = freshName();
     const page = await openPage(name);

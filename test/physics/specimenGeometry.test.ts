@@ -71,3 +71,37 @@ describe('checkSpecimen', () => {
     expect(() => checkSpecimen({ shape: 'sphere', mass_kg: 0.1, diameter_m: 0.05, reference_drag_coefficient: -1 })).toThrow(PhysicsInputError);
   });
 });
+
+describe('a dimension too small to compute with', () => {
+  // The smallest positive normal binary64 is 2^-1022 ≈ 2.2250738585072014e-308 (IEEE 754-2019, §3.4); 5e-324 is the
+  // smallest subnormal (Number.MIN_VALUE, ECMAScript 2023 §21.1.2.8).
+  const refusal = (specimen: unknown) => {
+    try {
+      checkSpecimen(specimen);
+    } catch (error) {
+      expect(error).toBeInstanceOf(PhysicsInputError);
+      const e = error as PhysicsInputError;
+      return { code: e.code, field: e.field, value: e.value };
+    }
+    return null;
+  };
+
+  it('refuses a denormal diameter, naming the field, the value and the range', () => {
+    expect(refusal({ shape: 'sphere', mass_kg: 0.1, diameter_m: 5e-324 })).toEqual({ code: 'out-of-range', field: 'specimen.diameter_m', value: 5e-324 });
+    expect(() => checkSpecimen({ shape: 'sphere', mass_kg: 0.1, diameter_m: 5e-324 })).toThrow(/allowed: above 0 and at most 10 m, large enough/);
+  });
+
+  it('refuses a diameter whose frontal area underflows, and names the smallest side of a box', () => {
+    expect(refusal({ shape: 'sphere', mass_kg: 0.1, diameter_m: 1e-160 })).toMatchObject({ field: 'specimen.diameter_m' });
+    expect(refusal({ shape: 'box', mass_kg: 0.1, length_m: 0.1, width_m: 1e-310, thickness_m: 0.1 })).toMatchObject({ field: 'specimen.width_m' });
+    expect(refusal({ shape: 'custom', mass_kg: 0.1, area_m2: 0.01, volume_m3: 0, characteristic_length_m: 5e-324 })).toMatchObject({
+      field: 'specimen.characteristic_length_m',
+    });
+  });
+
+  it('still takes every size the log stores down to its smallest edge tried (1e-9 m)', () => {
+    expect(refusal({ shape: 'sphere', mass_kg: 0.1, diameter_m: 1e-9 })).toBeNull();
+    expect(refusal({ shape: 'sphere', mass_kg: 0.1, diameter_m: 1e-150 })).toBeNull();
+    expect(refusal({ shape: 'custom', mass_kg: 0.1, area_m2: 0.01, volume_m3: 5e-324 })).toBeNull();
+  });
+});

@@ -466,6 +466,75 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
       });
     });
 
+    describe('two tabs on one log', () => {
+      /** A day with one series of three drops (seq 1 to 3). */
+      async function seriesWithThreeDrops() {
+        const { day, specimen } = await seedDay(store);
+        const { seriesId, actions } = seriesActions(store, day.id, specimen.id, [1.1, 1.2, 1.3]);
+        await store.commit(actions);
+        return seriesId;
+      }
+      const dropTo = (seriesId: string, seq: number): DropBody => ({ ...demo.drop(seq), series_id: seriesId, time_s: 1.25 });
+      const seqsOf = async (s: LogStore, seriesId: string) =>
+        (await s.list('drop')).filter((d) => d.series_id === seriesId).map((d) => d.seq).sort((a, b) => a - b);
+
+      it('gives two tabs adding a drop to one series at once two numbers, whatever their forms showed', async () => {
+        const seriesId = await seriesWithThreeDrops();
+        const other = await subject.openAnother();
+        // Both forms show "drop 4" (their view of the series), and both save at the same moment.
+        const [a, b] = await Promise.all([store.create('drop', dropTo(seriesId, 4)), other.create('drop', dropTo(seriesId, 4))]);
+        expect([a.seq, b.seq].sort()).toEqual([4, 5]);
+        expect(await seqsOf(store, seriesId)).toEqual([1, 2, 3, 4, 5]);
+        // A form opened before both saves, still showing "drop 4", gets the next number too.
+        expect((await other.create('drop', dropTo(seriesId, 4))).seq).toBe(6);
+        other.close();
+      });
+
+      it('keeps the number asked for when it is free, and numbers each series on its own', async () => {
+        const seriesId = await seriesWithThreeDrops();
+        expect((await store.create('drop', dropTo(seriesId, 9))).seq).toBe(9);
+        expect((await store.create('drop', dropTo(seriesId, 2))).seq).toBe(10);
+        const { day, specimen } = await seedDay(store, '2026-06-15');
+        const { seriesId: otherSeries, actions } = seriesActions(store, day.id, specimen.id, [1.1]);
+        await store.commit(actions);
+        expect((await store.create('drop', dropTo(otherSeries, 2))).seq).toBe(2);
+      });
+
+      it('refuses an edit made from a form opened before the record changed in another tab, and writes nothing', async () => {
+        const specimen = await store.create('specimen', demo.steelBall());
+        const other = await subject.openAnother();
+        const openedWith = specimen.rev;
+        // The other tab renames it while this tab's form is open.
+        const renamed = await other.revise('specimen', specimen.id, { name: 'Renamed elsewhere' }, null, { expectedRev: openedWith });
+        const attempt = store.revise('specimen', specimen.id, { name: specimen.name, notes: 'typed here' }, null, { expectedRev: openedWith });
+        await expect(attempt).rejects.toThrow(/^changed elsewhere: reload/);
+        await expect(attempt.catch((e: StoreError) => ({ code: e.code, field: e.field, value: e.value }))).resolves.toEqual({
+          code: 'changed-elsewhere',
+          field: 'rev',
+          value: renamed.rev,
+        });
+        expect(await store.get('specimen', specimen.id)).toEqual(renamed);
+        // Reopened with the record as it now is, the same edit goes through.
+        const saved = await store.revise('specimen', specimen.id, { notes: 'typed here' }, null, { expectedRev: renamed.rev });
+        expect(saved).toMatchObject({ name: 'Renamed elsewhere', notes: 'typed here' });
+        other.close();
+      });
+
+      it('refuses a whole action when one of its revisions is stale', async () => {
+        const specimen = await store.create('specimen', demo.steelBall());
+        const site = await store.create('site', demo.site());
+        const stale = specimen.rev;
+        await store.revise('specimen', specimen.id, { name: 'Changed' });
+        const before = await store.allRecords();
+        const attempt = store.commit([
+          { op: 'revise', kind: 'site', id: site.id, patch: { name: 'New site name' }, expectedRev: site.rev },
+          { op: 'revise', kind: 'specimen', id: specimen.id, patch: { notes: 'x' }, expectedRev: stale },
+        ]);
+        expect(await codeOf(attempt)).toBe('changed-elsewhere');
+        expect(await store.allRecords()).toEqual(before);
+      });
+    });
+
     describe('drafts', () => {
       it('stores, returns and deletes a draft with the time it was saved', async () => {
         expect(await store.getDraft('reading-form')).toBeUndefined();

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'preact/hooks';
-import { logFileName, recordsFromClockAhead, type Conflict, type LogSelection, type MergePreview } from '../../log';
+import { decodeLogBytes, logFileName, recordsFromClockAhead, type Conflict, type LogSelection, type MergePreview } from '../../log';
 import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, logCsvFiles, previewImport, saveSyncSettings, sendLog, type ImportPreview, type SyncReport } from '../../sync';
 import { pickFile, shareFile } from '../../sync/page';
 import { useApp } from '../app-context';
@@ -58,7 +58,10 @@ export function SendScreen() {
     try {
       const file = await pickFile();
       if (!file) return;
-      setIncoming(await previewImport(app.store, await file.text(), file.name));
+      // The same decoding as the office command: UTF-8 with or without its mark, UTF-16 with one; malformed bytes
+      // refused by offset (file.text() would put U+FFFD in their place). The browser's strict decoder does the work.
+      const strictUtf8 = (bytes: Uint8Array) => new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
+      setIncoming(await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()), strictUtf8), file.name));
     } catch (e) {
       setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
     }

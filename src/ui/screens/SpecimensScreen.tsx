@@ -89,6 +89,8 @@ interface SpecimenDraft {
   referenceCd: FieldState;
   notes: string;
   reason: string;
+  /** The record's rev when this form was opened: a save is refused if the record changed since (another tab, a sync). */
+  openedRev?: string | null;
 }
 
 function draftFrom(s: SpecimenRecord | null): SpecimenDraft {
@@ -112,6 +114,7 @@ function draftFrom(s: SpecimenRecord | null): SpecimenDraft {
     referenceCd: { value: null, error: null },
     notes: '',
     reason: '',
+    openedRev: s?.rev ?? null,
   };
   if (!s) return base;
   const sh = s.shape;
@@ -157,11 +160,14 @@ function SpecimenEditor({ id }: { id: string | null }) {
   return <SpecimenForm record={existing.value} key={id ?? 'new'} />;
 }
 
-function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
+function SpecimenForm({ record: opened }: { record: SpecimenRecord | null }) {
   const app = useApp();
+  // The record as this form last read it: replaced by the stored one when the crew reloads a stale form.
+  const [record, setRecord] = useState(opened);
   const key = `specimen:${record?.id ?? 'new'}`;
   const form = useDraft<SpecimenDraft>(key, () => draftFrom(record));
   const [error, setError] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
   const d = form.value;
   const shape = shapeFrom(d);
   const valid = d.name.trim() !== '' && fieldsValid(d.mass, d.uMass) && shape !== null && d.referenceCd.error === null;
@@ -186,14 +192,29 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
       notes: d.notes,
     };
     try {
-      if (record) await app.store.revise('specimen', record.id, body, measuredChanged ? d.reason.trim() : null, { clearDraft: key });
+      // Compared with the stored rev inside the write: an edit from a form opened before another tab's rename
+      // is refused instead of reverting it.
+      const expected = d.openedRev ? { expectedRev: d.openedRev } : {};
+      if (record) await app.store.revise('specimen', record.id, body, measuredChanged ? d.reason.trim() : null, { clearDraft: key, ...expected });
       else await app.store.create('specimen', body, { clearDraft: key });
       await form.clear();
       app.notifyChanged();
       navigate('specimens');
     } catch (e) {
       setError(describeError(e));
+      setStale((e as { code?: unknown } | null)?.code === 'changed-elsewhere');
     }
+  };
+
+  /** Reads the specimen as stored now and starts the form again from it (the typed changes are to be made again). */
+  const reload = async () => {
+    if (!record) return;
+    const fresh = (await app.store.get('specimen', record.id)) ?? record;
+    await form.clear();
+    form.replace(draftFrom(fresh));
+    setRecord(fresh);
+    setError(null);
+    setStale(false);
   };
 
   return (
@@ -256,6 +277,11 @@ function SpecimenForm({ record }: { record: SpecimenRecord | null }) {
         />
       ) : null}
       {error ? <Notice tone="bad">{error}</Notice> : null}
+      {stale ? (
+        <button type="button" class="btn btn-block" onClick={() => void reload()}>
+          Reload the specimen
+        </button>
+      ) : null}
       <button type="button" class="btn btn-block" disabled={!valid || needsReason} onClick={save}>
         {record ? 'Save changes' : 'Add to the catalogue'}
       </button>

@@ -25,9 +25,10 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
     setError(null);
     try {
       if (d.excluded) {
-        await app.store.revise('drop', d.id, { excluded: false, exclusion_reason: null }, reason.trim() || 'included again');
+        await app.store.revise('drop', d.id, { excluded: false, exclusion_reason: null }, reason.trim() || 'included again', { expectedRev: d.rev });
       } else {
-        await app.store.revise('drop', d.id, { excluded: true, exclusion_reason: reason.trim() }, reason.trim());
+        // The drop as this table showed it: refused ("changed elsewhere: reload") if another tab changed it since.
+        await app.store.revise('drop', d.id, { excluded: true, exclusion_reason: reason.trim() }, reason.trim(), { expectedRev: d.rev });
       }
       setExcluding(null);
       setReason('');
