@@ -10,6 +10,7 @@
  * header) at least a second after its Last-Modified is "settled": any later write lands in a later second and
  * shows. An unsettled version is read again next time and compared by content hash.
  */
+import type { FileProblem } from './file-problem';
 import type { DavResource } from './multistatus';
 import type { FileVersion } from './webdav-client';
 import { SYNC_META, type RecordSource } from './record-source';
@@ -22,8 +23,9 @@ export interface RemoteFileState {
   hash: string;
   /** True when the version was seen at least a second after it was written (see above). */
   settled: boolean;
-  /** Why the file could not be merged (not a log, invalid); it is read again only when it changes. */
-  problem: { code: string; message: string } | null;
+  /** Why the file could not be merged (not a log, invalid, a record refused); it is read again only when it
+   *  changes, or at the next run when the cause was this phone's (see file-problem.ts). */
+  problem: FileProblem | null;
 }
 
 export interface SyncState {
@@ -38,6 +40,8 @@ export interface SyncState {
   last_error: { code: string; message: string; status: number | null; at: string } | null;
   /** Runs failed in a row (for the back-off). */
   failures: number;
+  /** This phone's own file, written by someone else, could not be merged at the last run (absent in old states). */
+  own_problem?: SkippedFile | null;
 }
 
 export function emptySyncState(folderUrl: string): SyncState {
@@ -93,4 +97,23 @@ export function remoteState(version: FileVersion, hash: string, problem: RemoteF
     settled: isSettled(version),
     problem,
   };
+}
+
+/** A file of the folder that sync skipped, and why: what the Send screen lists after a run. */
+export interface SkippedFile extends FileProblem {
+  name: string;
+}
+
+/** The files of the folder skipped at the last runs (each until it changes), own file included, by name. */
+export function skippedFiles(state: SyncState | null | undefined): SkippedFile[] {
+  if (!state) return [];
+  const out: SkippedFile[] = [];
+  for (const [name, file] of Object.entries(state.files)) if (file?.problem) out.push({ name, ...file.problem });
+  if (state.own_problem) out.push(state.own_problem);
+  return out.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
+}
+
+/** The skipped files as the saved state has them (for the screens; no folder URL needed). */
+export async function loadSkippedFiles(source: RecordSource): Promise<SkippedFile[]> {
+  return skippedFiles((await source.getMeta(SYNC_META.state)) as SyncState | undefined | null);
 }
