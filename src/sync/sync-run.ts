@@ -178,8 +178,11 @@ async function mergeFetched(source: RecordSource, name: string, fetched: Fetched
 function rememberRead(fetched: FetchedFile, hash: string, outcome: MergeOutcome): RemoteFileState {
   if (outcome.ok) return remoteState(fetched, hash);
   if (outcome.weight === 'file') return remoteState(fetched, hash, outcome.problem);
-  return { ...remoteState(fetched, '', outcome.problem), settled: false };
+  return { ...remoteState(fetched, '', outcome.problem), settled: false, seen_at: null };
 }
+
+/** Files read between two saves of the sync state. */
+const SAVE_EVERY_FILES = 25;
 
 const byteLength = (text: string) => new TextEncoder().encode(text).length;
 
@@ -187,14 +190,16 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
   const { source } = options;
   const ownName = report.own_file;
   state.own_problem = null;
-  const listing = (await client.list()).filter((r) => isLogName(r.name));
+  const { files, date: listedAt } = await client.listing();
+  const listing = files.filter((r) => isLogName(r.name));
   const listed = new Set(listing.map((r) => r.name));
 
   // 2. Other files.
+  let readSinceSave = 0;
   for (const entry of [...listing].sort((a, b) => (a.name < b.name ? -1 : 1))) {
     if (entry.name === ownName) continue;
     const known = state.files[entry.name];
-    if (listedUnchanged(known, entry)) {
+    if (listedUnchanged(known, entry, listedAt)) {
       report.skipped++;
       continue;
     }
@@ -209,9 +214,16 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
     } else {
       state.files[entry.name] = rememberRead(fetched, hash, await mergeFetched(source, entry.name, fetched, report));
     }
-    await saveSyncState(source, state);
+    // The progress is saved as it is made, but not after every file: the state of a big folder is large, and a
+    // save per file would cost time growing with the square of the folder's size. A run cut between saves reads
+    // at most that many files again, and merging a file twice is merging it once.
+    if (++readSinceSave >= SAVE_EVERY_FILES) {
+      await saveSyncState(source, state);
+      readSinceSave = 0;
+    }
   }
   for (const name of Object.keys(state.files)) if (!listed.has(name)) delete state.files[name];
+  await saveSyncState(source, state);
 
   // 3. This phone's own file: merge it first if someone else wrote it (a restored backup, another tab).
   const ownEntry = listing.find((r) => r.name === ownName) ?? null;
@@ -222,7 +234,7 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
     state.own_problem = outcome.ok ? null : { name: ownName, ...outcome.problem };
   };
   if (ownEntry) {
-    if (!listedUnchanged(state.own, ownEntry)) {
+    if (!listedUnchanged(state.own, ownEntry, listedAt)) {
       const fetched = await client.get(ownName);
       if (fetched) {
         const hash = contentHash(fetched.body);

@@ -23,6 +23,8 @@ export interface RemoteFileState {
   hash: string;
   /** True when the version was seen at least a second after it was written (see above). */
   settled: boolean;
+  /** The server's clock (Date) when the version was read; absent in states saved by older versions. */
+  seen_at?: string | null;
   /** Why the file could not be merged (not a log, invalid, a record refused); it is read again only when it
    *  changes, or at the next run when the cause was this phone's (see file-problem.ts). */
   problem: FileProblem | null;
@@ -78,11 +80,28 @@ export function isSettled(version: Pick<FileVersion, 'lastModified' | 'date'>): 
   return Number.isFinite(modified) && Number.isFinite(seen) && seen >= modified + SECOND_MS;
 }
 
-/** Whether the listing shows the same version as the one remembered, so the file need not be read. */
-export function listedUnchanged(known: RemoteFileState | null | undefined, listed: DavResource): boolean {
+/**
+ * A version whose modification time was ahead of the server's clock when it was read (a file copied with the
+ * times of a machine whose clock runs ahead) never settles until the server's clock passes it, and would be read
+ * again at every run. It can still be trusted while the listing is made before that time: any write since the
+ * read happened at a server time before it, so it shows as another modification time.
+ */
+function stillAhead(known: RemoteFileState, listed: DavResource, listedAt: string | null): boolean {
+  // The listing's time, not the GET's: Apache never sends a Last-Modified later than its Date (it clamps it),
+  // while its listing gives the file's own time. Used only when the tags (or time and size) below match.
+  if (!known.seen_at || !listed.lastModified || !listedAt) return false;
+  const modified = Date.parse(listed.lastModified);
+  const seen = Date.parse(known.seen_at);
+  const now = Date.parse(listedAt);
+  return Number.isFinite(modified) && Number.isFinite(seen) && Number.isFinite(now) && seen < modified && now < modified;
+}
+
+/** Whether the listing (made at the server time `listedAt`, its Date header) shows the same version as the one
+ *  remembered, so the file need not be read. */
+export function listedUnchanged(known: RemoteFileState | null | undefined, listed: DavResource, listedAt: string | null = null): boolean {
   // Even an ETag is only as fine as the file system's clock (Apache's is "size-mtime"; on a file system with
   // whole-second times two writes in one second share it), so only a settled version is trusted.
-  if (!known || !known.settled) return false;
+  if (!known || !(known.settled || stillAhead(known, listed, listedAt))) return false;
   if (listed.etag && known.etag) return opaqueTag(listed.etag) === opaqueTag(known.etag);
   if (!listed.lastModified || !known.last_modified || listed.contentLength === null || known.content_length === null) return false;
   return Date.parse(listed.lastModified) === Date.parse(known.last_modified) && listed.contentLength === known.content_length;
@@ -95,6 +114,7 @@ export function remoteState(version: FileVersion, hash: string, problem: RemoteF
     content_length: version.contentLength,
     hash,
     settled: isSettled(version),
+    seen_at: version.date,
     problem,
   };
 }
