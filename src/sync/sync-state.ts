@@ -81,11 +81,18 @@ export function isSettled(version: Pick<FileVersion, 'lastModified' | 'date'>): 
 }
 
 /**
- * A version whose modification time was ahead of the server's clock when it was read (a file copied with the
- * times of a machine whose clock runs ahead) never settles until the server's clock passes it, and would be read
- * again at every run. It can still be trusted while the listing is made before that time: any write since the
- * read happened at a server time before it, so it shows as another modification time.
+ * A version whose modification time was well ahead of the server's clock when it was read (a file copied with the
+ * times of a machine whose clock runs fast) never settles until the server's clock passes it, and would be read
+ * again at every run: a folder of such files would cost a request per file per run. It can be trusted while the
+ * listing is made well before that time: a write since the read happened at a server time before it, so it shows
+ * as another modification time.
+ *
+ * "Well": by more than AHEAD_MARGIN_MS. A file system whose clock differs from the HTTP server's by a few seconds
+ * (a network share) dates ordinary writes a little ahead of the Date header; for those, a rewrite in the same
+ * second is still possible, so they are read again until they settle, as any fresh file.
  */
+const AHEAD_MARGIN_MS = 60_000;
+
 function stillAhead(known: RemoteFileState, listed: DavResource, listedAt: string | null): boolean {
   // The listing's time, not the GET's: Apache never sends a Last-Modified later than its Date (it clamps it),
   // while its listing gives the file's own time. Used only when the tags (or time and size) below match.
@@ -93,7 +100,8 @@ function stillAhead(known: RemoteFileState, listed: DavResource, listedAt: strin
   const modified = Date.parse(listed.lastModified);
   const seen = Date.parse(known.seen_at);
   const now = Date.parse(listedAt);
-  return Number.isFinite(modified) && Number.isFinite(seen) && Number.isFinite(now) && seen < modified && now < modified;
+  if (!Number.isFinite(modified) || !Number.isFinite(seen) || !Number.isFinite(now)) return false;
+  return seen < modified - AHEAD_MARGIN_MS && now < modified - AHEAD_MARGIN_MS;
 }
 
 /** Whether the listing (made at the server time `listedAt`, its Date header) shows the same version as the one

@@ -19,29 +19,35 @@ describe('listedUnchanged', () => {
     expect(listedUnchanged(fresh, listed(at(10)), at(20))).toBe(false);
   });
 
-  it('trusts a file dated ahead of the server clock while the clock has not reached that time, then reads it once', () => {
-    // Read at 09:00:05 a file dated 09:00:50 (its copy kept a fast clock's time).
-    const ahead = remoteState({ etag: null, lastModified: at(50), contentLength: 100, date: at(5) }, 'h');
+  it('trusts a file dated well ahead of the server clock while the clock is well before that time, then reads it once', () => {
+    // Read at 09:00:05 a file dated 09:10:00 (its copy kept a fast clock's time).
+    const ahead = remoteState({ etag: null, lastModified: at(600), contentLength: 100, date: at(5) }, 'h');
     expect(ahead.settled).toBe(false);
-    expect(listedUnchanged(ahead, listed(at(50)), at(30))).toBe(true);
-    // A write since shows as another time (the server's own, before 09:00:50).
+    expect(listedUnchanged(ahead, listed(at(600)), at(30))).toBe(true);
+    expect(listedUnchanged(ahead, listed(at(600)), at(539))).toBe(true);
+    // A write since shows as another time (the server's own, before 09:10:00).
     expect(listedUnchanged(ahead, listed(at(31)), at(32))).toBe(false);
-    // Once the clock reaches the file's time, a write could carry the same time: read it again.
-    expect(listedUnchanged(ahead, listed(at(50)), at(50))).toBe(false);
-    expect(listedUnchanged(ahead, listed(at(50)), at(55))).toBe(false);
+    // Within a minute of the file's time (or past it), a write could carry the same time: read it again.
+    expect(listedUnchanged(ahead, listed(at(600)), at(540))).toBe(false);
+    expect(listedUnchanged(ahead, listed(at(600)), at(700))).toBe(false);
     // Without the listing's time nothing is assumed.
-    expect(listedUnchanged(ahead, listed(at(50)), null)).toBe(false);
+    expect(listedUnchanged(ahead, listed(at(600)), null)).toBe(false);
+  });
+
+  it('does not trust a file only seconds ahead (a file system clock a little off the server clock), until it settles', () => {
+    const near = remoteState({ etag: null, lastModified: at(50), contentLength: 100, date: at(5) }, 'h');
+    expect(listedUnchanged(near, listed(at(50)), at(6))).toBe(false);
   });
 
   it('compares Apache tags of a file ahead by the listing time, as Apache clamps Last-Modified of a GET to its Date', () => {
     const ahead = remoteState({ etag: '"64-abc"', lastModified: at(5), contentLength: 100, date: at(5) }, 'h');
-    expect(listedUnchanged(ahead, listed(at(50), 100, '"64-abc"'), at(30))).toBe(true);
-    expect(listedUnchanged(ahead, listed(at(50), 100, '"64-abd"'), at(30))).toBe(false);
+    expect(listedUnchanged(ahead, listed(at(600), 100, '"64-abc"'), at(30))).toBe(true);
+    expect(listedUnchanged(ahead, listed(at(600), 100, '"64-abd"'), at(30))).toBe(false);
   });
 
   it('always reads a file it could not take in last time (no time it was seen is kept)', () => {
-    const passing = { ...remoteState({ etag: null, lastModified: at(50), contentLength: 100, date: at(5) }, ''), settled: false, seen_at: null };
-    expect(listedUnchanged(passing, listed(at(50)), at(30))).toBe(false);
+    const passing = { ...remoteState({ etag: null, lastModified: at(600), contentLength: 100, date: at(5) }, ''), settled: false, seen_at: null };
+    expect(listedUnchanged(passing, listed(at(600)), at(30))).toBe(false);
   });
 });
 
