@@ -149,7 +149,7 @@ async function runSync(options: SyncOptions): Promise<SyncReport> {
   return report;
 }
 
-type MergeOutcome = { ok: true } | { ok: false; problem: FileProblem; weight: 'file' | 'passing' };
+type MergeOutcome = { ok: true } | { ok: false; problem: FileProblem; weight: 'file' | 'passing'; error: unknown };
 
 /**
  * Reads and merges one file of the folder. A file that cannot be merged, whatever the reason (not a log, a
@@ -169,7 +169,7 @@ async function mergeFetched(source: RecordSource, name: string, fetched: Fetched
     if (weight === 'fatal') throw error;
     const problem = fileProblem(error, fetched.body, file);
     report.problems.push({ name, ...problem });
-    return { ok: false, problem, weight };
+    return { ok: false, problem, weight, error };
   }
 }
 
@@ -230,7 +230,9 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
   let ownEtag: string | null = null;
   const mergeOwn = async (fetched: FetchedFile) => {
     const outcome = await mergeFetched(source, ownName, fetched, report);
-    // Whatever was in it, this phone's upload replaces it; the crew still sees what was refused.
+    // A file refused for itself is replaced by this phone's upload (the crew still sees what was refused); one
+    // this phone could not take in now (its storage full) must not be overwritten: the run stops, to try again.
+    if (!outcome.ok && outcome.weight === 'passing') throw outcome.error;
     state.own_problem = outcome.ok ? null : { name: ownName, ...outcome.problem };
   };
   if (ownEntry) {

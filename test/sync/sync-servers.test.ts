@@ -402,6 +402,21 @@ describe.each(kinds)('syncing through %s', (name, missing, start) => {
     expect((await loadSkippedFiles(phone)).map((k) => k.name)).not.toContain(deviceFileName('phoneB'));
   });
 
+  it.skipIf(missing)("skips a colleague's file the phone cannot take in now (its storage full), sends its own, and reads that file again next time", async () => {
+    expectOk(await sync(phoneB, direct));
+    phoneA.failNextPut = Object.assign(new Error('The quota has been exceeded.'), { name: 'QuotaExceededError' });
+    const full = await sync(phoneA, direct);
+    expectOk(full);
+    expect(full.uploaded).toBe(true);
+    expect(full.problems).toEqual([expect.objectContaining({ name: deviceFileName('phoneB'), code: 'QuotaExceededError', device: 'phoneB' })]);
+    expect(phoneA.records.size).toBe(13);
+    const next = await sync(phoneA, direct);
+    expectOk(next);
+    expect(next.merged.map((m) => m.name)).toContain(deviceFileName('phoneB'));
+    expect(phoneA.records.size).toBe(26);
+    expect(await loadSkippedFiles(phoneA)).toEqual([]);
+  });
+
   it.skipIf(missing)('sends again an upload the server acknowledged but did not store, and marks nothing sent until it holds it', async () => {
     const phone = await storePhone(sampleLog({ device: 'phoneA', seed: 1 }));
     const own = deviceFileName(await phone.deviceId());
