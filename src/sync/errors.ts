@@ -24,6 +24,12 @@ export type SyncErrorCode =
   | 'sync-http'
   | 'sync-precondition'
   | 'sync-too-large'
+  /** 507 Insufficient Storage (RFC 4918 §11.5): the folder's disk or quota is full; only the office can help. */
+  | 'sync-folder-full'
+  /** The server answered with a redirect (3xx): not followed, so the log and the password never go elsewhere. */
+  | 'sync-redirected'
+  /** The server acknowledged an upload but holds something else afterwards (read back and compared). */
+  | 'sync-upload-unverified'
   | 'sync-bad-response'
   | 'sync-file-invalid';
 
@@ -34,6 +40,7 @@ const RETRYABLE: ReadonlySet<SyncErrorCode> = new Set([
   'sync-http',
   'sync-precondition',
   'sync-bad-response',
+  'sync-upload-unverified',
 ]);
 
 export class SyncError extends PlummetError<SyncErrorCode> {

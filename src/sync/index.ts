@@ -11,6 +11,7 @@ export * from './content-hash';
 export * from './record-source';
 export * from './settings';
 export * from './sync-state';
+export * from './file-problem';
 export * from './import-log';
 export * from './sync-run';
 export * from './scheduler';

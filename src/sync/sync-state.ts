@@ -10,6 +10,7 @@
  * header) at least a second after its Last-Modified is "settled": any later write lands in a later second and
  * shows. An unsettled version is read again next time and compared by content hash.
  */
+import type { FileProblem } from './file-problem';
 import type { DavResource } from './multistatus';
 import type { FileVersion } from './webdav-client';
 import { SYNC_META, type RecordSource } from './record-source';
@@ -22,8 +23,11 @@ export interface RemoteFileState {
   hash: string;
   /** True when the version was seen at least a second after it was written (see above). */
   settled: boolean;
-  /** Why the file could not be merged (not a log, invalid); it is read again only when it changes. */
-  problem: { code: string; message: string } | null;
+  /** The server's clock (Date) when the version was read; absent in states saved by older versions. */
+  seen_at?: string | null;
+  /** Why the file could not be merged (not a log, invalid, a record refused); it is read again only when it
+   *  changes, or at the next run when the cause was this phone's (see file-problem.ts). */
+  problem: FileProblem | null;
 }
 
 export interface SyncState {
@@ -38,6 +42,8 @@ export interface SyncState {
   last_error: { code: string; message: string; status: number | null; at: string } | null;
   /** Runs failed in a row (for the back-off). */
   failures: number;
+  /** This phone's own file, written by someone else, could not be merged at the last run (absent in old states). */
+  own_problem?: SkippedFile | null;
 }
 
 export function emptySyncState(folderUrl: string): SyncState {
@@ -74,11 +80,36 @@ export function isSettled(version: Pick<FileVersion, 'lastModified' | 'date'>): 
   return Number.isFinite(modified) && Number.isFinite(seen) && seen >= modified + SECOND_MS;
 }
 
-/** Whether the listing shows the same version as the one remembered, so the file need not be read. */
-export function listedUnchanged(known: RemoteFileState | null | undefined, listed: DavResource): boolean {
+/**
+ * A version whose modification time was well ahead of the server's clock when it was read (a file copied with the
+ * times of a machine whose clock runs fast) never settles until the server's clock passes it, and would be read
+ * again at every run: a folder of such files would cost a request per file per run. It can be trusted while the
+ * listing is made well before that time: a write since the read happened at a server time before it, so it shows
+ * as another modification time.
+ *
+ * "Well": by more than AHEAD_MARGIN_MS. A file system whose clock differs from the HTTP server's by a few seconds
+ * (a network share) dates ordinary writes a little ahead of the Date header; for those, a rewrite in the same
+ * second is still possible, so they are read again until they settle, as any fresh file.
+ */
+const AHEAD_MARGIN_MS = 60_000;
+
+function stillAhead(known: RemoteFileState, listed: DavResource, listedAt: string | null): boolean {
+  // The listing's time, not the GET's: Apache never sends a Last-Modified later than its Date (it clamps it),
+  // while its listing gives the file's own time. Used only when the tags (or time and size) below match.
+  if (!known.seen_at || !listed.lastModified || !listedAt) return false;
+  const modified = Date.parse(listed.lastModified);
+  const seen = Date.parse(known.seen_at);
+  const now = Date.parse(listedAt);
+  if (!Number.isFinite(modified) || !Number.isFinite(seen) || !Number.isFinite(now)) return false;
+  return seen < modified - AHEAD_MARGIN_MS && now < modified - AHEAD_MARGIN_MS;
+}
+
+/** Whether the listing (made at the server time `listedAt`, its Date header) shows the same version as the one
+ *  remembered, so the file need not be read. */
+export function listedUnchanged(known: RemoteFileState | null | undefined, listed: DavResource, listedAt: string | null = null): boolean {
   // Even an ETag is only as fine as the file system's clock (Apache's is "size-mtime"; on a file system with
   // whole-second times two writes in one second share it), so only a settled version is trusted.
-  if (!known || !known.settled) return false;
+  if (!known || !(known.settled || stillAhead(known, listed, listedAt))) return false;
   if (listed.etag && known.etag) return opaqueTag(listed.etag) === opaqueTag(known.etag);
   if (!listed.lastModified || !known.last_modified || listed.contentLength === null || known.content_length === null) return false;
   return Date.parse(listed.lastModified) === Date.parse(known.last_modified) && listed.contentLength === known.content_length;
@@ -91,6 +122,26 @@ export function remoteState(version: FileVersion, hash: string, problem: RemoteF
     content_length: version.contentLength,
     hash,
     settled: isSettled(version),
+    seen_at: version.date,
     problem,
   };
+}
+
+/** A file of the folder that sync skipped, and why: what the Send screen lists after a run. */
+export interface SkippedFile extends FileProblem {
+  name: string;
+}
+
+/** The files of the folder skipped at the last runs (each until it changes), own file included, by name. */
+export function skippedFiles(state: SyncState | null | undefined): SkippedFile[] {
+  if (!state) return [];
+  const out: SkippedFile[] = [];
+  for (const [name, file] of Object.entries(state.files)) if (file?.problem) out.push({ name, ...file.problem });
+  if (state.own_problem) out.push(state.own_problem);
+  return out.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
+}
+
+/** The skipped files as the saved state has them (for the screens; no folder URL needed). */
+export async function loadSkippedFiles(source: RecordSource): Promise<SkippedFile[]> {
+  return skippedFiles((await source.getMeta(SYNC_META.state)) as SyncState | undefined | null);
 }

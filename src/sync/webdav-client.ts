@@ -74,6 +74,25 @@ function versionOf(headers: Headers): FileVersion {
   };
 }
 
+function redirected(url: string, what: string, status: number | null, location: string | null): SyncError {
+  let target = '';
+  if (location) {
+    try {
+      target = ` to ${new URL(location, url).href}`;
+    } catch {
+      target = '';
+    }
+  }
+  return new SyncError({
+    code: 'sync-redirected',
+    field: 'folder_url',
+    value: url,
+    allowed: 'an address the server answers itself, without a redirect',
+    message: `the server answered with a redirect${status ? ` (${status})` : ''}${target} when trying to ${what}; Plummet does not follow redirects, so nothing was sent there: enter the folder's final address in the settings`,
+    status,
+  });
+}
+
 export class WebDavClient {
   readonly folderUrl: string;
   private readonly authorization: string;
@@ -98,6 +117,13 @@ export class WebDavClient {
 
   /** The files of the folder (not the folder itself, not sub-folders). */
   async list(): Promise<DavResource[]> {
+    return (await this.listing()).files;
+  }
+
+  /** The files of the folder, and the server's clock (its Date header) when it listed them. One request,
+   *  whatever the folder's size: Depth 1 gives every file's name, size, modification time and, where the
+   *  server keeps one, its ETag. */
+  async listing(): Promise<{ files: DavResource[]; date: string | null }> {
     const answer = await this.request('PROPFIND', this.folderUrl, {
       headers: { Depth: '1', 'Content-Type': 'application/xml; charset=utf-8' },
       body: PROPFIND_BODY,
@@ -108,7 +134,8 @@ export class WebDavClient {
     }
     this.expect(answer, [207], 'list the folder');
     const own = decodedPath(this.folderUrl);
-    return parseMultistatus(answer.text, this.folderUrl).filter((r) => !r.collection && decodedPath(r.url) !== own);
+    const files = parseMultistatus(answer.text, this.folderUrl).filter((r) => !r.collection && decodedPath(r.url) !== own);
+    return { files, date: answer.headers.get('date') };
   }
 
   /** The file's text and version, or null when there is no such file. */
@@ -153,6 +180,8 @@ export class WebDavClient {
     }
     if (s === 403) throw new SyncError({ code: 'sync-forbidden', field: null, value: s, allowed: null, message: `the folder does not allow this user to ${what} (403)`, status: s });
     if (s === 413) throw new SyncError({ code: 'sync-too-large', field: null, value: s, allowed: null, message: `the server refused a file this large when trying to ${what} (413): raise its upload limit`, status: s });
+    // Before the general 5xx case: a full folder is not a passing failure, and waiting does not empty it.
+    if (s === 507) throw new SyncError({ code: 'sync-folder-full', field: null, value: s, allowed: null, message: `the office folder is full (507) when trying to ${what}: ask the office to free space on it`, status: s });
     if (s >= 500) throw new SyncError({ code: 'sync-server', field: null, value: s, allowed: null, message: `the server failed when trying to ${what} (${s}); trying again later`, status: s });
     throw new SyncError({ code: 'sync-http', field: null, value: s, allowed: null, message: `unexpected answer ${s} when trying to ${what}`, status: s });
   }
@@ -176,11 +205,20 @@ export class WebDavClient {
         signal: controller.signal,
         credentials: 'omit',
         cache: 'no-store',
-        redirect: 'follow',
+        // Never followed: a redirect would re-send the log (and the Authorization header) to wherever the
+        // Location points, possibly another origin. The crew is told to enter the folder's final address.
+        redirect: 'manual',
       });
+      // A browser hands back an opaque answer (type "opaqueredirect", status 0, no Location); Node the 3xx itself.
+      if (response.type === 'opaqueredirect' || (response.status >= 300 && response.status < 400)) {
+        void response.body?.cancel().catch(() => undefined);
+        const location = response.headers.get('location');
+        throw redirected(url, init.what, response.status || null, location);
+      }
       const text = method === 'HEAD' ? '' : await response.text();
       return { status: response.status, headers: response.headers, text };
     } catch (error) {
+      if (error instanceof SyncError) throw error;
       if (timedOut) {
         throw new SyncError({ code: 'sync-timeout', field: null, value: this.timeoutMs, allowed: null, message: `no answer within ${this.timeoutMs / 1000} s when trying to ${init.what}; the server may be down or slow` });
       }

@@ -8,12 +8,13 @@ import { chmod, mkdtemp, readdir, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startStaticServer, type StaticServer } from '../../scripts/static-server.mjs';
+import { exportLog } from '../../src/log/export';
 import { readLogFile } from '../../src/log/export-parse';
 import type { LogRecord, DropRecord } from '../../src/log/types';
 import { deviceFileName } from '../../src/sync/sync-run';
 import type { SyncSettings } from '../../src/sync/settings';
 import { apacheMissing, startApache } from '../servers/apache';
-import { folderFiles, readFolderFile, type DavServer } from '../servers/dav-server';
+import { folderFiles, putFolderFile, readFolderFile, type DavServer } from '../servers/dav-server';
 import { startFaultProxy, startSilentServer, type FaultProxy } from '../servers/fault-proxy';
 import { nginxMissing, startNginx } from '../servers/nginx';
 import { buildSyncPage } from './fixtures/sync-page/build';
@@ -207,6 +208,58 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     expect((await call(a.page, 'sync')).error).toBeNull();
     expect((await call(b.page, 'sync')).error).toBeNull();
     expect(ids(await call(b.page, 'records'))).toEqual(ids(await call(a.page, 'records')));
+  });
+
+  it.skipIf(missing)("skip a colleague's file whose merge the store refuses, name it, send their own anyway, and send again an upload the server dropped", async () => {
+    const [a, b] = await freshPhones();
+    for (const p of [a, b]) await call(p.page, 'configure', settings(proxy.folderUrl, server));
+    await call(b.page, 'addSeries', 'South terrace', times);
+    expect((await call(b.page, 'sync')).error).toBeNull();
+    expect((await call(a.page, 'sync')).error).toBeNull();
+    // B's file is replaced by one that passes every check of the file, but whose merge with the copy A holds
+    // makes a drop the store refuses (a history entry newer than the current version, with an empty body).
+    const bFile = readLogFile(await readFolderFile(server, deviceFileName(b.device)));
+    const drop = bFile.records.find((r): r is DropRecord => r.kind === 'drop')!;
+    const newer = drop.rev.replace(/^(\d{15})/, (ms) => String(Number(ms) + 5000).padStart(15, '0'));
+    const poisoned = bFile.records.map((r) =>
+      r.id === drop.id ? { ...r, history: [{ rev: newer, device: r.device, updated_at: r.updated_at, reason: null, deleted: false, body: {} }] } : r,
+    ) as LogRecord[];
+    await putFolderFile(server, deviceFileName(b.device), exportLog(poisoned, { device: b.device, app_version: 'test-page' }));
+    const series = (await call(a.page, 'records')).find((r) => r.kind === 'series' && r.device === b.device)!;
+    const late = await call(a.page, 'addDrop', series.id, 9, 1.58);
+    const before = await call(a.page, 'records');
+    // And the server acknowledges A's first upload without storing it.
+    proxy.set({ fault: { kind: 'acknowledge', status: 204 }, methods: ['PUT'], times: 1 });
+    proxy.seen.length = 0;
+    const report = await call(a.page, 'sync');
+    expect(proxy.seen.filter((r) => r.startsWith('PUT '))).toHaveLength(2);
+    expect(report.error).toBeNull();
+    expect(report.uploaded).toBe(true);
+    expect(report.problems).toEqual([expect.objectContaining({ name: deviceFileName(b.device), device: b.device, record: drop.id })]);
+    expect((await folderLog(server, a.device)).map((r) => r.id)).toContain(late);
+    expect(await call(a.page, 'records')).toEqual(before);
+    const state = (await call(a.page, 'state')) as { files: Record<string, { problem: { record: string | null } | null }> };
+    expect(state.files[deviceFileName(b.device)]!.problem).toMatchObject({ record: drop.id });
+    expect(a.errors, a.errors.join('\n')).toEqual([]);
+  });
+
+  it.skipIf(missing)('do not follow a redirect to another origin, and say so', async () => {
+    const [a] = await freshPhones();
+    const elsewhere = await startFaultProxy(server.port);
+    try {
+      await call(a.page, 'configure', settings(proxy.folderUrl, server));
+      await call(a.page, 'addSeries', 'North quarry wall', times);
+      for (const method of ['PROPFIND', 'PUT']) {
+        proxy.set({ fault: { kind: 'redirect', status: 307, location: `${elsewhere.folderUrl}${deviceFileName(a.device)}` }, methods: [method] });
+        const report = await call(a.page, 'sync');
+        expect(report.error, method).toMatchObject({ code: 'sync-redirected', retryable: false });
+        expect(report.error!.message).toMatch(/redirect/);
+      }
+      expect(elsewhere.seen).toEqual([]);
+      expect(await folderFiles(server)).toEqual([]);
+    } finally {
+      await elsewhere.close();
+    }
   });
 
   it.skipIf(missing)('report a wrong password at once, without retrying it', async () => {

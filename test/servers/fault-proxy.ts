@@ -14,7 +14,12 @@ export type Fault =
   /** Forward the request, then send the answer's headers and this many bytes of its body, and go quiet. */
   | { kind: 'stall-response'; afterBytes: number }
   /** Forward this many bytes of the request body to the server, then cut both connections. */
-  | { kind: 'cut-request'; afterBytes: number };
+  | { kind: 'cut-request'; afterBytes: number }
+  /** Read the whole request, answer this 2xx as if it had been done, and never pass it on: a write that is
+   *  acknowledged but not stored (a full disk behind a cache, a broken box in between). */
+  | { kind: 'acknowledge'; status: number }
+  /** Answer with a redirect (this 3xx) to `location`, reading the request body but passing nothing on. */
+  | { kind: 'redirect'; status: number; location: string };
 
 export interface FaultRule {
   fault: Fault;
@@ -113,6 +118,14 @@ export async function startFaultProxy(targetPort: number): Promise<FaultProxy> {
       case 'status':
         req.resume();
         req.on('end', () => res.writeHead(fault.status, { 'Content-Type': 'text/plain', ...corsHeaders(req) }).end(`injected ${fault.status}`));
+        return;
+      case 'acknowledge':
+        req.resume();
+        req.on('end', () => res.writeHead(fault.status, { 'Content-Length': '0', ...corsHeaders(req) }).end());
+        return;
+      case 'redirect':
+        req.resume();
+        req.on('end', () => res.writeHead(fault.status, { Location: fault.location, 'Content-Length': '0', ...corsHeaders(req) }).end());
         return;
       case 'delay':
         setTimeout(() => forward(req, res, fault), fault.ms);

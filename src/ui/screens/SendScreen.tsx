@@ -1,6 +1,19 @@
 import { useEffect, useState } from 'preact/hooks';
 import { decodeLogBytes, logFileName, recordsFromClockAhead, type Conflict, type LogSelection, type MergePreview } from '../../log';
-import { applyImport, dismissConflict, loadConflicts, loadSyncSettings, logCsvFiles, previewImport, saveSyncSettings, sendLog, type ImportPreview, type SyncReport } from '../../sync';
+import {
+  applyImport,
+  dismissConflict,
+  loadConflicts,
+  loadSkippedFiles,
+  loadSyncSettings,
+  logCsvFiles,
+  previewImport,
+  saveSyncSettings,
+  sendLog,
+  type ImportPreview,
+  type SkippedFile,
+  type SyncReport,
+} from '../../sync';
 import { pickFile, shareFile } from '../../sync/page';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
@@ -210,13 +223,51 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
         <Notice tone={report.ok ? 'good' : 'bad'} title={report.ok ? 'Last sync succeeded' : 'Last sync failed'}>
           <p>
             {new Date(report.finished_at).toLocaleString()}: {report.merged.length} files merged, {report.skipped} unchanged
+            {report.problems.length ? `, ${report.problems.length} skipped (listed below)` : ''}
             {report.uploaded ? ', this phone’s file sent' : ''}.
           </p>
           {report.error ? <p>{report.error.message}</p> : null}
           {report.conflicts.length ? <p>{report.conflicts.length} conflicts kept for review.</p> : null}
         </Notice>
       ) : null}
+      <SkippedFiles finishedAt={report?.finished_at ?? null} />
     </section>
+  );
+}
+
+/**
+ * Files of the folder that sync could not merge and skips (each until it changes), as the sync state keeps them:
+ * which file, from which phone, which record and field, and why. The rest of the folder was merged and this
+ * phone's own file sent all the same.
+ */
+function SkippedFiles({ finishedAt }: { finishedAt: string | null }) {
+  const app = useApp();
+  const list = useStoreData(() => loadSkippedFiles(app.store).catch((): SkippedFile[] => []), [finishedAt]);
+  if (list.state !== 'ready' || list.value.length === 0) return null;
+  return (
+    <div class="subform" role="group" aria-labelledby="skipped-h">
+      <h3 id="skipped-h">Files skipped ({list.value.length})</h3>
+      <p class="hint">
+        These files in the folder could not be merged and were left as they are; everything else was synced. Ask whoever wrote a file to send it again,
+        or remove it from the folder. A file is read again once it changes.
+      </p>
+      <ul class="rows" aria-label="Files skipped">
+        {list.value.map((f) => (
+          <li key={f.name} class="row">
+            <span class="row-main">
+              <strong class="mono">{f.name}</strong>
+              {f.device ? <> · from phone <span class="mono">{f.device}</span></> : null}
+              <br />
+              <span class="hint">
+                {f.record ? <>record <span class="mono">{f.record}</span>{f.field ? ', ' : ' · '}</> : null}
+                {f.field ? <>field <span class="mono">{f.field}</span> · </> : null}
+                {f.message}
+              </span>
+            </span>
+          </li>
+        ))}
+      </ul>
+    </div>
   );
 }
 
