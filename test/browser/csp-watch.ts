@@ -40,3 +40,33 @@ export async function collectLogErrors(page: Page): Promise<string[]> {
   await cdp.send('Log.enable');
   return entries;
 }
+
+/**
+ * Follows every in-app link (#/…) from the main screens, breadth first, and waits on each screen until nothing
+ * is loading. Returns the addresses visited.
+ */
+export async function walkEveryScreen(page: Page): Promise<{ visited: string[]; elements: Set<string> }> {
+  const queue = ['#/day', '#/day/new', '#/plan', '#/specimens', '#/specimens/new', '#/log', '#/send', '#/settings'];
+  const seen = new Set(queue);
+  const visited: string[] = [];
+  const elements = new Set<string>();
+  while (queue.length && visited.length < 80) {
+    const hash = queue.shift()!;
+    await page.evaluate((h) => (location.hash = h), hash);
+    await page.waitForFunction(() => {
+      const main = document.querySelector('main');
+      return main !== null && main.childElementCount > 0 && !/Loading/.test(main.textContent ?? '');
+    }, undefined, { timeout: 30_000 });
+    visited.push(hash);
+    const rendered = await page.evaluate(() => [...document.querySelectorAll('main *')].map((e) => e.localName).filter((n) => n.startsWith('pl-') && (document.querySelector(n)?.shadowRoot?.childElementCount ?? 0) > 0));
+    for (const name of rendered) elements.add(name);
+    const links = await page.evaluate(() => [...document.querySelectorAll('a[href^="#/"]')].map((a) => a.getAttribute('href')!));
+    for (const link of links) {
+      if (!seen.has(link)) {
+        seen.add(link);
+        queue.push(link);
+      }
+    }
+  }
+  return { visited, elements };
+}

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { startStaticServer, type StaticServer } from '../../scripts/static-server.mjs';
 import { PHONE, baseUrl, collectErrors, distDir, expectVisible, haveChromium, launchBrowser } from './harness';
-import { collectLogErrors, violations, watchViolations } from './csp-watch';
+import { collectLogErrors, violations, walkEveryScreen, watchViolations } from './csp-watch';
 
 interface CspReport {
   'csp-report'?: { 'effective-directive'?: string; 'violated-directive'?: string; 'blocked-uri'?: string };
@@ -186,33 +186,3 @@ describe.skipIf(!haveChromium)('the Content-Security-Policy in Chromium', () => 
     await context.close();
   });
 });
-
-/**
- * Follows every in-app link (#/…) from the main screens, breadth first, and waits on each screen until nothing
- * is loading. Returns the addresses visited.
- */
-async function walkEveryScreen(page: Page): Promise<{ visited: string[]; elements: Set<string> }> {
-  const queue = ['#/day', '#/day/new', '#/plan', '#/specimens', '#/specimens/new', '#/log', '#/send', '#/settings'];
-  const seen = new Set(queue);
-  const visited: string[] = [];
-  const elements = new Set<string>();
-  while (queue.length && visited.length < 80) {
-    const hash = queue.shift()!;
-    await page.evaluate((h) => (location.hash = h), hash);
-    await page.waitForFunction(() => {
-      const main = document.querySelector('main');
-      return main !== null && main.childElementCount > 0 && !/Loading/.test(main.textContent ?? '');
-    }, undefined, { timeout: 30_000 });
-    visited.push(hash);
-    const rendered = await page.evaluate(() => [...document.querySelectorAll('main *')].map((e) => e.localName).filter((n) => n.startsWith('pl-') && (document.querySelector(n)?.shadowRoot?.childElementCount ?? 0) > 0));
-    for (const name of rendered) elements.add(name);
-    const links = await page.evaluate(() => [...document.querySelectorAll('a[href^="#/"]')].map((a) => a.getAttribute('href')!));
-    for (const link of links) {
-      if (!seen.has(link)) {
-        seen.add(link);
-        queue.push(link);
-      }
-    }
-  }
-  return { visited, elements };
-}

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { csvField, neutraliseFormula, toCsv } from '../../src/log/csv';
-import { parseCsv } from './csv-reader';
+import { parseCsv, spreadsheetCells } from './csv-reader';
 
 describe('CSV text (RFC 4180)', () => {
   it('ends every record, the last one too, with CRLF (§2.1, §2.2)', () => {
@@ -78,29 +78,6 @@ describe('neutralising formulas (OWASP, "CSV Injection")', () => {
     expect(csvField('-5')).toBe("'-5");
   });
 });
-
-/**
- * How a spreadsheet splits a CSV text on a separator of its locale: double quotes group a cell, whatever the
- * separator (what LibreOffice Calc and Excel do on import; from memory). Lenient where RFC 4180 is strict.
- */
-function spreadsheetCells(text: string, separator: string): string[] {
-  const cells: string[] = [];
-  let cell = '';
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const c = text[i]!;
-    if (quoted) {
-      if (c === '"' && text[i + 1] === '"') (cell += '"'), i++;
-      else if (c === '"') quoted = false;
-      else cell += c;
-    } else if (c === '"' && cell === '') quoted = true;
-    else if (c === separator || c === '\n') (cells.push(cell), (cell = ''));
-    else if (c === '\r' && text[i + 1] === '\n') continue;
-    else cell += c;
-  }
-  cells.push(cell);
-  return cells;
-}
 
 describe('neutralising formulas for every separator a spreadsheet may use (OWASP, "CSV Injection")', () => {
   // OWASP's CSV Injection guidance (from memory): besides the leading = + - @ tab and CR, "take care of the field
