@@ -92,3 +92,11 @@ describe('the static server’s security headers', () => {
     expect(reports).toEqual([body]);
   });
 });
+
+describe('the static server without a favicon', () => {
+  it('answers the browser’s own /favicon.ico request with 204, and any other missing file with 404', async () => {
+    server = await startStaticServer({ root: site() });
+    expect((await fetch(`${server.url}/favicon.ico`)).status).toBe(204);
+    expect((await fetch(`${server.url}/missing.ico`)).status).toBe(404);
+  });
+});
