@@ -42,13 +42,16 @@ const TYPES = {
  */
 export async function startStaticServer({ root, port = 0, host = '127.0.0.1', folderOrigins = [], onCspReport }) {
   const security = securityHeaders({ connectSrc: [...LOCAL_FOLDERS, ...folderOrigins], reportUri: CSP_REPORT_PATH });
+  // Every answer says nosniff and no-referrer; the policies themselves (a kilobyte) go with what they govern: a
+  // page, and a script that may become a worker (a service worker takes its policy from its script's answer).
+  const everyAnswer = { 'x-content-type-options': security['x-content-type-options'], 'referrer-policy': security['referrer-policy'] };
   const report = onCspReport ?? ((body) => console.warn('Content-Security-Policy violation:', JSON.stringify(body)));
   // Without a trailing separator, so that the containment check below holds for "dist/" and "dist" alike.
   const clean = (dir) => normalize(dir).replace(/[\\/]+$/, '') || sep;
   let base = clean(root);
   const sockets = new Set();
   const server = createServer(async (req, res) => {
-    for (const [name, value] of Object.entries(security)) res.setHeader(name, value);
+    for (const [name, value] of Object.entries(everyAnswer)) res.setHeader(name, value);
     try {
       const url = new URL(req.url ?? '/', 'http://localhost');
       if (url.pathname === CSP_REPORT_PATH && req.method === 'POST') {
@@ -82,6 +85,9 @@ export async function startStaticServer({ root, port = 0, host = '127.0.0.1', fo
         return;
       }
       const type = TYPES[extname(target)] ?? 'application/octet-stream';
+      if (type.startsWith('text/html') || (type.startsWith('text/javascript') && !target.includes(`${sep}assets${sep}`))) {
+        for (const [name, value] of Object.entries(security)) res.setHeader(name, value);
+      }
       const cache = target.includes(`${sep}assets${sep}`) ? 'public, max-age=31536000, immutable' : 'no-cache';
       if (COMPRESSIBLE.test(type) && /\bgzip\b/.test(String(req.headers['accept-encoding'] ?? ''))) {
         const body = gzipSync(await readFile(target));

@@ -66,9 +66,10 @@ describe('the static server, compressing', () => {
 });
 
 describe('the static server’s security headers', () => {
-  it('sends the policy, nosniff, the referrer and permissions policies with every answer, a 404 included', async () => {
-    server = await startStaticServer({ root: site(), folderOrigins: ['https://files.example.org'] });
-    for (const path of ['/', '/assets/a.js', '/missing.js']) {
+  it('sends the policy, nosniff, the referrer and permissions policies with a page and a root script (a worker)', async () => {
+    writeFileSync(join(site(), 'sw.js'), '');
+    server = await startStaticServer({ root: dir, folderOrigins: ['https://files.example.org'] });
+    for (const path of ['/', '/some/screen', '/sw.js']) {
       const res = await fetch(`${server.url}${path}`);
       const csp = res.headers.get('content-security-policy') ?? '';
       expect(csp, path).toContain("script-src 'self' blob:");
@@ -79,6 +80,16 @@ describe('the static server’s security headers', () => {
       expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');
       expect(res.headers.get('referrer-policy'), path).toBe('no-referrer');
       expect(res.headers.get('permissions-policy'), path).toContain('microphone=(self)');
+    }
+  });
+
+  it('sends nosniff and the referrer policy with every other answer, a 404 included', async () => {
+    server = await startStaticServer({ root: site() });
+    for (const path of ['/assets/a.js', '/missing.js']) {
+      const res = await fetch(`${server.url}${path}`);
+      expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');
+      expect(res.headers.get('referrer-policy'), path).toBe('no-referrer');
+      expect(res.headers.get('content-security-policy'), path).toBeNull();
     }
   });
 

@@ -120,8 +120,10 @@ describe.skipIf(!haveChromium)('the Content-Security-Policy in Chromium', () => 
     await context.close();
   });
 
-  it('sends the security headers with the page, the scripts and the service worker', async () => {
-    for (const path of ['/', '/sw.js', '/manifest.webmanifest']) {
+  it('sends the security headers with the page and the service worker, and nosniff with the rest', async () => {
+    const asset = /src="(\/assets\/[^"]+\.js)"/.exec(await (await fetch(`${server.url}/`)).text())![1]!;
+    for (const path of ['/manifest.webmanifest', asset]) expect((await fetch(`${server.url}${path}`)).headers.get('x-content-type-options'), path).toBe('nosniff');
+    for (const path of ['/', '/sw.js', '/#/day']) {
       const res = await fetch(`${server.url}${path}`);
       expect(res.headers.get('content-security-policy'), path).toMatch(/^default-src 'none'; script-src 'self' blob:;/);
       expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');

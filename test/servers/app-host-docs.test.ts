@@ -22,11 +22,11 @@ describe('the app server of docs/office-folder.md', () => {
     expect(block(text, 'app-host')).toContain("connect-src 'self' https://files.example.org; frame-ancestors 'none'\" always;");
   });
 
-  it('sends the headers in every location of the app, and sandboxes the folder’s answers', () => {
+  it('sends the policies with the page and the service worker, nosniff everywhere, and sandboxes the folder’s answers', () => {
     const sameOrigin = nginxSiteConfig(documentedExample('same-origin'));
-    expect(sameOrigin.match(/add_header Content-Security-Policy "default-src 'none'; script-src 'self' blob:;[^"]*connect-src 'self'; frame-ancestors 'none'" always;/g)).toHaveLength(2);
+    expect(sameOrigin.match(/add_header Content-Security-Policy "default-src 'none'; script-src 'self' blob:;[^"]*connect-src 'self'; frame-ancestors 'none'" always;/g)).toHaveLength(1);
     expect(sameOrigin.match(/add_header X-Content-Type-Options "nosniff" always;/g)).toHaveLength(3);
-    expect(sameOrigin.match(/add_header Permissions-Policy "microphone=\(self\), geolocation=\(self\)/g)).toHaveLength(2);
+    expect(sameOrigin.match(/add_header Permissions-Policy "microphone=\(self\), geolocation=\(self\)/g)).toHaveLength(1);
     for (const setup of ['same-origin', 'cors'] as const) {
       expect(nginxSiteConfig(documentedExample(setup))).toContain(`add_header Content-Security-Policy "default-src 'none'; sandbox; frame-ancestors 'none'" always;`);
     }

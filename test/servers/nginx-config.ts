@@ -107,8 +107,9 @@ function folderLocation(o: NginxSiteOptions): string {
 }
 
 /**
- * The app's security headers (scripts/security-headers.mjs). nginx drops the server's add_header lines in any
- * location that has its own, so each location of the app repeats them.
+ * The app's security headers (scripts/security-headers.mjs), for the pages and the service worker (location /,
+ * which serves index.html and sw.js). nginx drops the server's add_header lines in any location that has its
+ * own, so /assets/ (scripts and styles, which no policy governs) says nosniff itself.
  */
 function appSecurityHeaders(folderOrigins: readonly string[]): string[] {
   return Object.entries(securityHeaders({ connectSrc: folderOrigins })).map(([name, value]) => `    add_header ${headerName(name)} "${value}" always;`);
@@ -129,7 +130,7 @@ function appLocations(root: string, folderOrigins: readonly string[]): string {
     'location /assets/ {',
     '    # File names carry a content hash: keep them for a year.',
     '    add_header Cache-Control "public, max-age=31536000, immutable";',
-    ...appSecurityHeaders(folderOrigins),
+    '    add_header X-Content-Type-Options "nosniff" always;',
     '}',
   ].join('\n');
 }
