@@ -29,6 +29,7 @@ describe('the app server of docs/office-folder.md', () => {
     expect(sameOrigin.match(/add_header Permissions-Policy "microphone=\(self\), geolocation=\(self\)/g)).toHaveLength(1);
     for (const setup of ['same-origin', 'cors'] as const) {
       expect(nginxSiteConfig(documentedExample(setup))).toContain(`add_header Content-Security-Policy "default-src 'none'; sandbox; frame-ancestors 'none'" always;`);
+      expect(nginxSiteConfig(documentedExample(setup))).toContain('    types { }\n        default_type application/octet-stream;\n');
     }
   });
 });

@@ -83,7 +83,11 @@ function folderLocation(o: NginxSiteOptions): string {
   lines.push(
     '    # Never answer a GET from a cache: the phones compare versions.',
     '    add_header Cache-Control "no-cache" always;',
-    '    # Nothing in the folder is ever run or framed, whatever a file in it looks like.',
+    '    # Nothing in the folder is ever run or framed, whatever a file in it looks like: every file is sent as',
+    "    # bytes, which with nosniff no page loads as a script (else, on the app's own origin, script-src 'self'",
+    '    # would let a page load one), and a file opened as a page is sandboxed.',
+    '    types { }',
+    '    default_type application/octet-stream;',
     `    add_header Content-Security-Policy "${FOLDER_CONTENT_SECURITY_POLICY}" always;`,
     '    add_header X-Content-Type-Options "nosniff" always;',
   );
