@@ -2,11 +2,38 @@ import { defineConfig } from 'vitest/config';
 import preact from '@preact/preset-vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import { readFileSync } from 'node:fs';
+import type { Plugin } from 'vite';
+import { pageContentSecurityPolicy, REFERRER_POLICY } from './scripts/security-headers.mjs';
 
 const pkg = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string };
 
 // PLUMMET_BUILD_ID lets the browser tests produce two builds that differ, to exercise the update notice.
 const buildId = process.env.PLUMMET_BUILD_ID ?? pkg.version;
+
+// The office folders the page may connect to, when the office builds its own copy (space-separated origins);
+// without it the page's policy allows any https folder, and the server's headers narrow it.
+const folderOrigins = process.env.PLUMMET_FOLDER_ORIGINS?.split(/\s+/).filter(Boolean);
+
+/**
+ * The Content-Security-Policy and the referrer policy in the built page, first in <head> so that they cover
+ * everything after them. Build only: the dev server injects inline scripts for hot reload.
+ */
+function securityMeta(): Plugin {
+  return {
+    name: 'plummet-security-meta',
+    apply: 'build',
+    transformIndexHtml(html) {
+      // Right after <meta charset>, which must stay within the first 1024 bytes and before any script or link.
+      const charset = /<meta charset="utf-8" \/>\n/;
+      if (!charset.test(html)) throw new Error('index.html: no <meta charset="utf-8" /> line to put the security policy after');
+      const policy = pageContentSecurityPolicy(folderOrigins?.length ? folderOrigins : null);
+      return html.replace(
+        charset,
+        (line) => `${line}    <meta http-equiv="Content-Security-Policy" content="${policy}" />\n    <meta name="referrer" content="${REFERRER_POLICY}" />\n`,
+      );
+    },
+  };
+}
 
 export default defineConfig({
   define: {
@@ -14,6 +41,7 @@ export default defineConfig({
     __BUILD_ID__: JSON.stringify(buildId),
   },
   plugins: [
+    securityMeta(),
     preact(),
     VitePWA({
       strategies: 'injectManifest',

@@ -5,6 +5,7 @@ import { routeHref, useRoute, type Route, type ScreenName } from './router';
 import type { UpdateHandle } from './service-worker';
 import { useApp } from './app-context';
 import { lazyScreen } from './lazy';
+import { Notice } from './Notice';
 // The day is the screen the app opens on: its router is small and comes with the shell; its parts load lazily.
 import { DayScreen, preloadDayScreen } from './screens/DayScreen';
 
@@ -32,6 +33,13 @@ const TITLES: Record<ScreenName, string> = {
   log: 'Log',
   send: 'Send to the office',
   settings: 'Settings',
+};
+
+/** Why an address led nowhere; the address itself is not echoed (it may be huge or hostile). */
+const NOT_FOUND: Record<NonNullable<Route['notFound']>, string> = {
+  malformed: 'This link is damaged (it may have been cut short when it was copied).',
+  unknown: 'This link does not lead to a screen of Plummet.',
+  'too-long': 'This link is far longer than any Plummet writes.',
 };
 
 export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) => void): () => void } }) {
@@ -64,6 +72,11 @@ export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) =>
         </a>
       </header>
       <main id="main" class="screen">
+        {route.notFound ? (
+          <Notice tone="warn" title="Page not found">
+            {NOT_FOUND[route.notFound]} Here is the test day instead.
+          </Notice>
+        ) : null}
         {route.screen === 'day' && <DayScreen params={route.params} />}
         {route.screen === 'plan' && <PlanScreen />}
         {route.screen === 'specimens' && <SpecimensScreen params={route.params} />}

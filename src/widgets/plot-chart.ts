@@ -70,6 +70,9 @@ export class PlotChart extends LitElement {
       display: block;
       color: var(--pl-ink, #111);
     }
+    figure {
+      margin: 0;
+    }
     svg {
       width: 100%;
       height: auto;
@@ -178,7 +181,7 @@ export class PlotChart extends LitElement {
     const yt = niceTicks(y0, y1);
     const fmt = (v: number) => String(Number(v.toPrecision(3)));
     return html`
-      <figure style="margin:0">
+      <figure>
         <svg viewBox="0 0 ${W} ${H}" role="img" aria-label=${this.summary || `${this.yLabel} against ${this.xLabel}`}>
           ${yt.map((v) => svg`<line class="grid" x1=${PAD.left} x2=${W - PAD.right} y1=${sy(v)} y2=${sy(v)}></line>
             <text x=${PAD.left - 6} y=${sy(v) + 4} text-anchor="end">${fmt(v)}</text>`)}

@@ -54,3 +54,27 @@ export function parseCsv(text: string): string[][] {
   }
   return rows;
 }
+
+/**
+ * How a spreadsheet splits a CSV text on the separator of its locale: a double quote at the start of a cell
+ * groups it, whatever the separator; elsewhere a quote is a plain character (what LibreOffice Calc and Excel do on
+ * import; from memory). Lenient where parseCsv is strict. Returns every cell of every line in one list.
+ */
+export function spreadsheetCells(text: string, separator: string): string[] {
+  const cells: string[] = [];
+  let cell = '';
+  let quoted = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i]!;
+    if (quoted) {
+      if (c === '"' && text[i + 1] === '"') (cell += '"'), i++;
+      else if (c === '"') quoted = false;
+      else cell += c;
+    } else if (c === '"' && cell === '') quoted = true;
+    else if (c === separator || c === '\n') (cells.push(cell), (cell = ''));
+    else if (c === '\r' && text[i + 1] === '\n') continue;
+    else cell += c;
+  }
+  cells.push(cell);
+  return cells;
+}

@@ -6,6 +6,8 @@
 // add_header needs `always` or 207 and 401 answers lose it; the preflight OPTIONS must be answered before
 // authentication, and `return` in an `if` runs in the rewrite phase, before auth_basic.
 
+import { FOLDER_CONTENT_SECURITY_POLICY, securityHeaders } from '../../scripts/security-headers.mjs';
+
 export type NginxSetup = 'same-origin' | 'cors';
 
 export interface NginxSiteOptions {
@@ -78,7 +80,17 @@ function folderLocation(o: NginxSiteOptions): string {
       '    add_header Vary Origin always;',
     );
   }
-  lines.push('    # Never answer a GET from a cache: the phones compare versions.', '    add_header Cache-Control "no-cache" always;');
+  lines.push(
+    '    # Never answer a GET from a cache: the phones compare versions.',
+    '    add_header Cache-Control "no-cache" always;',
+    '    # Nothing in the folder is ever run or framed, whatever a file in it looks like: every file is sent as',
+    "    # bytes, which with nosniff no page loads as a script (else, on the app's own origin, script-src 'self'",
+    '    # would let a page load one), and a file opened as a page is sandboxed.',
+    '    types { }',
+    '    default_type application/octet-stream;',
+    `    add_header Content-Security-Policy "${FOLDER_CONTENT_SECURITY_POLICY}" always;`,
+    '    add_header X-Content-Type-Options "nosniff" always;',
+  );
   if (o.setup === 'cors') {
     lines.push('    # The preflight carries no credentials: answer it before authentication.', '    if ($request_method = OPTIONS) {', '        return 204;', '    }');
   }
@@ -98,17 +110,31 @@ function folderLocation(o: NginxSiteOptions): string {
   return lines.join('\n');
 }
 
-function appLocations(o: NginxSiteOptions): string {
+/**
+ * The app's security headers (scripts/security-headers.mjs), for the pages and the service worker (location /,
+ * which serves index.html and sw.js). nginx drops the server's add_header lines in any location that has its
+ * own, so /assets/ (scripts and styles, which no policy governs) says nosniff itself.
+ */
+function appSecurityHeaders(folderOrigins: readonly string[]): string[] {
+  return Object.entries(securityHeaders({ connectSrc: folderOrigins })).map(([name, value]) => `    add_header ${headerName(name)} "${value}" always;`);
+}
+
+const headerName = (name: string) => name.replace(/(^|-)([a-z])/g, (_m, dash: string, c: string) => dash + c.toUpperCase());
+
+function appLocations(root: string, folderOrigins: readonly string[]): string {
   return [
-    `root ${o.appRoot};`,
+    `root ${root};`,
     'location / {',
     '    # Screens are routed in the page: every path that names no file gets index.html.',
     '    try_files $uri $uri/ /index.html;',
     '    add_header Cache-Control "no-cache";',
+    '    # What the page may load and connect to, and which sensors it may ask for (docs/office-folder.md).',
+    ...appSecurityHeaders(folderOrigins),
     '}',
     'location /assets/ {',
     '    # File names carry a content hash: keep them for a year.',
     '    add_header Cache-Control "public, max-age=31536000, immutable";',
+    '    add_header X-Content-Type-Options "nosniff" always;',
     '}',
   ].join('\n');
 }
@@ -118,9 +144,38 @@ export function nginxServerBlock(o: NginxSiteOptions): string {
   const body: string[] = [`listen ${o.listen};`, `server_name ${o.serverName};`];
   if (o.tls) body.push(`ssl_certificate ${o.tls.certificate};`, `ssl_certificate_key ${o.tls.key};`);
   body.push('');
-  if (o.setup === 'same-origin') body.push(appLocations(o), '');
+  if (o.setup === 'same-origin') body.push(appLocations(o.appRoot ?? '', []), '');
   body.push(folderLocation(o));
   return `server {\n${indent(body.join('\n'), '    ')}\n}`;
+}
+
+export interface NginxAppHostOptions {
+  listen: string;
+  serverName: string;
+  tls: { certificate: string; key: string } | null;
+  /** The built app (the dist/ folder). */
+  appRoot: string;
+  /** The office folders' origins the page may connect to. */
+  folderOrigins: string[];
+}
+
+/** Set-up 2's other half: the server of the app itself, on its own origin, allowing the folder's origin. */
+export function nginxAppHost(o: NginxAppHostOptions): string {
+  const body: string[] = [`listen ${o.listen};`, `server_name ${o.serverName};`];
+  if (o.tls) body.push(`ssl_certificate ${o.tls.certificate};`, `ssl_certificate_key ${o.tls.key};`);
+  body.push('', appLocations(o.appRoot, o.folderOrigins));
+  return `server {\n${indent(body.join('\n'), '    ')}\n}\n`;
+}
+
+/** The app's server of docs/office-folder.md, set-up 2. */
+export function documentedAppHost(): NginxAppHostOptions {
+  return {
+    listen: '443 ssl',
+    serverName: 'plummet.example.org',
+    tls: { certificate: '/etc/ssl/certs/plummet.example.org.pem', key: '/etc/ssl/private/plummet.example.org.key' },
+    appRoot: '/srv/plummet/app',
+    folderOrigins: ['https://files.example.org'],
+  };
 }
 
 /** What an office adds to its nginx configuration: the maps (http context) and the server block. */
