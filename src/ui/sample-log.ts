@@ -186,8 +186,11 @@ export async function loadSampleLog(store: LogStore, now = new Date()): Promise<
 export async function removeSampleLog(store: LogStore, ids: readonly string[]): Promise<void> {
   const all = await store.allRecords({ includeDeleted: false });
   const wanted = new Set(ids);
+  // Days first: a site or specimen can go only once the days and series that use it are gone in the same action.
+  const order = { day: 0, specimen: 1, site: 2 } as const;
   const actions: LogAction[] = all
-    .filter((r) => wanted.has(r.id) && (r.kind === 'day' || r.kind === 'site' || r.kind === 'specimen'))
+    .filter((r): r is typeof r & { kind: keyof typeof order } => wanted.has(r.id) && r.kind in order)
+    .sort((a, b) => order[a.kind] - order[b.kind])
     .map((r) => ({ op: 'remove', kind: r.kind, id: r.id, reason: 'sample log removed' }) as LogAction);
   if (actions.length) await store.commit(actions);
 }

@@ -58,9 +58,19 @@ export async function walkEveryScreen(page: Page): Promise<{ visited: string[]; 
       return main !== null && main.childElementCount > 0 && !/Loading/.test(main.textContent ?? '');
     }, undefined, { timeout: 30_000 });
     visited.push(hash);
+    // A screen fills in from the store after its first render (the log's list of days, for one): read its links
+    // once they have stopped changing, not at the first paint.
+    const readLinks = () => page.evaluate(() => [...document.querySelectorAll('a[href^="#/"]')].map((a) => a.getAttribute('href')!).join('\n'));
+    let before = await readLinks();
+    for (let i = 0; i < 20; i++) {
+      await page.waitForTimeout(150);
+      const now = await readLinks();
+      if (now === before && i >= 2) break;
+      before = now;
+    }
+    const links = before.split('\n').filter(Boolean);
     const rendered = await page.evaluate(() => [...document.querySelectorAll('main *')].map((e) => e.localName).filter((n) => n.startsWith('pl-') && (document.querySelector(n)?.shadowRoot?.childElementCount ?? 0) > 0));
     for (const name of rendered) elements.add(name);
-    const links = await page.evaluate(() => [...document.querySelectorAll('a[href^="#/"]')].map((a) => a.getAttribute('href')!));
     for (const link of links) {
       if (!seen.has(link)) {
         seen.add(link);
