@@ -18,3 +18,4 @@ export * from './upgrade-export';
 export * from './merge';
 export * from './csv';
 export * from './csv-tables';
+export * from './specimen-measures';

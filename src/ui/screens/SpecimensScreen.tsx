@@ -1,5 +1,5 @@
 import { useState } from 'preact/hooks';
-import { inputRange, LIMITS, type ShapeKind, type SpecimenBody, type SpecimenRecord, type SpecimenShape } from '../../log';
+import { inputRange, LIMITS, specimenMeasuresDiffer, type ShapeKind, type SpecimenBody, type SpecimenRecord, type SpecimenShape } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';
@@ -172,7 +172,7 @@ function SpecimenForm({ record: opened }: { record: SpecimenRecord | null }) {
   const shape = shapeFrom(d);
   const valid = d.name.trim() !== '' && fieldsValid(d.mass, d.uMass) && shape !== null && d.referenceCd.error === null;
   const measuredChanged =
-    record !== null && shape !== null && (JSON.stringify(shape) !== JSON.stringify(record.shape) || d.mass.value !== record.mass_kg || d.uMass.value !== record.u_mass_kg);
+    record !== null && shape !== null && specimenMeasuresDiffer({ shape, mass_kg: d.mass.value as number, u_mass_kg: d.uMass.value as number }, record);
   const needsReason = measuredChanged && d.reason.trim() === '';
   const S = (props: { label: string; f: keyof SpecimenDraft & string; u: keyof SpecimenDraft & string; kind?: 'smallLength' | 'area' | 'volume' }) => {
     const [limit, uLimit] =
