@@ -3,7 +3,8 @@
  * batch passes the gate (log/record-gate.ts, the same the import preview runs) before anything is written, then one transaction with the day counts, the clock (local
  * edits made later must sort after everything merged in) and the erased-log note.
  */
-import { LogValidationError, clockAhead, compareHlc, gateLookups, gateRecords, type LogRecord, type RecordKind } from '../log';
+import { LogValidationError, clockAhead, compareHlc, type LogRecord, type RecordKind } from '../log';
+import { loadWriteChecks } from './load-write-checks';
 import type { StoreTx } from './backend';
 import { dayCountsAfter, writeDayCounts } from './day-counts';
 import { knownKinds } from './known-kinds';
@@ -34,6 +35,8 @@ export function mergedRecordWrites(ctx: StoreContext): Pick<LogStore, 'putRecord
     async putRecords(records) {
       ctx.ensureOpen();
       if (records.length === 0) return;
+      // Before the transaction: inside it, only its own requests may be awaited.
+      const { gateLookups, gateRecords } = await loadWriteChecks();
       const now = env.now();
       await backend.write(async (tx) => {
         // Each record whole, and against the log: an id stored under another kind, a link to the wrong kind.

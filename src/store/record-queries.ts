@@ -2,7 +2,8 @@
  * Reading records as they are stored: one by id, all of a kind, one record's versions, and the whole log
  * for export and sync.
  */
-import { RECORD_KINDS, recordHistory, type BodyOf, type Revision } from '../log';
+import { RECORD_KINDS, type BodyOf, type Revision } from '../log';
+import { loadWriteChecks } from './load-write-checks';
 import { StoreError } from './errors';
 import { byCreated, isLive } from './live-records';
 import type { LogStore } from './log-store';
@@ -24,7 +25,7 @@ export function recordQueries(ctx: StoreContext): Pick<LogStore, 'get' | 'list' 
     },
 
     async history(kind, id) {
-      const record = await get(kind, id);
+      const [record, { recordHistory }] = await Promise.all([get(kind, id), loadWriteChecks()]);
       if (!record) throw new StoreError({ code: 'not-found', field: null, value: id, allowed: null, message: `no ${kind} ${id}` });
       // recordHistory is typed by the record's own `kind` field, which for a RecordOf[K] is K.
       return recordHistory(record) as Revision<BodyOf[typeof kind]>[];

@@ -5,10 +5,6 @@
  * of unsent changes are written in the same transaction as the records they describe.
  */
 import {
-  assertGateRecords,
-  createRecord,
-  deleteRecord,
-  reviseRecord,
   uuidV4,
   type BodyOf,
   type LogRecord,
@@ -26,6 +22,7 @@ import { removalSet } from './removal-set';
 import { Staging } from './staging';
 import type { StoreContext } from './store-context';
 import type { LogAction, WriteOptions } from './types';
+import { loadWriteChecks } from './load-write-checks';
 
 /**
  * One step of an action, with kind and body not tied together: every LogAction is one, and so is the action
@@ -67,6 +64,8 @@ export function recordWrites(
 
   async function runSteps(steps: readonly Step[], options: WriteOptions = {}): Promise<LogRecord[]> {
     ctx.ensureOpen();
+    // Before the transaction: inside it, only its own requests may be awaited.
+    const { assertGateRecords, createRecord, deleteRecord, reviseRecord } = await loadWriteChecks();
     const now = env.now();
     const written = await backend.write(async (tx) => {
       const [storedClock, unsentBefore] = await Promise.all([tx.getMeta('clock'), tx.getMeta('unsent_changes')]);
