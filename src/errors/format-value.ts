@@ -9,7 +9,10 @@ export function formatValue(value: unknown): string {
     if (text === undefined) return String(value);
     return text.length > 80 ? `${text.slice(0, 77)}...` : text;
   } catch {
-    // A cycle or a BigInt: JSON cannot write it, its own text still says what it was.
+    // A cycle, a BigInt, or nesting too deep for the engine's stack: say what kind of value it was, without
+    // walking it again (String() of a deeply nested list recurses as deep as JSON did).
+    if (Array.isArray(value)) return `a list of ${value.length}`;
+    if (value !== null && typeof value === 'object') return 'an object';
     return String(value);
   }
 }
