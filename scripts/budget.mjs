@@ -17,19 +17,11 @@ import { readFileSync, statSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { startStaticServer } from './static-server.mjs';
+import { CHROMIUM_ARGS } from './chromium-args.mjs';
 
 export const BUDGETS = { firstScreenJs: 45_000, cssGzip: 10_000, precache: 300_000 };
 
-/** Flags for the system Chromium on a machine with no GPU and no outside network (as the browser tests use). */
-export const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+export { CHROMIUM_ARGS };
 
 const gz = (file) => gzipSync(readFileSync(file), { level: 9 }).length;
 

@@ -7,6 +7,7 @@ import { copyFileSync, existsSync, mkdirSync, readFileSync } from 'node:fs';
 import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { createServer } from 'node:net';
+import { CHROMIUM_ARGS } from './chromium-args.mjs';
 
 const dist = fileURLToPath(new URL('../dist/', import.meta.url));
 if (!existsSync(dist)) {
@@ -14,16 +15,7 @@ if (!existsSync(dist)) {
   process.exit(1);
 }
 const chromePath = process.env.CHROME_PATH ?? '/usr/bin/chromium';
-const flags = [
-  '--headless=new',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+const flags = ['--headless=new', ...CHROMIUM_ARGS];
 mkdirSync('reports', { recursive: true });
 // The server runs in a process of its own, as `npm start` runs it.
 const port = await new Promise((resolve) => {

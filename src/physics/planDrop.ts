@@ -27,6 +27,7 @@ import { seriesBudget } from './seriesBudget';
 import { prepareSetup } from './seriesSetup';
 import type { BudgetInputSpec } from './uncertaintyBudget';
 import { DROP_LIMITS } from './validateAnalysisRequest';
+import { fallBodyFor } from './fallBodyFor';
 
 export interface DropPlanRequest {
   site: SiteInput;
@@ -114,15 +115,7 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   const addedMass = checkOptionalNumber('options.added_mass_coefficient', request.options?.added_mass_coefficient, { min: 0, max: 100, text: '0 to 100' }) ?? geometry.default_added_mass_coefficient;
   const rho = air.density_kg_m3;
   const g = site.gravity_m_s2;
-  const body = {
-    mass_kg: specimen.mass_kg,
-    area_m2: geometry.area_m2,
-    volume_m3: geometry.volume_m3,
-    density_kg_m3: rho,
-    gravity_m_s2: g,
-    buoyancy,
-    added_mass_coefficient: addedMass,
-  };
+  const body = fallBodyFor({ mass_kg: specimen.mass_kg, geometry, density_kg_m3: rho, gravity_m_s2: g, buoyancy, added_mass_coefficient: addedMass });
   const reynoldsPerSpeed = (rho * geometry.characteristic_length_m) / air.dynamic_viscosity_Pa_s;
 
   let cd: number;

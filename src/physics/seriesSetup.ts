@@ -13,6 +13,7 @@ import type { HumidityKind } from './seriesModel';
 import { checkSpecimen, type CheckedSpecimen, type SpecimenGeometry } from './specimenGeometry';
 import { TIMING_METHOD_DEFAULTS, type TimingMethod } from './timingMethodDefaults';
 import { validateAnalysisRequest } from './validateAnalysisRequest';
+import { fallBodyFor } from './fallBodyFor';
 
 export const DEFAULT_MONTE_CARLO_DRAWS = 20_000;
 
@@ -70,15 +71,7 @@ export function prepareSetup(request: AnalysisRequest): SeriesSetup {
   const buoyancy = options.buoyancy ?? true;
   const addedMass = options.added_mass_coefficient ?? geometry.default_added_mass_coefficient;
   const u = req.uncertainty ?? {};
-  const body = {
-    mass_kg: specimen.mass_kg,
-    area_m2: geometry.area_m2,
-    volume_m3: geometry.volume_m3,
-    density_kg_m3: rho,
-    gravity_m_s2: g,
-    buoyancy,
-    added_mass_coefficient: addedMass,
-  };
+  const body = fallBodyFor({ mass_kg: specimen.mass_kg, geometry, density_kg_m3: rho, gravity_m_s2: g, buoyancy, added_mass_coefficient: addedMass });
   const noDrag = fallParameters({ ...body, drag_coefficient: 0 }); // throws when not heavier than air
   const timing = req.timing;
   const methodDefaults = timing.method !== undefined ? TIMING_METHOD_DEFAULTS[timing.method] : null;

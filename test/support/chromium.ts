@@ -12,13 +12,5 @@ export function findChromium(): { path: string | null; reason: string } {
   };
 }
 
-/** Flags for the system Chromium on a machine with no GPU and no outside network. */
-export const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+// One list of flags for every Chromium the project starts.
+export { CHROMIUM_ARGS } from '../../scripts/chromium-args.mjs';
