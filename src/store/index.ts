@@ -3,6 +3,7 @@
 export type { LogStore } from './log-store';
 export { openLogStore, type OpenLogStoreOptions } from './idb-store';
 export { createMemoryStore, MemoryDatabase, MEMORY_ENVIRONMENT, type MemoryStoreOptions } from './memory-store';
+export { preloadWriteChecks } from './load-write-checks';
 export { createDraftSaver, type DraftSaver } from './draft-saver';
 export { StoreError, STORAGE_FULL_MESSAGE, type StoreErrorCode } from './errors';
 export { assessRisk, RISK_MESSAGES, NEARLY_FULL_SHARE } from './storage-risk';

@@ -4,7 +4,7 @@ import { App, preloadScreen } from './App';
 import { parseRoute } from './router';
 import { AppProvider, loadSettings } from './app-context';
 import { registerServiceWorker, type UpdateHandle } from './service-worker';
-import { openLogStore, type LogStore } from '../store';
+import { openLogStore, preloadWriteChecks, type LogStore } from '../store';
 import { browserEnvironment } from '../store/page';
 import { SYNC_META } from '../sync';
 import { describeError } from './errors';
@@ -52,6 +52,8 @@ export async function mountApp(root: HTMLElement): Promise<void> {
       root,
     );
     startSyncWhenWanted(store, () => bump());
+    // The record checks every write needs, in memory once the first screen is idle (store/load-write-checks.ts).
+    afterLoad(() => void whenIdle().then(preloadWriteChecks));
   } catch (error) {
     root.innerHTML = '';
     const p = document.createElement('p');
