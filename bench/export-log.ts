@@ -48,6 +48,10 @@ export function benchLog(drops: number, device = 'benchphone', seed = 1): LogRec
       pressure_reference: 'station',
       humidity: { kind: 'relative', relative_humidity_pct: 40 + random() * 40, u_relative_humidity_pct: 3 },
       wind_speed_m_s: null,
+      u_wind_speed_m_s: null,
+      vertical_wind_m_s: null,
+      u_vertical_wind_m_s: null,
+      height_m: 0,
       instrument: 'handheld weather meter',
       notes: '',
     } as LogRecord;
@@ -65,6 +69,9 @@ export function benchLog(drops: number, device = 'benchphone', seed = 1): LogRec
         target_relative_uncertainty: 0.05,
         reading_id: null,
         timing_offset: 'none',
+        reading_aloft_id: null,
+        timing_delay_s: null,
+        u_timing_delay_s: null,
         started_at: new Date(ms).toISOString(),
         notes: '',
       } as LogRecord;

@@ -215,6 +215,10 @@ const CASES: Case[] = [
   },
   // Wind is stored for the record; the physics does not read it.
   { kind: 'reading', path: 'wind_speed_m_s', body: (v) => reading({ wind_speed_m_s: v }), form: 'speed' },
+  { kind: 'reading', path: 'u_wind_speed_m_s', body: (v) => reading({ u_wind_speed_m_s: v }), form: 'speed' },
+  { kind: 'reading', path: 'vertical_wind_m_s', body: (v) => reading({ vertical_wind_m_s: v }), form: 'speed' },
+  { kind: 'reading', path: 'u_vertical_wind_m_s', body: (v) => reading({ u_vertical_wind_m_s: v }), form: 'speed' },
+  { kind: 'reading', path: 'height_m', body: (v) => reading({ height_m: v }), form: 'length' },
   {
     kind: 'series',
     path: 'height_m',
@@ -230,6 +234,14 @@ const CASES: Case[] = [
     downstream: (v) => analyse((r) => (r.uncertainty.height_m = v)),
   },
   { kind: 'series', path: 'u_time_s', body: (v) => series({ u_time_s: v }), form: 'time', downstream: (v) => analyse((r) => (r.timing.standard_uncertainty_s = v)) },
+  { kind: 'series', path: 'timing_delay_s', body: (v) => series({ timing_delay_s: v }), form: 'time', downstream: (v) => analyse((r) => (r.timing.offset_s = v)) },
+  {
+    kind: 'series',
+    path: 'u_timing_delay_s',
+    body: (v) => series({ u_timing_delay_s: v }),
+    form: 'time',
+    downstream: (v) => analyse((r) => (r.timing.offset_standard_uncertainty_s = v)),
+  },
   // Typed as a percent, stored as a fraction; the planner reads it, not the analysis.
   { kind: 'series', path: 'target_relative_uncertainty', body: (v) => series({ target_relative_uncertainty: v }), form: 'percent', formScale: 0.01 },
   {

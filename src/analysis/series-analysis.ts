@@ -1,7 +1,7 @@
 // A series' records analysed: what the screens show (the series, the day list, the summary, the log).
 import { analyzeSeries, PhysicsInputError, type AnalysisRequest, type AnalysisResult } from '../physics';
 import type { DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
-import { readingForSeries } from '../log';
+import { readingAloftForSeries, readingForSeries } from '../log';
 import { buildRequest, seriesParts, type MissingPart } from './series-request';
 
 export type SeriesOutcome =
@@ -17,9 +17,9 @@ export function analyzeSeriesRecords(
   drops: readonly DropRecord[],
   options: { monteCarloDraws?: number } = {},
 ): SeriesOutcome {
-  const parts = seriesParts({ series, site, specimen, reading: readingForSeries(series, readings), drops });
+  const parts = seriesParts({ series, site, specimen, reading: readingForSeries(series, readings), readingAloft: readingAloftForSeries(series, readings), drops });
   if (parts.kind === 'missing') return { kind: 'missing', code: parts.code, message: parts.message };
-  const request = buildRequest(parts.site, parts.reading, parts.specimen, series, parts.drops);
+  const request = buildRequest(parts.site, parts.reading, parts.specimen, series, parts.drops, parts.readingAloft);
   if (options.monteCarloDraws !== undefined) request.options = { ...request.options, monte_carlo_draws: options.monteCarloDraws };
   try {
     return { kind: 'ready', request, result: analyzeSeries(request), reading: parts.reading };

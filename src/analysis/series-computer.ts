@@ -28,7 +28,7 @@ export function seriesRequest(input: SeriesInput): AnalysisRequest {
   const parts = seriesParts(input);
   if (parts.kind === 'missing') throw new SeriesIncomplete(input, parts.code, parts.detail);
   // The same request the screens build, so the office's tables and the phone's screens agree to the digit.
-  return buildRequest(parts.site, parts.reading, parts.specimen, input.series, parts.drops);
+  return buildRequest(parts.site, parts.reading, parts.specimen, input.series, parts.drops, parts.readingAloft);
 }
 
 /** The table values of an analysis result; each drop carries its record's id. */

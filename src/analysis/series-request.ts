@@ -37,10 +37,18 @@ export function specimenInput(specimen: SpecimenRecord): { input: SpecimenInput;
   }
 }
 
+/**
+ * A reading's air for the request. The fields format 3 added (the reading's height, vertical air motion and the
+ * wind's uncertainty) are sent only when they say something: at their defaults (on the landing surface, no
+ * vertical motion measured, the wind's uncertainty left to the physics' rule) the request is the one earlier
+ * formats gave, so old series compute exactly as before.
+ */
 export function airInput(reading: ReadingRecord): { air: AnalysisRequest['air']; uncertainty: UncertaintyInput } {
   const h = reading.humidity;
   return {
     air: {
+      ...(reading.height_m !== 0 ? { height_m: reading.height_m } : {}),
+      ...(reading.vertical_wind_m_s !== null ? { vertical_wind_m_s: reading.vertical_wind_m_s } : {}),
       temperature_C: reading.temperature_C,
       pressure_Pa: reading.pressure_Pa,
       pressure_reference: reading.pressure_reference,
@@ -49,6 +57,8 @@ export function airInput(reading: ReadingRecord): { air: AnalysisRequest['air'];
       ...(h.kind === 'relative' ? { relative_humidity_pct: h.relative_humidity_pct } : { dew_point_C: Math.min(h.dew_point_C, reading.temperature_C) }),
     },
     uncertainty: {
+      ...(reading.u_vertical_wind_m_s !== null ? { vertical_wind_m_s: reading.u_vertical_wind_m_s } : {}),
+      ...(reading.u_wind_speed_m_s !== null ? { wind_speed_m_s: reading.u_wind_speed_m_s } : {}),
       temperature_C: reading.u_temperature_C,
       pressure_Pa: reading.u_pressure_Pa,
       ...(h.kind === 'relative' ? { relative_humidity_pct: h.u_relative_humidity_pct } : { dew_point_C: h.u_dew_point_C }),
@@ -69,15 +79,31 @@ export function usedDrops(drops: readonly DropRecord[]): DropRecord[] {
   return drops.filter((d) => !d.excluded && !d.deleted);
 }
 
+/**
+ * The series' timing for the request: the random part, the offset fit, the method (whose documented defaults
+ * give the shared start/stop delay, physics/timingMethodDefaults.ts) and the crew's own declared delay when given.
+ */
+export function timingInput(series: SeriesRecord, distinctHeights: number): AnalysisRequest['timing'] {
+  return {
+    standard_uncertainty_s: series.u_time_s,
+    offset: series.timing_offset === 'fit' && distinctHeights >= 3 ? 'fit' : 'none',
+    method: series.timing_method,
+    ...(series.timing_delay_s !== null ? { offset_s: series.timing_delay_s } : {}),
+    ...(series.u_timing_delay_s !== null ? { offset_standard_uncertainty_s: series.u_timing_delay_s } : {}),
+  };
+}
+
 export function buildRequest(
   site: SiteRecord,
   reading: ReadingRecord,
   specimen: SpecimenRecord,
   series: SeriesRecord,
   drops: readonly DropRecord[],
+  readingAloft: ReadingRecord | null = null,
 ): AnalysisRequest {
   const sp = specimenInput(specimen);
   const air = airInput(reading);
+  const aloft = readingAloft ? airInput(readingAloft) : null;
   const used = usedDrops(drops);
   const distinctHeights = new Set(used.map((d) => dropHeight(d, series))).size;
   return {
@@ -86,11 +112,10 @@ export function buildRequest(
     specimen: sp.input,
     // Each drop carries its record's id to its result: rows are joined by it, never by position.
     drops: used.map((d) => ({ id: d.id, height_m: dropHeight(d, series), time_s: d.time_s })),
-    timing: {
-      standard_uncertainty_s: series.u_time_s,
-      offset: series.timing_offset === 'fit' && distinctHeights >= 3 ? 'fit' : 'none',
-    },
+    timing: timingInput(series, distinctHeights),
     uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: series.u_height_m },
+    // The second reading's uncertainties are its own and travel with it.
+    ...(aloft && readingAloft ? { air_aloft: { ...aloft.air, height_m: readingAloft.height_m, uncertainty: aloft.uncertainty } } : {}),
   };
 }
 
@@ -114,7 +139,7 @@ export type SeriesParts =
       /** For the tables and the office: names the series and the record it lacks. */
       detail: string;
     }
-  | { kind: 'complete'; site: SiteRecord; specimen: SpecimenRecord; reading: ReadingRecord; drops: DropRecord[] };
+  | { kind: 'complete'; site: SiteRecord; specimen: SpecimenRecord; reading: ReadingRecord; readingAloft: ReadingRecord | null; drops: DropRecord[] };
 
 /** The one check of a series' parts, in a fixed order: site, specimen, air reading, drops in the fit. */
 export function seriesParts(parts: {
@@ -122,6 +147,7 @@ export function seriesParts(parts: {
   site: SiteRecord | null | undefined;
   specimen: SpecimenRecord | null | undefined;
   reading: ReadingRecord | null | undefined;
+  readingAloft?: ReadingRecord | null | undefined;
   drops: readonly DropRecord[];
 }): SeriesParts {
   const { series, site, specimen, reading } = parts;
@@ -131,5 +157,5 @@ export function seriesParts(parts: {
   if (!reading) return missing('series-without-reading', 'the day has no air reading');
   const drops = usedDrops(parts.drops);
   if (drops.length === 0) return missing('series-without-drops', 'no drops to analyse (all excluded or none yet)');
-  return { kind: 'complete', site, specimen, reading, drops };
+  return { kind: 'complete', site, specimen, reading, readingAloft: parts.readingAloft ?? null, drops };
 }

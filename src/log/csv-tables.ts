@@ -7,9 +7,9 @@
  * are left out; excluded drops are listed (excluded = true) but are not handed to the computation.
  */
 import { toCsv, type CsvOptions, type CsvValue } from './csv';
-import { readingForSeries } from './reading-for-series';
+import { readingForSeries, readingAloftForSeries } from './reading-for-series';
 
-export { readingForSeries };
+export { readingForSeries, readingAloftForSeries };
 import type { DayRecord, DropRecord, LogRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from './types';
 
 /** Everything the computation of one series needs, taken from the log. */
@@ -20,6 +20,8 @@ export interface SeriesInput {
   specimen: SpecimenRecord | null;
   /** The series' own reading, or the day's reading nearest in time to the series start. */
   reading: ReadingRecord | null;
+  /** The series' second reading at another height, when it names one (see SeriesBody.reading_aloft_id). */
+  readingAloft?: ReadingRecord | null;
   /** The drops to analyse: live, not excluded, in order of seq. */
   drops: DropRecord[];
 }
@@ -79,6 +81,8 @@ export const DROP_COLUMNS = [
   'relative_humidity_pct',
   'dew_point_C',
   'wind_speed_m_s',
+  'vertical_wind_m_s',
+  'reading_height_m',
   'air_density_kg_m3',
   'gravity_m_s2',
   'drag_coefficient',
@@ -107,6 +111,8 @@ export const SERIES_COLUMNS = [
   'timing_method',
   'u_time_s',
   'timing_offset',
+  'timing_delay_s',
+  'u_timing_delay_s',
   'drops_total',
   'drops_used',
   'reading_id',
@@ -118,6 +124,11 @@ export const SERIES_COLUMNS = [
   'relative_humidity_pct',
   'dew_point_C',
   'wind_speed_m_s',
+  'u_wind_speed_m_s',
+  'vertical_wind_m_s',
+  'u_vertical_wind_m_s',
+  'reading_height_m',
+  'reading_aloft_id',
   'air_density_kg_m3',
   'gravity_m_s2',
   'drag_coefficient',
@@ -162,6 +173,7 @@ export function seriesInputs(records: readonly LogRecord[]): (SeriesInput & { al
       site: day ? ((byId.get(day.site_id) as SiteRecord | undefined) ?? null) : null,
       specimen: (byId.get(series.specimen_id) as SpecimenRecord | undefined) ?? null,
       reading: readingForSeries(series, readings),
+      readingAloft: readingAloftForSeries(series, readings),
       drops: allDrops.filter((d) => !d.excluded),
       allDrops,
     };
@@ -221,6 +233,8 @@ function dropRows(rows: Row[]): CsvValue[][] {
         rh,
         dew,
         reading?.wind_speed_m_s,
+        reading?.vertical_wind_m_s,
+        reading?.height_m,
         used ? result.air_density_kg_m3 : null,
         used ? result.gravity_m_s2 : null,
         used ? r.drag_coefficient : null,
@@ -258,6 +272,8 @@ function seriesRows(rows: Row[]): CsvValue[][] {
       series.timing_method,
       series.u_time_s,
       series.timing_offset,
+      series.timing_delay_s,
+      series.u_timing_delay_s,
       allDrops.length,
       input.drops.length,
       reading?.id,
@@ -269,6 +285,11 @@ function seriesRows(rows: Row[]): CsvValue[][] {
       rh,
       dew,
       reading?.wind_speed_m_s,
+      reading?.u_wind_speed_m_s,
+      reading?.vertical_wind_m_s,
+      reading?.u_vertical_wind_m_s,
+      reading?.height_m,
+      series.reading_aloft_id,
       result.air_density_kg_m3,
       result.gravity_m_s2,
       result.drag_coefficient,

@@ -4,7 +4,7 @@
  * credentials can reach a file because none are handed in.
  *
  * Format 2 (schema: public/schema/plummet-log-2.schema.json; format 1 files are upgraded on import):
- *   { "app_version", "device", "format": "plummet-log", "format_version": 2,
+ *   { "app_version", "device", "format": "plummet-log", "format_version": 3,
  *     "records": [every record with its envelope, history and tombstone flag],
  *     "selection": null | { "day_ids", "kinds", "site_ids", "specimen_ids" } }
  */
@@ -79,7 +79,7 @@ function referencesOf(record: LogRecord): string[] {
     case 'reading':
       return [record.day_id];
     case 'series':
-      return record.reading_id ? [record.day_id, record.specimen_id, record.reading_id] : [record.day_id, record.specimen_id];
+      return [record.day_id, record.specimen_id, ...(record.reading_id ? [record.reading_id] : []), ...(record.reading_aloft_id ? [record.reading_aloft_id] : [])];
     case 'drop':
       return [record.series_id];
     default:

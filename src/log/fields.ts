@@ -66,12 +66,23 @@ export const LIMITS = {
   u_dew_point_C: atLeast(0, 20, '°C'),
   // Beyond hurricane force nobody drops anything; the bound catches km/h typed as m/s only above 75.
   wind_speed_m_s: atLeast(0, 75, 'm/s'),
+  u_wind_speed_m_s: atLeast(0, 75, 'm/s'),
+  // Vertical air motion, positive upward: thermals near the ground rise at a few m/s, the strongest
+  // convective updrafts reach 30 m/s and more (from memory); nobody drops anything in those.
+  vertical_wind_m_s: atLeast(-30, 30, 'm/s'),
+  u_vertical_wind_m_s: atLeast(0, 30, 'm/s'),
+  // Where a reading was taken, above the landing surface: on the ground (0) up to the highest release.
+  reading_height_m: atLeast(0, 10_000, 'm'),
   // A drop tower or a tethered balloon at most; drones are held to 120 m in most places. The physics
   // takes the air as one column of constant properties, which it refuses beyond 1000 m.
   height_m: above(0, 1000, 'm'),
   u_height_m: atLeast(0, 10, 'm'),
   // The physics cannot weigh a drop whose timing is perfect: the uncertainty must be above zero.
   u_time_s: above(0, 10, 's'),
+  // A constant start/stop delay, measured minus true: hand timing is biased by tenths of a second (0.225 s
+  // in sprint timing, see physics/timingMethodDefaults.ts); a second is a slip, not a delay.
+  timing_delay_s: atLeast(-1, 1, 's'),
+  u_timing_delay_s: atLeast(0, 1, 's'),
   target_relative_uncertainty: above(0, 1, ''),
   // A slow seed (about 0.3 m/s) from the highest release takes close to an hour; an hour is not a drop any more.
   time_s: above(0, 3600, 's'),
@@ -204,6 +215,10 @@ export const FIELDS = {
     'humidity.dew_point_C': num('dew_point_C'),
     'humidity.u_dew_point_C': num('u_dew_point_C'),
     wind_speed_m_s: num('wind_speed_m_s', true),
+    u_wind_speed_m_s: num('u_wind_speed_m_s', true),
+    vertical_wind_m_s: num('vertical_wind_m_s', true),
+    u_vertical_wind_m_s: num('u_vertical_wind_m_s', true),
+    height_m: num('reading_height_m'),
     instrument: other,
     notes: other,
   },
@@ -217,7 +232,10 @@ export const FIELDS = {
     u_time_s: num('u_time_s'),
     target_relative_uncertainty: num('target_relative_uncertainty'),
     reading_id: other,
+    reading_aloft_id: other,
     timing_offset: oneOf('timing_offset'),
+    timing_delay_s: num('timing_delay_s', true),
+    u_timing_delay_s: num('u_timing_delay_s', true),
     started_at: other,
     notes: other,
   },

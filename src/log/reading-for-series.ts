@@ -1,6 +1,9 @@
 import type { ReadingRecord, SeriesRecord } from './types';
 
-/** The reading a series uses: its own when named and present, else the day's live reading nearest its start. */
+/**
+ * The reading a series uses: its own when named and present, else the day's live reading nearest its start
+ * (never the series' reading aloft, which describes the air at another height).
+ */
 export function readingForSeries(series: SeriesRecord, readings: readonly ReadingRecord[]): ReadingRecord | null {
   if (series.reading_id) {
     const own = readings.find((r) => r.id === series.reading_id && !r.deleted);
@@ -10,7 +13,7 @@ export function readingForSeries(series: SeriesRecord, readings: readonly Readin
   let best: ReadingRecord | null = null;
   let bestGap = Infinity;
   for (const r of readings) {
-    if (r.day_id !== series.day_id || r.deleted) continue;
+    if (r.day_id !== series.day_id || r.deleted || r.id === series.reading_aloft_id) continue;
     const gap = Math.abs(Date.parse(r.taken_at) - start);
     if (gap < bestGap || (gap === bestGap && best !== null && r.id < best.id)) {
       best = r;
@@ -18,4 +21,10 @@ export function readingForSeries(series: SeriesRecord, readings: readonly Readin
     }
   }
   return best;
+}
+
+/** The series' second reading at another height (typically the release point), when named and live; else null. */
+export function readingAloftForSeries(series: SeriesRecord, readings: readonly ReadingRecord[]): ReadingRecord | null {
+  if (!series.reading_aloft_id) return null;
+  return readings.find((r) => r.id === series.reading_aloft_id && !r.deleted) ?? null;
 }

@@ -33,6 +33,7 @@ export const REFERENCE_FIELDS: { readonly [K in RecordKind]: readonly { field: s
     { field: 'day_id', kind: 'day' },
     { field: 'specimen_id', kind: 'specimen' },
     { field: 'reading_id', kind: 'reading' },
+    { field: 'reading_aloft_id', kind: 'reading' },
   ],
   drop: [{ field: 'series_id', kind: 'series' }],
 };

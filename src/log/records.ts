@@ -37,8 +37,20 @@ export const REASON_REQUIRED_FIELDS: { readonly [K in RecordKind]: readonly (key
   site: ['latitude_deg', 'longitude_deg', 'elevation_m'],
   specimen: ['mass_kg', 'u_mass_kg', 'shape'],
   day: [],
-  reading: ['temperature_C', 'u_temperature_C', 'pressure_Pa', 'u_pressure_Pa', 'pressure_reference', 'humidity', 'wind_speed_m_s'],
-  series: ['specimen_id', 'height_m', 'u_height_m'],
+  reading: [
+    'temperature_C',
+    'u_temperature_C',
+    'pressure_Pa',
+    'u_pressure_Pa',
+    'pressure_reference',
+    'humidity',
+    'wind_speed_m_s',
+    'u_wind_speed_m_s',
+    'vertical_wind_m_s',
+    'u_vertical_wind_m_s',
+    'height_m',
+  ],
+  series: ['specimen_id', 'height_m', 'u_height_m', 'reading_aloft_id', 'timing_delay_s', 'u_timing_delay_s'],
   drop: ['series_id', 'time_s', 'height_m', 'excluded', 'exclusion_reason'],
 };
 

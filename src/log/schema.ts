@@ -1,9 +1,9 @@
 /**
  * The JSON Schema (draft 2020-12) of the log file, format version 2.
  *
- * This object is the one source: public/schema/plummet-log-2.schema.json is written from it (regenerate with
- * `npm run schema`; a test fails while it is stale). The format 1 file stays published, frozen, for readers of
- * old files; import upgrades a format 1 file (upgrade-export.ts) before checking it against this schema. Import checks files against it with
+ * This object is the one source: public/schema/plummet-log-3.schema.json is written from it (regenerate with
+ * `npm run schema`; a test fails while it is stale). The format 1 and 2 files stay published, frozen, for readers of
+ * old files; import upgrades a format 1 or 2 file (upgrade-export.ts) before checking it against this schema. Import checks files against it with
  * json-schema-check.ts, a small checker of exactly the keywords used here (no code compiled at run time, so a
  * strict Content-Security-Policy is fine, and 3 KB instead of an ajv bundle); the tests compare it with ajv.
  *
@@ -15,9 +15,9 @@ import { ENUMS, LIMITS, SHAPE_DIMENSIONS, type Limit } from './fields';
 import { RECORD_KINDS, type RecordKind } from './types';
 
 export const LOG_FORMAT = 'plummet-log';
-export const LOG_FORMAT_VERSION = 2;
+export const LOG_FORMAT_VERSION = 3;
 /** Every format version this app reads (older ones are upgraded on import). */
-export const LOG_FORMAT_VERSIONS_READ = [1, 2] as const;
+export const LOG_FORMAT_VERSIONS_READ = [1, 2, 3] as const;
 /** Where the app serves the schema (the file lives in public/schema/). */
 export const LOG_SCHEMA_PATH = `/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
 export const LOG_SCHEMA_ID = `https://plummet.invalid/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
@@ -118,6 +118,10 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
       'Relative humidity or dew point.',
     ),
     wind_speed_m_s: nullable(range(LIMITS.wind_speed_m_s)),
+    u_wind_speed_m_s: nullable(range(LIMITS.u_wind_speed_m_s, 'Standard uncertainty of the wind speed; null: derived from the wind by the analysis.')),
+    vertical_wind_m_s: nullable(range(LIMITS.vertical_wind_m_s, 'Vertical air motion, positive upward; null: not measured (taken as still).')),
+    u_vertical_wind_m_s: nullable(range(LIMITS.u_vertical_wind_m_s, 'Its standard uncertainty; null: derived from the recorded wind by the analysis.')),
+    height_m: range(LIMITS.reading_height_m, 'Where the reading was taken, above the landing surface.'),
     instrument: text,
     notes: text,
   },
@@ -131,7 +135,10 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
     u_time_s: range(LIMITS.u_time_s, 'Standard uncertainty of one drop time from random causes.'),
     target_relative_uncertainty: range(LIMITS.target_relative_uncertainty),
     reading_id: nullable(ref('id')),
+    reading_aloft_id: nullable(ref('id')),
     timing_offset: oneOfStrings(ENUMS.timing_offset),
+    timing_delay_s: nullable(range(LIMITS.timing_delay_s, 'Constant start/stop delay, measured minus true; null: the timing method default.')),
+    u_timing_delay_s: nullable(range(LIMITS.u_timing_delay_s, 'Its standard uncertainty; null: the timing method default.')),
     started_at: ref('instant'),
     notes: text,
   },

@@ -109,6 +109,14 @@ export interface ReadingBody {
   pressure_reference: PressureReference;
   humidity: Humidity;
   wind_speed_m_s: number | null;
+  /** Standard uncertainty of the horizontal wind speed; null: derived from the wind itself (see the physics). */
+  u_wind_speed_m_s: number | null;
+  /** Vertical air motion, positive upward (a thermal, a draught in a stairwell); null: not measured (taken as 0). */
+  vertical_wind_m_s: number | null;
+  /** Its standard uncertainty; null: derived from the recorded wind (see the physics). */
+  u_vertical_wind_m_s: number | null;
+  /** Where the reading was taken, above the landing surface (0: at the landing surface). */
+  height_m: number;
   instrument: string;
   notes: string;
 }
@@ -130,8 +138,20 @@ export interface SeriesBody {
   target_relative_uncertainty: number;
   /** The air reading the analysis uses; null means the reading nearest in time to the series start. */
   reading_id: string | null;
+  /**
+   * A second reading at another height, typically at the release point of a tall drop: the analysis then
+   * interpolates the air between the two. Null: one reading, the air above it following the standard atmosphere.
+   */
+  reading_aloft_id: string | null;
   /** Fit a constant start/stop delay together with C_d (needs at least three distinct heights). */
   timing_offset: 'none' | 'fit';
+  /**
+   * The constant start/stop delay of the timing, measured minus true, the same in every drop; null: the timing
+   * method's default (physics/timingMethodDefaults.ts).
+   */
+  timing_delay_s: number | null;
+  /** Its standard uncertainty; null: the timing method's default. */
+  u_timing_delay_s: number | null;
   started_at: IsoInstant;
   notes: string;
 }

@@ -36,8 +36,41 @@ function upgradeToV2(file: Json): Json {
   return { ...file, format_version: 2, records };
 }
 
+/**
+ * What format 3 added to each kind, at the value that says what format 2 meant: a reading taken at the landing
+ * surface, with no vertical air motion measured and the uncertainties left to the analysis' rules; a series with
+ * no second reading and the timing method's own delay. Added only where absent, never over a value.
+ */
+const FORMAT_3_DEFAULTS: Readonly<Record<string, Json>> = {
+  reading: { u_wind_speed_m_s: null, vertical_wind_m_s: null, u_vertical_wind_m_s: null, height_m: 0 },
+  series: { reading_aloft_id: null, timing_delay_s: null, u_timing_delay_s: null },
+};
+
+function withDefaults(body: Json, defaults: Json): Json {
+  const missing = Object.keys(defaults).filter((key) => !(key in body));
+  return missing.length === 0 ? body : { ...body, ...Object.fromEntries(missing.map((key) => [key, defaults[key]])) };
+}
+
+/** Format 2 → 3: readings and series get the fields of air along the fall and declared delays (above), history too. */
+function upgradeToV3(file: Json): Json {
+  const records = Array.isArray(file['records'])
+    ? file['records'].map((record: unknown) => {
+        if (!isObject(record) || typeof record['kind'] !== 'string') return record;
+        const defaults = FORMAT_3_DEFAULTS[record['kind']];
+        if (!defaults) return record;
+        const history = Array.isArray(record['history'])
+          ? record['history'].map((entry: unknown) =>
+              isObject(entry) && isObject(entry['body']) ? { ...entry, body: withDefaults(entry['body'], defaults) } : entry,
+            )
+          : record['history'];
+        return { ...withDefaults(record, defaults), history };
+      })
+    : file['records'];
+  return { ...file, format_version: 3, records };
+}
+
 /** LOG_FILE_UPGRADES[n − 1] takes a file from format n to n + 1. */
-const LOG_FILE_UPGRADES: readonly ((file: Json) => Json)[] = [upgradeToV2];
+const LOG_FILE_UPGRADES: readonly ((file: Json) => Json)[] = [upgradeToV2, upgradeToV3];
 
 /**
  * The file in the current format: older formats are upgraded step by step; anything else (the current format,

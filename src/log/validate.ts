@@ -36,6 +36,10 @@ export const BODY_FIELDS: { readonly [K in RecordKind]: readonly (keyof BodyOf[K
     'pressure_reference',
     'humidity',
     'wind_speed_m_s',
+    'u_wind_speed_m_s',
+    'vertical_wind_m_s',
+    'u_vertical_wind_m_s',
+    'height_m',
     'instrument',
     'notes',
   ],
@@ -49,7 +53,10 @@ export const BODY_FIELDS: { readonly [K in RecordKind]: readonly (keyof BodyOf[K
     'u_time_s',
     'target_relative_uncertainty',
     'reading_id',
+    'reading_aloft_id',
     'timing_offset',
+    'timing_delay_s',
+    'u_timing_delay_s',
     'started_at',
     'notes',
   ],
@@ -402,6 +409,10 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     c.oneOf('pressure_reference', b.pressure_reference, ENUMS.pressure_reference);
     checkHumidity(c, b.humidity, b.temperature_C);
     c.nullableNumber('wind_speed_m_s', b.wind_speed_m_s, LIMITS.wind_speed_m_s);
+    c.nullableNumber('u_wind_speed_m_s', b.u_wind_speed_m_s, LIMITS.u_wind_speed_m_s);
+    c.nullableNumber('vertical_wind_m_s', b.vertical_wind_m_s, LIMITS.vertical_wind_m_s);
+    c.nullableNumber('u_vertical_wind_m_s', b.u_vertical_wind_m_s, LIMITS.u_vertical_wind_m_s);
+    c.number('height_m', b.height_m, LIMITS.reading_height_m);
     c.text('instrument', b.instrument, NAME_MAX, false);
     c.text('notes', b.notes, NOTES_MAX, false);
   },
@@ -415,7 +426,10 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     c.number('u_time_s', b.u_time_s, LIMITS.u_time_s);
     c.number('target_relative_uncertainty', b.target_relative_uncertainty, LIMITS.target_relative_uncertainty);
     c.id('reading_id', b.reading_id, true);
+    c.id('reading_aloft_id', b.reading_aloft_id, true);
     c.oneOf('timing_offset', b.timing_offset, ENUMS.timing_offset);
+    c.nullableNumber('timing_delay_s', b.timing_delay_s, LIMITS.timing_delay_s);
+    c.nullableNumber('u_timing_delay_s', b.u_timing_delay_s, LIMITS.u_timing_delay_s);
     c.instant('started_at', b.started_at);
     c.text('notes', b.notes, NOTES_MAX, false);
   },

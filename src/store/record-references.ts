@@ -29,6 +29,7 @@ function referencesOf(record: LogRecord): Reference[] {
         { field: 'day_id', kind: 'day', id: record.day_id },
         { field: 'specimen_id', kind: 'specimen', id: record.specimen_id },
         { field: 'reading_id', kind: 'reading', id: record.reading_id },
+        { field: 'reading_aloft_id', kind: 'reading', id: record.reading_aloft_id },
       ];
     case 'drop':
       return [{ field: 'series_id', kind: 'series', id: record.series_id }];
@@ -55,7 +56,7 @@ export async function checkReferences(record: LogRecord, previous: LogRecord | u
       });
     }
     if (record.kind === 'series' && target.kind === 'reading' && target.day_id !== record.day_id) {
-      throw new StoreError({ code: 'reference-missing', field: 'series.reading_id', value: ref.id, allowed: 'a reading of the same day', message: `series.reading_id: reading ${ref.id} belongs to another day` });
+      throw new StoreError({ code: 'reference-missing', field: `series.${ref.field}`, value: ref.id, allowed: 'a reading of the same day', message: `series.${ref.field}: reading ${ref.id} belongs to another day` });
     }
   });
 }

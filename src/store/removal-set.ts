@@ -21,7 +21,7 @@ export async function removalSet(record: LogRecord, staging: Staging): Promise<L
       return [record];
     }
     case 'reading': {
-      const series = (await staging.referrers('series', 'by_day', record.day_id, (s) => s.day_id)).filter((s) => s.reading_id === record.id);
+      const series = (await staging.referrers('series', 'by_day', record.day_id, (s) => s.day_id)).filter((s) => s.reading_id === record.id || s.reading_aloft_id === record.id);
       if (series.length > 0) throw inUse('series', series.length);
       return [record];
     }

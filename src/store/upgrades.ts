@@ -99,4 +99,38 @@ export const upgradeToV3: Upgrade = async (_db, tx) => {
   }
 };
 
-export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3];
+/** Fields log format 3 added, at the values that say what the older records meant (see log/upgrade-export.ts). */
+const V4_DEFAULTS = {
+  reading: { u_wind_speed_m_s: null, vertical_wind_m_s: null, u_vertical_wind_m_s: null, height_m: 0 },
+  series: { reading_aloft_id: null, timing_delay_s: null, u_timing_delay_s: null },
+} as const;
+
+function withDefaults(body: Body, defaults: Body): Body | null {
+  const missing = Object.keys(defaults).filter((key) => !(key in body));
+  return missing.length === 0 ? null : { ...body, ...Object.fromEntries(missing.map((key) => [key, defaults[key]])) };
+}
+
+/**
+ * Version 4 (log format 3): readings say at what height they were taken and what vertical air motion there was;
+ * series may name a second reading aloft and declare a timing delay. Older records get the values that say
+ * what they meant (on the landing surface, nothing measured, the method's default), in their history too, with
+ * the revision stamp unchanged (every phone upgrades alike).
+ */
+export const upgradeToV4: Upgrade = async (_db, tx) => {
+  for (const kind of ['reading', 'series'] as const) {
+    const store = tx.objectStore(kind);
+    const defaults: Body = V4_DEFAULTS[kind];
+    const all = (await store.getAll()) as unknown as (Body & { history: { body: Body }[] })[];
+    const changed = all.flatMap((record) => {
+      const history = record.history.map((entry) => {
+        const body = withDefaults(entry.body, defaults);
+        return body ? { ...entry, body } : entry;
+      });
+      const upgraded = withDefaults(record, defaults) ?? (history.some((entry, i) => entry !== record.history[i]) ? record : null);
+      return upgraded ? [{ ...upgraded, history }] : [];
+    });
+    await Promise.all(changed.map((record) => store.put(record as never)));
+  }
+};
+
+export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3, upgradeToV4];

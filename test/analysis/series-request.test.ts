@@ -12,9 +12,34 @@ describe('a series request built from the records', () => {
       air: { temperature_C: 17.5, pressure_Pa: 96_120, pressure_reference: 'station', relative_humidity_pct: 55 },
       specimen: { shape: 'sphere', mass_kg: 0.21, diameter_m: 0.095 },
       drops: day.drops.map((d, i) => ({ id: d.id, height_m: HEIGHTS[i], time_s: d.time_s })),
-      timing: { standard_uncertainty_s: 0.004, offset: 'fit' },
+      timing: { standard_uncertainty_s: 0.004, offset: 'fit', method: 'typed' },
       uncertainty: { mass_kg: 0.0005, diameter_m: 0.0003, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3, height_m: 0.01 },
     });
+  });
+
+  it('carries a declared timing delay and the timing method, whose defaults the physics applies', () => {
+    const day = testDay();
+    const series = { ...day.series, timing_method: 'tap' as const, timing_delay_s: -0.03, u_timing_delay_s: 0.02 };
+    expect(buildRequest(day.site, day.reading, day.specimen, series, day.drops).timing).toEqual({
+      standard_uncertainty_s: 0.004,
+      offset: 'fit',
+      method: 'tap',
+      offset_s: -0.03,
+      offset_standard_uncertainty_s: 0.02,
+    });
+    // Without a declared delay the method's own applies: nothing is sent, the physics fills it in.
+    expect(buildRequest(day.site, day.reading, day.specimen, { ...series, timing_delay_s: null, u_timing_delay_s: null }, day.drops).timing).not.toHaveProperty('offset_s');
+  });
+
+  it('sends the reading’s height and vertical air motion only when they say something', () => {
+    const day = testDay();
+    const plain = buildRequest(day.site, day.reading, day.specimen, day.series, day.drops);
+    expect(plain.air).not.toHaveProperty('height_m');
+    expect(plain.air).not.toHaveProperty('vertical_wind_m_s');
+    const aloft = { ...day.reading, height_m: 120, vertical_wind_m_s: 0.4, u_vertical_wind_m_s: 0.2 };
+    const request = buildRequest(day.site, aloft, day.specimen, day.series, day.drops);
+    expect(request.air).toMatchObject({ height_m: 120, vertical_wind_m_s: 0.4 });
+    expect(request.uncertainty).toMatchObject({ vertical_wind_m_s: 0.2 });
   });
 
   it('fits a timing offset only with drops from three heights', () => {

@@ -38,6 +38,10 @@ export const reading = (): ReadingBody => ({
   pressure_reference: 'station',
   humidity: { kind: 'relative', relative_humidity_pct: 62, u_relative_humidity_pct: 3 },
   wind_speed_m_s: 1.2,
+  u_wind_speed_m_s: null,
+  vertical_wind_m_s: null,
+  u_vertical_wind_m_s: null,
+  height_m: 0,
   instrument: 'handheld weather meter',
   notes: '',
 });
@@ -53,6 +57,9 @@ export const series = (): SeriesBody => ({
   target_relative_uncertainty: 0.05,
   reading_id: null,
   timing_offset: 'none',
+  reading_aloft_id: null,
+  timing_delay_s: null,
+  u_timing_delay_s: null,
   started_at: '2026-06-14T09:10:00.000Z',
   notes: '',
 });

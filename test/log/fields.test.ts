@@ -115,6 +115,8 @@ describe('the CSV tables', () => {
     'impact_speed_m_s',
     'impact_energy_J',
     'reynolds_number',
+    // The reading's height_m, named apart from the series' release height in the same row.
+    'reading_height_m',
     'timing_offset_s',
     'terminal_velocity_m_s',
     'warnings',

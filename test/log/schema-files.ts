@@ -7,6 +7,8 @@ import { LOG_FORMAT_VERSION, LOG_SCHEMA } from '../../src/log/schema';
 export const SCHEMA_FILE = `public/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
 /** Format 1's schema: frozen, kept published for readers of old files; nothing writes it any more. */
 export const SCHEMA_FILE_V1 = 'public/schema/plummet-log-1.schema.json';
+/** Format 2's schema: frozen likewise since format 3. */
+export const SCHEMA_FILE_V2 = 'public/schema/plummet-log-2.schema.json';
 
 /** ajv, the reference validator the tests compare the app's own checker with. */
 export function makeAjv(source: boolean): Ajv2020 {

@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { exportLog, LOG_FORMAT_VERSION, readLogFile, upgradeLogFile, validateRecord, type DropRecord, type LogRecord } from '../../src/log';
-import { makeAjv, SCHEMA_FILE_V1 } from './schema-files';
+import { makeAjv, SCHEMA_FILE_V1, SCHEMA_FILE_V2 } from './schema-files';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 /**
@@ -13,6 +13,18 @@ const root = fileURLToPath(new URL('../../', import.meta.url));
  */
 const V1_TEXT = readFileSync(`${root}test/log/fixtures/plummet-log-v1.json`, 'utf8');
 const v1 = JSON.parse(V1_TEXT) as { format_version: number; records: Record<string, any>[] };
+
+/** What format 3 adds to readings and series, at the values that say what the older file meant. */
+const FORMAT_3_ADDED: Record<string, Record<string, unknown>> = {
+  reading: { u_wind_speed_m_s: null, vertical_wind_m_s: null, u_vertical_wind_m_s: null, height_m: 0 },
+  series: { reading_aloft_id: null, timing_delay_s: null, u_timing_delay_s: null },
+};
+/** A record of an older file as format 3 reads it: the added fields at their defaults, in its history too. */
+function withFormat3(record: Record<string, any>): Record<string, any> {
+  const added = FORMAT_3_ADDED[record['kind']];
+  if (!added) return record;
+  return { ...record, ...added, history: record['history'].map((e: Record<string, any>) => ({ ...e, body: { ...e['body'], ...added } })) };
+}
 
 describe('reading a format 1 file', () => {
   it('is a real format 1 file: the published format 1 schema accepts it', () => {
@@ -39,14 +51,14 @@ describe('reading a format 1 file', () => {
           expect(entry.body).toEqual({ ...before.history[h].body, raw: { ...before.history[h].body.raw, sound_travel: null } });
         });
       } else {
-        expect(record).toEqual(before);
+        expect(record).toEqual(withFormat3(before));
       }
     });
     const revised = file.records.find((r): r is DropRecord => r.kind === 'drop' && r.history.length > 0 && r.raw.kind === 'sound');
     expect(revised?.history[0]!.body.raw).toMatchObject({ kind: 'sound', sound_travel: null });
   });
 
-  it('round-trips: the upgraded records export as format 2 and read back the same', () => {
+  it('round-trips: the upgraded records export in the current format and read back the same', () => {
     const records = readLogFile(V1_TEXT).records;
     const text = exportLog(records, { device: 'phoneA', app_version: '0.2.0' });
     expect(JSON.parse(text).format_version).toBe(LOG_FORMAT_VERSION);
@@ -64,6 +76,41 @@ describe('reading a format 1 file', () => {
     // The upgrade does not change the object it was given.
     upgradeLogFile(v1);
     expect(JSON.stringify(v1)).toBe(JSON.stringify(JSON.parse(V1_TEXT)));
+  });
+});
+
+/**
+ * A real format 2 file: the format 1 file above as the format 2 exporter wrote it (commit 57dfc95, the last
+ * before format 3). Invented values, not measurements.
+ */
+const V2_TEXT = readFileSync(`${root}test/log/fixtures/plummet-log-v2.json`, 'utf8');
+const v2 = JSON.parse(V2_TEXT) as { format_version: number; records: Record<string, any>[] };
+
+describe('reading a format 2 file', () => {
+  it('is a real format 2 file: the published format 2 schema accepts it', () => {
+    const schema = JSON.parse(readFileSync(root + SCHEMA_FILE_V2, 'utf8'));
+    const validate = makeAjv(false).compile(schema);
+    expect(validate(v2), JSON.stringify(validate.errors)).toBe(true);
+    expect(v2.format_version).toBe(2);
+    expect(V2_TEXT).not.toContain('reading_aloft_id');
+  });
+
+  it('is upgraded on import: readings on the landing surface with no air motion measured, series with the method delay; nothing else changes', () => {
+    const file = readLogFile(V2_TEXT);
+    expect(file.format_version).toBe(LOG_FORMAT_VERSION);
+    expect(file.records).toHaveLength(v2.records.length);
+    file.records.forEach((record, i) => expect(record).toEqual(withFormat3(v2.records[i]!)));
+    expect(file.records.filter((r) => r.kind === 'reading' || r.kind === 'series').length).toBeGreaterThan(1);
+    for (const r of file.records) expect(validateRecord(r)).toEqual([]);
+  });
+
+  it('fills the history bodies too, and never writes over a value that is there', () => {
+    const reading = v2.records.find((r) => r['kind'] === 'reading')!;
+    const { history: _, id: __, kind: ___, created_at: _c, updated_at: _u, rev: _r, device: _d, deleted: _x, ...body } = reading;
+    const revised = { ...reading, history: [{ rev: reading['rev'], device: 'phoneA', updated_at: reading['updated_at'], reason: 'slip', deleted: false, body }] };
+    const upgraded = upgradeLogFile({ ...v2, records: [revised, { ...reading, id: 'x', height_m: 12 }] }) as { records: Record<string, any>[] };
+    expect(upgraded.records[0]!['history'][0]['body']).toEqual({ ...body, ...FORMAT_3_ADDED['reading'] });
+    expect(upgraded.records[1]!['height_m']).toBe(12);
   });
 });
 

@@ -97,8 +97,8 @@ const byKindAndId = (a: LogRecord, b: LogRecord) => (a.kind + a.id < b.kind + b.
 
 describe('schema upgrades', () => {
   it('ships one upgrade function per version, and the current version is the last', () => {
-    expect(UPGRADES).toHaveLength(3);
-    expect(DB_VERSION).toBe(3);
+    expect(UPGRADES).toHaveLength(4);
+    expect(DB_VERSION).toBe(4);
   });
 
   it('opens a database filled by version 1 under the current version with every record, draft and meta entry intact', async () => {
@@ -219,5 +219,43 @@ describe('schema upgrades', () => {
     expect(after.get(revised.id)).toEqual(revised);
     expect(after.get(revised.id)!.history[0]!.body.raw).toEqual(raw);
     expect(after.get(tapped.id)).toEqual(tapped);
+  });
+
+  it('gives readings and series stored by version 3 the fields of log format 3 at the values they meant (history too), and changes nothing else', async () => {
+    const name = freshName();
+    const clock = new HybridLogicalClock(DEVICE);
+    let t = Date.UTC(2026, 3, 1, 8, 0, 0);
+    const ctx = () => ({ device: DEVICE, clock, now: (t += 1000), random: (b: Uint8Array) => webcrypto.getRandomValues(b) });
+    const added = new Set(['u_wind_speed_m_s', 'vertical_wind_m_s', 'u_vertical_wind_m_s', 'height_m', 'reading_aloft_id', 'timing_delay_s', 'u_timing_delay_s']);
+    // Version 3 stored readings and series without them (log format 2): written here as they were. A series'
+    // own height_m was there already and stays.
+    const formatTwo = (record: LogRecord): LogRecord =>
+      JSON.parse(JSON.stringify(record, function (this: Record<string, unknown>, key, value) {
+        const isSeries = this['specimen_id'] !== undefined;
+        return added.has(key) && !(isSeries && key === 'height_m') ? undefined : value;
+      }));
+    const reading = reviseRecord(createRecord('reading', demo.reading(), ctx()), { temperature_C: 12.5 }, { ...ctx(), reason: 'read the wrong line' });
+    const series = reviseRecord(createRecord('series', demo.series(), ctx()), { height_m: 9.5 }, { ...ctx(), reason: 'remeasured' });
+    const drop = createRecord('drop', demo.drop(1), ctx());
+    const [oldReading, oldSeries] = [reading, series].map(formatTwo);
+    const oldDrop = drop;
+    expect(oldReading).not.toHaveProperty('height_m');
+    expect(oldReading!.history[0]!.body).not.toHaveProperty('vertical_wind_m_s');
+    expect(oldSeries).not.toHaveProperty('reading_aloft_id');
+    expect(oldSeries).toHaveProperty('height_m', 9.5);
+    const old = await openLogDatabase(name, { version: 3 });
+    const tx = old.transaction(['reading', 'series', 'drop'], 'readwrite');
+    await Promise.all([tx.objectStore('reading').put(oldReading as never), tx.objectStore('series').put(oldSeries as never), tx.objectStore('drop').put(oldDrop as never), tx.done]);
+    old.close();
+
+    const db = await openLogDatabase(name);
+    const [r, s, d] = await Promise.all([db.get('reading', reading.id), db.get('series', series.id), db.get('drop', drop.id)]);
+    db.close();
+    // Demo bodies hold the defaults, so the upgraded records are exactly what was created, rev included.
+    expect(demo.reading()).toMatchObject({ height_m: 0, vertical_wind_m_s: null, u_vertical_wind_m_s: null, u_wind_speed_m_s: null });
+    expect(demo.series()).toMatchObject({ reading_aloft_id: null, timing_delay_s: null, u_timing_delay_s: null });
+    expect(r).toEqual(reading);
+    expect(s).toEqual(series);
+    expect(d).toEqual(drop);
   });
 });

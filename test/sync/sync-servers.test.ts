@@ -6,6 +6,7 @@ import { readdir, rm, utimes } from 'node:fs/promises';
 import { join } from 'node:path';
 import { canonicalJson } from '../../src/log/canonical';
 import { exportLog } from '../../src/log/export';
+import { LOG_FORMAT_VERSION } from '../../src/log/schema';
 import { readLogFile } from '../../src/log/export-parse';
 import type { DropRecord, LogRecord } from '../../src/log/types';
 import { deviceFileName, syncFolder, type SyncReport } from '../../src/sync/sync-run';
@@ -365,7 +366,7 @@ describe.each(kinds)('syncing through %s', (name, missing, start) => {
     const good = exportLog(bLog, { device: 'phoneB', app_version: '0.1.0' });
     await putFolderFile(server, deviceFileName('phoneB'), text);
     await putFolderFile(server, 'notes.json', '{"todo": "buy tape"}');
-    await putFolderFile(server, 'plummet-log-phoneC.json', good.replace('"format_version":2', '"format_version":99'));
+    await putFolderFile(server, 'plummet-log-phoneC.json', good.replace(`"format_version":${LOG_FORMAT_VERSION}`, '"format_version":99'));
     await putFolderFile(server, 'plummet-log-phoneD.json', good.replace(/"device":"phoneB"/, '"device":"phoneD"').slice(0, Math.floor(good.length / 2)));
     // A change typed on this phone, not yet sent.
     await phone.revise('drop', byKind(sampleLog({ device: 'phoneA', seed: 1 }), 'drop')[0]!.id, { note: 'typed here' });

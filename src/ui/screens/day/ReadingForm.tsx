@@ -5,8 +5,9 @@ import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { describeError } from '../../errors';
+import { emptyReadingPlace, readingPlaceBody, readingPlaceValid, ReadingPlaceFields, type ReadingPlaceDraft } from './ReadingPlaceFields';
 
-interface ReadingDraft {
+interface ReadingDraft extends ReadingPlaceDraft {
   temperature: FieldState;
   uTemperature: FieldState;
   pressure: FieldState;
@@ -60,11 +61,12 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
     wind: { value: null, error: null },
     instrument: '',
     notes: '',
+    ...emptyReadingPlace(),
   }));
   const d = form.value;
   const preview = useAirPreview(d, site);
   const [error, setError] = useState<string | null>(null);
-  const valid = preview?.ok === true && fieldsValid(d.uTemperature, d.uPressure) && (d.humidityKind === 'relative' ? fieldsValid(d.uHumidity) : fieldsValid(d.uDewPoint)) && d.wind.error === null;
+  const valid = preview?.ok === true && fieldsValid(d.uTemperature, d.uPressure) && (d.humidityKind === 'relative' ? fieldsValid(d.uHumidity) : fieldsValid(d.uDewPoint)) && d.wind.error === null && readingPlaceValid(d);
 
   const save = async () => {
     setError(null);
@@ -84,6 +86,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
               ? { kind: 'relative', relative_humidity_pct: d.humidity.value!, u_relative_humidity_pct: d.uHumidity.value! }
               : { kind: 'dew_point', dew_point_C: d.dewPoint.value!, u_dew_point_C: d.uDewPoint.value! },
           wind_speed_m_s: d.wind.value,
+          ...readingPlaceBody(d),
           instrument: d.instrument,
           notes: d.notes,
         },
@@ -130,6 +133,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
         <MeasuredField form={form} name="dewPoint" uName="uDewPoint" label="Dew point" kind="temperature" {...inputRange(LIMITS.dew_point_C)} uMax={LIMITS.u_dew_point_C.max} />
       )}
       <QField label="Wind speed (optional)" kind="speed" required={false} state={d.wind} {...inputRange(LIMITS.wind_speed_m_s)} onChange={(wind) => form.set({ wind })} />
+      <ReadingPlaceFields draft={d} onChange={(next) => form.set(next)} />
       <TextField id="instrument" label="Instrument" value={d.instrument} onInput={(instrument) => form.set({ instrument })} />
       <AirFigures preview={preview} />
       {error ? <Notice tone="bad">{error}</Notice> : null}

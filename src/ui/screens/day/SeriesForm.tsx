@@ -5,21 +5,26 @@ import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
 import { navigate, routeHref } from '../../router';
 import { describeError } from '../../errors';
+import { TIMING_METHOD_DEFAULTS } from '../../../physics';
+import { emptySeriesAirTiming, seriesAirTimingBody, seriesAirTimingValid, SeriesAirTimingFields, type SeriesAirTimingDraft } from './SeriesAirTimingFields';
 
 /**
- * Typical standard uncertainty of one timed drop for each method (common practice): a hand stopwatch carries
- * the spread of human reaction at start and stop; taps on the phone about the same; sound onsets are limited
- * by the onset detection and by sound travel; video by the frame interval (1/fps/√12 per end at 60 fps);
- * light gates by their electronics.
+ * Each timing method's label and the random standard uncertainty of one drop the form starts from: the physics'
+ * documented defaults (physics/timingMethodDefaults.ts, with their sources), so the form and the analysis agree.
+ * A typed time comes from an instrument the app does not know; the form starts from 20 ms (common practice for a
+ * time read off a display to the hundredth) and the crew states its own.
  */
-export const TIMING_DEFAULTS: Record<TimingMethod, { label: string; u_s: number }> = {
-  typed: { label: 'Typed in', u_s: 0.02 },
-  stopwatch: { label: 'Hand stopwatch', u_s: 0.05 },
-  tap: { label: 'Taps on this phone', u_s: 0.04 },
-  sound: { label: 'Sound onsets', u_s: 0.003 },
-  video: { label: 'Video frames', u_s: 0.007 },
-  gates: { label: 'Light gates', u_s: 0.0005 },
+const LABELS: Record<TimingMethod, string> = {
+  typed: 'Typed in',
+  stopwatch: 'Hand stopwatch',
+  tap: 'Taps on this phone',
+  sound: 'Sound onsets',
+  video: 'Video frames',
+  gates: 'Light gates',
 };
+export const TIMING_DEFAULTS = Object.fromEntries(
+  (Object.keys(LABELS) as TimingMethod[]).map((m) => [m, { label: LABELS[m], u_s: TIMING_METHOD_DEFAULTS[m].standard_uncertainty_s ?? 0.02 }]),
+) as Record<TimingMethod, { label: string; u_s: number }>;
 
 /** The timing methods as choices for a select. */
 export const TIMING_OPTIONS = Object.entries(TIMING_DEFAULTS).map(([value, t]) => ({ value, label: t.label }));
@@ -32,7 +37,7 @@ const HEIGHT_METHODS: Record<HeightMethod, string> = {
   other: 'Other',
 };
 
-interface SeriesDraft {
+interface SeriesDraft extends SeriesAirTimingDraft {
   specimenId: string;
   height: FieldState;
   uHeight: FieldState;
@@ -70,11 +75,12 @@ export function SeriesForm({
     target: field(5),
     readingId: '',
     fitOffset: false,
+    ...emptySeriesAirTiming(),
   }));
   const d = form.value;
   const [error, setError] = useState<string | null>(null);
   const specimenOk = specimens.some((s) => s.id === d.specimenId);
-  const valid = specimenOk && fieldsValid(d.height, d.uHeight, d.uTime, d.target);
+  const valid = specimenOk && fieldsValid(d.height, d.uHeight, d.uTime, d.target) && seriesAirTimingValid(d, d.readingId);
 
   const save = async () => {
     setError(null);
@@ -92,6 +98,7 @@ export function SeriesForm({
           target_relative_uncertainty: d.target.value! / 100,
           reading_id: d.readingId || null,
           timing_offset: d.fitOffset ? 'fit' : 'none',
+          ...seriesAirTimingBody(d),
           started_at: new Date().toISOString(),
           notes: '',
         },
@@ -174,6 +181,7 @@ export function SeriesForm({
         ]}
         onChange={(readingId) => form.set({ readingId })}
       />
+      <SeriesAirTimingFields draft={d} method={d.timingMethod} readingId={d.readingId} readings={readings} onChange={(next) => form.set(next)} />
       <label class="check">
         <input type="checkbox" checked={d.fitOffset} onChange={(e) => form.set({ fitOffset: (e.target as HTMLInputElement).checked })} />
         <span>Fit a constant timing offset too (needs drops from at least three heights)</span>
