@@ -55,7 +55,7 @@ export function SeriesAirTimingFields({
         <summary>Steady timing delay: {draft.delay.value === null && draft.uDelay.value === null ? `method default ${defaultText}` : 'your own'}</summary>
         <p class="hint">
           A delay the same in every drop (measured minus true: a late start makes it negative). Left empty, the
-          method’s default is used: {defaultText}. {defaults.source}.
+          method’s default is used: {defaultText} (source: {defaults.source}).
         </p>
         <QField
           label="Delay (optional)"

@@ -160,7 +160,7 @@ export function SeriesForm({
         delta
         state={d.uTime}
         {...inputRange(LIMITS.u_time_s)}
-        hint="Random spread of one drop’s time. A steady start/stop delay belongs in the offset fit instead."
+        hint="Random spread of one drop’s time. A delay the same in every drop is declared below, or fitted."
         onChange={(uTime) => form.set({ uTime })}
       />
       <QField
