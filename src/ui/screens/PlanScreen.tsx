@@ -10,6 +10,7 @@ import { analyzeDay, PLAN_DEFAULTS, planFor, specimenDragCoefficientOfDay, type 
 import { TIMING_DEFAULTS, TIMING_OPTIONS } from './day/SeriesForm';
 import { describeError } from '../errors';
 import { useSettled } from '../use-settled';
+import { inChosenUnits, warningText } from '../unit-text';
 
 interface PlanDraft {
   specimenId: string;
@@ -109,7 +110,7 @@ export function PlanScreen() {
           ) : null}
         </section>
       )}
-      {plan && !plan.ok ? <Notice tone="bad">{plan.message}</Notice> : null}
+      {plan && !plan.ok ? <Notice tone="bad">{inChosenUnits(plan.message, app.format)}</Notice> : null}
       {plan && plan.ok ? <PlanResult plan={plan.plan} sources={plan.sources} /> : null}
     </div>
   );
@@ -176,7 +177,7 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
       ) : null}
       {plan.target ? (
         <Notice tone={plan.target.reachable ? 'good' : 'warn'} title={plan.target.reachable ? 'The target can be reached' : 'The target cannot be reached'}>
-          <p>{plan.target.message}</p>
+          <p>{inChosenUnits(plan.target.message, app.format)}</p>
           {plan.target.smallest_height_m !== null ? (
             <p>
               Lowest height: <strong>{app.format(plan.target.smallest_height_m, 'length', 1)}</strong> with {plan.target.drops_at_smallest_height} drops.
@@ -187,7 +188,7 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
       ) : null}
       {plan.warnings.map((w, i) => (
         <Notice key={`${w.code}${i}`} tone="warn">
-          {w.message}
+          {warningText(w, app.format)}
         </Notice>
       ))}
     </section>

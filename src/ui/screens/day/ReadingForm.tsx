@@ -5,6 +5,7 @@ import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { describeError } from '../../errors';
+import { inChosenUnits, warningText } from '../../unit-text';
 
 interface ReadingDraft {
   temperature: FieldState;
@@ -148,7 +149,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
 function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) {
   const { format } = useApp();
   if (!preview) return <p class="hint">Air density, viscosity and the speed of sound show here as soon as the reading is complete.</p>;
-  if (!preview.ok) return <Notice tone="bad">{preview.message}</Notice>;
+  if (!preview.ok) return <Notice tone="bad">{inChosenUnits(preview.message, format)}</Notice>;
   const a = preview.air;
   return (
     <div class="figures" aria-live="polite">
@@ -158,7 +159,7 @@ function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) 
       </div>
       <div class="figure">
         <span class="figure-label">Viscosity</span>
-        <span class="figure-value">{(a.dynamic_viscosity_Pa_s * 1e6).toFixed(2)} µPa·s</span>
+        <span class="figure-value">{format(a.dynamic_viscosity_Pa_s, 'viscosity')}</span>
       </div>
       <div class="figure">
         <span class="figure-label">Speed of sound</span>
@@ -170,7 +171,7 @@ function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) 
       </div>
       {a.warnings.map((w) => (
         <Notice key={w.code} tone="warn">
-          {w.message}
+          {warningText(w, format, { temperature_C: a.temperature_K - 273.15, station_pressure_Pa: a.station_pressure_Pa })}
         </Notice>
       ))}
     </div>

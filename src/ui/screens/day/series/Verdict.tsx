@@ -6,12 +6,13 @@ import { useApp } from '../../../app-context';
 import { Notice } from '../../../forms';
 import { impactEnergyWarning } from '../../../SafetyCaution';
 import { describeError } from '../../../errors';
+import { inChosenUnits, warningText } from '../../../unit-text';
 
 export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome; series: SeriesRecord; usedDrops: readonly DropRecord[] }) {
   const app = useApp();
   const dropsUsed = usedDrops.length;
-  if (outcome.kind === 'missing') return <Notice tone="info">{outcome.message}</Notice>;
-  if (outcome.kind === 'error') return <Notice tone="bad" title="The series cannot be computed">{outcome.message}</Notice>;
+  if (outcome.kind === 'missing') return <Notice tone="info">{inChosenUnits(outcome.message, app.format)}</Notice>;
+  if (outcome.kind === 'error') return <Notice tone="bad" title="The series cannot be computed">{inChosenUnits(outcome.message, app.format)}</Notice>;
   const r = outcome.result;
   const cd = r.drag_coefficient;
   const U = 2 * r.drag_coefficient_standard_uncertainty;
@@ -56,7 +57,7 @@ export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome
         </div>
         <div class="figure">
           <span class="figure-label">Gravity</span>
-          <span class="figure-value">{r.gravity_m_s2.toFixed(5)} m/s²</span>
+          <span class="figure-value">{app.format(r.gravity_m_s2, 'acceleration')}</span>
         </div>
         <div class="figure">
           <span class="figure-label">Reynolds number</span>
@@ -81,7 +82,7 @@ export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome
         .filter((w) => w.code !== 'possible-outlier')
         .map((w, i) => (
           <Notice key={`${w.code}-${i}`} tone="warn">
-            {w.message}
+            {warningText(w, app.format, { temperature_C: outcome.reading.temperature_C, station_pressure_Pa: r.air.station_pressure_Pa })}
           </Notice>
         ))}
       {r.heights
@@ -135,7 +136,7 @@ function Enough({
               ? `About ${advice.drops_at_planned_height - dropsUsed} more drops from ${app.format(series.height_m, 'length', 1)} should reach it. `
               : ''
             : ''}
-          {advice.message}
+          {inChosenUnits(advice.message, app.format)}
         </div>
       ) : null}
     </div>
