@@ -117,11 +117,13 @@ export function Choice<T extends string>(props: {
   options: Array<{ value: T; label: string }>;
   onChange(value: T): void;
   hint?: string;
+  /** One option under the other, for options that are sentences. */
+  stacked?: boolean;
 }) {
   return (
     <fieldset class="choice">
       <legend>{props.legend}</legend>
-      <div class="choice-row">
+      <div class={props.stacked ? 'choice-row choice-stack' : 'choice-row'}>
         {props.options.map((o) => (
           <label key={o.value} class={`choice-opt ${props.value === o.value ? 'on' : ''}`}>
             <input type="radio" name={props.name} value={o.value} checked={props.value === o.value} onChange={() => props.onChange(o.value)} />

@@ -135,40 +135,22 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
         ).{sources.site === 'default' ? ` Gravity at ${PLAN_DEFAULTS.site.latitude_deg}° latitude at sea level (no current day with a site).` : ''}
       </p>
       {at ? (
-        <div class="figures">
-          <div class="figure">
-            <span class="figure-label">Fall time</span>
-            <span class="figure-value">{at.fall_time_s.toFixed(3)} s</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Drag delay</span>
-            <span class="figure-value">{(at.drag_delay_s * 1000).toFixed(1)} ms</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Impact speed</span>
-            <span class="figure-value">{app.format(at.impact_speed_m_s, 'speed', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Impact energy</span>
-            <span class="figure-value">{app.format(at.impact_energy_J, 'energy')}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Terminal velocity</span>
-            <span class="figure-value">{app.format(plan.terminal_velocity_m_s, 'speed', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Reaches 95 % of it after</span>
-            <span class="figure-value">{app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Reaches 99 % after</span>
-            <span class="figure-value">{app.format(plan.distance_to_99pct_terminal_velocity_m, 'length', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">C_d uncertainty, one drop</span>
-            <span class="figure-value">{(at.relative_uncertainty_one_drop * 100).toFixed(1)} %</span>
-          </div>
-        </div>
+        <>
+          <p class="fall-story" data-testid="fall-story">
+            Let go at rest, it lands after <strong>{at.fall_time_s.toFixed(3)} s</strong>, {(at.drag_delay_s * 1000).toFixed(1)} ms later than
+            it would with no air, at <strong>{app.format(at.impact_speed_m_s, 'speed', 1)}</strong>, carrying{' '}
+            <strong>{app.format(at.impact_energy_J, 'energy')}</strong>.
+          </p>
+          <p class="fall-story">
+            However far it fell, still air would hold it below <strong>{app.format(plan.terminal_velocity_m_s, 'speed', 1)}</strong>. It comes
+            within 5 % of that after falling {app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}, within 1 % after{' '}
+            {app.format(plan.distance_to_99pct_terminal_velocity_m, 'length', 1)}.
+          </p>
+          <dl class="readout">
+            <dt>C_d uncertainty from one drop</dt>
+            <dd>{(at.relative_uncertainty_one_drop * 100).toFixed(1)} %</dd>
+          </dl>
+        </>
       ) : null}
       {energyWarning ? (
         <Notice tone="bad" title="Impact energy">

@@ -103,18 +103,19 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
       <h3 id="reading-h">New air reading</h3>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
       <MeasuredField form={form} name="temperature" uName="uTemperature" label="Air temperature" kind="temperature" {...inputRange(LIMITS.temperature_C)} uMax={LIMITS.u_temperature_C.max} />
+      <MeasuredField form={form} name="pressure" uName="uPressure" label="Air pressure" kind="pressure" {...inputRange(d.reference === 'sea_level' ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa)} uMax={LIMITS.u_pressure_Pa.max} />
       <Choice
-        legend="The barometer shows"
+        legend="Where this pressure comes from"
         name="pref"
+        stacked
         value={d.reference}
         options={[
-          { value: 'station', label: 'Station pressure' },
-          { value: 'sea_level', label: 'Sea-level (QNH)' },
+          { value: 'station', label: 'Read on site: the air pressure where we stand' },
+          { value: 'sea_level', label: 'A weather report: brought down to sea level' },
         ]}
         onChange={(reference) => form.set({ reference })}
-        hint="Station pressure is what the air presses here; weather reports give sea-level pressure (QNH)."
+        hint="Weather services publish pressure brought down to sea level; the app takes it back up to the site’s elevation."
       />
-      <MeasuredField form={form} name="pressure" uName="uPressure" label="Pressure" kind="pressure" {...inputRange(d.reference === 'sea_level' ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa)} uMax={LIMITS.u_pressure_Pa.max} />
       <Choice
         legend="Humidity as"
         name="hkind"
@@ -166,7 +167,7 @@ function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) 
         <span class="figure-value">{format(a.speed_of_sound_m_s, 'speed', 1)}</span>
       </div>
       <div class="figure">
-        <span class="figure-label">Station pressure</span>
+        <span class="figure-label">Pressure on site</span>
         <span class="figure-value">{format(a.station_pressure_Pa, 'pressure')}</span>
       </div>
       {a.warnings.map((w) => (
