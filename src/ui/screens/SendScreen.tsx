@@ -24,6 +24,11 @@ import { describeError } from '../errors';
 import { localDate } from '../dates';
 import { exportNaming, incomingDays, incomingSites, tablesFileStem } from '../send-names';
 
+/** A message as a sentence: it ends with a full stop before the next one starts. */
+function sentence(text: string): string {
+  return /[.!?]$/.test(text.trim()) ? text.trim() : `${text.trim()}.`;
+}
+
 /** What happened to a file, in the crew's words: on this phone, handed to another app, or nothing. */
 export function outcomeText(outcome: ShareOutcome, what: string): { tone: 'good' | 'info'; text: string } {
   if (outcome === 'shared') return { tone: 'good', text: `Shared: ${what} went to the app you picked. It is in the office once that app has sent it.` };
@@ -107,7 +112,7 @@ export function SendScreen() {
       setIncomingLocal(await app.store.allRecords({ includeDeleted: true }));
       setIncoming(preview);
     } catch (e) {
-      setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
+      setMessage({ tone: 'bad', text: `This file cannot be imported: ${sentence(describeError(e))} Nothing was changed.` });
     }
   };
 
@@ -119,7 +124,7 @@ export function SendScreen() {
       app.notifyChanged();
       setMessage({ tone: 'good', text: `Imported: ${done.added.length} added, ${done.updated.length} updated, ${done.conflicts.length} conflicts kept for review.` });
     } catch (e) {
-      setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${describeError(e)}` });
+      setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${sentence(describeError(e))}` });
     }
   };
 
