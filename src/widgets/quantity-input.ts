@@ -135,6 +135,16 @@ export class QuantityInput extends LitElement {
       color: var(--pl-ink-soft, #333);
       white-space: nowrap;
     }
+    .sign {
+      min-width: 48px;
+      border: 0;
+      border-left: 1px solid var(--pl-line-soft, #999);
+      background: transparent;
+      color: inherit;
+      font: inherit;
+      font-weight: 700;
+      cursor: pointer;
+    }
     .sr {
       position: absolute;
       width: 1px;
@@ -231,8 +241,27 @@ export class QuantityInput extends LitElement {
   }
 
   private onInput(event: Event): void {
+    this.accept((event.target as HTMLInputElement).value);
+  }
+
+  /**
+   * A signed field (one whose range goes below zero: a west longitude, a frost temperature) gets a sign key of its
+   * own, because many phones' decimal keypads have no minus.
+   */
+  private get signed(): boolean {
+    return this.min !== undefined && this.min < 0;
+  }
+
+  private flipSign(): void {
+    const t = this.typed.trim();
+    this.accept(/^[-\u2212]/.test(t) ? t.replace(/^[-\u2212]\s*/, '') : `-${t.replace(/^\+/, '')}`);
+    this.editing = false;
+    this.renderRoot.querySelector('input')?.focus();
+  }
+
+  private accept(text: string): void {
     this.editing = true;
-    this.typed = (event.target as HTMLInputElement).value;
+    this.typed = text;
     const { value, error } = this.check(this.typed);
     // Show "required" only once the field is left, not while it is being cleared to retype.
     this.error = this.typed.trim() === '' ? null : error;
@@ -277,6 +306,9 @@ export class QuantityInput extends LitElement {
           @input=${this.onInput}
           @blur=${this.onBlur}
         />
+        ${this.signed
+          ? html`<button type="button" class="sign" aria-label=${`Change the sign of ${this.label || 'the value'}`} @click=${this.flipSign}>−/+</button>`
+          : nothing}
         ${u.symbol ? html`<span class="unit" aria-hidden="true">${u.symbol}</span>` : nothing}
       </div>
       ${this.hint ? html`<div class="hint" id=${hintId}>${this.hint}</div>` : nothing}
