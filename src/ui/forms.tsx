@@ -32,6 +32,8 @@ export interface QFieldProps {
   hint?: string;
   compact?: boolean;
   id?: string;
+  /** A coordinate: the hemisphere letters it takes. */
+  hemispheres?: 'NS' | 'EW';
 }
 
 /** A quantity field bound to a form's state, in the crew's chosen unit. */
@@ -52,6 +54,7 @@ export function QField(props: QFieldProps) {
       delta={props.delta ?? false}
       hint={props.hint ?? ''}
       compact={props.compact ?? false}
+      hemispheres={props.hemispheres ?? ''}
       decimalComma={settings.decimalComma}
       onquantity-change={(e: CustomEvent) => {
         const d = e.detail as QuantityChangeDetail;

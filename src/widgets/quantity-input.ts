@@ -4,6 +4,7 @@ import {
   deltaToSI,
   formatNumber,
   fromSI,
+  parseAngle,
   parseDecimal,
   toSI,
   unitFor,
@@ -44,6 +45,7 @@ export class QuantityInput extends LitElement {
     hint: { type: String },
     decimalComma: { type: Boolean, attribute: 'decimal-comma' },
     compact: { type: Boolean, reflect: true },
+    hemispheres: { type: String },
     error: { state: true },
   };
 
@@ -61,6 +63,8 @@ export class QuantityInput extends LitElement {
   declare hint: string;
   declare decimalComma: boolean;
   declare compact: boolean;
+  /** For a coordinate: the hemisphere letters it takes ("NS" or "EW"); degrees-minutes-seconds are read too. */
+  declare hemispheres: 'NS' | 'EW' | '';
   declare error: string | null;
 
   private readonly inputId = `pl-q-${++nextId}`;
@@ -78,6 +82,7 @@ export class QuantityInput extends LitElement {
     this.hint = '';
     this.decimalComma = false;
     this.compact = false;
+    this.hemispheres = '';
     this.error = null;
   }
 
@@ -222,7 +227,15 @@ export class QuantityInput extends LitElement {
     if (text.trim() === '') {
       return { value: null, error: this.required ? `${name} is required (${this.rangeText()}).` : null };
     }
-    const shown = parseDecimal(text);
+    let shown = parseDecimal(text);
+    if (shown === null && this.hemispheres) {
+      const angle = parseAngle(text, this.hemispheres);
+      if ('reason' in angle) {
+        const [a, b] = this.hemispheres;
+        return { value: null, error: `${name}: "${text}" cannot be read (${angle.reason}). Type decimal degrees, or degrees, minutes and seconds with ${a} or ${b}, e.g. 46°06'30" ${a}. Allowed: ${this.rangeText()}.` };
+      }
+      shown = angle.value;
+    }
     if (shown === null) {
       return { value: null, error: `${name}: "${text}" is not a number. Allowed: ${this.rangeText()}.` };
     }

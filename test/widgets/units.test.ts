@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { CHOOSABLE, DEFAULT_UNITS, UNIT_SYSTEMS, deltaToSI, formatNumber, formatQuantity, formatSignificant, fromSI, parseDecimal, toSI, unitFor, unitSystemOf } from '../../src/widgets/units';
+import { CHOOSABLE, DEFAULT_UNITS, UNIT_SYSTEMS, deltaToSI, formatNumber, formatQuantity, formatSignificant, fromSI, parseAngle, parseDecimal, toSI, unitFor, unitSystemOf } from '../../src/widgets/units';
 
 describe('display units', () => {
   it('converts with the exact definitions of the international foot, inch and pound (NIST SP 811, B.8)', () => {
@@ -71,5 +71,19 @@ describe('display units', () => {
     expect(formatSignificant(0.0032000000000005357, 3)).toBe('0.0032');
     expect(formatSignificant(-0.00001234, 3)).toBe('-1.23 × 10⁻⁵');
     expect(formatSignificant(0.4683, 3, true)).toBe('0,468');
+  });
+
+  it('reads coordinates in degrees-minutes-seconds, decimal minutes or with hemisphere letters', () => {
+    // 1° = 60′ = 3600″ (ISO 80000-3); S and W are the negative hemispheres (ISO 6709).
+    expect(parseAngle(`46°06'30" N`, 'NS')).toEqual({ value: 46 + 6 / 60 + 30 / 3600 });
+    expect(parseAngle('46 6 30 S', 'NS')).toEqual({ value: -(46 + 6 / 60 + 30 / 3600) });
+    expect(parseAngle("W 8° 15.5'", 'EW')).toEqual({ value: -(8 + 15.5 / 60) });
+    expect(parseAngle('7.25E', 'EW')).toEqual({ value: 7.25 });
+    expect(parseAngle('46°06′30″', 'NS')).toEqual({ value: 46 + 6 / 60 + 30 / 3600 });
+    expect(parseAngle('8 W', 'NS')).toEqual({ reason: 'W is not a hemisphere of this coordinate (use N or S)' });
+    expect(parseAngle('-8 W', 'EW')).toEqual({ reason: 'both a minus sign and a hemisphere letter' });
+    expect(parseAngle('46 75 N', 'NS')).toEqual({ reason: 'minutes and seconds must be below 60' });
+    expect(parseAngle('46.5 6 N', 'NS')).toEqual({ reason: 'only the last part may have decimals' });
+    expect(parseAngle('north', 'NS')).toEqual({ reason: 'not a coordinate' });
   });
 });

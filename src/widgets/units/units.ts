@@ -227,6 +227,37 @@ export function parseDecimal(text: string): number | null {
 }
 
 /**
+ * Reads a coordinate as a crew may copy it from a map, a GPS or a survey sheet: decimal degrees (-8.25), degrees
+ * and decimal minutes (8° 15.0' W), or degrees, minutes and seconds (46°06'30" N, 46 6 30 N), with a hemisphere
+ * letter before or after. N and E are positive, S and W negative. `axis` names the letters this field takes
+ * ("NS" for a latitude, "EW" for a longitude). Returns the signed degrees, or a reason in words.
+ */
+export function parseAngle(text: string, axis: 'NS' | 'EW' | '' = ''): { value: number } | { reason: string } {
+  let t = text.trim().replace(/\u2212/g, '-').replace(/,/g, '.');
+  let hemisphere: string | null = null;
+  const letter = /^([NSEWnsew])\s*|\s*([NSEWnsew])$/;
+  const m = letter.exec(t);
+  if (m) {
+    hemisphere = (m[1] ?? m[2])!.toUpperCase();
+    t = t.replace(letter, '').trim();
+    if (letter.test(t)) return { reason: 'more than one hemisphere letter' };
+    if (axis && !axis.includes(hemisphere)) return { reason: `${hemisphere} is not a hemisphere of this coordinate (use ${axis[0]} or ${axis[1]})` };
+  }
+  const negative = t.startsWith('-');
+  if (negative) t = t.slice(1).trim();
+  if (negative && hemisphere) return { reason: 'both a minus sign and a hemisphere letter' };
+  const numberPattern = /\d+(?:\.\d+)?|\.\d+/g;
+  const numbers = t.match(numberPattern) ?? [];
+  // Only degree, minute and second marks and spaces may stand between the numbers.
+  if (numbers.length === 0 || numbers.length > 3 || t.replace(numberPattern, '').replace(/[°º'′"″:\s]/g, '') !== '') return { reason: 'not a coordinate' };
+  const parts = numbers.map(Number);
+  if (parts.slice(0, -1).some((p) => !Number.isInteger(p))) return { reason: 'only the last part may have decimals' };
+  if (parts.slice(1).some((p) => p >= 60)) return { reason: 'minutes and seconds must be below 60' };
+  const degrees = parts[0]! + (parts[1] ?? 0) / 60 + (parts[2] ?? 0) / 3600;
+  return { value: negative || hemisphere === 'S' || hemisphere === 'W' ? -degrees : degrees };
+}
+
+/**
  * Formats a display value with the unit's usual decimals, using a decimal comma when asked. Rounding first keeps
  * floating-point tails out (14.000000000000004 prints as 14.0), and a value that rounds to zero never prints as
  * "-0.0".
