@@ -1,4 +1,5 @@
-// Draws Plummet's icon (a plumb bob on its line over a ground mark, our own drawing) without any image library:
+// Draws Plummet's icon (a ball falling, three streaks of its fall trailing above it, over a ground mark: our own
+// drawing, and nothing in it narrows to a point, so it does not read as a map pin) without any image library:
 // the same geometry is written as SVG and rasterised here into PNGs with 4×4 supersampling.
 // Run `node scripts/make-icons.mjs` after changing the drawing; the outputs are committed in public/icons/.
 import { writeFileSync } from 'node:fs';
@@ -11,35 +12,36 @@ const ACCENT = [242, 169, 0]; // amber
 // Geometry in a 512 unit square. `inset` shrinks the drawing toward the centre (maskable safe zone).
 function shapes(inset) {
   const s = (v) => 256 + (v - 256) * inset;
+  const streak = (x, top, bottom) => ({ kind: 'rect', x0: s(x - 11), x1: s(x + 11), y0: s(top), y1: s(bottom), rx: 11 * inset, color: FG });
   return [
-    { kind: 'rect', x0: s(246), x1: s(266), y0: s(70), y1: s(250), color: FG },           // line
-    { kind: 'bob', cx: s(256), top: s(230), bottom: s(400), r: 70 * inset, color: ACCENT }, // plumb bob
-    { kind: 'rect', x0: s(150), x1: s(362), y0: s(428), y1: s(446), color: FG },          // ground
+    streak(196, 150, 262), // the fall's streaks, longest in the middle
+    streak(256, 72, 250),
+    streak(316, 150, 262),
+    { kind: 'ball', cx: s(256), cy: s(336), r: 76 * inset, color: ACCENT },
+    { kind: 'rect', x0: s(140), x1: s(372), y0: s(436), y1: s(456), rx: 10 * inset, color: FG }, // ground
   ];
 }
 
 function inside(shape, x, y) {
-  if (shape.kind === 'rect') return x >= shape.x0 && x <= shape.x1 && y >= shape.y0 && y <= shape.y1;
-  // A bob: a circle of radius r whose lower half narrows to a point at `bottom`.
-  const cy = shape.top + shape.r;
-  const dx = x - shape.cx;
-  if (y <= cy) return dx * dx + (y - cy) ** 2 <= shape.r * shape.r;
-  if (y > shape.bottom) return false;
-  const half = shape.r * (1 - (y - cy) / (shape.bottom - cy));
-  return Math.abs(dx) <= half;
+  if (shape.kind === 'ball') return (x - shape.cx) ** 2 + (y - shape.cy) ** 2 <= shape.r * shape.r;
+  if (x < shape.x0 || x > shape.x1 || y < shape.y0 || y > shape.y1) return false;
+  // Rounded ends: outside the corner circles is outside the shape.
+  const r = shape.rx ?? 0;
+  const cx = Math.min(Math.max(x, shape.x0 + r), shape.x1 - r);
+  const cy = Math.min(Math.max(y, shape.y0 + r), shape.y1 - r);
+  return (x - cx) ** 2 + (y - cy) ** 2 <= r * r;
 }
 
 function svg(inset, rounded) {
-  const sh = shapes(inset);
-  const [line, bob, ground] = sh;
-  const cy = bob.top + bob.r;
   const hex = (c) => '#' + c.map((v) => v.toString(16).padStart(2, '0')).join('');
-  const bobPath = `M ${bob.cx - bob.r} ${cy} A ${bob.r} ${bob.r} 0 0 1 ${bob.cx + bob.r} ${cy} L ${bob.cx} ${bob.bottom} Z`;
+  const parts = shapes(inset).map((sh) =>
+    sh.kind === 'ball'
+      ? `  <circle cx="${sh.cx}" cy="${sh.cy}" r="${sh.r}" fill="${hex(sh.color)}"/>`
+      : `  <rect x="${sh.x0}" y="${sh.y0}" width="${sh.x1 - sh.x0}" height="${sh.y1 - sh.y0}" rx="${sh.rx ?? 0}" fill="${hex(sh.color)}"/>`,
+  );
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 512 512" role="img" aria-label="Plummet">
   <rect width="512" height="512" ${rounded ? 'rx="96"' : ''} fill="${hex(BG)}"/>
-  <rect x="${line.x0}" y="${line.y0}" width="${line.x1 - line.x0}" height="${line.y1 - line.y0}" fill="${hex(FG)}"/>
-  <path d="${bobPath}" fill="${hex(ACCENT)}"/>
-  <rect x="${ground.x0}" y="${ground.y0}" width="${ground.x1 - ground.x0}" height="${ground.y1 - ground.y0}" rx="9" fill="${hex(FG)}"/>
+${parts.join('\n')}
 </svg>
 `;
 }

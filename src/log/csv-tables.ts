@@ -133,6 +133,7 @@ export const SERIES_COLUMNS = [
   'gravity_m_s2',
   'drag_coefficient',
   'u_drag_coefficient',
+  'U_drag_coefficient_k2',
   'drag_coefficient_95_low',
   'drag_coefficient_95_high',
   'timing_offset_s',
@@ -195,6 +196,26 @@ function computeAll(records: readonly LogRecord[], compute: ComputeSeries): Row[
   });
 }
 
+/** A time to the microsecond (the tables' resolution for every time; a phone's clock resolves far less). */
+function micro(seconds: number | null | undefined): number | null | undefined {
+  return seconds === null || seconds === undefined || !Number.isFinite(seconds) ? seconds : Math.round(seconds * 1e6) / 1e6;
+}
+
+/** A computed figure to `digits` significant digits. */
+function sig(value: number | null | undefined, digits: number): number | null | undefined {
+  return value === null || value === undefined || !Number.isFinite(value) || value === 0 ? value : Number(value.toPrecision(digits));
+}
+
+/**
+ * A result with its uncertainty as the GUM advises (JCGM 100:2008, 7.2.6): the uncertainty to two significant
+ * digits, the value rounded to the same decimal place. Returns the decimals used, for the interval's bounds.
+ */
+export function roundWithUncertainty(value: number, u: number): { value: number; u: number; decimals: number } {
+  if (!(u > 0) || !Number.isFinite(u)) return { value: sig(value, 4) as number, u, decimals: 4 };
+  const decimals = Math.min(15, Math.max(0, 1 - Math.floor(Math.log10(u))));
+  return { value: Number(value.toFixed(decimals)), u: Number(u.toPrecision(2)), decimals };
+}
+
 function humidityCells(reading: ReadingRecord | null): [CsvValue, CsvValue] {
   if (!reading) return [null, null];
   return reading.humidity.kind === 'relative' ? [reading.humidity.relative_humidity_pct, null] : [null, reading.humidity.dew_point_C];
@@ -221,7 +242,7 @@ function dropRows(rows: Row[]): CsvValue[][] {
         drop.seq,
         drop.captured_at,
         drop.height_m ?? series.height_m,
-        drop.time_s,
+        micro(drop.time_s),
         series.timing_method,
         drop.excluded,
         drop.exclusion_reason,
@@ -235,15 +256,15 @@ function dropRows(rows: Row[]): CsvValue[][] {
         reading?.wind_speed_m_s,
         reading?.vertical_wind_m_s,
         reading?.height_m,
-        used ? result.air_density_kg_m3 : null,
-        used ? result.gravity_m_s2 : null,
-        used ? r.drag_coefficient : null,
-        used ? r.predicted_time_s : null,
-        used ? r.residual_s : null,
-        used ? r.vacuum_time_s : null,
-        used ? r.impact_speed_m_s : null,
-        used ? r.impact_energy_J : null,
-        used ? r.reynolds_number : null,
+        used ? sig(result.air_density_kg_m3, 6) : null,
+        used ? sig(result.gravity_m_s2, 7) : null,
+        used ? sig(r.drag_coefficient, 4) : null,
+        used ? micro(r.predicted_time_s) : null,
+        used ? micro(r.residual_s) : null,
+        used ? micro(r.vacuum_time_s) : null,
+        used ? sig(r.impact_speed_m_s, 4) : null,
+        used ? sig(r.impact_energy_J, 4) : null,
+        used ? sig(r.reynolds_number, 3) : null,
       ]);
     }
   }
@@ -255,6 +276,12 @@ function seriesRows(rows: Row[]): CsvValue[][] {
     const { series, day, site, specimen, reading } = input;
     const [rh, dew] = humidityCells(reading);
     const interval = result.drag_coefficient_interval_95 ?? null;
+    const cd = result.drag_coefficient;
+    const u = result.drag_coefficient_standard_uncertainty;
+    const rounded = typeof cd === 'number' && typeof u === 'number' ? roundWithUncertainty(cd, u) : null;
+    // The expanded uncertainty (k = 2, the figure the phone shows) beside the standard one, each to two digits.
+    const expanded = typeof u === 'number' ? sig(2 * u, 2) : null;
+    const bound = (x: number | undefined) => (x === undefined ? x : rounded ? Number(x.toFixed(rounded.decimals)) : sig(x, 4));
     return [
       day?.date,
       site?.name,
@@ -270,7 +297,7 @@ function seriesRows(rows: Row[]): CsvValue[][] {
       series.u_height_m,
       series.height_method,
       series.timing_method,
-      series.u_time_s,
+      micro(series.u_time_s),
       series.timing_offset,
       series.timing_delay_s,
       series.u_timing_delay_s,
@@ -290,14 +317,15 @@ function seriesRows(rows: Row[]): CsvValue[][] {
       reading?.u_vertical_wind_m_s,
       reading?.height_m,
       series.reading_aloft_id,
-      result.air_density_kg_m3,
-      result.gravity_m_s2,
-      result.drag_coefficient,
-      result.drag_coefficient_standard_uncertainty,
-      interval?.[0],
-      interval?.[1],
-      result.timing_offset_s,
-      result.terminal_velocity_m_s,
+      sig(result.air_density_kg_m3, 6),
+      sig(result.gravity_m_s2, 7),
+      rounded ? rounded.value : sig(cd, 4),
+      rounded ? rounded.u : u,
+      expanded,
+      bound(interval?.[0]),
+      bound(interval?.[1]),
+      micro(result.timing_offset_s),
+      sig(result.terminal_velocity_m_s, 4),
       (result.warnings ?? []).map((w) => `${w.code}: ${w.message}`).join('; ') || null,
       result.error?.code,
       result.error?.message,

@@ -48,10 +48,14 @@ export function neutraliseFormula(text: string): string {
 /** RFC 4180's own reasons (comma, quote, CR, LF) and the other separators spreadsheets split on (semicolon, tab). */
 const NEEDS_QUOTES = /[",;\t\r\n]/;
 
-/** One field: numbers as numbers, text neutralised and quoted where RFC 4180 §2.6 requires. */
+/**
+ * One field: numbers as numbers, text neutralised and quoted where RFC 4180 §2.6 requires. A number is written at
+ * 12 significant digits at most, far beyond any measurement, so binary floating-point tails do not reach the
+ * spreadsheet (a temperature typed as 57.2 °F is 14.000000000000004 °C inside, and "14" in the table).
+ */
 export function csvField(value: CsvValue): string {
   if (value === null || value === undefined) return '';
-  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
+  if (typeof value === 'number') return Number.isFinite(value) ? String(Number(value.toPrecision(12))) : '';
   if (typeof value === 'boolean') return value ? 'true' : 'false';
   const text = neutraliseFormula(value);
   return NEEDS_QUOTES.test(text) ? `"${text.replace(/"/g, '""')}"` : text;

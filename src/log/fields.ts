@@ -38,8 +38,9 @@ export const LIMITS = {
   longitude_deg: atLeast(-180, 180, '°'),
   // Lowest dry land, the Dead Sea shore, about −430 m; Everest 8849 m (from memory). A margin on each side.
   elevation_m: atLeast(-500, 9000, 'm'),
-  // From a seed (well under a gram, but above zero) to a heavy payload a crane can drop.
-  mass_kg: above(0, 1000, 'kg'),
+  // From a seed (well under a gram, but above zero) to a heavy airdrop payload: cargo platforms dropped under
+  // parachutes carry up to about 19 t (from memory), so 20 t.
+  mass_kg: above(0, 20_000, 'kg'),
   // Beyond 100 kg of doubt the mass is not measured at all (the physics' own bound).
   u_mass_kg: atLeast(0, 100, 'kg'),
   // Lengths of a specimen: seeds of a fraction of a millimetre up to a large canopy (the physics takes 10 m).

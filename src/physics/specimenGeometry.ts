@@ -57,7 +57,7 @@ export const SHAPE_DIMENSIONS = {
 } as const satisfies Record<SpecimenShape, readonly string[]>;
 
 export const SPECIMEN_LIMITS = {
-  mass_kg: { min: 0, minExclusive: true, max: 1000, text: 'above 0 and at most 1000 kg' },
+  mass_kg: { min: 0, minExclusive: true, max: 20_000, text: 'above 0 and at most 20 000 kg' },
   length: { min: 0, minExclusive: true, max: 10, text: 'above 0 and at most 10 m' },
   area_m2: { min: 0, minExclusive: true, max: 100, text: 'above 0 and at most 100 m²' },
   volume_m3: { min: 0, max: 100, text: '0 to 100 m³' },

@@ -127,12 +127,12 @@ export class WebDavClient {
     const answer = await this.request('PROPFIND', this.folderUrl, {
       headers: { Depth: '1', 'Content-Type': 'application/xml; charset=utf-8' },
       body: PROPFIND_BODY,
-      what: 'list the folder',
+      what: 'list its files',
     });
     if (answer.status === 404) {
       throw new SyncError({ code: 'sync-folder-missing', field: null, value: this.folderUrl, allowed: null, message: `there is no folder at ${this.folderUrl} (404): check the address`, status: 404 });
     }
-    this.expect(answer, [207], 'list the folder');
+    this.expect(answer, [207], 'list its files');
     const own = decodedPath(this.folderUrl);
     const files = parseMultistatus(answer.text, this.folderUrl).filter((r) => !r.collection && decodedPath(r.url) !== own);
     return { files, date: answer.headers.get('date') };

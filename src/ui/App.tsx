@@ -67,7 +67,8 @@ export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) =>
           aria-current={route.screen === 'settings' ? 'page' : undefined}
         >
           <svg viewBox="0 0 24 24" width="26" height="26" aria-hidden="true">
-            <path d="M12 8.5a3.5 3.5 0 1 1 0 7a3.5 3.5 0 1 1 0-7zM12 2v3M12 19v3M2 12h3M19 12h3M4.9 4.9l2.1 2.1M17 17l2.1 2.1M4.9 19.1L7 17M17 7l2.1-2.1" />
+            {/* Three set levels, each with its knob: our own mark for choices (not a sun, which reads as brightness). */}
+            <path d="M4 6h10M18 6h2M14 4v4M4 12h3M11 12h9M7 10v4M4 18h12M16 16v4" />
           </svg>
         </a>
       </header>

@@ -15,6 +15,8 @@ export interface AppSettings {
   currentDayId: string | null;
   /** The ids the sample log wrote, so it can be removed again. */
   sampleIds: string[];
+  /** How the log last left the Send screen as a file: handed to another app, or saved on this phone only. */
+  lastHandoff: { how: 'shared' | 'saved'; at: string } | null;
 }
 
 export const DEFAULT_SETTINGS: AppSettings = {
@@ -24,6 +26,7 @@ export const DEFAULT_SETTINGS: AppSettings = {
   cautionSeenForDay: null,
   currentDayId: null,
   sampleIds: [],
+  lastHandoff: null,
 };
 
 export interface AppServices {

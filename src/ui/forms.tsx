@@ -32,6 +32,8 @@ export interface QFieldProps {
   hint?: string;
   compact?: boolean;
   id?: string;
+  /** A coordinate: the hemisphere letters it takes. */
+  hemispheres?: 'NS' | 'EW';
 }
 
 /** A quantity field bound to a form's state, in the crew's chosen unit. */
@@ -52,6 +54,7 @@ export function QField(props: QFieldProps) {
       delta={props.delta ?? false}
       hint={props.hint ?? ''}
       compact={props.compact ?? false}
+      hemispheres={props.hemispheres ?? ''}
       decimalComma={settings.decimalComma}
       onquantity-change={(e: CustomEvent) => {
         const d = e.detail as QuantityChangeDetail;
@@ -117,11 +120,13 @@ export function Choice<T extends string>(props: {
   options: Array<{ value: T; label: string }>;
   onChange(value: T): void;
   hint?: string;
+  /** One option under the other, for options that are sentences. */
+  stacked?: boolean;
 }) {
   return (
     <fieldset class="choice">
       <legend>{props.legend}</legend>
-      <div class="choice-row">
+      <div class={props.stacked ? 'choice-row choice-stack' : 'choice-row'}>
         {props.options.map((o) => (
           <label key={o.value} class={`choice-opt ${props.value === o.value ? 'on' : ''}`}>
             <input type="radio" name={props.name} value={o.value} checked={props.value === o.value} onChange={() => props.onChange(o.value)} />

@@ -12,7 +12,7 @@ declare module 'preact' {
     interface IntrinsicElements {
       'pl-quantity': WidgetProps<
         QuantityInput,
-        'label' | 'quantity' | 'unit' | 'value' | 'text' | 'min' | 'max' | 'minExclusive' | 'required' | 'delta' | 'hint' | 'decimalComma' | 'compact'
+        'label' | 'quantity' | 'unit' | 'value' | 'text' | 'min' | 'max' | 'minExclusive' | 'required' | 'delta' | 'hint' | 'decimalComma' | 'compact' | 'hemispheres'
       > & { 'onquantity-change'?: (event: CustomEvent) => void };
       'pl-plot': WidgetProps<PlotChart, 'lines' | 'marks' | 'xLabel' | 'yLabel' | 'summary' | 'zeroLine'>;
       'pl-bars': WidgetProps<BarChart, 'bars' | 'heading'>;

@@ -4,6 +4,7 @@ import {
   deltaToSI,
   formatNumber,
   fromSI,
+  parseAngle,
   parseDecimal,
   toSI,
   unitFor,
@@ -44,6 +45,7 @@ export class QuantityInput extends LitElement {
     hint: { type: String },
     decimalComma: { type: Boolean, attribute: 'decimal-comma' },
     compact: { type: Boolean, reflect: true },
+    hemispheres: { type: String },
     error: { state: true },
   };
 
@@ -61,6 +63,8 @@ export class QuantityInput extends LitElement {
   declare hint: string;
   declare decimalComma: boolean;
   declare compact: boolean;
+  /** For a coordinate: the hemisphere letters it takes ("NS" or "EW"); degrees-minutes-seconds are read too. */
+  declare hemispheres: 'NS' | 'EW' | '';
   declare error: string | null;
 
   private readonly inputId = `pl-q-${++nextId}`;
@@ -78,6 +82,7 @@ export class QuantityInput extends LitElement {
     this.hint = '';
     this.decimalComma = false;
     this.compact = false;
+    this.hemispheres = '';
     this.error = null;
   }
 
@@ -134,6 +139,16 @@ export class QuantityInput extends LitElement {
       border-left: 1px solid var(--pl-line-soft, #999);
       color: var(--pl-ink-soft, #333);
       white-space: nowrap;
+    }
+    .sign {
+      min-width: 48px;
+      border: 0;
+      border-left: 1px solid var(--pl-line-soft, #999);
+      background: transparent;
+      color: inherit;
+      font: inherit;
+      font-weight: 700;
+      cursor: pointer;
     }
     .sr {
       position: absolute;
@@ -212,7 +227,15 @@ export class QuantityInput extends LitElement {
     if (text.trim() === '') {
       return { value: null, error: this.required ? `${name} is required (${this.rangeText()}).` : null };
     }
-    const shown = parseDecimal(text);
+    let shown = parseDecimal(text);
+    if (shown === null && this.hemispheres) {
+      const angle = parseAngle(text, this.hemispheres);
+      if ('reason' in angle) {
+        const [a, b] = this.hemispheres;
+        return { value: null, error: `${name}: "${text}" cannot be read (${angle.reason}). Type decimal degrees, or degrees, minutes and seconds with ${a} or ${b}, e.g. 46°06'30" ${a}. Allowed: ${this.rangeText()}.` };
+      }
+      shown = angle.value;
+    }
     if (shown === null) {
       return { value: null, error: `${name}: "${text}" is not a number. Allowed: ${this.rangeText()}.` };
     }
@@ -231,8 +254,27 @@ export class QuantityInput extends LitElement {
   }
 
   private onInput(event: Event): void {
+    this.accept((event.target as HTMLInputElement).value);
+  }
+
+  /**
+   * A signed field (one whose range goes below zero: a west longitude, a frost temperature) gets a sign key of its
+   * own, because many phones' decimal keypads have no minus.
+   */
+  private get signed(): boolean {
+    return this.min !== undefined && this.min < 0;
+  }
+
+  private flipSign(): void {
+    const t = this.typed.trim();
+    this.accept(/^[-\u2212]/.test(t) ? t.replace(/^[-\u2212]\s*/, '') : `-${t.replace(/^\+/, '')}`);
+    this.editing = false;
+    this.renderRoot.querySelector('input')?.focus();
+  }
+
+  private accept(text: string): void {
     this.editing = true;
-    this.typed = (event.target as HTMLInputElement).value;
+    this.typed = text;
     const { value, error } = this.check(this.typed);
     // Show "required" only once the field is left, not while it is being cleared to retype.
     this.error = this.typed.trim() === '' ? null : error;
@@ -277,6 +319,9 @@ export class QuantityInput extends LitElement {
           @input=${this.onInput}
           @blur=${this.onBlur}
         />
+        ${this.signed
+          ? html`<button type="button" class="sign" aria-label=${`Change the sign of ${this.label || 'the value'}`} @click=${this.flipSign}>−/+</button>`
+          : nothing}
         ${u.symbol ? html`<span class="unit" aria-hidden="true">${u.symbol}</span>` : nothing}
       </div>
       ${this.hint ? html`<div class="hint" id=${hintId}>${this.hint}</div>` : nothing}

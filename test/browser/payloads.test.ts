@@ -137,7 +137,7 @@ describe.skipIf(!haveChromium)('script payloads in every text field of an import
     const downloads: Promise<string>[] = [];
     page.on('download', (d) => downloads.push(d.path().then((p) => readFile(p!, 'utf8'))));
     await page.getByRole('button', { name: 'Tables for a spreadsheet (CSV)' }).click();
-    await expectVisible(page.getByText('Two CSV files: one row per drop, one row per series.'));
+    await expectVisible(page.getByText(/^Saved as a file on this phone \(two CSV files, one row per drop and one row per series/));
     await expect.poll(() => downloads.length, { timeout: 20_000 }).toBe(2);
     const [drops, series] = await Promise.all(downloads);
     for (const table of [drops!, series!]) {

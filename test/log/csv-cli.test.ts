@@ -48,12 +48,18 @@ describe('writing the CSV tables of an exported log', () => {
       const row = rows.find((r) => r.series_id === input.series.id)!;
       const result = analyzeSeries(validateAnalysisRequest(seriesRequest(input)));
       expect(row.error_code).toBe('');
-      expect(row.air_density_kg_m3).toBe(String(result.air.density_kg_m3));
-      expect(row.gravity_m_s2).toBe(String(result.gravity_m_s2));
-      expect(row.drag_coefficient).toBe(result.drag_coefficient === null ? '' : String(result.drag_coefficient));
-      expect(row.drag_coefficient_95_low).toBe(String(result.drag_coefficient_interval_95[0]));
+      expect(row.air_density_kg_m3).toBe(String(Number(result.air.density_kg_m3.toPrecision(6))));
+      expect(row.gravity_m_s2).toBe(String(Number(result.gravity_m_s2.toPrecision(7))));
+      // The uncertainty to two significant digits and C_d to the same decimal place (GUM, JCGM 100:2008, 7.2.6);
+      // the expanded uncertainty (k = 2) beside the standard one.
+      const u = result.drag_coefficient_standard_uncertainty;
+      const place = 10 ** (Math.floor(Math.log10(u)) - 1);
+      expect(Number(row.u_drag_coefficient)).toBe(Number(u.toPrecision(2)));
+      expect(Number(row.U_drag_coefficient_k2)).toBe(Number((2 * u).toPrecision(2)));
+      expect(Math.abs(Number(row.drag_coefficient) - result.drag_coefficient!)).toBeLessThanOrEqual(place / 2 + 1e-12);
+      expect(Math.abs(Number(row.drag_coefficient_95_low) - result.drag_coefficient_interval_95[0])).toBeLessThanOrEqual(place / 2 + 1e-12);
       const drops = table(summary.drops_csv).filter((d) => d.series_id === input.series.id);
-      expect(drops.map((d) => d.residual_s)).toEqual(result.drops.map((d) => String(d.residual_s)));
+      drops.forEach((d, i) => expect(Math.abs(Number(d.residual_s) - result.drops[i]!.residual_s)).toBeLessThanOrEqual(0.5e-6 + 1e-15));
     }
   });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DROP_COLUMNS, SERIES_COLUMNS, logCsv, readingForSeries, type ComputeSeries, type SeriesInput } from '../../src/log/csv-tables';
+import { DROP_COLUMNS, SERIES_COLUMNS, logCsv, readingForSeries, roundWithUncertainty, type ComputeSeries, type SeriesInput } from '../../src/log/csv-tables';
 import { byKind, idMaker, revise, sampleLog, tombstone } from '../sync/sample-log';
 import { parseCsv } from './csv-reader';
 import type { ReadingRecord } from '../../src/log/types';
@@ -24,7 +24,7 @@ function table(text: string): Record<string, string>[] {
 }
 
 // Columns that are numbers without a unit: counts, ordinals and ratios.
-const DIMENSIONLESS = new Set(['seq', 'drag_coefficient', 'u_drag_coefficient', 'drag_coefficient_95_low', 'drag_coefficient_95_high', 'reynolds_number', 'drops_total', 'drops_used']);
+const DIMENSIONLESS = new Set(['seq', 'drag_coefficient', 'u_drag_coefficient', 'U_drag_coefficient_k2', 'drag_coefficient_95_low', 'drag_coefficient_95_high', 'reynolds_number', 'drops_total', 'drops_used']);
 const UNIT = /_(m|s|kg|C|Pa|pct|deg|m_s|m_s2|kg_m3|J|Hz)$/;
 
 describe('the drops and series tables', () => {
@@ -48,7 +48,7 @@ describe('the drops and series tables', () => {
       specimen_name: 'steel ball 25 mm',
       site_name: 'North quarry wall',
       height_m: '12',
-      time_s: String(drop.time_s),
+      time_s: String(Math.round(drop.time_s * 1e6) / 1e6),
       temperature_C: '17.5',
       pressure_Pa: '96120',
       pressure_reference: 'station',
@@ -69,6 +69,7 @@ describe('the drops and series tables', () => {
       drops_used: '3',
       drag_coefficient: '0.5',
       u_drag_coefficient: '0.02',
+      U_drag_coefficient_k2: '0.04',
       drag_coefficient_95_low: '0.46',
       drag_coefficient_95_high: '0.54',
       warnings: 'density-out-of-range: outside 15–27 °C',
@@ -154,3 +155,25 @@ describe('the air reading a series uses', () => {
   });
 });
 
+describe('the digits of the tables', () => {
+  it('round a result to its uncertainty as the GUM does (JCGM 100:2008, 7.2.2: 100.021 47 g with u = 0.35 mg)', () => {
+    expect(roundWithUncertainty(100.0214712, 0.000352)).toEqual({ value: 100.02147, u: 0.00035, decimals: 5 });
+    expect(roundWithUncertainty(0.46831, 0.01234)).toEqual({ value: 0.468, u: 0.012, decimals: 3 });
+  });
+
+  it('write times to the microsecond and no floating-point tail anywhere', () => {
+    const tails: ComputeSeries = (input) => ({
+      ...echo(input),
+      drag_coefficient: 0.46831234,
+      drag_coefficient_standard_uncertainty: 0.0123456,
+      drag_coefficient_interval_95: [0.4441234, 0.4931234],
+      drops: input.drops.map(() => ({ drag_coefficient: 0.4683123, residual_s: 0.0032000000000005357, predicted_time_s: 1.5759999999999998 })),
+    });
+    const csv = logCsv(sampleLog({ days: 1, seriesPerDay: 1, dropsPerSeries: 2 }), tails);
+    const drop = table(csv.drops)[0]!;
+    expect(drop).toMatchObject({ residual_s: '0.0032', predicted_time_s: '1.576', drag_coefficient: '0.4683' });
+    const series = table(csv.series)[0]!;
+    expect(series).toMatchObject({ drag_coefficient: '0.468', u_drag_coefficient: '0.012', U_drag_coefficient_k2: '0.025', drag_coefficient_95_low: '0.444', drag_coefficient_95_high: '0.493' });
+    for (const text of [csv.drops, csv.series]) expect(text).not.toMatch(/\d\.\d*(0{6,}|9{6,})\d/);
+  });
+});

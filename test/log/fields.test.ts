@@ -107,6 +107,7 @@ describe('the CSV tables', () => {
     'gravity_m_s2',
     'drag_coefficient',
     'u_drag_coefficient',
+    'U_drag_coefficient_k2',
     'drag_coefficient_95_low',
     'drag_coefficient_95_high',
     'predicted_time_s',

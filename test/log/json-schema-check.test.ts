@@ -745,8 +745,8 @@ describe('messages name the field, the value and the rule', () => {
   const specimenAt = (r: Rec[]) => r.findIndex((x) => x.kind === 'specimen');
 
   it.each([
-    ['a negative mass', (r: Rec[]) => set(r[specimenAt(r)], { mass_kg: -2 }), '/records/S/mass_kg', 'exclusiveMinimum', -2, '/records/S/mass_kg: -2 must be > 0 and ≤ 1000'],
-    ['a mass above the range', (r: Rec[]) => set(r[specimenAt(r)], { mass_kg: 1200 }), '/records/S/mass_kg', 'maximum', 1200, '/records/S/mass_kg: 1200 must be > 0 and ≤ 1000'],
+    ['a negative mass', (r: Rec[]) => set(r[specimenAt(r)], { mass_kg: -2 }), '/records/S/mass_kg', 'exclusiveMinimum', -2, '/records/S/mass_kg: -2 must be > 0 and ≤ 20000'],
+    ['a mass above the range', (r: Rec[]) => set(r[specimenAt(r)], { mass_kg: 25_000 }), '/records/S/mass_kg', 'maximum', 25_000, '/records/S/mass_kg: 25000 must be > 0 and ≤ 20000'],
     ['a mass typed as text', (r: Rec[]) => set(r[specimenAt(r)], { mass_kg: '0.06' }), '/records/S/mass_kg', 'type', '0.06', '/records/S/mass_kg: "0.06" must be a number'],
     ['a missing name', (r: Rec[]) => delete r[specimenAt(r)]!.name, '/records/S/name', 'required', undefined, '/records/S/name: is required but missing'],
     ['a misspelt field', (r: Rec[]) => set(r[specimenAt(r)], { Mass_kg: 1 }), '/records/S/Mass_kg', 'additionalProperties', 1, '/records/S/Mass_kg: 1 is not an allowed property here'],

@@ -59,7 +59,7 @@ describe('createRecord', () => {
   it('refuses an invalid body and names what is wrong', () => {
     const error = errorOf(() => createRecord('specimen', { ...demo.steelBall(), mass_kg: 0 }, { ...ctx(), random: counterRandom() }));
     expect(error.code).toBe('record-invalid');
-    expect(error.message).toContain('mass_kg: 0 is out of range: must be > 0 and ≤ 1000 kg');
+    expect(error.message).toContain('mass_kg: 0 is out of range: must be > 0 and ≤ 20000 kg');
   });
 
   it('refuses a clock that belongs to another device', () => {

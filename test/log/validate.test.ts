@@ -27,8 +27,8 @@ describe('validateBody', () => {
       {
         path: 'mass_kg',
         value: 0,
-        rule: 'must be > 0 and ≤ 1000 kg',
-        message: 'mass_kg: 0 is out of range: must be > 0 and ≤ 1000 kg',
+        rule: 'must be > 0 and ≤ 20000 kg',
+        message: 'mass_kg: 0 is out of range: must be > 0 and ≤ 20000 kg',
       },
     ]);
   });
@@ -82,7 +82,7 @@ describe('validateBody', () => {
   it('reports a missing field and a field the record does not have', () => {
     const { mass_kg: _dropped, ...withoutMass } = demo.steelBall();
     expect(messages('specimen', { ...withoutMass, mass_g: 63.7 })).toEqual([
-      'mass_kg: missing: must be > 0 and ≤ 1000 kg',
+      'mass_kg: missing: must be > 0 and ≤ 20000 kg',
       'mass_g: 63.7 is not a field of a specimen',
     ]);
   });
@@ -203,7 +203,7 @@ describe('assertValidBody', () => {
     const error = caught as LogValidationError;
     expect(error.code).toBe('record-invalid');
     expect(error.problems.map((p) => p.path)).toEqual(['name', 'mass_kg']);
-    expect(error.message).toContain('mass_kg: 0 is out of range: must be > 0 and ≤ 1000 kg');
+    expect(error.message).toContain('mass_kg: 0 is out of range: must be > 0 and ≤ 20000 kg');
   });
 });
 

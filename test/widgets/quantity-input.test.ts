@@ -47,4 +47,19 @@ describe('<pl-quantity>', () => {
     const el = await make({ label: 'Air temperature', quantity: 'temperature', unit: '°F', value: 100 });
     expect(el.shadowRoot!.querySelector('input')!.value).toBe('212');
   });
+
+  it('gives a signed field a sign key, since many phone keypads have no minus, and only a signed field', async () => {
+    const el = await make({ label: 'Longitude', quantity: 'angle', min: -180, max: 180 });
+    type(el, '8.5');
+    const changes: QuantityChangeDetail[] = [];
+    el.addEventListener('quantity-change', (e) => changes.push((e as CustomEvent<QuantityChangeDetail>).detail));
+    const key = el.shadowRoot!.querySelector('button.sign') as HTMLButtonElement;
+    expect(key.getAttribute('aria-label')).toBe('Change the sign of Longitude');
+    key.click();
+    expect(changes.at(-1)).toEqual({ value: -8.5, text: '-8.5', error: null });
+    key.click();
+    expect(changes.at(-1)).toEqual({ value: 8.5, text: '8.5', error: null });
+    const mass = await make({ label: 'Mass', quantity: 'mass', unit: 'g', min: 0, minExclusive: true, max: 10 });
+    expect(mass.shadowRoot!.querySelector('button.sign')).toBeNull();
+  });
 });

@@ -10,6 +10,7 @@ import { analyzeDay, PLAN_DEFAULTS, planFor, specimenDragCoefficientOfDay, type 
 import { TIMING_DEFAULTS, TIMING_OPTIONS } from './day/SeriesForm';
 import { describeError } from '../errors';
 import { useSettled } from '../use-settled';
+import { inChosenUnits, warningText } from '../unit-text';
 
 interface PlanDraft {
   specimenId: string;
@@ -109,7 +110,7 @@ export function PlanScreen() {
           ) : null}
         </section>
       )}
-      {plan && !plan.ok ? <Notice tone="bad">{plan.message}</Notice> : null}
+      {plan && !plan.ok ? <Notice tone="bad">{inChosenUnits(plan.message, app.format)}</Notice> : null}
       {plan && plan.ok ? <PlanResult plan={plan.plan} sources={plan.sources} /> : null}
     </div>
   );
@@ -134,40 +135,22 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
         ).{sources.site === 'default' ? ` Gravity at ${PLAN_DEFAULTS.site.latitude_deg}° latitude at sea level (no current day with a site).` : ''}
       </p>
       {at ? (
-        <div class="figures">
-          <div class="figure">
-            <span class="figure-label">Fall time</span>
-            <span class="figure-value">{at.fall_time_s.toFixed(3)} s</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Drag delay</span>
-            <span class="figure-value">{(at.drag_delay_s * 1000).toFixed(1)} ms</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Impact speed</span>
-            <span class="figure-value">{app.format(at.impact_speed_m_s, 'speed', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Impact energy</span>
-            <span class="figure-value">{app.format(at.impact_energy_J, 'energy')}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Terminal velocity</span>
-            <span class="figure-value">{app.format(plan.terminal_velocity_m_s, 'speed', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Reaches 95 % of it after</span>
-            <span class="figure-value">{app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">Reaches 99 % after</span>
-            <span class="figure-value">{app.format(plan.distance_to_99pct_terminal_velocity_m, 'length', 1)}</span>
-          </div>
-          <div class="figure">
-            <span class="figure-label">C_d uncertainty, one drop</span>
-            <span class="figure-value">{(at.relative_uncertainty_one_drop * 100).toFixed(1)} %</span>
-          </div>
-        </div>
+        <>
+          <p class="fall-story" data-testid="fall-story">
+            Let go at rest, it lands after <strong>{at.fall_time_s.toFixed(3)} s</strong>, {(at.drag_delay_s * 1000).toFixed(1)} ms later than
+            it would with no air, at <strong>{app.format(at.impact_speed_m_s, 'speed', 1)}</strong>, carrying{' '}
+            <strong>{app.format(at.impact_energy_J, 'energy')}</strong>.
+          </p>
+          <p class="fall-story">
+            However far it fell, still air would hold it below <strong>{app.format(plan.terminal_velocity_m_s, 'speed', 1)}</strong>. It comes
+            within 5 % of that after falling {app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}, within 1 % after{' '}
+            {app.format(plan.distance_to_99pct_terminal_velocity_m, 'length', 1)}.
+          </p>
+          <dl class="readout">
+            <dt>C_d uncertainty from one drop</dt>
+            <dd>{(at.relative_uncertainty_one_drop * 100).toFixed(1)} %</dd>
+          </dl>
+        </>
       ) : null}
       {energyWarning ? (
         <Notice tone="bad" title="Impact energy">
@@ -176,7 +159,7 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
       ) : null}
       {plan.target ? (
         <Notice tone={plan.target.reachable ? 'good' : 'warn'} title={plan.target.reachable ? 'The target can be reached' : 'The target cannot be reached'}>
-          <p>{plan.target.message}</p>
+          <p>{inChosenUnits(plan.target.message, app.format)}</p>
           {plan.target.smallest_height_m !== null ? (
             <p>
               Lowest height: <strong>{app.format(plan.target.smallest_height_m, 'length', 1)}</strong> with {plan.target.drops_at_smallest_height} drops.
@@ -187,7 +170,7 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
       ) : null}
       {plan.warnings.map((w, i) => (
         <Notice key={`${w.code}${i}`} tone="warn">
-          {w.message}
+          {warningText(w, app.format)}
         </Notice>
       ))}
     </section>

@@ -1,5 +1,5 @@
-import { useEffect, useState } from 'preact/hooks';
-import { decodeLogBytes, logFileName, recordsFromClockAhead, type Conflict, type LogSelection, type MergePreview } from '../../log';
+import { useEffect, useRef, useState } from 'preact/hooks';
+import { decodeLogBytes, logFileName, recordsFromClockAhead, type Conflict, type LogRecord, type LogSelection, type MergePreview } from '../../log';
 import {
   applyImport,
   dismissConflict,
@@ -14,7 +14,7 @@ import {
   type SkippedFile,
   type SyncReport,
 } from '../../sync';
-import { pickFile, shareFile } from '../../sync/page';
+import { pickFile, shareFile, shareFiles, type ShareOutcome } from '../../sync/page';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { Notice, SelectField, TextField } from '../forms';
@@ -22,6 +22,23 @@ import { RiskWarnings } from '../RiskWarnings';
 import { currentSyncService, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
 import { localDate } from '../dates';
+import { exportNaming, incomingDays, incomingSites, tablesFileStem } from '../send-names';
+
+/** A message as a sentence: it ends with a full stop before the next one starts. */
+function sentence(text: string): string {
+  return /[.!?]$/.test(text.trim()) ? text.trim() : `${text.trim()}.`;
+}
+
+/** What happened to a file, in the crew's words: on this phone, handed to another app, or nothing. */
+export function outcomeText(outcome: ShareOutcome, what: string): { tone: 'good' | 'info'; text: string } {
+  if (outcome === 'shared') return { tone: 'good', text: `Shared: ${what} went to the app you picked. It is in the office once that app has sent it.` };
+  if (outcome === 'downloaded')
+    return {
+      tone: 'info',
+      text: `Saved as a file on this phone (${what}, in Downloads). It is not sent yet: mail it, copy it off the phone, or use the office folder below.`,
+    };
+  return { tone: 'info', text: 'Sharing was cancelled: nothing left the phone.' };
+}
 
 /** Getting the log to the office: files (share or download), importing a file, and the office folder. */
 export function SendScreen() {
@@ -29,39 +46,56 @@ export function SendScreen() {
   const app = useApp();
   const [message, setMessage] = useState<{ tone: 'good' | 'bad' | 'info'; text: string } | null>(null);
   const [incoming, setIncoming] = useState<ImportPreview | null>(null);
+  const [incomingLocal, setIncomingLocal] = useState<readonly LogRecord[]>([]);
   const [part, setPart] = useState('all');
+  const [busy, setBusy] = useState(false);
   const days = useStoreData(() => app.store.listDays(), []);
-  const status = app.status;
+  const messageBox = useRef<HTMLDivElement>(null);
+  // A message appears under the buttons that caused it and is brought into view (the box is a live region too).
+  useEffect(() => {
+    if (message) messageBox.current?.scrollIntoView?.({ block: 'nearest' });
+  }, [message]);
+  const naming = () => exportNaming(part, days.state === 'ready' ? days.value : [], localDate());
 
   const exportJson = async () => {
     setMessage(null);
+    setBusy(true);
     try {
       const selection: Partial<LogSelection> | null =
         part === 'all' ? null : part === 'catalogue' ? { kinds: ['specimen', 'site'] } : { day_ids: [part] };
-      const label = part === 'all' ? undefined : part === 'catalogue' ? 'catalogue' : `day-${days.state === 'ready' ? (days.value.find((d) => d.id === part)?.date ?? 'chosen') : 'chosen'}`;
+      const { date, label } = naming();
+      let name = '';
       const outcome = await sendLog(app.store, { appVersion: __APP_VERSION__, selection, now: () => new Date() }, async (log) => {
-        const shared = await shareFile({ name: logFileName(log.device, localDate(), label), text: log.text, type: 'application/json' }, undefined, 'Plummet log');
-        // Only the whole log counts as sent: a part leaves the rest of the changes unsent.
-        return { sent: shared !== 'cancelled' && part === 'all', value: shared };
+        name = logFileName(log.device, date, label);
+        const shared = await shareFile({ name, text: log.text, type: 'application/json' }, undefined, 'Plummet log');
+        // Only the whole log handed to another app counts as sent: a download stays on this phone, and a part
+        // leaves the rest of the changes unsent.
+        return { sent: shared === 'shared' && part === 'all', value: shared };
       });
-      if (outcome !== 'cancelled' && part === 'all') await app.refreshStatus();
-      setMessage({ tone: 'good', text: outcome === 'shared' ? 'The log was handed to the share sheet.' : outcome === 'downloaded' ? 'The log file was downloaded.' : 'Sharing was cancelled.' });
+      if (outcome === 'shared' && part === 'all') await app.refreshStatus();
+      if (outcome !== 'cancelled') await app.updateSettings({ lastHandoff: { how: outcome === 'shared' ? 'shared' : 'saved', at: new Date().toISOString() } });
+      setMessage(outcomeText(outcome, name));
     } catch (e) {
       setMessage({ tone: 'bad', text: describeError(e) });
+    } finally {
+      setBusy(false);
     }
   };
 
   const exportCsv = async () => {
     setMessage(null);
+    setBusy(true);
     try {
       const records = await app.store.allRecords({ includeDeleted: false });
-      const device = await app.store.deviceId();
-      const [drops, series] = logCsvFiles(records, logFileName(device, localDate()).replace(/\.json$/, ''));
-      await shareFile(drops!, undefined, 'Plummet drops');
-      await shareFile(series!, undefined, 'Plummet series');
-      setMessage({ tone: 'good', text: 'Two CSV files: one row per drop, one row per series.' });
+      const { date, label } = exportNaming('all', days.state === 'ready' ? days.value : [], localDate());
+      const files = logCsvFiles(records, tablesFileStem(date, label));
+      // Both tables in one share: a phone allows one share sheet per tap, so a second call would fail.
+      const outcome = await shareFiles(files, undefined, 'Plummet tables');
+      setMessage(outcomeText(outcome, `two CSV files, one row per drop and one row per series: ${files.map((f) => f.name).join(', ')}`));
     } catch (e) {
       setMessage({ tone: 'bad', text: describeError(e) });
+    } finally {
+      setBusy(false);
     }
   };
 
@@ -74,9 +108,11 @@ export function SendScreen() {
       // The same decoding as the office command: UTF-8 with or without its mark, UTF-16 with one; malformed bytes
       // refused by offset (file.text() would put U+FFFD in their place). The browser's strict decoder does the work.
       const strictUtf8 = (bytes: Uint8Array) => new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
-      setIncoming(await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()), strictUtf8), file.name));
+      const preview = await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()), strictUtf8), file.name);
+      setIncomingLocal(await app.store.allRecords({ includeDeleted: true }));
+      setIncoming(preview);
     } catch (e) {
-      setMessage({ tone: 'bad', text: `This file cannot be imported: ${describeError(e)} Nothing was changed.` });
+      setMessage({ tone: 'bad', text: `This file cannot be imported: ${sentence(describeError(e))} Nothing was changed.` });
     }
   };
 
@@ -88,19 +124,13 @@ export function SendScreen() {
       app.notifyChanged();
       setMessage({ tone: 'good', text: `Imported: ${done.added.length} added, ${done.updated.length} updated, ${done.conflicts.length} conflicts kept for review.` });
     } catch (e) {
-      setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${describeError(e)}` });
+      setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${sentence(describeError(e))}` });
     }
   };
 
   return (
     <div>
-      <section class="card" aria-labelledby="unsent-h">
-        <h2 id="unsent-h">
-          {status?.unsentChanges ? `${status.unsentChanges} change${status.unsentChanges === 1 ? '' : 's'} not yet sent` : 'Everything is sent'}
-        </h2>
-        <p class="hint">Last export or sync: {status?.lastSentAt ? new Date(status.lastSentAt).toLocaleString() : 'never'}.</p>
-        <RiskWarnings compact />
-      </section>
+      <SentState />
       <section class="card" aria-labelledby="files-h">
         <h2 id="files-h">By file</h2>
         <SelectField
@@ -115,38 +145,94 @@ export function SendScreen() {
           onChange={setPart}
         />
         <div class="btn-col">
-          <button type="button" class="btn" onClick={exportJson}>
+          <button type="button" class="btn" onClick={exportJson} disabled={busy}>
             Send as a log file (JSON)
           </button>
-          <button type="button" class="btn btn-quiet" onClick={exportCsv}>
+          <button type="button" class="btn btn-quiet" onClick={exportCsv} disabled={busy}>
             Tables for a spreadsheet (CSV)
           </button>
           <button type="button" class="btn btn-quiet" onClick={chooseImport}>
             Import a log file
           </button>
         </div>
-        {incoming ? (
-          <div class="subform" role="group" aria-label="Import preview">
-            <p>
-              From device <span class="mono">{incoming.file.device}</span>: <strong>{incoming.preview.added.length}</strong> records to add,{' '}
-              <strong>{incoming.preview.updated.length}</strong> to update, {incoming.preview.unchanged} unchanged,{' '}
-              <strong>{incoming.preview.conflicts.length}</strong> in conflict (kept for review, nothing dropped).
-            </p>
-            <div class="btn-row">
-              <button type="button" class="btn" onClick={confirmImport}>
-                Merge into this log
-              </button>
-              <button type="button" class="btn btn-quiet" onClick={() => setIncoming(null)}>
-                Cancel
-              </button>
-            </div>
-          </div>
-        ) : null}
+        <div ref={messageBox} class="message-slot" role="status" aria-live="polite" data-testid="send-message">
+          {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
+        </div>
+        {incoming ? <IncomingPreview incoming={incoming} local={incomingLocal} onMerge={confirmImport} onCancel={() => setIncoming(null)} /> : null}
       </section>
       <Conflicts />
       <ClockAhead />
       <FolderSync sync={sync} />
-      {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
+    </div>
+  );
+}
+
+/** Whether anything waits to leave the phone, and how the log last left it. */
+function SentState() {
+  const app = useApp();
+  const status = app.status;
+  const handoff = app.settings.lastHandoff;
+  const sync = currentSyncService();
+  const folderAt = sync?.lastReport?.ok && sync.lastReport.uploaded ? sync.lastReport.finished_at : null;
+  const last = folderAt && (!handoff || folderAt > handoff.at) ? { how: 'folder' as const, at: folderAt } : handoff;
+  const when = (iso: string) => new Date(iso).toLocaleString();
+  const unsent = status?.unsentChanges ?? 0;
+  let heading: string;
+  if (unsent > 0) heading = `${unsent} change${unsent === 1 ? '' : 's'} not yet shared or in the office folder`;
+  else if (last?.how === 'folder' || (!last && status?.lastSentAt)) heading = 'Everything is in the office folder';
+  else if (last?.how === 'shared') heading = 'Everything is shared';
+  else heading = 'Nothing to send yet';
+  return (
+    <section class="card" aria-labelledby="unsent-h">
+      <h2 id="unsent-h">{heading}</h2>
+      {last ? (
+        <p class="hint">
+          {last.how === 'saved' ? 'Last saved as a file on this phone' : last.how === 'shared' ? 'Last shared' : 'Last in the office folder'}: {when(last.at)}.
+          {last.how === 'saved' && unsent > 0 ? ' A saved file is still on this phone: it protects nothing if the phone is lost.' : ''}
+        </p>
+      ) : (
+        <p class="hint">Last export or sync: {status?.lastSentAt ? when(status.lastSentAt) : 'never'}.</p>
+      )}
+      <RiskWarnings compact />
+    </section>
+  );
+}
+
+/** What an incoming file holds, named as the crew knows it: its phone, its days by date and site, its sites. */
+function IncomingPreview({ incoming, local, onMerge, onCancel }: { incoming: ImportPreview; local: readonly LogRecord[]; onMerge(): void; onCancel(): void }) {
+  const days = incomingDays(incoming.file.records, local);
+  const sites = incomingSites(incoming.file.records);
+  return (
+    <div class="subform" role="group" aria-label="Import preview">
+      <p>
+        From device <span class="mono">{incoming.file.device}</span>: <strong>{incoming.preview.added.length}</strong> records to add,{' '}
+        <strong>{incoming.preview.updated.length}</strong> to update, {incoming.preview.unchanged} unchanged,{' '}
+        <strong>{incoming.preview.conflicts.length}</strong> in conflict (kept for review, nothing dropped).
+      </p>
+      {days.length ? (
+        <>
+          <p class="hint">Test days in the file:</p>
+          <ul class="plain-list" aria-label="Test days in the file">
+            {days.map((d) => (
+              <li key={d.id}>
+                {d.date} at {d.site}
+                {d.isNew ? ' (new on this phone)' : ' (already here)'}
+              </li>
+            ))}
+          </ul>
+        </>
+      ) : (
+        <p class="hint">The file holds no test day.</p>
+      )}
+      {sites.length ? <p class="hint">Sites: {sites.join(', ')}.</p> : null}
+      <div class="btn-row">
+        <button type="button" class="btn" onClick={onMerge}>
+          Merge into this log
+        </button>
+        <button type="button" class="btn btn-quiet" onClick={onCancel}>
+          Cancel
+        </button>
+      </div>
     </div>
   );
 }
@@ -220,15 +306,17 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
         </button>
       </div>
       {report ? (
-        <Notice tone={report.ok ? 'good' : 'bad'} title={report.ok ? 'Last sync succeeded' : 'Last sync failed'}>
-          <p>
-            {new Date(report.finished_at).toLocaleString()}: {report.merged.length} files merged, {report.skipped} unchanged
-            {report.problems.length ? `, ${report.problems.length} skipped (listed below)` : ''}
-            {report.uploaded ? ', this phone’s file sent' : ''}.
-          </p>
-          {report.error ? <p>{report.error.message}</p> : null}
-          {report.conflicts.length ? <p>{report.conflicts.length} conflicts kept for review.</p> : null}
-        </Notice>
+        <div role="status">
+          <Notice tone={report.ok ? 'good' : 'bad'} title={report.ok ? 'Last sync succeeded' : 'Last sync failed'}>
+            <p>
+              {new Date(report.finished_at).toLocaleString()}: {report.merged.length} files merged, {report.skipped} unchanged
+              {report.problems.length ? `, ${report.problems.length} skipped (listed below)` : ''}
+              {report.uploaded ? ', this phone’s file is in the office folder' : ''}.
+            </p>
+            {report.error ? <p>{report.error.message}</p> : null}
+            {report.conflicts.length ? <p>{report.conflicts.length} conflicts kept for review.</p> : null}
+          </Notice>
+        </div>
       ) : null}
       <SkippedFiles finishedAt={report?.finished_at ?? null} />
     </section>

@@ -1,8 +1,8 @@
 import { useState } from 'preact/hooks';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
-import { Notice, SelectField } from '../forms';
-import { CHOOSABLE, UNITS, type QuantityKind } from '../../widgets/units';
+import { Choice, Notice, SelectField } from '../forms';
+import { CHOOSABLE, UNITS, UNIT_SYSTEMS, unitSystemOf, type QuantityKind } from '../../widgets/units';
 import { loadSampleLog, removeSampleLog } from '../sample-log';
 import { describeError } from '../errors';
 import { RiskWarnings } from '../RiskWarnings';
@@ -17,6 +17,9 @@ const UNIT_LABELS: Partial<Record<QuantityKind, string>> = {
   energy: 'Energy',
   area: 'Area',
   volume: 'Volume',
+  density: 'Air density',
+  acceleration: 'Gravity',
+  viscosity: 'Air viscosity',
 };
 
 function bytes(n: number | null): string {
@@ -60,17 +63,33 @@ export function SettingsScreen() {
     <div>
       <section class="card" aria-labelledby="units-h">
         <h2 id="units-h">Units</h2>
-        <p class="hint">Values are always stored in SI units; these only change what is shown and typed.</p>
-        {CHOOSABLE.map((kind) => (
-          <SelectField
-            key={kind}
-            id={`unit-${kind}`}
-            label={UNIT_LABELS[kind] ?? kind}
-            value={app.unit(kind)}
-            options={UNITS[kind].map((u) => ({ value: u.symbol, label: `${u.symbol} (${u.name})` }))}
-            onChange={(symbol) => void app.updateSettings({ units: { [kind]: symbol } })}
-          />
-        ))}
+        <p class="hint">Values are always stored in SI units; this only changes what is shown and typed.</p>
+        <Choice
+          legend="Show and type values in"
+          name="unit-system"
+          value={unitSystemOf(app.settings.units)}
+          options={[
+            { value: 'si', label: 'SI (m, °C, hPa)' },
+            { value: 'us', label: 'US customary (ft, °F, inHg)' },
+            ...(unitSystemOf(app.settings.units) === 'own' ? [{ value: 'own' as const, label: 'My own mix' }] : []),
+          ]}
+          onChange={(system) => {
+            if (system !== 'own') void app.updateSettings({ units: { ...UNIT_SYSTEMS[system] } });
+          }}
+        />
+        <details class="unit-kinds">
+          <summary>Choose the unit of each quantity</summary>
+          {CHOOSABLE.map((kind) => (
+            <SelectField
+              key={kind}
+              id={`unit-${kind}`}
+              label={UNIT_LABELS[kind] ?? kind}
+              value={app.unit(kind)}
+              options={UNITS[kind].map((u) => ({ value: u.symbol, label: `${u.symbol} (${u.name})` }))}
+              onChange={(symbol) => void app.updateSettings({ units: { [kind]: symbol } })}
+            />
+          ))}
+        </details>
         <label class="check">
           <input type="checkbox" checked={app.settings.decimalComma} onChange={(e) => void app.updateSettings({ decimalComma: (e.target as HTMLInputElement).checked })} />
           <span>Show numbers with a decimal comma (a comma is always accepted when typing)</span>

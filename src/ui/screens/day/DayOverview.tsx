@@ -93,7 +93,7 @@ function ReadingList({ view }: { view: DayView }) {
           <li key={r.id} class="row">
             <span class="row-main">
               {new Date(r.taken_at).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · {format(r.temperature_C, 'temperature')} ·{' '}
-              {format(r.pressure_Pa, 'pressure')} {r.pressure_reference === 'station' ? 'station' : 'sea-level'} ·{' '}
+              {format(r.pressure_Pa, 'pressure')} {r.pressure_reference === 'station' ? 'on site' : 'reported, sea level'} ·{' '}
               {r.humidity.kind === 'relative' ? `${r.humidity.relative_humidity_pct} % RH` : `dew point ${format(r.humidity.dew_point_C, 'temperature')}`}
             </span>
             <span class="row-side">ρ {density}</span>

@@ -7,6 +7,7 @@ import { analyzeDay } from '../../../analysis';
 import { DayHeader } from './DayOverview';
 import { RiskWarnings } from '../../RiskWarnings';
 import { describeError } from '../../errors';
+import { inChosenUnits, warningText } from '../../unit-text';
 
 /** The end of the day: every series' result, what is unresolved or flagged, and the way to the office. */
 export function DaySummary({ dayId }: { dayId: string }) {
@@ -59,10 +60,10 @@ export function DaySummary({ dayId }: { dayId: string }) {
               <li key={s.id}>
                 {specimen?.name ?? 'unknown'} from {app.format(s.height_m, 'length', 1)}:{' '}
                 {outcome.kind !== 'ready'
-                  ? outcome.message
+                  ? inChosenUnits(outcome.message, app.format)
                   : outcome.result.drag_coefficient === null
                     ? 'drag not resolved'
-                    : [...outcome.result.warnings.map((w) => w.message), 'target uncertainty not met'].slice(0, 2).join(' ')}
+                    : [...outcome.result.warnings.map((w) => warningText(w, app.format, { temperature_C: outcome.reading.temperature_C, station_pressure_Pa: outcome.result.air.station_pressure_Pa })), 'target uncertainty not met'].slice(0, 2).join(' ')}
               </li>
             ))}
           </ul>

@@ -6,6 +6,7 @@ import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../forms';
 import { describeError } from '../../errors';
 import { emptyReadingPlace, readingPlaceBody, readingPlaceValid, ReadingPlaceFields, type ReadingPlaceDraft } from './ReadingPlaceFields';
+import { inChosenUnits, warningText } from '../../unit-text';
 
 interface ReadingDraft extends ReadingPlaceDraft {
   temperature: FieldState;
@@ -105,18 +106,19 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
       <h3 id="reading-h">New air reading</h3>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
       <MeasuredField form={form} name="temperature" uName="uTemperature" label="Air temperature" kind="temperature" {...inputRange(LIMITS.temperature_C)} uMax={LIMITS.u_temperature_C.max} />
+      <MeasuredField form={form} name="pressure" uName="uPressure" label="Air pressure" kind="pressure" {...inputRange(d.reference === 'sea_level' ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa)} uMax={LIMITS.u_pressure_Pa.max} />
       <Choice
-        legend="The barometer shows"
+        legend="Where this pressure comes from"
         name="pref"
+        stacked
         value={d.reference}
         options={[
-          { value: 'station', label: 'Station pressure' },
-          { value: 'sea_level', label: 'Sea-level (QNH)' },
+          { value: 'station', label: 'Read on site: the air pressure where we stand' },
+          { value: 'sea_level', label: 'A weather report: brought down to sea level' },
         ]}
         onChange={(reference) => form.set({ reference })}
-        hint="Station pressure is what the air presses here; weather reports give sea-level pressure (QNH)."
+        hint="Weather services publish pressure brought down to sea level; the app takes it back up to the site’s elevation."
       />
-      <MeasuredField form={form} name="pressure" uName="uPressure" label="Pressure" kind="pressure" {...inputRange(d.reference === 'sea_level' ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa)} uMax={LIMITS.u_pressure_Pa.max} />
       <Choice
         legend="Humidity as"
         name="hkind"
@@ -152,7 +154,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
 function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) {
   const { format } = useApp();
   if (!preview) return <p class="hint">Air density, viscosity and the speed of sound show here as soon as the reading is complete.</p>;
-  if (!preview.ok) return <Notice tone="bad">{preview.message}</Notice>;
+  if (!preview.ok) return <Notice tone="bad">{inChosenUnits(preview.message, format)}</Notice>;
   const a = preview.air;
   return (
     <div class="figures" aria-live="polite">
@@ -162,19 +164,19 @@ function AirFigures({ preview }: { preview: ReturnType<typeof useAirPreview> }) 
       </div>
       <div class="figure">
         <span class="figure-label">Viscosity</span>
-        <span class="figure-value">{(a.dynamic_viscosity_Pa_s * 1e6).toFixed(2)} µPa·s</span>
+        <span class="figure-value">{format(a.dynamic_viscosity_Pa_s, 'viscosity')}</span>
       </div>
       <div class="figure">
         <span class="figure-label">Speed of sound</span>
         <span class="figure-value">{format(a.speed_of_sound_m_s, 'speed', 1)}</span>
       </div>
       <div class="figure">
-        <span class="figure-label">Station pressure</span>
+        <span class="figure-label">Pressure on site</span>
         <span class="figure-value">{format(a.station_pressure_Pa, 'pressure')}</span>
       </div>
       {a.warnings.map((w) => (
         <Notice key={w.code} tone="warn">
-          {w.message}
+          {warningText(w, format, { temperature_C: a.temperature_K - 273.15, station_pressure_Pa: a.station_pressure_Pa })}
         </Notice>
       ))}
     </div>

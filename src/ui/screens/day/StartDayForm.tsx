@@ -135,8 +135,8 @@ export function StartDayForm() {
           </button>
           {locating ? <p class="hint" role="status">{locating}</p> : null}
           <div class="two">
-            <QField label="Latitude" kind="angle" state={f.latitude} {...inputRange(LIMITS.latitude_deg)} onChange={(latitude) => form.set({ latitude })} compact />
-            <QField label="Longitude" kind="angle" state={f.longitude} {...inputRange(LIMITS.longitude_deg)} onChange={(longitude) => form.set({ longitude })} compact />
+            <QField label="Latitude" kind="angle" hemispheres="NS" hint={`46.1083 or 46°06'30" N`} state={f.latitude} {...inputRange(LIMITS.latitude_deg)} onChange={(latitude) => form.set({ latitude })} compact />
+            <QField label="Longitude" kind="angle" hemispheres="EW" hint={`-8.25 or 8°15' W`} state={f.longitude} {...inputRange(LIMITS.longitude_deg)} onChange={(longitude) => form.set({ longitude })} compact />
           </div>
           <QField
             label="Elevation"

@@ -6,6 +6,7 @@ import { seriesDropRows, type SeriesOutcome } from '../../../../analysis';
 import { useApp } from '../../../app-context';
 import { Notice, TextField } from '../../../forms';
 import { describeError } from '../../../errors';
+import { formatNumber } from '../../../../widgets/units';
 
 export function DropTable({ drops, series, outcome }: { drops: readonly DropRecord[]; series: SeriesRecord; outcome: SeriesOutcome }) {
   const app = useApp();
@@ -39,6 +40,12 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
   };
 
   const oneHeight = new Set(rows.map((r) => r.h)).size === 1;
+  // The last column compares each drop with the prediction where there is one (a sphere), else with the series'
+  // own fit; either way measured minus the other, so a drop slower than expected reads positive.
+  const againstPrediction = rows.some((r) => r.predicted !== null);
+  const difference = (r: (typeof rows)[number]): number | null =>
+    againstPrediction ? (r.predicted !== null ? r.d.time_s - r.predicted : null) : r.residual;
+  const ms = (seconds: number) => formatNumber(seconds * 1000, 1, app.settings.decimalComma);
   return (
     <section class="card" aria-labelledby="drops-h">
       <h3 id="drops-h">Predicted and measured</h3>
@@ -57,7 +64,12 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
               </th>
               <th scope="col">C_d</th>
               <th scope="col">
-                <abbr title="measured minus fitted time">resid.</abbr> (ms)
+                {againstPrediction ? (
+                  <abbr title="measured minus predicted time, milliseconds">t − pred.</abbr>
+                ) : (
+                  <abbr title="measured minus fitted time, milliseconds">t − fit</abbr>
+                )}{' '}
+                (ms)
               </th>
               <th scope="col">
                 <span class="sr-only">Action</span>
@@ -65,15 +77,18 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
             </tr>
           </thead>
           <tbody>
-            {rows.map(({ d, h, own, predicted, residual }) => (
+            {rows.map((row) => {
+              const { d, h, own, predicted } = row;
+              const diff = difference(row);
+              return (
               <tr key={d.id} class={d.excluded ? 'excluded' : ''}>
                 <th scope="row">{d.seq}</th>
                 {oneHeight ? null : <td>{app.format(h, 'length', 2).replace(/ \S+$/, '')}</td>}
-                <td>{d.time_s.toFixed(3)}</td>
-                <td>{predicted !== null ? predicted.toFixed(3) : '—'}</td>
-                <td>{own !== null ? own.toFixed(3) : '—'}</td>
-                <td>{residual !== null ? (residual * 1000).toFixed(1) : d.excluded ? 'excl.' : '—'}</td>
-                <td>
+                <td>{formatNumber(d.time_s, 3, app.settings.decimalComma)}</td>
+                <td>{predicted !== null ? formatNumber(predicted, 3, app.settings.decimalComma) : '—'}</td>
+                <td>{own !== null ? formatNumber(own, 3, app.settings.decimalComma) : '—'}</td>
+                <td>{diff !== null ? ms(diff) : d.excluded ? 'excl.' : '—'}</td>
+                <td class="act">
                   <button
                     type="button"
                     class="btn btn-small btn-quiet btn-icon"
@@ -88,7 +103,8 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
                   </button>
                 </td>
               </tr>
-            ))}
+              );
+            })}
           </tbody>
         </table>
       </div>

@@ -34,10 +34,11 @@ export function SeriesCharts({ outcome, drops, series }: { outcome: Extract<Seri
         yLabel={`distance fallen (${lu.symbol})`}
         summary={`Chart of distance fallen against time: ${drops.length} measured drops with the curve for the measured drag coefficient${curves.predicted ? ', the predicted curve' : ''} and the curve without air. The table below lists the same values.`}
       />
+      {heights.size === 1 ? <DropByDrop outcome={outcome} drops={drops} /> : null}
       {heights.size > 1 ? (
         <>
           <h3>Residuals against height</h3>
-          <p class="hint">Measured minus fitted time. A steady trend with height points to a timing offset.</p>
+          <p class="hint">Measured minus fitted time (a drop slower than the fit is above the line). A steady trend with height points to a timing offset.</p>
           <pl-plot
             lines={[]}
             zeroLine
@@ -49,5 +50,35 @@ export function SeriesCharts({ outcome, drops, series }: { outcome: Extract<Seri
         </>
       ) : null}
     </section>
+  );
+}
+
+/**
+ * Drops from one height all land at one point of the height-time chart; here they are spread out, drop by drop,
+ * each time against the series' fitted time and the prediction.
+ */
+function DropByDrop({ outcome, drops }: { outcome: Extract<SeriesOutcome, { kind: 'ready' }>; drops: DropRecord[] }) {
+  const r = outcome.result;
+  const first = r.drops[0];
+  if (!first || drops.length === 0) return null;
+  const seqs = drops.map((d) => d.seq);
+  const span: [number, number] = [Math.min(...seqs) - 0.5, Math.max(...seqs) + 0.5];
+  const flat = (y: number) => [
+    [span[0], y],
+    [span[1], y],
+  ] as const;
+  const lines: PlotLine[] = [{ label: `fitted ${first.fitted_time_s.toFixed(3)} s`, points: flat(first.fitted_time_s), tone: 'brand', style: 'solid' }];
+  if (first.predicted_time_s !== null) lines.push({ label: `predicted ${first.predicted_time_s.toFixed(3)} s`, points: flat(first.predicted_time_s), tone: 'accent', style: 'dash' });
+  return (
+    <>
+      <h3>Fall time, drop by drop</h3>
+      <pl-plot
+        lines={lines}
+        marks={drops.map((d) => ({ label: `drop ${d.seq}: ${d.time_s.toFixed(3)} s${d.excluded ? ' (excluded)' : ''}`, x: d.seq, y: d.time_s, hollow: d.excluded, key: d.id }))}
+        xLabel="drop number"
+        yLabel="fall time (s)"
+        summary={`Chart of each drop's fall time in the order they were made, with the fitted time${first.predicted_time_s !== null ? ' and the predicted time' : ''}; the table below lists the same values.`}
+      />
+    </>
   );
 }

@@ -6,12 +6,14 @@ import { useApp } from '../../../app-context';
 import { Notice } from '../../../forms';
 import { impactEnergyWarning } from '../../../SafetyCaution';
 import { describeError } from '../../../errors';
+import { inChosenUnits, warningText } from '../../../unit-text';
+import { formatSignificant } from '../../../../widgets/units';
 
 export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome; series: SeriesRecord; usedDrops: readonly DropRecord[] }) {
   const app = useApp();
   const dropsUsed = usedDrops.length;
-  if (outcome.kind === 'missing') return <Notice tone="info">{outcome.message}</Notice>;
-  if (outcome.kind === 'error') return <Notice tone="bad" title="The series cannot be computed">{outcome.message}</Notice>;
+  if (outcome.kind === 'missing') return <Notice tone="info">{inChosenUnits(outcome.message, app.format)}</Notice>;
+  if (outcome.kind === 'error') return <Notice tone="bad" title="The series cannot be computed">{inChosenUnits(outcome.message, app.format)}</Notice>;
   const r = outcome.result;
   const cd = r.drag_coefficient;
   const U = 2 * r.drag_coefficient_standard_uncertainty;
@@ -43,45 +45,35 @@ export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome
           </p>
         </>
       )}
-      <div class="figures">
-        <div class="figure">
-          <span class="figure-label">Terminal velocity</span>
-          <span class="figure-value">
-            {r.terminal_velocity_m_s !== null ? app.format(r.terminal_velocity_m_s, 'speed', 1) : `above ${app.format(r.terminal_velocity_lower_bound_m_s, 'speed', 1)}`}
-          </span>
-        </div>
-        <div class="figure">
-          <span class="figure-label">Air density</span>
-          <span class="figure-value">{app.format(r.air.density_kg_m3, 'density')}</span>
-        </div>
-        <div class="figure">
-          <span class="figure-label">Gravity</span>
-          <span class="figure-value">{r.gravity_m_s2.toFixed(5)} m/s²</span>
-        </div>
-        <div class="figure">
-          <span class="figure-label">Reynolds number</span>
-          <span class="figure-value">{Math.max(...r.drops.map((d) => d.reynolds_number)).toExponential(2)}</span>
-        </div>
+      <dl class="readout" aria-label="What the series says about the fall">
+        <dt>Still-air top speed</dt>
+        <dd>
+          {r.terminal_velocity_m_s !== null ? app.format(r.terminal_velocity_m_s, 'speed', 1) : `above ${app.format(r.terminal_velocity_lower_bound_m_s, 'speed', 1)}`}
+        </dd>
+        <dt>Hardest landing</dt>
+        <dd>{app.format(maxEnergy, 'energy')}</dd>
+        <dt>Air density</dt>
+        <dd>{app.format(r.air.density_kg_m3, 'density')}</dd>
+        <dt>Gravity here</dt>
+        <dd>{app.format(r.gravity_m_s2, 'acceleration')}</dd>
+        <dt>Reynolds number at landing</dt>
+        <dd>{formatSignificant(Math.max(...r.drops.map((d) => d.reynolds_number)), 3)}</dd>
         {r.timing_offset_s !== undefined ? (
-          <div class="figure">
-            <span class="figure-label">Timing offset</span>
-            <span class="figure-value">
+          <>
+            <dt>Timing offset</dt>
+            <dd>
               {(r.timing_offset_s * 1000).toFixed(1)} ± {((r.timing_offset_standard_uncertainty_s ?? 0) * 1000).toFixed(1)} ms
-            </span>
-          </div>
+            </dd>
+          </>
         ) : null}
-        <div class="figure">
-          <span class="figure-label">Impact energy</span>
-          <span class="figure-value">{app.format(maxEnergy, 'energy')}</span>
-        </div>
-      </div>
+      </dl>
       {energyWarning ? <Notice tone="bad" title="Impact energy">{energyWarning}</Notice> : null}
       <Enough outcome={outcome} series={series} met={met} rel={rel} dropsUsed={dropsUsed} />
       {r.warnings
         .filter((w) => w.code !== 'possible-outlier')
         .map((w, i) => (
           <Notice key={`${w.code}-${i}`} tone="warn">
-            {w.message}
+            {warningText(w, app.format, { temperature_C: outcome.reading.temperature_C, station_pressure_Pa: r.air.station_pressure_Pa })}
           </Notice>
         ))}
       {r.heights
@@ -135,7 +127,7 @@ function Enough({
               ? `About ${advice.drops_at_planned_height - dropsUsed} more drops from ${app.format(series.height_m, 'length', 1)} should reach it. `
               : ''
             : ''}
-          {advice.message}
+          {inChosenUnits(advice.message, app.format)}
         </div>
       ) : null}
     </div>
