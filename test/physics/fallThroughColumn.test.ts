@@ -53,12 +53,14 @@ function referenceRhs(H: number, lapse: number, W: number, U: number, body: Colu
   };
 }
 
-describe('fallThroughColumn against odex driving the full equations (1e-6 relative)', () => {
+describe('fallThroughColumn (still air: the quadrature; moving air: the integrator) against odex driving the full equations (1e-6 relative)', () => {
   const cases: [string, number, number, number, ColumnBody][] = [
     ['a ball from 300 m through a standard lapse', 300, 0.0065, 0, ball],
     ['a ball from 3000 m with a 0.5 m/s updraft', 3000, 0.0065, 0.5, ball],
     ['a light parachute-like body from 1000 m in a downdraft', 1000, 0.008, -0.3, { ...ball, mass_kg: 0.05, area_m2: 0.3, volume_m3: 0.002, added_mass_coefficient: 0.8, drag_coefficient: 1.3 }],
     ['a dense ball from 10 000 m', 10000, 0.0065, 0, { ...ball, mass_kg: 5 }],
+    ['a light, bulky ball from 3000 m in still air (terminal most of the way)', 3000, 0.0065, 0, { ...ball, mass_kg: 0.03, area_m2: Math.PI * 0.125 ** 2, volume_m3: (Math.PI * 0.25 ** 3) / 6, drag_coefficient: 0.47 }],
+    ['a ball from 14 m in still air', 14, 0.0065, 0, ball],
   ];
   it.each(cases)('%s', (_name, H, lapse, W, body) => {
     const column = new AirColumn(reading({ verticalWind_m_s: W }), G_GROUND, lapse);
