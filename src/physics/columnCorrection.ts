@@ -8,10 +8,10 @@
  *   C_d = C_d,u · (1 + w·(R − 1)),  R = C_d,c / C_d,u
  *
  * with a weight w fixed once per analysis from the nominal inputs (columnWeight below): 0 where the column's
- * effect on every mean time (its nominal shift plus its inputs' standard uncertainties, added linearly) is under
- * 5 % of that mean time's smallest standard uncertainty (the declared timing uncertainty over √n), 1 from 10 %,
- * and a smoothstep between, so the result has no step where the closed form hands over and the part left out is
- * never more than a tenth of that uncertainty.
+ * effect e on every mean time (its nominal shift plus its inputs' shifts at one standard uncertainty, added
+ * linearly) is under a tenth of that mean time's smallest standard uncertainty (the declared timing uncertainty
+ * over √n), 1 from two tenths, and a smoothstep between, so the result has no step where the closed form hands
+ * over, and the part left out, (1 − w)·e, is never more than 0.11 of that uncertainty (its largest, at e ≈ 0.115).
  *
  * The GUM budget differentiates the exact model. The Monte Carlo, which evaluates the model tens of thousands of
  * times, evaluates the closed form exactly and R through a separable quadratic surrogate: for each input, a
@@ -89,7 +89,7 @@ export function columnAt(
 
 /** The weight of the column's result from its effect over the smallest uncertainty (see the file's comment). */
 export function columnWeight(effectOverUncertainty: number): number {
-  const s = Math.min(Math.max((effectOverUncertainty - 0.05) / 0.05, 0), 1);
+  const s = Math.min(Math.max((effectOverUncertainty - 0.1) / 0.1, 0), 1);
   return s * s * (3 - 2 * s);
 }
 

@@ -165,6 +165,8 @@ export class SeriesModel {
   /** The last exact C_d in the column over the closed form's (a warm start). */
   columnRatio = 1;
   private lastVapour = 0;
+  /** ∂T_j/∂C_d of the column's fall, from the first column fit (see fitDragInColumn.ts). */
+  private readonly columnSlopes = new Float64Array(this.setup.counts.length).fill(NaN);
   private readonly aloftDensity = (p: number, T: number, humidity: number, kind: ColumnHumidity, groundVapour: number): number =>
     moistAirDensity(p, T, vapourFraction(p, T, humidity, kind, groundVapour), this.setup.co2MoleFraction);
 
@@ -231,8 +233,9 @@ export class SeriesModel {
         this.setup.counts,
         this.setup.fitOffset,
         closedCd * this.columnRatio,
+        this.columnSlopes,
       );
-      return fit.status === 'ok' ? { cd: fit.drag_coefficient, offset: fit.offset_s } : null;
+      return fit.status === "ok" ? { cd: fit.drag_coefficient, offset: fit.offset_s } : null;
     } catch {
       // The fall has no solution at these inputs (an updraft that holds the body up): no value for this draw.
       return null;
