@@ -143,6 +143,7 @@ export class SeriesModel {
       aloftWindSpeed_m_s: firstTime + J + 9,
       fullLength: firstTime + J + 10,
     };
+    this.columnSlopes = new Float64Array(J).fill(NaN);
     this.heights = new Float64Array(J);
     this.times = new Float64Array(J);
     this.dims = new Float64Array(setup.dimensionCount);
@@ -166,7 +167,7 @@ export class SeriesModel {
   columnRatio = 1;
   private lastVapour = 0;
   /** ∂T_j/∂C_d of the column's fall, from the first column fit (see fitDragInColumn.ts). */
-  private readonly columnSlopes = new Float64Array(this.setup.counts.length).fill(NaN);
+  private readonly columnSlopes: Float64Array;
   private readonly aloftDensity = (p: number, T: number, humidity: number, kind: ColumnHumidity, groundVapour: number): number =>
     moistAirDensity(p, T, vapourFraction(p, T, humidity, kind, groundVapour), this.setup.co2MoleFraction);
 
