@@ -33,6 +33,12 @@ export interface AirInput {
   co2_mole_fraction?: number;
   /** A measured or trusted density; wins over the CIPM-2007 value. */
   density_kg_m3?: number;
+  /** Height of the reading above the landing surface, m; default 0 (read at the landing surface). See airColumn.ts. */
+  height_m?: number;
+  /** Vertical air motion, positive up (an updraft), m/s; default 0. */
+  vertical_wind_m_s?: number;
+  /** Horizontal wind speed, m/s; absent: the air's motion is not considered at all. */
+  wind_speed_m_s?: number;
 }
 
 export interface AirProperties {

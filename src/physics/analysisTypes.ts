@@ -3,7 +3,7 @@
  * and prints and the screens pass around. SI throughout, the unit in every field name.
  * A field may be added; none may change meaning.
  */
-import type { AirInput } from './airProperties';
+import type { AirInput, PressureReference } from './airProperties';
 import type { SiteInput } from './normalGravity';
 import type { PhysicsWarning } from './physicsWarning';
 import type { SpecimenInput } from './specimenGeometry';
@@ -58,6 +58,29 @@ export interface UncertaintyInput {
    * warning gives the shape's default (addedMassCoefficient.ts) when it would matter.
    */
   added_mass_coefficient?: number;
+  /** Of the lapse rate along the fall (one reading only), K/m; default 0.0033 (see airColumn.ts). */
+  lapse_rate_K_per_m?: number;
+  /** Of the vertical wind, m/s; default from the recorded wind (see airMotionDefaults in airColumnInputs.ts). */
+  vertical_wind_m_s?: number;
+  /** Of the horizontal wind speed, m/s; default from the recorded wind. */
+  wind_speed_m_s?: number;
+}
+
+/**
+ * A second air reading at another height (typically at the release point): the fields of `air` without a density
+ * override or CO2 (those of `air` hold), `height_m` required. Its uncertainties are those of `air`'s readings
+ * (the same kind of instruments), independent of them.
+ */
+export interface AirAloftInput {
+  height_m: number;
+  temperature_C: number;
+  pressure_Pa: number;
+  pressure_reference: PressureReference;
+  /** Neither given: the vapour mole fraction of `air` is kept. */
+  relative_humidity_pct?: number;
+  dew_point_C?: number;
+  vertical_wind_m_s?: number;
+  wind_speed_m_s?: number;
 }
 
 export interface AnalysisOptions {
@@ -74,6 +97,8 @@ export interface AnalysisOptions {
 export interface AnalysisRequest {
   site: SiteInput;
   air: AirInput;
+  /** A second reading at another height; with it the air along the fall is interpolated (airColumn.ts). */
+  air_aloft?: AirAloftInput;
   specimen: SpecimenInput;
   drops: DropInput[];
   timing: TimingInput;
@@ -207,6 +232,33 @@ export interface AnalysisResult {
     timing_offset: 'none' | 'fit';
     scatter_standard_deviation_s: number | null;
     scatter_degrees_of_freedom: number;
+  };
+  /**
+   * The air along the fall and its motion (airColumn.ts, fallThroughColumn.ts): absent when nothing about them
+   * was computed (older results).
+   */
+  air_column?: {
+    /** 0: the closed form in uniform still air stands; 1: the fall through the column is used; between: blended. */
+    weight: number;
+    /** The column's and the air's motion's effect on the fall times, over the smallest standard uncertainty of a mean time. */
+    effect_over_uncertainty: number;
+    /** C_d in the column over C_d in uniform still air at the reading (1 when the weight is 0). */
+    correction_ratio: number;
+    readings: 1 | 2;
+    /** The lapse rate used, K/m (with two readings: theirs). */
+    lapse_rate_K_per_m: number;
+    lapse_rate_standard_uncertainty_K_per_m: number | null;
+    vertical_wind_m_s: number;
+    vertical_wind_standard_uncertainty_m_s: number | null;
+    wind_speed_m_s: number;
+    wind_speed_standard_uncertainty_m_s: number | null;
+    /** Where the defaults came from, when any was used. */
+    notes: string[];
+    /** At the highest release height, from the fitted model. */
+    density_at_release_kg_m3: number;
+    density_at_landing_kg_m3: number;
+    impact_mach: number;
+    drift_m: number;
   };
   warnings: PhysicsWarning[];
 }

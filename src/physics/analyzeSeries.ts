@@ -21,7 +21,98 @@ import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prep
 import { seriesStatistics } from './seriesStatistics';
 import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
 import { studentTQuantile } from './studentT';
-import { modelDerivatives, uncertaintyBudget } from './uncertaintyBudget';
+import { modelDerivatives, uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
+import { fallThroughColumn } from './fallThroughColumn';
+import { PhysicsInputError } from './physicsInputError';
+
+/** Past this Mach number at impact the air near the body is compressed noticeably (ρ changes by about M²/2 ≈ 4.5 %; common practice). */
+export const COMPRESSIBILITY_WARNING_MACH = 0.3;
+/**
+ * Past this Mach number at impact a constant quadratic-drag coefficient has no meaning: near a sphere's critical
+ * Mach number (about 0.6, from memory) the flow around the body turns locally supersonic, shock waves add wave
+ * drag and C_d rises steeply with speed, so one C_d cannot describe the fall.
+ */
+export const QUADRATIC_DRAG_LIMIT_MACH = 0.6;
+
+/** Every model position the Monte Carlo draws, with its standard uncertainty (root-sum-square over the specs). */
+function surrogateInputs(specs: BudgetInputSpec[]): { index: number; u: number }[] {
+  const variance = new Map<number, number>();
+  for (const spec of specs) {
+    spec.indices.forEach((index, i) => {
+      const u = spec.standard_uncertainty * spec.weights[i]!;
+      if (u > 0) variance.set(index, (variance.get(index) ?? 0) + u * u);
+    });
+  }
+  return [...variance].map(([index, v]) => ({ index, u: Math.sqrt(v) }));
+}
+
+/** The result's air_column block and the warnings about the speed at impact (compressibility). */
+function airColumnSummary(
+  setup: SeriesSetup,
+  fit: SeriesFit,
+  estimate: number,
+  factor: number,
+): { summary: NonNullable<AnalysisResult['air_column']>; warnings: PhysicsWarning[] } {
+  const { model, x0, layout: L } = fit;
+  const c = setup.column;
+  const top = Math.max(...setup.request.drops.map((d) => d.height_m));
+  model.evaluate(x0);
+  const column = model.column(x0);
+  const body = {
+    mass_kg: setup.specimen.mass_kg,
+    area_m2: setup.geometry.area_m2,
+    volume_m3: setup.geometry.volume_m3,
+    characteristic_length_m: setup.geometry.characteristic_length_m,
+    buoyancy: setup.buoyancy,
+    added_mass_coefficient: setup.added_mass_coefficient,
+    drag_coefficient: Math.max(estimate, 0),
+  };
+  let fall: { impact_mach: number; drift_m: number; impact_relative_speed_m_s: number } = { impact_mach: NaN, drift_m: 0, impact_relative_speed_m_s: NaN };
+  try {
+    fall = fallThroughColumn(top, body, column);
+  } catch {
+    // Reported through the fit already; the summary then has no impact figures.
+  }
+  const warnings: PhysicsWarning[] = [];
+  if (fall.impact_mach > QUADRATIC_DRAG_LIMIT_MACH) {
+    const index = setup.request.drops.findIndex((d) => d.height_m === top);
+    throw new PhysicsInputError({
+      code: 'out-of-range',
+      field: `drops[${index}].height_m`,
+      value: top,
+      allowed: `a fall whose impact stays below Mach ${QUADRATIC_DRAG_LIMIT_MACH} (this one reaches Mach ${fall.impact_mach.toFixed(2)}, ${fall.impact_relative_speed_m_s.toFixed(0)} m/s)`,
+      reason: 'quadratic drag with one drag coefficient fails near the speed of sound (wave drag makes C_d rise steeply with speed)',
+    });
+  }
+  if (fall.impact_mach > COMPRESSIBILITY_WARNING_MACH) {
+    warnings.push({
+      code: 'compressible-impact',
+      message: `The fall reaches Mach ${fall.impact_mach.toFixed(2)} at impact (${fall.impact_relative_speed_m_s.toFixed(0)} m/s through the air): past Mach ${COMPRESSIBILITY_WARNING_MACH} the air near the body is compressed by several per cent and C_d starts to depend on speed; the fitted C_d is an average over the fall.`,
+    });
+  }
+  const twoReadings = c.aloft !== null;
+  const lapse = twoReadings ? -column.temperatureSlope : c.lapseRate_K_per_m;
+  return {
+    summary: {
+      weight: model.columnWeight,
+      effect_over_uncertainty: fit.columnEffect,
+      correction_ratio: factor,
+      readings: twoReadings ? 2 : 1,
+      lapse_rate_K_per_m: lapse,
+      lapse_rate_standard_uncertainty_K_per_m: twoReadings ? null : c.lapseRateU,
+      vertical_wind_m_s: x0[L.verticalWind_m_s]!,
+      vertical_wind_standard_uncertainty_m_s: c.motion ? c.verticalWindU : null,
+      wind_speed_m_s: x0[L.windSpeed_m_s]!,
+      wind_speed_standard_uncertainty_m_s: c.motion ? c.windSpeedU : null,
+      notes: c.notes,
+      density_at_release_kg_m3: column.density(top),
+      density_at_landing_kg_m3: column.density(0),
+      impact_mach: fall.impact_mach,
+      drift_m: fall.drift_m,
+    },
+    warnings,
+  };
+}
 
 export { DEFAULT_MONTE_CARLO_DRAWS };
 /** Reynolds numbers of the drag crisis of smooth spheres (common practice: 2e5 to 5e5). */
@@ -87,6 +178,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const { fittedTimes, residuals, dof, scatter: scatterSd, excess, meanTimeU } = scatter;
   const { specs, timeIndices } = inputs;
   const budget = uncertaintyBudget(model, x0, specs);
+  // The Monte Carlo evaluates the air along the fall through its surrogate (columnCorrection.ts).
+  if (model.columnWeight > 0) model.freezeColumn(x0, surrogateInputs(specs));
 
   // Monte Carlo.
   const normals: NormalInput[] = [];
@@ -117,6 +210,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   };
   if (humidityKind === 'dew-point') mcSpec.dewPoint = { index: L.humidity, temperatureIndex: L.temperature_K };
   const mc = monteCarloPropagation(model, x0, mcSpec, fitOffset);
+  model.columnSurrogate = null;
   const mcCd = mc.dragCoefficient;
   if (mcCd.failed > 0) {
     warnings.push({
@@ -203,6 +297,11 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     }
   }
 
+  // The air along the fall: its summary, the speed of sound at impact.
+  const columnFactor = model.columnWeight > 0 ? 1 + model.columnWeight * (model.columnRatio - 1) : 1;
+  const airColumn = airColumnSummary(setup, fit, estimate, columnFactor);
+  warnings.push(...airColumn.warnings);
+
   // Per drop.
   const physicalK = Math.max(kHat, 0);
   const physical: FallParameters = { ...fitted, drag_constant_per_m: physicalK };
@@ -213,7 +312,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       ...(drop.id !== undefined ? { id: drop.id } : {}),
       height_m: drop.height_m,
       time_s: drop.time_s,
-      drag_coefficient: dropCd[i]!,
+      // In the air along the fall each drop's own C_d takes the series' correction (columnCorrection.ts).
+      drag_coefficient: dropCd[i] === null ? null : dropCd[i]! * columnFactor,
       vacuum_time_s: Math.sqrt((2 * drop.height_m) / g),
       predicted_time_s: predictedByHeight.get(drop.height_m) ?? null,
       fitted_time_s: fittedTimes[i]!,
@@ -299,7 +399,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     drag_coefficient_standard_uncertainty: uc,
     drag_coefficient_interval_95: resolved ? mcCd.interval_95 : [0, upperBound],
     drag_resolved: resolved,
-    terminal_velocity_m_s: resolved ? Math.sqrt(gEff / kHat) : null,
+    terminal_velocity_m_s: resolved ? Math.sqrt(gEff / dragConstantFromCd(setup, estimate)) : null,
     drops,
     heights,
     budget: budgetRows,
@@ -345,6 +445,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       scatter_standard_deviation_s: scatterSd,
       scatter_degrees_of_freedom: Math.max(dof, 0),
     },
+    air_column: airColumn.summary,
     warnings,
   };
   if (!resolved) {

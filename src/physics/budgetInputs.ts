@@ -114,6 +114,26 @@ export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: Series
       degrees_of_freedom: Infinity,
     });
   }
+  if (fit.model.columnWeight > 0) {
+    // The air along the fall and its motion, each its own row (columnCorrection.ts); only where they matter.
+    const c = setup.column;
+    const row = (input: string, description: string, indices: number[], uncertainty: number, weight = 1): void => {
+      specs.push({ input, description, evaluation: 'B', standard_uncertainty: uncertainty, indices, weights: indices.map(() => weight), degrees_of_freedom: Infinity });
+    };
+    if (c.aloft === null) {
+      row('lapse_rate_K_per_m', `lapse rate along the fall, ${c.lapseRate_K_per_m * 1000} K/km (ISO 2533)${u.lapse_rate_K_per_m === undefined ? ', default uncertainty' : ''}`, [L.lapseRate_K_per_m], c.lapseRateU);
+    } else {
+      row('air_aloft.temperature_C', 'air temperature of the reading aloft', [L.aloftTemperature_K], u.temperature_C ?? 0);
+      row('air_aloft.pressure_Pa', 'station pressure of the reading aloft', [L.aloftPressure_Pa], u.pressure_Pa ?? 0);
+      if (c.setup.aloft!.humidity === 'relative-humidity') row('air_aloft.relative_humidity_pct', 'relative humidity of the reading aloft', [L.aloftHumidity], u.relative_humidity_pct ?? 0, 0.01);
+      if (c.setup.aloft!.humidity === 'dew-point') row('air_aloft.dew_point_C', 'dew point of the reading aloft', [L.aloftHumidity], u.dew_point_C ?? 0);
+    }
+    if (c.motion) {
+      const two = c.aloft !== null;
+      row('vertical_wind_m_s', `vertical air motion${two ? ' at each reading' : ''} (positive up)${u.vertical_wind_m_s === undefined ? ', default uncertainty' : ''}`, two ? [L.verticalWind_m_s, L.aloftVerticalWind_m_s] : [L.verticalWind_m_s], c.verticalWindU);
+      row('wind_speed_m_s', `horizontal wind${two ? ' at each reading' : ''}${u.wind_speed_m_s === undefined ? ', default uncertainty' : ''}`, two ? [L.windSpeed_m_s, L.aloftWindSpeed_m_s] : [L.windSpeed_m_s], c.windSpeedU);
+    }
+  }
   if (missing.length > 0) {
     warnings.push({
       code: 'uncertainty-not-given',

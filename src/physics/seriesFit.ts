@@ -5,6 +5,7 @@
 import type { DropGroups } from './dropGroups';
 import type { FallParameters } from './fallModel';
 import { PhysicsInputError } from './physicsInputError';
+import { columnWeight } from './columnCorrection';
 import { SeriesModel, type SeriesModelLayout } from './seriesModel';
 import type { SeriesSetup } from './seriesSetup';
 
@@ -21,6 +22,27 @@ export interface SeriesFit {
   offset_s: number;
   /** The fall with the fitted drag constant. */
   fitted: FallParameters;
+  /** The air along the fall's effect on the times over their smallest uncertainty, and the weight it gives (columnCorrection.ts). */
+  columnEffect: number;
+}
+
+/** The inputs of the air along the fall and its motion with their standard uncertainties, in model units. */
+export function columnUncertainties(setup: SeriesSetup, L: SeriesModelLayout): { index: number; u: number }[] {
+  const c = setup.column;
+  const u = setup.uncertainty;
+  const list: { index: number; u: number }[] = [];
+  if (c.aloft === null) {
+    list.push({ index: L.lapseRate_K_per_m, u: c.lapseRateU });
+  } else {
+    list.push({ index: L.aloftTemperature_K, u: u.temperature_C ?? 0 }, { index: L.aloftPressure_Pa, u: u.pressure_Pa ?? 0 });
+    if (c.setup.aloft!.humidity === 'relative-humidity') list.push({ index: L.aloftHumidity, u: (u.relative_humidity_pct ?? 0) / 100 });
+    if (c.setup.aloft!.humidity === 'dew-point') list.push({ index: L.aloftHumidity, u: u.dew_point_C ?? 0 });
+  }
+  if (c.motion) {
+    list.push({ index: L.verticalWind_m_s, u: c.verticalWindU }, { index: L.windSpeed_m_s, u: c.windSpeedU });
+    if (c.aloft !== null) list.push({ index: L.aloftVerticalWind_m_s, u: c.verticalWindU }, { index: L.aloftWindSpeed_m_s, u: c.windSpeedU });
+  }
+  return list.filter((i) => i.u > 0);
 }
 
 export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
@@ -36,6 +58,7 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
     addedMassCoefficient: req.options?.added_mass_coefficient ?? null,
     fitOffset: setup.fitOffset,
     counts: groups.counts,
+    column: setup.column.setup,
   });
   const L = model.layout;
   const x0 = new Float64Array(L.fullLength);
@@ -53,6 +76,20 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
   }
   x0[L.timingOffset_s] = setup.subtractedOffset_s;
   x0[L.addedMassChange] = 0;
+  const column = setup.column;
+  x0[L.lapseRate_K_per_m] = column.lapseRate_K_per_m;
+  x0[L.verticalWind_m_s] = column.verticalWind_m_s;
+  x0[L.windSpeed_m_s] = column.windSpeed_m_s;
+  if (column.aloft !== null) {
+    x0[L.aloftTemperature_K] = column.aloft.temperature_K;
+    x0[L.aloftPressure_Pa] = column.aloft.pressure_Pa;
+    x0[L.aloftHumidity] = column.aloft.humidity;
+    x0[L.aloftVerticalWind_m_s] = column.aloft.verticalWind_m_s;
+    x0[L.aloftWindSpeed_m_s] = column.aloft.windSpeed_m_s;
+  }
+  // The air along the fall: its weight from its effect at the nominal inputs, fixed for the whole analysis.
+  const columnEffect = model.columnEffect(x0, setup.timingU, columnUncertainties(setup, L));
+  model.columnWeight = columnWeight(columnEffect);
   const estimate = model.evaluate(x0);
   if (model.status !== 'ok') {
     throw new PhysicsInputError({
@@ -73,5 +110,6 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
     dragConstant_per_m: kHat,
     offset_s: offset,
     fitted: { effective_gravity_m_s2: setup.effectiveGravity_m_s2, drag_constant_per_m: kHat, effective_mass_kg: setup.effectiveMass_kg },
+    columnEffect,
   };
 }

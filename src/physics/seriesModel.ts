@@ -12,7 +12,11 @@
  * Inputs live in one Float64Array (layout below): sampling and differentiating only write
  * numbers into it.
  */
+import { columnAt, ColumnSurrogate, type ColumnHumidity, type ColumnSetup } from './columnCorrection';
+import { fallParameters, fallTime } from './fallModel';
+import { fallThroughColumn, type ColumnBody } from './fallThroughColumn';
 import { fitDragConstant, type DragFit } from './fitDragConstant';
+import { fitDragInColumn } from './fitDragInColumn';
 import {
   moistAirDensity,
   vapourMoleFractionFromDewPoint,
@@ -37,6 +41,8 @@ export interface SeriesModelSetup {
   fitOffset: boolean;
   /** Drops per distinct height. */
   counts: Float64Array;
+  /** The air along the fall and its motion (columnCorrection.ts); absent: uniform still air only. */
+  column?: ColumnSetup;
 }
 
 /** Positions in the input vector. */
@@ -56,6 +62,15 @@ export interface SeriesModelLayout {
   timingOffset_s: number;
   /** Optional trailing position: added to the added-mass coefficient (0 when absent). */
   addedMassChange: number;
+  /** Optional trailing positions of the air along the fall and its motion (columnCorrection.ts). */
+  lapseRate_K_per_m: number;
+  verticalWind_m_s: number;
+  windSpeed_m_s: number;
+  aloftTemperature_K: number;
+  aloftPressure_Pa: number;
+  aloftHumidity: number;
+  aloftVerticalWind_m_s: number;
+  aloftWindSpeed_m_s: number;
   /** With the optional trailing positions; a shorter vector reads them as 0. */
   fullLength: number;
 }
@@ -73,10 +88,23 @@ export interface SeriesEvaluation {
   addedMassCoefficient: number;
 }
 
+/**
+ * The integrator's tolerance inside fits (moving air only; still air is a quadrature): 1e-9 keeps its noise far
+ * below the budget's differences (steps of a hundredth of a standard uncertainty move a time by 1e-6 or more).
+ */
+const COLUMN_FIT_TOLERANCE = 1e-9;
+
+function vapourFraction(p: number, T: number, humidity: number, kind: HumidityKind, otherwise: number): number {
+  if (kind === 'relative-humidity') return vapourMoleFractionFromRelativeHumidity(p, T, humidity);
+  if (kind === 'dew-point') return vapourMoleFractionFromDewPoint(p, humidity);
+  return otherwise;
+}
+
 export class SeriesModel {
   readonly layout: SeriesModelLayout;
   readonly groups: number;
   private readonly heights: Float64Array;
+  /** Mean times less the declared delay, as last fitted. */
   private readonly times: Float64Array;
   private readonly dims: Float64Array;
   /** Warm start for the next fit (the nominal solution). */
@@ -105,8 +133,17 @@ export class SeriesModel {
       length: firstTime + J,
       timingOffset_s: firstTime + J,
       addedMassChange: firstTime + J + 1,
-      fullLength: firstTime + J + 2,
+      lapseRate_K_per_m: firstTime + J + 2,
+      verticalWind_m_s: firstTime + J + 3,
+      windSpeed_m_s: firstTime + J + 4,
+      aloftTemperature_K: firstTime + J + 5,
+      aloftPressure_Pa: firstTime + J + 6,
+      aloftHumidity: firstTime + J + 7,
+      aloftVerticalWind_m_s: firstTime + J + 8,
+      aloftWindSpeed_m_s: firstTime + J + 9,
+      fullLength: firstTime + J + 10,
     };
+    this.columnSlopes = new Float64Array(J).fill(NaN);
     this.heights = new Float64Array(J);
     this.times = new Float64Array(J);
     this.dims = new Float64Array(setup.dimensionCount);
@@ -117,13 +154,121 @@ export class SeriesModel {
     if (this.setup.densityOverride) return x[L.density_kg_m3]!;
     const T = x[L.temperature_K]!;
     const p = x[L.pressure_Pa]!;
-    let xv = 0;
-    if (this.setup.humidity === 'relative-humidity') {
-      xv = vapourMoleFractionFromRelativeHumidity(p, T, x[L.humidity]!);
-    } else if (this.setup.humidity === 'dew-point') {
-      xv = vapourMoleFractionFromDewPoint(p, x[L.humidity]!);
-    }
+    const xv = vapourFraction(p, T, x[L.humidity]!, this.setup.humidity, 0);
+    this.lastVapour = xv;
     return moistAirDensity(p, T, xv, this.setup.co2MoleFraction);
+  }
+
+  /** The air along the fall: 0 keeps the closed form in uniform still air (set from columnEffect, see columnCorrection.ts). */
+  columnWeight = 0;
+  /** While set, the Monte Carlo's surrogate stands in for the column's fit. */
+  columnSurrogate: ColumnSurrogate | null = null;
+  /** The last exact C_d in the column over the closed form's (a warm start). */
+  columnRatio = 1;
+  private lastVapour = 0;
+  /** ∂T_j/∂C_d of the column's fall, from the first column fit (see fitDragInColumn.ts). */
+  private readonly columnSlopes: Float64Array;
+  private readonly aloftDensity = (p: number, T: number, humidity: number, kind: ColumnHumidity, groundVapour: number): number =>
+    moistAirDensity(p, T, vapourFraction(p, T, humidity, kind, groundVapour), this.setup.co2MoleFraction);
+
+  private columnBody(): ColumnBody {
+    return {
+      mass_kg: this.lastMass,
+      area_m2: this.lastArea,
+      volume_m3: this.lastVolume,
+      characteristic_length_m: this.lastLength,
+      buoyancy: this.setup.buoyancy,
+      added_mass_coefficient: this.lastAddedMass,
+      drag_coefficient: 0,
+    };
+  }
+
+  /** The column at x (after evaluate(x) has set the reading's density). */
+  column(x: Float64Array) {
+    return columnAt(this.setup.column!, this.layout, x, this.lastDensity, this.lastVapour, this.aloftDensity);
+  }
+
+  /**
+   * The column's effect on the fall times at x (evaluated first), over the smallest standard uncertainty of each
+   * mean time (timingU/√n_j), largest over the heights: the nominal shift plus the given inputs' shifts at one
+   * standard uncertainty, added linearly (see columnCorrection.ts).
+   */
+  columnEffect(x: Float64Array, timingU: number, inputs: { index: number; u: number }[]): number {
+    const cd = this.evaluate(x);
+    if (this.setup.column === undefined || this.status !== 'ok' || !Number.isFinite(cd)) return 0;
+    const body = this.columnBody();
+    body.drag_coefficient = Math.max(cd, 0);
+    const closed = fallParameters({ ...body, drag_coefficient: 0, density_kg_m3: this.lastDensity, gravity_m_s2: x[this.layout.gravity_m_s2]! });
+    closed.drag_constant_per_m = Math.max(this.dragConstant_per_m, 0);
+    const column = this.column(x);
+    const shifted = Float64Array.from(x);
+    let worst = 0;
+    for (let j = 0; j < this.groups; j++) {
+      const h = this.heights[j]!;
+      const t = fallThroughColumn(h, body, column, COLUMN_FIT_TOLERANCE, true).time_s;
+      let spread = 0;
+      for (const input of inputs) {
+        shifted[input.index] = x[input.index]! + input.u;
+        const moved = fallThroughColumn(h, body, this.column(shifted), COLUMN_FIT_TOLERANCE, true).time_s;
+        shifted[input.index] = x[input.index]!;
+        spread += (moved - t) ** 2;
+      }
+      const effect = Math.abs(t - fallTime(h, closed)) + Math.sqrt(spread);
+      worst = Math.max(worst, effect / (timingU / Math.sqrt(this.setup.counts[j]!)));
+    }
+    this.evaluate(x);
+    return worst;
+  }
+
+  /** The column's own fit at x, after the closed form's (in evaluate); null when it has none. */
+  private columnFit(x: Float64Array, closedCd: number): { cd: number; offset: number } | null {
+    const column = this.column(x);
+    const body = this.columnBody();
+    try {
+      const fit = fitDragInColumn(
+        (j, c) => {
+          body.drag_coefficient = c;
+          return fallThroughColumn(this.heights[j]!, body, column, COLUMN_FIT_TOLERANCE, true).time_s;
+        },
+        this.times,
+        this.setup.counts,
+        this.setup.fitOffset,
+        closedCd * this.columnRatio,
+        this.columnSlopes,
+      );
+      return fit.status === "ok" ? { cd: fit.drag_coefficient, offset: fit.offset_s } : null;
+    } catch {
+      // The fall has no solution at these inputs (an updraft that holds the body up): no value for this draw.
+      return null;
+    }
+  }
+
+  /**
+   * Freezes the Monte Carlo surrogate of the column's ratio at x0: a parabola per input through ± its standard
+   * uncertainty (see columnCorrection.ts). Unfreeze by setting columnSurrogate to null.
+   */
+  freezeColumn(x0: Float64Array, inputs: { index: number; u: number }[]): void {
+    this.columnSurrogate = null;
+    if (this.columnWeight === 0) return;
+    const ratioAt = (x: Float64Array): [number, number] => {
+      const closedCd = this.evaluateClosed(x);
+      const closedOffset = this.offset_s;
+      const fit = this.status === 'ok' ? this.columnFit(x, closedCd) : null;
+      return fit === null ? [this.columnRatio, 0] : [fit.cd / closedCd, fit.offset - closedOffset];
+    };
+    const [ratio0, offset0] = ratioAt(x0);
+    this.columnRatio = ratio0;
+    const x = Float64Array.from(x0);
+    const sweeps = inputs.map(({ index, u }) => {
+      x[index] = x0[index]! + u;
+      const [ratioUp, offsetUp] = ratioAt(x);
+      x[index] = x0[index]! - u;
+      const [ratioDown, offsetDown] = ratioAt(x);
+      x[index] = x0[index]!;
+      return { index, u, ratioUp, ratioDown, offsetUp, offsetDown };
+    });
+    this.columnRatio = ratio0;
+    this.columnSurrogate = new ColumnSurrogate(Float64Array.from(x0), ratio0, offset0, sweeps);
   }
 
   // Intermediate values of the last evaluate(), for evaluateDetailed().
@@ -133,9 +278,35 @@ export class SeriesModel {
   private lastArea = NaN;
   private lastVolume = NaN;
   private lastAddedMass = NaN;
+  private lastMass = NaN;
+  private lastLength = NaN;
 
   /** C_d at the inputs x; offset, k and status are left in the fields of the same names. */
   evaluate(x: Float64Array): number {
+    const closedCd = this.evaluateClosed(x);
+    if (this.columnWeight === 0 || this.status !== 'ok' || !Number.isFinite(closedCd)) return closedCd;
+    let ratio: number;
+    let offsetChange: number;
+    if (this.columnSurrogate !== null) {
+      ratio = this.columnSurrogate.ratio(x);
+      offsetChange = this.columnSurrogate.offsetChange;
+    } else {
+      const fit = this.columnFit(x, closedCd);
+      if (fit === null) {
+        this.status = 'not-converged';
+        return NaN;
+      }
+      ratio = fit.cd / closedCd;
+      offsetChange = fit.offset - this.offset_s;
+      this.columnRatio = ratio;
+    }
+    const w = this.columnWeight;
+    this.offset_s += w * offsetChange;
+    return closedCd * (1 + w * (ratio - 1));
+  }
+
+  /** The closed form in uniform still air at the reading: C_d,u of columnCorrection.ts. */
+  private evaluateClosed(x: Float64Array): number {
     const L = this.layout;
     const rho = this.density(x);
     for (let i = 0; i < this.dims.length; i++) this.dims[i] = x[L.firstDimension + i]!;
@@ -151,6 +322,8 @@ export class SeriesModel {
     this.lastArea = geometry.area_m2;
     this.lastVolume = geometry.volume_m3;
     this.lastAddedMass = Ca;
+    this.lastMass = m;
+    this.lastLength = geometry.characteristic_length_m;
     if (!(effectiveGravity > 0)) {
       this.status = 'not-heavier-than-air';
       this.offset_s = NaN;

@@ -14,6 +14,8 @@ import { checkSpecimen, type CheckedSpecimen, type SpecimenGeometry } from './sp
 import { TIMING_METHOD_DEFAULTS, type TimingMethod } from './timingMethodDefaults';
 import { validateAnalysisRequest } from './validateAnalysisRequest';
 import { fallBodyFor } from './fallBodyFor';
+import { DEFAULT_LAPSE_RATE_STANDARD_UNCERTAINTY_K_PER_M, STANDARD_LAPSE_RATE_K_PER_M } from './airColumn';
+import type { ColumnHumidity, ColumnSetup } from './columnCorrection';
 
 export const DEFAULT_MONTE_CARLO_DRAWS = 20_000;
 
@@ -55,6 +57,89 @@ export interface SeriesSetup {
   effectiveGravity_m_s2: number;
   effectiveMass_kg: number;
   humidityKind: HumidityKind;
+  /** The air along the fall and its motion: their inputs, uncertainties and defaults (airColumn.ts). */
+  column: ColumnInputs;
+}
+
+export interface ColumnInputs {
+  setup: ColumnSetup;
+  /** One reading: the lapse rate and its standard uncertainty, K/m (with two readings: unused). */
+  lapseRate_K_per_m: number;
+  lapseRateU: number;
+  /** At the reading: vertical wind (positive up) and horizontal wind speed, m/s, with standard uncertainties (0 when the motion is not considered). */
+  verticalWind_m_s: number;
+  verticalWindU: number;
+  windSpeed_m_s: number;
+  windSpeedU: number;
+  /** True when the request says anything about the air's motion. */
+  motion: boolean;
+  aloft: { temperature_K: number; pressure_Pa: number; humidity: number; verticalWind_m_s: number; windSpeed_m_s: number } | null;
+  /** Where defaults came from, in words. */
+  notes: string[];
+}
+
+/**
+ * Default standard uncertainties of the air's motion when the crew gives none, from the recorded horizontal wind U
+ * (common practice, stated here so a crew can argue with them): the horizontal wind max(0.5 m/s, U/2) (gusts over a
+ * few seconds commonly reach one and a half times the mean wind), the vertical wind max(0.05 m/s, U/10) (near the
+ * ground the vertical gusts are about a tenth of the wind; a calm sunny day still has weak thermals).
+ */
+export function airMotionDefaults(windSpeed_m_s: number): { windSpeedU: number; verticalWindU: number } {
+  return { windSpeedU: Math.max(0.5, windSpeed_m_s / 2), verticalWindU: Math.max(0.05, windSpeed_m_s / 10) };
+}
+
+function columnInputs(req: AnalysisRequest, u: UncertaintyInput, elevation_m: number): ColumnInputs {
+  const notes: string[] = [];
+  const air = req.air;
+  const aloftInput = req.air_aloft;
+  const motion =
+    air.vertical_wind_m_s !== undefined ||
+    air.wind_speed_m_s !== undefined ||
+    aloftInput?.vertical_wind_m_s !== undefined ||
+    aloftInput?.wind_speed_m_s !== undefined;
+  const W = air.vertical_wind_m_s ?? 0;
+  const U = air.wind_speed_m_s ?? 0;
+  const defaults = airMotionDefaults(Math.max(U, aloftInput?.wind_speed_m_s ?? 0));
+  let verticalWindU = 0;
+  let windSpeedU = 0;
+  if (motion) {
+    verticalWindU = u.vertical_wind_m_s ?? defaults.verticalWindU;
+    windSpeedU = u.wind_speed_m_s ?? defaults.windSpeedU;
+    if (u.vertical_wind_m_s === undefined) notes.push(`vertical wind uncertainty ${verticalWindU.toPrecision(2)} m/s by default (a tenth of the wind, at least 0.05 m/s)`);
+    if (u.wind_speed_m_s === undefined) notes.push(`wind speed uncertainty ${windSpeedU.toPrecision(2)} m/s by default (half the wind, at least 0.5 m/s)`);
+  }
+  const lapseRateU = u.lapse_rate_K_per_m ?? DEFAULT_LAPSE_RATE_STANDARD_UNCERTAINTY_K_PER_M;
+  if (aloftInput === undefined && u.lapse_rate_K_per_m === undefined) {
+    notes.push(`lapse rate ${STANDARD_LAPSE_RATE_K_PER_M * 1000} K/km (ISO 2533) with a default standard uncertainty of ${DEFAULT_LAPSE_RATE_STANDARD_UNCERTAINTY_K_PER_M * 1000} K/km`);
+  }
+  let aloft: ColumnInputs['aloft'] = null;
+  let aloftSetup: ColumnSetup['aloft'] = null;
+  if (aloftInput !== undefined) {
+    const hasHumidity = aloftInput.relative_humidity_pct !== undefined || aloftInput.dew_point_C !== undefined;
+    const props = airProperties(hasHumidity ? aloftInput : { ...aloftInput, relative_humidity_pct: 0 }, elevation_m + aloftInput.height_m, 'air_aloft');
+    const humidity: ColumnHumidity = aloftInput.relative_humidity_pct !== undefined ? 'relative-humidity' : aloftInput.dew_point_C !== undefined ? 'dew-point' : 'none';
+    if (humidity === 'none') notes.push('no humidity aloft: the vapour mole fraction of the ground reading is kept');
+    aloft = {
+      temperature_K: props.temperature_K,
+      pressure_Pa: props.station_pressure_Pa!,
+      humidity: humidity === 'relative-humidity' ? aloftInput.relative_humidity_pct! / 100 : humidity === 'dew-point' ? aloftInput.dew_point_C! + 273.15 : 0,
+      verticalWind_m_s: aloftInput.vertical_wind_m_s ?? W,
+      windSpeed_m_s: aloftInput.wind_speed_m_s ?? U,
+    };
+    aloftSetup = { height_m: aloftInput.height_m, humidity };
+  }
+  return {
+    setup: { readingHeight_m: air.height_m ?? 0, aloft: aloftSetup },
+    lapseRate_K_per_m: STANDARD_LAPSE_RATE_K_PER_M,
+    lapseRateU,
+    verticalWind_m_s: W,
+    verticalWindU,
+    windSpeed_m_s: U,
+    windSpeedU,
+    motion,
+    aloft,
+    notes,
+  };
 }
 
 export function prepareSetup(request: AnalysisRequest): SeriesSetup {
@@ -116,6 +201,7 @@ export function prepareSetup(request: AnalysisRequest): SeriesSetup {
     effectiveGravity_m_s2: noDrag.effective_gravity_m_s2,
     effectiveMass_kg: noDrag.effective_mass_kg,
     humidityKind,
+    column: columnInputs(req, u, req.site.elevation_m ?? 0),
   };
 }
 

@@ -5,7 +5,7 @@
  * unit-less name ("temperature" for "temperature_C") would otherwise be silently ignored.
  */
 import { airProperties, type AirInput } from './airProperties';
-import type { AnalysisOptions, AnalysisRequest, DropInput, TimingInput, UncertaintyInput } from './analysisTypes';
+import type { AirAloftInput, AnalysisOptions, AnalysisRequest, DropInput, TimingInput, UncertaintyInput } from './analysisTypes';
 import { checkNumber, checkOptionalNumber } from './checkNumber';
 import { localGravity, type SiteInput } from './normalGravity';
 import { PhysicsInputError } from './physicsInputError';
@@ -18,7 +18,9 @@ import { TIMING_METHOD_DEFAULTS, TIMING_METHODS, type TimingMethod } from './tim
  */
 export const DROP_LIMITS = {
   count: { min: 1, max: 10_000, text: '1 to 10 000 drops' },
-  height_m: { min: 0, minExclusive: true, max: 1000, text: 'above 0 and at most 1000 m' },
+  // Towers, cranes, balloons and aircraft: the air along the fall is modelled (airColumn.ts) up to the top of the
+  // ISO 2533 troposphere's first 10 km.
+  height_m: { min: 0, minExclusive: true, max: 10_000, text: 'above 0 and at most 10 000 m' },
   // A slow seed (about 0.3 m/s) from the highest release takes close to an hour (the log stores up to 3600 s).
   time_s: { min: 0, minExclusive: true, max: 3600, text: 'above 0 and at most 3600 s' },
   standard_uncertainty_s: { min: 0, minExclusive: true, max: 10, text: 'above 0 and at most 10 s' },
@@ -28,6 +30,17 @@ export const DROP_LIMITS = {
 export const TIMING_OFFSET_LIMITS = {
   offset_s: { min: -2, max: 2, text: '-2 to 2 s' },
   offset_standard_uncertainty_s: { min: 0, max: 2, text: '0 to 2 s' },
+} as const;
+
+/** The air along the fall and its motion (airColumn.ts). */
+export const AIR_COLUMN_LIMITS = {
+  height_m: { min: 0, max: 10_000, text: '0 to 10 000 m above the landing surface' },
+  // A strong thermal or a storm's downdraft near the ground reaches a few m/s; beyond 10 m/s nobody drops anything.
+  vertical_wind_m_s: { min: -10, max: 10, text: '-10 to 10 m/s (positive up)' },
+  // The log's own bound for a wind reading (src/log/fields.ts).
+  wind_speed_m_s: { min: 0, max: 75, text: '0 to 75 m/s' },
+  /** Two readings closer than this give no usable slope. */
+  readingSeparation_m: 1,
 } as const;
 
 export const OPTION_LIMITS = {
@@ -54,7 +67,20 @@ const UNCERTAINTY_LIMITS: Record<keyof UncertaintyInput, { max: number; text: st
   gravity_m_s2: { max: 0.05, text: '0 to 0.05 m/s²' },
   // Ten times the largest shape default (a very flat disc), so any honest doubt fits.
   added_mass_coefficient: { max: 10, text: '0 to 10' },
+  // Three times the gap between the standard and the dry adiabatic lapse rate.
+  lapse_rate_K_per_m: { max: 0.01, text: '0 to 0.01 K/m' },
+  vertical_wind_m_s: { max: 10, text: '0 to 10 m/s' },
+  wind_speed_m_s: { max: 30, text: '0 to 30 m/s' },
 };
+
+const AIR_READING_FIELDS = ['temperature_C', 'pressure_Pa', 'pressure_reference', 'relative_humidity_pct', 'dew_point_C'] as const;
+const AIR_MOTION_FIELDS = ['height_m', 'vertical_wind_m_s', 'wind_speed_m_s'] as const;
+
+function checkAirMotion(object: Record<string, unknown>, field: string): void {
+  checkOptionalNumber(`${field}.height_m`, object['height_m'], AIR_COLUMN_LIMITS.height_m);
+  checkOptionalNumber(`${field}.vertical_wind_m_s`, object['vertical_wind_m_s'], AIR_COLUMN_LIMITS.vertical_wind_m_s);
+  checkOptionalNumber(`${field}.wind_speed_m_s`, object['wind_speed_m_s'], AIR_COLUMN_LIMITS.wind_speed_m_s);
+}
 
 function asObject(value: unknown, field: string): Record<string, unknown> {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) {
@@ -90,7 +116,7 @@ function checkInteger(field: string, value: unknown, range: { min: number; max: 
 /** Validate and type an untrusted analysis request. */
 export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   const root = asObject(json, '(request)');
-  rejectUnknown(root, '', ['site', 'air', 'specimen', 'drops', 'timing', 'uncertainty', 'options']);
+  rejectUnknown(root, '', ['site', 'air', 'air_aloft', 'specimen', 'drops', 'timing', 'uncertainty', 'options']);
 
   const siteObject = asObject(root['site'], 'site');
   rejectUnknown(siteObject, 'site', ['latitude_deg', 'elevation_m', 'gravity_m_s2']);
@@ -99,17 +125,38 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   if (site.elevation_m !== undefined) checkNumber('site.elevation_m', site.elevation_m, { min: -500, max: 9000, text: '-500 to 9000 m' });
 
   const airObject = asObject(root['air'], 'air');
-  rejectUnknown(airObject, 'air', [
-    'temperature_C',
-    'pressure_Pa',
-    'pressure_reference',
-    'relative_humidity_pct',
-    'dew_point_C',
-    'co2_mole_fraction',
-    'density_kg_m3',
-  ]);
+  rejectUnknown(airObject, 'air', [...AIR_READING_FIELDS, 'co2_mole_fraction', 'density_kg_m3', ...AIR_MOTION_FIELDS]);
   const air = airObject as unknown as AirInput;
   airProperties(air, site.elevation_m);
+  checkAirMotion(airObject, 'air');
+
+  let airAloft: AirAloftInput | undefined;
+  if (root['air_aloft'] !== undefined) {
+    const aloftObject = asObject(root['air_aloft'], 'air_aloft');
+    rejectUnknown(aloftObject, 'air_aloft', [...AIR_READING_FIELDS, ...AIR_MOTION_FIELDS]);
+    if (aloftObject['height_m'] === undefined) {
+      throw new PhysicsInputError({ code: 'missing-field', field: 'air_aloft.height_m', value: undefined, allowed: AIR_COLUMN_LIMITS.height_m.text });
+    }
+    checkAirMotion(aloftObject, 'air_aloft');
+    const aloftHeight = aloftObject['height_m'] as number;
+    const readingHeight = air.height_m ?? 0;
+    if (Math.abs(aloftHeight - readingHeight) < AIR_COLUMN_LIMITS.readingSeparation_m) {
+      throw new PhysicsInputError({
+        code: 'out-of-range',
+        field: 'air_aloft.height_m',
+        value: aloftHeight,
+        allowed: `at least ${AIR_COLUMN_LIMITS.readingSeparation_m} m from air.height_m (${readingHeight} m)`,
+      });
+    }
+    const aloftAsAir = aloftObject as unknown as AirInput;
+    const hasHumidity = aloftAsAir.relative_humidity_pct !== undefined || aloftAsAir.dew_point_C !== undefined;
+    if (aloftAsAir.pressure_Pa === undefined) {
+      throw new PhysicsInputError({ code: 'missing-field', field: 'air_aloft.pressure_Pa', value: undefined, allowed: 'a pressure reading at that height (station or sea-level)' });
+    }
+    // Without its own humidity the reading keeps the ground's vapour mole fraction: check the rest with a dry stand-in.
+    airProperties(hasHumidity ? aloftAsAir : { ...aloftAsAir, relative_humidity_pct: 0 }, (site.elevation_m ?? 0) + aloftHeight, 'air_aloft');
+    airAloft = aloftObject as unknown as AirAloftInput;
+  }
 
   const specimen = checkSpecimen(root['specimen']);
 
@@ -177,6 +224,7 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   }
 
   const request: AnalysisRequest = { site, air, specimen: specimen.input, drops, timing };
+  if (airAloft !== undefined) request.air_aloft = airAloft;
 
   if (root['uncertainty'] !== undefined) {
     const u = asObject(root['uncertainty'], 'uncertainty');
@@ -186,7 +234,7 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
     if (air.pressure_Pa !== undefined) allowed.push('pressure_Pa');
     if (air.relative_humidity_pct !== undefined) allowed.push('relative_humidity_pct');
     if (air.dew_point_C !== undefined) allowed.push('dew_point_C');
-    allowed.push('gravity_m_s2', 'added_mass_coefficient');
+    allowed.push('gravity_m_s2', 'added_mass_coefficient', 'lapse_rate_K_per_m', 'vertical_wind_m_s', 'wind_speed_m_s');
     rejectUnknown(u, 'uncertainty', allowed);
     const uncertainty: UncertaintyInput = {};
     for (const key of Object.keys(u) as (keyof UncertaintyInput)[]) {
