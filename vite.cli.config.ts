@@ -1,0 +1,32 @@
+/**
+ * The office command's bundle: `npm run build:cli` writes dist-cli/plummet.mjs (and the chunks it loads on
+ * demand), run by bin/plummet.mjs. Node 20 runs it as it is: no TypeScript compiled at start. Each subcommand's
+ * work is a dynamic import, so `plummet --help` loads only the command table.
+ */
+import { readFileSync } from 'node:fs';
+import { defineConfig } from 'vite';
+
+const pkg = JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string };
+
+export default defineConfig({
+  // No public/ copy, no index.html: a program for Node, not a page.
+  publicDir: false,
+  logLevel: 'warn',
+  define: { __APP_VERSION__: JSON.stringify(pkg.version) },
+  build: {
+    ssr: 'src/cli/main.ts',
+    outDir: 'dist-cli',
+    emptyOutDir: true,
+    target: 'node20',
+    sourcemap: false,
+    minify: false,
+    reportCompressedSize: false,
+    rolldownOptions: {
+      output: {
+        format: 'es',
+        entryFileNames: 'plummet.mjs',
+        chunkFileNames: 'chunks/[name]-[hash].mjs',
+      },
+    },
+  },
+});
