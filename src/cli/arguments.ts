@@ -16,15 +16,8 @@ export interface ParsedArguments {
   rest: string[];
 }
 
-export class UsageError extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'UsageError';
-  }
-}
-
-/** Throws UsageError naming the option when an argument does not fit the spec. */
-export function parseArguments(args: readonly string[], spec: ArgumentSpec): ParsedArguments {
+/** The arguments, or why they do not fit the spec (a usage slip, not a coded input error: nothing was read yet). */
+export function parseArguments(args: readonly string[], spec: ArgumentSpec): ParsedArguments | { usage: string } {
   const flags = new Set<string>();
   const options = new Map<string, string>();
   const rest: string[] = [];
@@ -43,16 +36,16 @@ export function parseArguments(args: readonly string[], spec: ArgumentSpec): Par
     const eq = arg.indexOf('=');
     const name = eq > 0 ? arg.slice(0, eq) : arg;
     if (isFlag.has(name)) {
-      if (eq > 0) throw new UsageError(`${name} takes no value (given ${JSON.stringify(arg.slice(eq + 1))})`);
+      if (eq > 0) return { usage: `${name} takes no value (given ${JSON.stringify(arg.slice(eq + 1))})` };
       flags.add(name === '-h' ? '--help' : name);
     } else if (takesValue.has(name)) {
       const value = eq > 0 ? arg.slice(eq + 1) : args[++i];
-      if (value === undefined || value === '' || (value.startsWith('--') && eq < 0)) throw new UsageError(`${name} needs a value`);
-      if (options.has(name)) throw new UsageError(`${name} is given twice`);
+      if (value === undefined || value === '' || (value.startsWith('--') && eq < 0)) return { usage: `${name} needs a value` };
+      if (options.has(name)) return { usage: `${name} is given twice` };
       options.set(name, value);
     } else {
       const known = [...isFlag, ...takesValue].filter((o) => o.startsWith('--')).sort();
-      throw new UsageError(`unknown option ${JSON.stringify(name)} (this command knows ${known.join(', ')})`);
+      return { usage: `unknown option ${JSON.stringify(name)} (this command knows ${known.join(', ')})` };
     }
   }
   return { flags, options, rest };

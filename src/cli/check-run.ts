@@ -6,7 +6,7 @@
  */
 import { PlummetError } from '../errors';
 import { logFileProblems, type LogFileError } from '../log';
-import { parseArguments, UsageError } from './arguments';
+import { parseArguments } from './arguments';
 import type { CommandIo } from './command';
 import { describeFault, isStackOverflow, shownValue } from './describe-problem';
 import { MAX_NESTING, nestedTooDeeply, nestingBeyond } from './parse-json';
@@ -35,13 +35,8 @@ export interface CheckedFile {
 }
 
 export async function runCheck(args: readonly string[], io: CommandIo, usage: string): Promise<0 | 1 | 2> {
-  let parsed;
-  try {
-    parsed = parseArguments(args, { flags: ['--json'] });
-  } catch (error) {
-    if (error instanceof UsageError) return refuse(io, `plummet check: ${error.message}\n${usage}`);
-    throw error;
-  }
+  const parsed = parseArguments(args, { flags: ['--json'] });
+  if ('usage' in parsed) return refuse(io, `plummet check: ${parsed.usage}\n${usage}`);
   if (parsed.rest.length === 0) return refuse(io, `plummet check: name at least one log file or folder (- for standard input)\n${usage}`);
   if (parsed.rest.filter((p) => p === '-').length > 1) return refuse(io, 'plummet check: standard input (-) can be read only once\n');
   const json = parsed.flags.has('--json');

@@ -6,7 +6,7 @@
 import { dirname, basename, resolve } from 'node:path';
 import { PlummetError } from '../errors';
 import { buildLogFile, logCsv, writeLogFile, type Conflict } from '../log';
-import { parseArguments, UsageError } from './arguments';
+import { parseArguments } from './arguments';
 import type { CommandIo } from './command';
 import { describeFault, describeProblem } from './describe-problem';
 import { LogMerger } from './log-merger';
@@ -30,13 +30,8 @@ interface FileReport {
 }
 
 export async function runMerge(args: readonly string[], io: CommandIo, usage: string): Promise<0 | 1 | 2> {
-  let parsed;
-  try {
-    parsed = parseArguments(args, { flags: ['--json'], options: ['--out', '--csv', '--device'] });
-  } catch (error) {
-    if (error instanceof UsageError) return refuse(io, `plummet merge: ${error.message}\n${usage}`);
-    throw error;
-  }
+  const parsed = parseArguments(args, { flags: ['--json'], options: ['--out', '--csv', '--device'] });
+  if ('usage' in parsed) return refuse(io, `plummet merge: ${parsed.usage}\n${usage}`);
   const json = parsed.flags.has('--json');
   const out = parsed.options.get('--out');
   const csv = parsed.options.get('--csv');
