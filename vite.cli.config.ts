@@ -14,7 +14,8 @@ export default defineConfig({
   logLevel: 'warn',
   define: { __APP_VERSION__: JSON.stringify(pkg.version) },
   build: {
-    ssr: 'src/cli/main.ts',
+    // The entry, and the series pool's worker thread beside it (src/cli/series-pool.ts looks for it there).
+    ssr: true,
     outDir: 'dist-cli',
     emptyOutDir: true,
     target: 'node20',
@@ -22,9 +23,10 @@ export default defineConfig({
     minify: false,
     reportCompressedSize: false,
     rolldownOptions: {
+      input: { plummet: 'src/cli/main.ts', 'series-worker': 'src/cli/series-worker.ts' },
       output: {
         format: 'es',
-        entryFileNames: 'plummet.mjs',
+        entryFileNames: '[name].mjs',
         chunkFileNames: 'chunks/[name]-[hash].mjs',
       },
     },

@@ -12,7 +12,8 @@ import { describeFault, describeProblem } from './describe-problem';
 import { LogMerger } from './log-merger';
 import { progressLine } from './progress';
 import { findLogSources, readLogs } from './read-logs';
-import { computeSeries, summaryText, type SeriesSummary } from './series-summary';
+import { computeSeriesPooled } from './series-pool';
+import { summaryText, type SeriesSummary } from './series-summary';
 import { writeOutputFiles } from './write-output';
 import { writeText } from './write-text';
 
@@ -30,7 +31,7 @@ interface FileReport {
 }
 
 export async function runMerge(args: readonly string[], io: CommandIo, usage: string): Promise<0 | 1 | 2> {
-  const parsed = parseArguments(args, { flags: ['--json'], options: ['--out', '--csv', '--device'] });
+  const parsed = parseArguments(args, { flags: ['--json'], options: ['--out', '--csv', '--device', '--jobs'] });
   if ('usage' in parsed) return refuse(io, `plummet merge: ${parsed.usage}\n${usage}`);
   const json = parsed.flags.has('--json');
   const out = parsed.options.get('--out');
@@ -39,6 +40,11 @@ export async function runMerge(args: readonly string[], io: CommandIo, usage: st
   if (parsed.rest.length === 0) return refuse(io, `plummet merge: name at least one log file or folder (- for standard input)\n${usage}`);
   if (parsed.rest.filter((p) => p === '-').length > 1) return refuse(io, 'plummet merge: standard input (-) can be read only once\n');
   if (out === '-' && json) return refuse(io, 'plummet merge: --out - and --json both want standard output: write the log to a file, or leave out --json\n');
+  const jobsText = parsed.options.get('--jobs');
+  const jobs = jobsText === undefined ? null : Number(jobsText);
+  if (jobs !== null && !(Number.isInteger(jobs) && jobs >= 1 && jobs <= 256)) {
+    return refuse(io, `plummet merge: --jobs ${JSON.stringify(jobsText)} is not a number of threads: a whole number from 1 to 256\n`);
+  }
   if (!/^[A-Za-z0-9_.:]{1,64}$/.test(device)) {
     return refuse(io, `plummet merge: --device ${JSON.stringify(device)} is not a device id: letters, digits, _ . : only, at most 64\n`);
   }
@@ -86,7 +92,7 @@ export async function runMerge(args: readonly string[], io: CommandIo, usage: st
   let summaries: SeriesSummary[];
   let outputs: { log: string | null; drops_csv: string | null; series_csv: string | null } = { log: null, drops_csv: null, series_csv: null };
   try {
-    const computed = computeSeries(records, (done, total) => progress.step(done, total));
+    const computed = await computeSeriesPooled(records, jobs, (done, total) => progress.step(done, total));
     progress.clear();
     summaries = computed.summaries;
     if (csv !== undefined) {

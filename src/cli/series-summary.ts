@@ -41,27 +41,40 @@ export interface SeriesSummary {
   problem: { code: string; field: string | null; value: unknown; allowed: string | null; message: string } | null;
 }
 
+export interface SummarizedSeries {
+  summary: SeriesSummary;
+  result: SeriesResult;
+}
+
 export interface ComputedSeries {
   summaries: SeriesSummary[];
   /** The CSV tables' computation, answering from what was computed here (each series computed once). */
   compute: ComputeSeries;
 }
 
-/** Computes every live series of the records; `onStep` is called after each (for a progress line). */
+/** Computes every live series of the records in this thread; `onStep` is called after each (for a progress line). */
 export function computeSeries(records: readonly LogRecord[], onStep?: (done: number, total: number) => void): ComputedSeries {
   const inputs = seriesInputs(records);
-  const results = new Map<string, SeriesResult>();
-  const summaries = inputs.map((input, i) => {
-    const { summary, result } = summarize(input);
-    results.set(input.series.id, result);
-    onStep?.(i + 1, inputs.length);
-    return summary;
-  });
-  const compute: ComputeSeries = (input) => results.get(input.series.id) ?? summarize(input).result;
-  return { summaries, compute };
+  return computedFrom(
+    inputs,
+    inputs.map((input, i) => {
+      const done = summarize(input);
+      onStep?.(i + 1, inputs.length);
+      return done;
+    }),
+  );
 }
 
-function summarize(input: SeriesInput & { allDrops?: readonly unknown[] }): { summary: SeriesSummary; result: SeriesResult } {
+/** The summaries in the inputs' order, and the tables' computation answering from them. */
+export function computedFrom(inputs: readonly SeriesInput[], done: readonly SummarizedSeries[]): ComputedSeries {
+  const results = new Map<string, SeriesResult>();
+  inputs.forEach((input, i) => results.set(input.series.id, done[i]!.result));
+  const compute: ComputeSeries = (input) => results.get(input.series.id) ?? summarize(input).result;
+  return { summaries: done.map((d) => d.summary), compute };
+}
+
+/** One series computed: its summary and the CSV tables' values. Pure function of the input (the worker pool's unit). */
+export function summarize(input: SeriesInput & { allDrops?: readonly unknown[] }): SummarizedSeries {
   const base = {
     series_id: input.series.id,
     day_date: input.day?.date ?? null,

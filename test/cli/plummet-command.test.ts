@@ -4,9 +4,9 @@
  * in-memory store taking the same files through previewImport and applyImport), and the figures with the
  * analysis run in this process on the same records. The demo logs are invented (test/sync/sample-log.ts).
  */
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { physicsSeriesComputer } from '../../src/analysis';
 import { canonicalJson } from '../../src/log/canonical';
@@ -18,6 +18,7 @@ import { createMemoryStore } from '../../src/store';
 import { applyImport, loadConflicts, previewImport } from '../../src/sync/import-log';
 import { environment, T0 } from '../sync/hostile-logs';
 import { revise, sampleLog, tombstone } from '../sync/sample-log';
+import { officeDayLog } from '../../bench/office-day-logs';
 import { buildCommand, runBuilt } from './built-command';
 
 let built: Awaited<ReturnType<typeof buildCommand>>;
@@ -180,6 +181,28 @@ describe('plummet merge', () => {
     expect(result.stderr).not.toMatch(/\n\s+at .+:\d+:\d+/);
     expect(readLogFile(readFileSync(out, 'utf8')).records.length).toBe(a.length);
     expect(result.stdout).toContain('merged 1 log file from 1 phone');
+  }, 60_000);
+
+  it('gives the same figures on several threads as on one (a log large enough for the worker pool)', () => {
+    const season = join(work, 'season');
+    mkdirSync(season);
+    // 16 invented phone days: over 64 series, the pool's threshold (src/cli/series-pool.ts).
+    for (let i = 0; i < 16; i++) writeFileSync(join(season, `day-${i}.json`), officeDayLog(i));
+    const one = plummet(['merge', '--json', '--jobs', '1', 'season']);
+    const two = plummet(['merge', '--json', '--jobs', '2', 'season']);
+    expect(one.status, one.stderr).toBe(0);
+    expect(two.status, two.stderr).toBe(0);
+    const series = (JSON.parse(one.stdout) as { series: unknown[] }).series;
+    expect(series.length).toBeGreaterThanOrEqual(64);
+    expect(two.stdout).toBe(one.stdout);
+    // The pool's worker is part of the bundle, so --jobs 2 did run on two threads.
+    expect(existsSync(join(dirname(built.bin), '../dist-cli/series-worker.mjs'))).toBe(true);
+  }, 180_000);
+
+  it('refuses a --jobs that is not a whole number of threads', () => {
+    const result = plummet(['merge', '--jobs', '0', 'office']);
+    expect(result.status).toBe(1);
+    expect(result.stderr).toContain('--jobs "0" is not a number of threads');
   }, 60_000);
 
   it('refuses a missing path and a folder with no log, with exit 1', () => {
