@@ -2,9 +2,11 @@
  * Office command: analyse one series of drops from a JSON request and print the result as JSON, or every
  * series of an exported log and write its CSV tables.
  *
- *   npm run --silent analyze -- request.json
- *   npm run --silent analyze -- log.json --csv out/     (writes out/drops.csv and out/series.csv)
- *   npm run --silent analyze -- log.json                (prints every series' results as JSON)
+ *   plummet analyze request.json
+ *   plummet analyze log.json --csv out/     (writes out/drops.csv and out/series.csv)
+ *   plummet analyze log.json                (prints every series' results as JSON)
+ *
+ * (commands/analyze.ts is the subcommand; `npm run --silent analyze -- …` runs the same through the bundle.)
  *
  * Exit status: 0 with the result on stdout; 1 for bad input or an output it cannot write (the message names the
  * path or field, the value and what is allowed: an unreadable or non-regular file, one over the size cap of
@@ -19,12 +21,11 @@ import { LogFileError, readLogFile, seriesInputs } from '../log';
 import { physicsSeriesComputer } from '../analysis';
 import { inputKind, writeLogCsv } from './log-to-csv';
 import { nestedTooDeeply, parseJsonText } from './parse-json';
-import { readInputFile, readInputStream } from './read-input';
 
 const USAGE =
-  'usage: npm run --silent analyze -- request.json        (one series analysis request; see examples/)\n' +
-  '       npm run --silent analyze -- log.json [--csv DIR] (an exported log: every series, or its CSV tables in DIR)\n' +
-  '       a file name of - reads standard input';
+  'usage: plummet analyze request.json        (one series analysis request; see examples/)\n' +
+  '       plummet analyze log.json [--csv DIR] (an exported log: every series, or its CSV tables in DIR)\n' +
+  '       a file name of - reads standard input; plummet analyze --help says more';
 
 export interface CliOutcome {
   exitCode: 0 | 1 | 2;
@@ -122,21 +123,4 @@ function analyzeLog(path: string, text: string, csvDir: string | undefined): Cli
     if (isStackOverflow(error)) return refused(report(nestedTooDeeply(path, null)));
     return internal(path, error);
   }
-}
-
-const isMain = process.argv[1] !== undefined && /analyze\.ts$/.test(process.argv[1]);
-if (isMain) {
-  const args = process.argv.slice(2);
-  // Standard input is read before the command runs (its size is known only while reading: capped as it comes).
-  const stdin = args.includes('-') ? readInputStream(process.stdin).then((text) => ({ text }), (error: unknown) => ({ error })) : Promise.resolve(null);
-  void stdin.then((piped) => {
-    const outcome = runAnalyze(args, (path) => {
-      if (path !== '-') return readInputFile(path);
-      if (piped && 'error' in piped) throw piped.error;
-      return piped?.text ?? '';
-    });
-    if (outcome.stdout) process.stdout.write(outcome.stdout);
-    if (outcome.stderr) process.stderr.write(outcome.stderr);
-    process.exitCode = outcome.exitCode;
-  });
 }

@@ -7,7 +7,7 @@ import { PlummetError, type PlummetErrorOptions } from '../errors';
 import type { LogFile } from './export';
 import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
-import { checkJsonValue, DUPLICATE_ID_RULE, gateRecords, RECORD_NESTING_LIMIT, recordName } from './record-gate';
+import { checkJsonValue, DUPLICATE_ID_RULE, GATE_PROBLEM_LIMIT, gateRecords, RECORD_NESTING_LIMIT, recordName } from './record-gate';
 import type { Problem } from './errors';
 import { findDuplicateKey } from './duplicate-keys';
 import { upgradeLogFile } from './upgrade-export';
@@ -296,66 +296,87 @@ export interface ReadLogFileOptions {
  * store's gate (record-gate.ts) here, so what this accepts can be written.
  */
 export function readLogFile(text: string, options: ReadLogFileOptions = {}): LogFile {
+  const checked = checkLogText(text, options, 1);
+  if ('errors' in checked) throw checked.errors[0]!;
+  return checked.file;
+}
+
+/**
+ * Everything wrong with a log file's text as far as reading can tell, for a report rather than a refusal: the
+ * same stages as readLogFile, which stop at the first stage that fails; that stage lists up to `limit` problems
+ * (the published schema's and the gate's may be many; the earlier stages have one). Empty: the file is accepted.
+ */
+export function logFileProblems(text: string, options: ReadLogFileOptions & { limit?: number } = {}): LogFileError[] {
+  const checked = checkLogText(text, options, Math.max(1, options.limit ?? GATE_PROBLEM_LIMIT));
+  return 'errors' in checked ? checked.errors : [];
+}
+
+function checkLogText(text: string, options: ReadLogFileOptions, limit: number): { file: LogFile } | { errors: LogFileError[] } {
   const at = options.name ? `${options.name}: ` : '';
   let data: unknown;
   try {
     data = JSON.parse(text);
   } catch (error) {
     const why = String((error as Error).message).slice(0, 160);
-    throw new LogFileError({
+    return { errors: [new LogFileError({
       code: 'log-not-json',
       field: '(file)',
       value: text.slice(0, 40),
       allowed: 'must be JSON (RFC 8259)',
       message: `${at}the file is not JSON (${why}); a Plummet log is a .json file`,
-    });
+    })] };
   }
   const head = data as { format?: unknown; format_version?: unknown } | null;
   if (head === null || typeof head !== 'object' || Array.isArray(head) || head.format !== LOG_FORMAT) {
     const value = head && typeof head === 'object' ? head.format : data;
-    throw new LogFileError({
+    return { errors: [new LogFileError({
       code: 'log-not-a-log',
       field: 'format',
       value: value,
       allowed: `must be "${LOG_FORMAT}"`,
       message: `${at}this JSON file is not a Plummet log (its "format" is ${show(value)}, a log says "${LOG_FORMAT}")`,
-    });
+    })] };
   }
   if (typeof head.format_version === 'number' && head.format_version > LOG_FORMAT_VERSION) {
-    throw new LogFileError({
+    return { errors: [new LogFileError({
       code: 'log-format-too-new',
       field: 'format_version',
       value: head.format_version,
       allowed: `must be ${LOG_FORMAT_VERSION} or older`,
       message: `${at}this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
-    });
+    })] };
   }
   const duplicate = findDuplicateKey(text);
   if (duplicate) {
     const parts = [...pointerParts(duplicate.pointer), duplicate.key];
     const field = fieldName(parts);
     const rule = 'a log names each field of an object once (I-JSON, RFC 7493 §2.3)';
-    throw new LogFileError({
+    return { errors: [new LogFileError({
       code: 'log-duplicate-key',
       field,
       value: duplicate.key,
       allowed: rule,
       message: `${at}${field}${recordLabel(data, parts)}: the field ${show(duplicate.key)} appears twice in one object, and which one counts is a guess: ${rule}`,
-    });
+    })] };
   }
   // What JSON cannot carry and nesting no log has, before anything walks the values (the file and its records
   // are two levels above a record).
   const structural = checkJsonValue(data, '', RECORD_NESTING_LIMIT + 2, 1);
-  if (structural.length > 0) throw gateError(data, structural[0]!, text, at);
+  if (structural.length > 0) return { errors: [gateError(data, structural[0]!, text, at)] };
   data = upgradeLogFile(data);
-  const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: 1 });
+  const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: limit });
   if (problems.length > 0) {
-    const error = schemaError(data, problems[0]!);
-    if (at) Object.defineProperty(error, 'message', { value: `${at}${error.message}` });
-    throw error;
+    const parsed = data;
+    return {
+      errors: problems.map((problem) => {
+        const error = schemaError(parsed, problem);
+        if (at) Object.defineProperty(error, 'message', { value: `${at}${error.message}` });
+        return error;
+      }),
+    };
   }
   const file = data as LogFile;
   const refused = gateRecords(file.records, { where: (i) => `records[${i}]` });
-  if (refused.length > 0) throw gateError(data, refused[0]!, text, at);
-  return file;
+  if (refused.length > 0) return { errors: refused.slice(0, limit).map((p) => gateError(data, p, text, at)) };
+  return { file };
 }

@@ -1,6 +1,6 @@
 /**
- * The office command against hostile paths and files, run as a crew's office runs it (a spawned process through
- * tsx, as test/physics/analyzeCli.test.ts does): every case ends with exit status 1 and a message naming the path
+ * The office command against hostile paths and files, run as a crew's office runs it (the built bundle as a
+ * spawned process, `plummet analyze …`): every case ends with exit status 1 and a message naming the path
  * or field and the value, never a stack trace, never a hang (the spawn's timeout is a guard against a hang, not a
  * measurement).
  */
@@ -8,15 +8,18 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, lstatSync, mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, truncateSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { INPUT_LIMIT_BYTES, readInputStream } from '../../src/cli/read-input';
 import { exportLog } from '../../src/log/export';
 import { sampleLog } from '../sync/sample-log';
+import { buildCommand, root, runBuilt } from './built-command';
 
-const root = join(import.meta.dirname, '../..');
-const tsx = join(root, 'node_modules/.bin/tsx');
-const run = (args: string[], input?: string | Buffer) =>
-  spawnSync(tsx, ['src/cli/analyze.ts', ...args], { cwd: root, encoding: 'utf8', timeout: 60_000, input });
+let built: Awaited<ReturnType<typeof buildCommand>>;
+beforeAll(async () => {
+  built = await buildCommand();
+}, 120_000);
+afterAll(() => built?.dispose());
+const run = (args: string[], input?: string | Buffer) => runBuilt(built.bin, ['analyze', ...args], { input });
 
 const work = mkdtempSync(join(tmpdir(), 'plummet-office-'));
 afterAll(() => rmSync(work, { recursive: true, force: true }));

@@ -1,13 +1,17 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runAnalyze } from '../../src/cli/analyze';
+import { buildCommand, root, runBuilt } from '../cli/built-command';
 
-const root = join(import.meta.dirname, '../..');
-const tsx = join(root, 'node_modules/.bin/tsx');
-const run = (...args: string[]) => spawnSync(tsx, ['src/cli/analyze.ts', ...args], { cwd: root, encoding: 'utf8', timeout: 60_000 });
+// The built office command, as `plummet analyze` runs it.
+let built: Awaited<ReturnType<typeof buildCommand>>;
+beforeAll(async () => {
+  built = await buildCommand();
+}, 120_000);
+afterAll(() => built?.dispose());
+const run = (...args: string[]) => runBuilt(built.bin, ['analyze', ...args]);
 
 describe('the analyze command', () => {
   it('prints the analysis of an example request as JSON and exits 0', () => {
