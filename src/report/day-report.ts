@@ -7,7 +7,7 @@ import { budgetBars, plotGeometry, seriesPlots, type PlotInput } from '../charts
 import type { BodyOf, DayRecord, LogRecord, ReadingRecord, Revision, SpecimenRecord } from '../log';
 import type { AnalysisResult } from '../physics';
 import { METHOD_NOTES, REPORT_CAUTION } from './methods';
-import type { Cell, ChartView, DayReport, DaySection, Figure, Flag, SeriesSection, Table } from './report-model';
+import type { Cell, ChartView, DayReport, DaySection, Figure, Flag, LegendEntry, SeriesSection, Table } from './report-model';
 
 export interface DayReportOptions {
   /** The days to report (ids); all days of the records when absent. */
@@ -135,21 +135,10 @@ function specimensTable(specimens: readonly SpecimenRecord[]): Table {
 }
 
 function chartView(title: string, plot: PlotInput & { xLabel: string; yLabel: string; summary: string }): ChartView {
-  const legend = plot.lines.length
-    ? plot.lines.map((l) => ({ kind: 'line' as const, label: l.label, tone: l.tone ?? 'brand', style: l.style ?? 'solid' }))
-    : [{ kind: 'mark' as const, label: 'measured', hollow: false }];
-  const marksLegend =
-    plot.lines.length && plot.marks.length
-      ? [{ kind: 'line' as const, label: plot.marks.some((m) => m.hollow) ? 'dots: measured drops (hollow: excluded)' : 'dots: measured drops', tone: 'ink', style: 'mark' }]
-      : [];
-  return {
-    title,
-    summary: plot.summary,
-    xLabel: plot.xLabel,
-    yLabel: plot.yLabel,
-    geometry: plotGeometry(plot),
-    legend: plot.lines.length ? [...(legend as { kind: 'line'; label: string; tone: string; style: string }[]), ...marksLegend] : (legend as { kind: 'mark'; label: string; hollow: boolean }[]),
-  };
+  const legend: LegendEntry[] = plot.lines.map((l) => ({ kind: 'line', label: l.label, tone: l.tone ?? 'brand', style: l.style ?? 'solid' }));
+  if (plot.marks.some((m) => !m.hollow)) legend.push({ kind: 'mark', label: 'measured', hollow: false });
+  if (plot.marks.some((m) => m.hollow)) legend.push({ kind: 'mark', label: 'excluded', hollow: true });
+  return { title, summary: plot.summary, xLabel: plot.xLabel, yLabel: plot.yLabel, geometry: plotGeometry(plot), legend };
 }
 
 function seriesTitle(s: SeriesOfDay, n: number): string {

@@ -4,4 +4,4 @@ export { dayReport, dayRecords, type DayReportOptions } from './day-report';
 export { reportHtml, plotSvg, escapeHtml } from './report-html';
 export { REPORT_CSS } from './report-style';
 export { METHOD_NOTES, REPORT_CAUTION } from './methods';
-export type { Cell, ChartView, DayReport, DaySection, Figure, Flag, MethodNote, SeriesSection, Table } from './report-model';
+export type { Cell, ChartView, DayReport, DaySection, Figure, Flag, LegendEntry, MethodNote, SeriesSection, Table } from './report-model';

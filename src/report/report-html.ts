@@ -57,13 +57,11 @@ export function plotSvg(g: PlotGeometry, xLabel: string, yLabel: string, summary
 }
 
 function legend(c: ChartView): string {
-  const items = c.legend.map((l) => {
-    if (l.kind === 'mark' || ('style' in l && l.style === 'mark')) {
-      const hollow = 'hollow' in l && l.hollow;
-      return `<li><svg viewBox="0 0 24 10" aria-hidden="true"><circle class="rp-mark${hollow ? ' rp-hollow' : ''}" cx="12" cy="5" r="4"/></svg>${e(l.label)}</li>`;
-    }
-    return `<li><svg viewBox="0 0 24 10" aria-hidden="true"><line class="rp-line rp-${e(l.tone)} rp-${e(l.style)}" x1="1" x2="23" y1="5" y2="5"/></svg>${e(l.label)}</li>`;
-  });
+  const items = c.legend.map((l) =>
+    l.kind === 'mark'
+      ? `<li><svg viewBox="0 0 24 10" aria-hidden="true"><circle class="rp-mark${l.hollow ? ' rp-hollow' : ''}" cx="12" cy="5" r="4"/></svg>${e(l.label)}</li>`
+      : `<li><svg viewBox="0 0 24 10" aria-hidden="true"><line class="rp-line rp-${e(l.tone)} rp-${e(l.style)}" x1="1" x2="23" y1="5" y2="5"/></svg>${e(l.label)}</li>`,
+  );
   return `<ul class="rp-legend">${items.join('')}</ul>`;
 }
 
@@ -90,9 +88,9 @@ function seriesHtml(s: SeriesSection): string {
 <h2>${e(s.title)}</h2>
 <p class="rp-verdict${verdictClass}">${e(s.verdict)}</p>
 ${s.figures.length ? figures(s.figures) : ''}
-${s.charts.length ? `<div class="rp-charts">${s.charts.map(chart).join('')}</div>` : ''}
+${s.charts.length ? `<div class="rp-charts${s.charts.length === 1 ? ' rp-charts-one' : ''}">${s.charts.map(chart).join('')}</div>` : ''}
 ${table(s.drops, 'rp-drops')}
-${s.state === 'ready' ? `${table(s.budget, 'rp-budget')}${bars(s.bars)}` : ''}
+${s.state === 'ready' ? `<div class="rp-keep">${table(s.budget, 'rp-budget')}${bars(s.bars)}</div>` : ''}
 ${flags}
 </section>`;
 }

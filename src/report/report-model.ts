@@ -30,9 +30,11 @@ export interface ChartView {
   xLabel: string;
   yLabel: string;
   geometry: PlotGeometry | null;
-  /** The legend entries: lines, then the mark kinds present. */
-  legend: { kind: 'line'; label: string; tone: string; style: string }[] | { kind: 'mark'; label: string; hollow: boolean }[];
+  /** The legend entries: each line (by tone and stroke pattern), then the kinds of mark present. */
+  legend: LegendEntry[];
 }
+
+export type LegendEntry = { kind: 'line'; label: string; tone: string; style: string } | { kind: 'mark'; label: string; hollow: boolean };
 
 export interface Flag {
   severity: 'warning' | 'info';

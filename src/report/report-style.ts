@@ -20,10 +20,13 @@ export const REPORT_CSS = `
 .rp th { background: #eef3f1; font-weight: 600; }
 .rp td[data-value] { font-variant-numeric: tabular-nums; white-space: nowrap; }
 .rp tr { break-inside: avoid; }
+.rp .rp-keep { break-inside: avoid; }
+.rp caption, .rp thead { break-after: avoid; }
 .rp thead { display: table-header-group; }
 .rp .rp-verdict { font-size: 12pt; font-weight: 600; border: 1pt solid #0b6b4f; padding: 2mm 3mm; margin: 2mm 0; }
 .rp .rp-verdict.rp-not-met, .rp .rp-verdict.rp-not-ready { border-color: #8a1c1c; }
 .rp .rp-charts { display: grid; grid-template-columns: 1fr 1fr; gap: 3mm; }
+.rp .rp-charts.rp-charts-one { grid-template-columns: minmax(0, 120mm); }
 .rp figure { margin: 0; break-inside: avoid; }
 .rp figcaption { font-weight: 600; font-size: 9.5pt; margin-bottom: 1mm; }
 .rp svg.rp-plot { width: 100%; height: auto; display: block; border: 0.5pt solid #888; }
