@@ -18,7 +18,8 @@ export const REPORT_CSS = `
 .rp caption { text-align: left; font-weight: 700; font-size: 10pt; padding: 1mm 0; }
 .rp th, .rp td { border: 0.5pt solid #999; padding: 0.8mm 1.5mm; text-align: left; vertical-align: top; }
 .rp th { background: #eef3f1; font-weight: 600; }
-.rp td[data-value] { font-variant-numeric: tabular-nums; white-space: nowrap; }
+.rp td[data-value] { font-variant-numeric: tabular-nums; }
+.rp .rp-drops td[data-value], .rp .rp-budget td[data-value] { white-space: nowrap; }
 .rp tr { break-inside: avoid; }
 .rp .rp-keep { break-inside: avoid; }
 .rp caption, .rp thead { break-after: avoid; }
