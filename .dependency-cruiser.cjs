@@ -10,11 +10,13 @@ const LAYERS = {
   log: ['errors'],
   analysis: ['physics', 'log', 'errors'],
   timing: ['physics', 'log', 'errors'],
+  charts: ['analysis', 'physics', 'log', 'errors'],
+  report: ['charts', 'analysis', 'physics', 'log', 'errors'],
   store: ['log', 'errors'],
   sync: ['log', 'analysis', 'store', 'errors'],
-  widgets: ['timing', 'physics', 'log', 'errors'],
-  ui: ['errors', 'physics', 'log', 'analysis', 'timing', 'store', 'sync', 'widgets'],
-  cli: ['physics', 'log', 'analysis', 'errors'],
+  widgets: ['charts', 'timing', 'physics', 'log', 'errors'],
+  ui: ['errors', 'physics', 'log', 'analysis', 'charts', 'report', 'timing', 'store', 'sync', 'widgets'],
+  cli: ['report', 'physics', 'log', 'analysis', 'errors'],
 };
 
 /** The service worker (sw/, outside src/) runs the office sync with no page open. */
@@ -22,7 +24,7 @@ const SERVICE_WORKER = ['sync', 'store', 'log', 'errors'];
 
 /** Pure core: no platform, no clock, no randomness, no packages (tsconfig.core.json and check-pure-calls cover the rest). */
 const PURE_CORE = [
-  '^src/(physics|log|analysis|errors)/',
+  '^src/(physics|log|analysis|errors|charts|report)/',
   '^src/timing/(tap-timing|onset-detector|sound-interval|sound-travel|timing-error)\\.ts$',
 ];
 

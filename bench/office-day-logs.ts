@@ -54,6 +54,10 @@ export function officeDayLog(index: number): string {
       pressure_reference: 'station',
       humidity: { kind: 'relative', relative_humidity_pct: 35 + random() * 50, u_relative_humidity_pct: 3 },
       wind_speed_m_s: Math.round(random() * 20) / 10,
+      u_wind_speed_m_s: null,
+      vertical_wind_m_s: null,
+      u_vertical_wind_m_s: null,
+      height_m: 0,
       instrument: 'handheld weather meter',
       notes: '',
     };
@@ -77,6 +81,9 @@ export function officeDayLog(index: number): string {
       target_relative_uncertainty: 0.05,
       reading_id: null,
       timing_offset: 'none',
+      reading_aloft_id: null,
+      timing_delay_s: null,
+      u_timing_delay_s: null,
       started_at: new Date(ms).toISOString(),
       notes: '',
     };

@@ -66,6 +66,20 @@ export function airInput(reading: ReadingRecord): { air: AnalysisRequest['air'];
   };
 }
 
+/** A second reading at another height, as the request's `air_aloft`. */
+export function airAloftInput(reading: ReadingRecord): NonNullable<AnalysisRequest['air_aloft']> {
+  const h = reading.humidity;
+  return {
+    height_m: reading.height_m,
+    temperature_C: reading.temperature_C,
+    pressure_Pa: reading.pressure_Pa,
+    pressure_reference: reading.pressure_reference,
+    ...(h.kind === 'relative' ? { relative_humidity_pct: h.relative_humidity_pct } : { dew_point_C: Math.min(h.dew_point_C, reading.temperature_C) }),
+    ...(reading.vertical_wind_m_s !== null ? { vertical_wind_m_s: reading.vertical_wind_m_s } : {}),
+    ...(reading.wind_speed_m_s !== null ? { wind_speed_m_s: reading.wind_speed_m_s } : {}),
+  };
+}
+
 export function siteInput(site: SiteRecord): AnalysisRequest['site'] {
   return { latitude_deg: site.latitude_deg, elevation_m: site.elevation_m };
 }
@@ -103,7 +117,6 @@ export function buildRequest(
 ): AnalysisRequest {
   const sp = specimenInput(specimen);
   const air = airInput(reading);
-  const aloft = readingAloft ? airInput(readingAloft) : null;
   const used = usedDrops(drops);
   const distinctHeights = new Set(used.map((d) => dropHeight(d, series))).size;
   return {
@@ -114,8 +127,8 @@ export function buildRequest(
     drops: used.map((d) => ({ id: d.id, height_m: dropHeight(d, series), time_s: d.time_s })),
     timing: timingInput(series, distinctHeights),
     uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: series.u_height_m },
-    // The second reading's uncertainties are its own and travel with it.
-    ...(aloft && readingAloft ? { air_aloft: { ...aloft.air, height_m: readingAloft.height_m, uncertainty: aloft.uncertainty } } : {}),
+    // The reading aloft's uncertainties are taken as those of the ground reading's (the same kind of instruments).
+    ...(readingAloft ? { air_aloft: airAloftInput(readingAloft) } : {}),
   };
 }
 

@@ -81,7 +81,7 @@ let serial = 0;
  * through a symbolic link; all are written to temporary names first, then renamed, so a refusal leaves no
  * half-written table behind. Throws PlummetError 'output-not-writable' naming the path and the reason.
  */
-export function writeOutputFiles(dir: string, files: readonly { name: string; content: string }[]): string[] {
+export function writeOutputFiles(dir: string, files: readonly { name: string; content: string | Uint8Array }[]): string[] {
   ensureFolder(dir);
   const staged: { temp: string; final: string }[] = [];
   try {
@@ -98,7 +98,7 @@ export function writeOutputFiles(dir: string, files: readonly { name: string; co
       }
       staged.push({ temp, final });
       try {
-        const bytes = Buffer.from(file.content, 'utf8');
+        const bytes = typeof file.content === 'string' ? Buffer.from(file.content, 'utf8') : Buffer.from(file.content.buffer, file.content.byteOffset, file.content.byteLength);
         let at = 0;
         while (at < bytes.length) at += writeSync(fd, bytes, at, bytes.length - at);
       } catch (error) {

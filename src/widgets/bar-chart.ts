@@ -1,11 +1,7 @@
 import { LitElement, css, html } from 'lit';
+import { barWidths, type Bar } from '../charts';
 
-export interface Bar {
-  label: string;
-  value: number;
-  /** The value as text, with its unit (also what a screen reader hears). */
-  text: string;
-}
+export type { Bar } from '../charts';
 
 /**
  * `<pl-bars>`: horizontal bars, largest first, each labelled with its value as text. The bars are a
@@ -17,7 +13,7 @@ export class BarChart extends LitElement {
     heading: { type: String },
   };
 
-  declare bars: Bar[];
+  declare bars: readonly Omit<Bar, 'widthPct'>[];
   declare heading: string;
 
   constructor() {
@@ -66,13 +62,13 @@ export class BarChart extends LitElement {
   // style.cssText), which the Content-Security-Policy allows; a style="" attribute, even from Lit's styleMap on
   // its first render, would need style-src 'unsafe-inline'.
   override render() {
-    const sorted = [...this.bars].sort((a, b) => b.value - a.value);
-    const max = Math.max(...sorted.map((b) => b.value), 0) || 1;
+    // Widths from the shared chart geometry (src/charts), the printed report's too.
+    const sorted = barWidths(this.bars);
     return html`
       <dl aria-label=${this.heading}>
         ${sorted.map(
           (b) => html`<dt>${b.label}</dt>
-            <dd><span class="bar" .style=${`width:${Math.max(0.5, (b.value / max) * 62)}%`}></span><span class="val">${b.text}</span></dd>`,
+            <dd><span class="bar" .style=${`width:${b.widthPct}%`}></span><span class="val">${b.text}</span></dd>`,
         )}
       </dl>
     `;

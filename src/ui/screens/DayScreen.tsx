@@ -9,6 +9,7 @@ const DayOverview = lazyScreen(() => import('./day/DayOverview').then((m) => m.D
 // The series screen renders its timer pad and charts at once: they are defined before it is shown.
 const SeriesScreen = lazyScreen(() => Promise.all([import('./day/SeriesScreen'), import('../../widgets').then((w) => w.loadInstruments())]).then(([m]) => m.SeriesScreen));
 const DaySummary = lazyScreen(() => import('./day/DaySummary').then((m) => m.DaySummary));
+const DayReport = lazyScreen(() => import('./day/DayReport').then((m) => m.DayReport), 'Computing the report…');
 
 /** Starts loading the part of the day that `params` (and, for the bare #/day, the current day) will show. */
 export function preloadDayScreen(params: string[], currentDayId: string | null | undefined): void {
@@ -16,19 +17,21 @@ export function preloadDayScreen(params: string[], currentDayId: string | null |
   if (dayId === 'new') StartDayForm.preload();
   else if (dayId && sub === 'series' && subId) SeriesScreen.preload();
   else if (dayId && sub === 'summary') DaySummary.preload();
+  else if (dayId && sub === 'report') DayReport.preload();
   else if (dayId) DayOverview.preload();
   else if (currentDayId !== undefined) (currentDayId ? DayOverview : StartDayForm).preload();
 }
 
 /**
  * The test day: #/day opens the current day (or the form to start one), #/day/new starts another,
- * #/day/<id> shows a day, #/day/<id>/series/<id> a series, #/day/<id>/summary the end-of-day summary.
+ * #/day/<id> shows a day, #/day/<id>/series/<id> a series, #/day/<id>/summary the end-of-day summary, #/day/<id>/report the printable day report.
  */
 export function DayScreen({ params }: { params: string[] }) {
   const [dayId, sub, subId] = params;
   if (dayId === 'new') return <StartDayForm />;
   if (dayId && sub === 'series' && subId) return <SeriesScreen dayId={dayId} seriesId={subId} />;
   if (dayId && sub === 'summary') return <DaySummary dayId={dayId} />;
+  if (dayId && sub === 'report') return <DayReport dayId={dayId} />;
   if (dayId) return <DayOverview dayId={dayId} />;
   return <CurrentDay />;
 }

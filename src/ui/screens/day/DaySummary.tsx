@@ -72,6 +72,9 @@ export function DaySummary({ dayId }: { dayId: string }) {
         <Notice tone="good">Every series met its target and nothing is flagged.</Notice>
       ) : null}
       <RiskWarnings />
+      <a class="btn btn-quiet btn-block" href={routeHref('day', dayId, 'report')}>
+        Printable day report
+      </a>
       <a class="btn btn-block" href={routeHref('send')}>
         Send the log to the office
       </a>

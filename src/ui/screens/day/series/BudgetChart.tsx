@@ -1,15 +1,10 @@
-// The uncertainty budget as bars: each input's contribution to u(C_d) and its share of the variance.
+// The uncertainty budget as bars: each input's contribution to u(C_d) and its share of the variance
+// (src/charts budgetBars, the printed report's bars too).
 import type { AnalysisResult } from '../../../../physics';
+import { budgetBars } from '../../../../charts';
 
 export function BudgetChart({ result }: { result: AnalysisResult }) {
-  const total = result.budget.reduce((s, b) => s + b.contribution ** 2, 0);
-  const bars = result.budget
-    .filter((b) => b.contribution > 0)
-    .map((b) => ({
-      label: b.description || b.input,
-      value: b.contribution,
-      text: `${b.contribution.toExponential(1)} (${total > 0 ? ((100 * b.contribution ** 2) / total).toFixed(0) : 0} %)`,
-    }));
+  const bars = budgetBars(result);
   return (
     <section class="card" aria-labelledby="budget-h">
       <h3 id="budget-h">Uncertainty budget</h3>

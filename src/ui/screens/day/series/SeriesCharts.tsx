@@ -1,52 +1,28 @@
 // The series' charts: distance fallen against time with the fitted, predicted and drag-free curves; residuals.
+// What they plot comes from src/charts (seriesPlots), the same as the printed day report's.
 import { useMemo } from 'preact/hooks';
 import type { DropRecord, SeriesRecord } from '../../../../log';
-import { dropHeight, seriesCurves, type SeriesOutcome } from '../../../../analysis';
+import type { SeriesOutcome } from '../../../../analysis';
+import { seriesPlots } from '../../../../charts';
 import { useApp } from '../../../app-context';
-import type { PlotLine, PlotMark } from '../../../../widgets';
+import type { PlotLine } from '../../../../widgets';
 import { fromSI, unitFor } from '../../../../widgets/units';
 
 export function SeriesCharts({ outcome, drops, series }: { outcome: Extract<SeriesOutcome, { kind: 'ready' }>; drops: DropRecord[]; series: SeriesRecord }) {
   const app = useApp();
   const lu = unitFor('length', app.unit('length'));
-  const L = (m: number) => fromSI(m, lu);
-  const curves = useMemo(() => seriesCurves(outcome.request, outcome.result), [outcome]);
-  const lines: PlotLine[] = [];
-  const conv = (c: Array<[number, number]>) => c.map(([t, y]) => [t, L(y)] as const);
-  if (curves.fitted) lines.push({ label: `measured C_d ${outcome.result.drag_coefficient?.toFixed(3)}`, points: conv(curves.fitted), tone: 'brand', style: 'solid' });
-  if (curves.predicted) lines.push({ label: 'predicted', points: conv(curves.predicted), tone: 'accent', style: 'dash' });
-  lines.push({ label: 'no air', points: conv(curves.vacuum), tone: 'ink', style: 'dot' });
-  const marks: PlotMark[] = drops.map((d) => ({
-    label: `drop ${d.seq}: ${d.time_s.toFixed(3)} s from ${L(dropHeight(d, series)).toFixed(2)} ${lu.symbol}${d.excluded ? ' (excluded)' : ''}`,
-    x: d.time_s,
-    y: L(dropHeight(d, series)),
-    hollow: d.excluded,
-  }));
-  const heights = new Set(outcome.request.drops.map((d) => d.height_m));
-  const r = outcome.result;
+  const plots = useMemo(() => seriesPlots(outcome, drops, series, { symbol: lu.symbol, fromMetres: (m) => fromSI(m, lu) }), [outcome, drops, series, lu]);
+  const { heightTime, residuals } = plots;
   return (
     <section class="card" aria-labelledby="chart-h">
       <h3 id="chart-h">Height against time</h3>
-      <pl-plot
-        lines={lines}
-        marks={marks}
-        xLabel="time (s)"
-        yLabel={`distance fallen (${lu.symbol})`}
-        summary={`Chart of distance fallen against time: ${drops.length} measured drops with the curve for the measured drag coefficient${curves.predicted ? ', the predicted curve' : ''} and the curve without air. The table below lists the same values.`}
-      />
-      {heights.size === 1 ? <DropByDrop outcome={outcome} drops={drops} /> : null}
-      {heights.size > 1 ? (
+      <pl-plot lines={[...heightTime.lines]} marks={[...heightTime.marks]} xLabel={heightTime.xLabel} yLabel={heightTime.yLabel} summary={heightTime.summary} />
+      {new Set(outcome.request.drops.map((d) => d.height_m)).size === 1 ? <DropByDrop outcome={outcome} drops={drops} /> : null}
+      {residuals ? (
         <>
           <h3>Residuals against height</h3>
           <p class="hint">Measured minus fitted time (a drop slower than the fit is above the line). A steady trend with height points to a timing offset.</p>
-          <pl-plot
-            lines={[]}
-            zeroLine
-            marks={r.drops.map((d, i) => ({ label: `${(d.residual_s * 1000).toFixed(1)} ms at ${L(d.height_m).toFixed(2)} ${lu.symbol}`, x: L(d.height_m), y: d.residual_s * 1000, yError: series.u_time_s * 1000, hollow: false, key: i }))}
-            xLabel={`height (${lu.symbol})`}
-            yLabel="residual (ms)"
-            summary="Residuals of each drop against its height; the table lists the same values."
-          />
+          <pl-plot lines={[]} zeroLine marks={[...residuals.marks]} xLabel={residuals.xLabel} yLabel={residuals.yLabel} summary={residuals.summary} />
         </>
       ) : null}
     </section>
