@@ -1,17 +1,20 @@
 /**
- * A phone's log split into parts, one per calendar month of its days, plus a small index naming each part with
- * the fingerprint of its text. The office folder holds a phone's log this way so that a sync reads and writes
- * only the months that changed: a drop edited in June changes June's part and the index, nothing else.
+ * A phone's log split into parts, one per day (by the day's calendar date), plus a small index naming each part
+ * with the fingerprint of its text. The office folder holds a phone's log this way so that a sync reads and
+ * writes only the days that changed: a drop edited on 14 June changes that day's part and the index, nothing
+ * else. A day rather than a month: a crew's season is a few hundred days, and a change touches one of them, so a
+ * sync moves about one day of drops instead of a month of them; the price is one request per day on a phone's
+ * first sync.
  *
- * Each part is an ordinary log file (format 2, canonical JSON) that stands on its own: the month's days with
+ * Each part is an ordinary log file (format 2, canonical JSON) that stands on its own: the day with
  * their readings, series and drops, and the sites and specimens those refer to (a site or specimen used in
- * several months is in each of them; merging a record twice is merging it once). Records no day reaches (a
+ * several days is in each of them; merging a record twice is merging it once). Records no day reaches (a
  * specimen not yet dropped, a site without days) are in the part "other". So every part passes the one gate
  * (record-gate.ts) alone, can be merged alone, and can be analysed alone.
  *
  * The index (format "plummet-log-parts", version 1):
  *   { "app_version", "device", "format": "plummet-log-parts", "format_version": 1,
- *     "parts": [{ "hash", "key", "records" }] }   keys "YYYY-MM" or "other", each once, sorted.
+ *     "parts": [{ "hash", "key", "records" }] }   keys "YYYY-MM-DD" or "other", each once, sorted.
  * It is read as hostile as any file: JSON, one name per field, nesting, then its schema (PART_INDEX_SCHEMA,
  * with the same checker as the log's), then each key once.
  */
@@ -30,11 +33,11 @@ export const PART_INDEX_FORMAT = 'plummet-log-parts';
 export const PART_INDEX_VERSION = 1;
 /** The part of the records no day reaches. */
 export const OTHER_PART = 'other';
-/** More parts than 12 000 years of months is not a phone's log. */
-export const PART_LIMIT = 144_000;
+/** More parts than a thousand years of days is not a phone's log. */
+export const PART_LIMIT = 366_000;
 
 export interface LogPartEntry {
-  /** "YYYY-MM", or "other". */
+  /** "YYYY-MM-DD", or "other". */
   key: string;
   /** contentHash of the part's text. */
   hash: string;
@@ -65,7 +68,7 @@ export interface SplitLog {
   indexText: string;
 }
 
-const KEY_PATTERN = '^(?:[0-9]{4}-(?:0[1-9]|1[0-2])|other)$';
+const KEY_PATTERN = '^(?:[0-9]{4}-(?:0[1-9]|1[0-2])-(?:0[1-9]|[12][0-9]|3[01])|other)$';
 
 /** The index's published shape, checked with checkJsonSchema (the keywords it supports only). */
 export const PART_INDEX_SCHEMA = {
@@ -97,7 +100,7 @@ export const PART_INDEX_SCHEMA = {
 /** The part a record belongs to, by the date of its day; records no day reaches go to "other". */
 function partKeys(records: readonly LogRecord[]): Map<string, string> {
   const dayKey = new Map<string, string>();
-  for (const r of records) if (r.kind === 'day' && typeof r.date === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(r.date)) dayKey.set(r.id, r.date.slice(0, 7));
+  for (const r of records) if (r.kind === 'day' && typeof r.date === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(r.date)) dayKey.set(r.id, r.date);
   const seriesKey = new Map<string, string>();
   for (const r of records) if (r.kind === 'series') seriesKey.set(r.id, dayKey.get(r.day_id) ?? OTHER_PART);
   const key = new Map<string, string>();

@@ -1,5 +1,5 @@
-// A phone's log split into monthly parts with an index, and assembled again. The logs are the invented demo
-// field days of test/sync/sample-log.ts, with their days moved to three months.
+// A phone's log split into daily parts with an index, and assembled again. The logs are the invented demo
+// field days of test/sync/sample-log.ts, with their days moved to three dates.
 import { describe, expect, it } from 'vitest';
 import { exportLog, buildLogFile } from '../../src/log/export';
 import { readLogFile } from '../../src/log/export-parse';
@@ -8,13 +8,13 @@ import { contentHash } from '../../src/log/content-hash';
 import { revise, sampleLog, byKind, idMaker } from '../sync/sample-log';
 import type { LogRecord } from '../../src/log/types';
 
-const MONTHS = ['2026-04-20', '2026-05-03', '2026-06-14'];
+const DATES = ['2026-04-20', '2026-05-03', '2026-06-14'];
 
 /** Three days, one in each of three months, and a specimen no series uses yet. */
 function spreadLog(): LogRecord[] {
   const records = sampleLog({ device: 'phoneA', seed: 7, days: 3, seriesPerDay: 2, dropsPerSeries: 3 });
   let d = 0;
-  const moved = records.map((r) => (r.kind === 'day' ? { ...r, date: MONTHS[d++ % MONTHS.length]! } : r));
+  const moved = records.map((r) => (r.kind === 'day' ? { ...r, date: DATES[d++ % DATES.length]! } : r));
   const spare: LogRecord = { ...byKind(moved, 'specimen')[0]!, id: idMaker(99)(), history: [] };
   return [...moved, spare];
 }
@@ -22,11 +22,11 @@ function spreadLog(): LogRecord[] {
 const options = { device: 'phoneA', app_version: '0.1.0' };
 const exported = (records: readonly LogRecord[]) => exportLog(records, options);
 
-describe('splitting a log into monthly parts', () => {
-  it('makes one part per month of its days, and "other" for records no day reaches', () => {
+describe('splitting a log into daily parts', () => {
+  it('makes one part per day, and "other" for records no day reaches', () => {
     const split = splitLog(spreadLog(), options);
-    expect(split.parts.map((p) => p.key)).toEqual(['2026-04', '2026-05', '2026-06', OTHER_PART]);
-    expect(split.index.parts.map((p) => p.key)).toEqual(['2026-04', '2026-05', '2026-06', OTHER_PART]);
+    expect(split.parts.map((p) => p.key)).toEqual([...DATES, OTHER_PART]);
+    expect(split.index.parts.map((p) => p.key)).toEqual([...DATES, OTHER_PART]);
   });
 
   it('gives parts that each pass the file reader and its gate on their own', () => {
@@ -47,7 +47,7 @@ describe('splitting a log into monthly parts', () => {
     expect(exported(reversed.records)).toBe(exported(records));
   });
 
-  it('changes only the part of the month whose drop was edited', () => {
+  it('changes only the part of the day whose drop was edited', () => {
     const records = spreadLog();
     const before = splitLog(records, options);
     const drops = byKind(records, 'drop');
@@ -86,8 +86,9 @@ describe('reading a part index', () => {
     ['text that is not JSON', () => '{"format":', 'log-not-json', '(file)'],
     ['a log file in place of an index', () => exported([]), 'log-not-a-log', 'format'],
     ['a newer format', () => JSON.stringify({ ...good(), format_version: 9 }), 'log-format-too-new', 'format_version'],
-    ['a part key that is no month', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], key: '../../etc' }] }), 'log-schema', '/parts/0/key'],
-    ['a month 13', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], key: '2026-13' }] }), 'log-schema', '/parts/0/key'],
+    ['a part key that is no date', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], key: '../../etc' }] }), 'log-schema', '/parts/0/key'],
+    ['a month 13', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], key: '2026-13-01' }] }), 'log-schema', '/parts/0/key'],
+    ['a month without its day', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], key: '2026-06' }] }), 'log-schema', '/parts/0/key'],
     ['a hash of another shape', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], hash: 'x' }] }), 'log-schema', '/parts/0/hash'],
     ['a negative record count', () => JSON.stringify({ ...good(), parts: [{ ...good().parts[0], records: -1 }] }), 'log-schema', '/parts/0/records'],
     ['an extra field', () => JSON.stringify({ ...good(), secret: 1 }), 'log-schema', '/secret'],
