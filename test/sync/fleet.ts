@@ -24,6 +24,20 @@ export interface Traffic {
 
 export const emptyTraffic = (): Traffic => ({ requests: 0, sent: 0, received: 0, byMethod: {}, log: [] });
 
+/**
+ * Node's fetch, resending a request once when it failed on a kept-alive connection the server had closed while
+ * idle (UND_ERR_SOCKET): a long merge keeps Node's event loop from seeing the close in time. Browsers resend such
+ * a request themselves; Node's fetch does not.
+ */
+export const resendingFetch: typeof fetch = async (input, init) => {
+  try {
+    return await fetch(input, init);
+  } catch (error) {
+    if ((error as { cause?: { code?: string } }).cause?.code !== 'UND_ERR_SOCKET') throw error;
+    return fetch(input, init);
+  }
+};
+
 /** A fetch that counts what goes through it. */
 export function countingFetch(traffic: Traffic): typeof fetch {
   return async (input, init) => {
@@ -32,7 +46,7 @@ export function countingFetch(traffic: Traffic): typeof fetch {
     traffic.byMethod[method] = (traffic.byMethod[method] ?? 0) + 1;
     traffic.log.push(`${method} ${decodeURIComponent(new URL(String(input)).pathname)}`);
     if (typeof init?.body === 'string') traffic.sent += Buffer.byteLength(init.body);
-    const response = await fetch(input, init);
+    const response = await resendingFetch(input, init);
     if (method === 'HEAD' || response.status === 204 || response.status === 304) return response;
     const body = await response.arrayBuffer();
     traffic.received += body.byteLength;
@@ -70,7 +84,7 @@ export function fleet(server: DavServer, phones: number, drops: number): Fleet {
 }
 
 export function syncPhone(phone: MemoryRecordSource, settings: SyncSettings, traffic?: Traffic): Promise<SyncReport> {
-  return syncFolder({ source: phone, settings, appVersion: 'bench', ...(traffic ? { fetch: countingFetch(traffic) } : {}) });
+  return syncFolder({ source: phone, settings, appVersion: 'bench', fetch: traffic ? countingFetch(traffic) : resendingFetch });
 }
 
 const pause = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
@@ -83,13 +97,20 @@ const pause = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
  */
 export async function settleFleet(f: Fleet, readers: readonly number[]): Promise<void> {
   const first = await Promise.all(f.phones.map((p) => syncPhone(p, f.settings)));
-  for (const r of first) if (!r.ok) throw new Error(`first sync failed: ${JSON.stringify(r.error)}`);
+  for (let i = 0; i < first.length; i++) if (!first[i]!.ok) await syncUntilOk(f.phones[i]!, f.settings);
   await pause(1100);
-  for (const i of readers) {
-    const r = await syncPhone(f.phones[i]!, f.settings);
-    if (!r.ok) throw new Error(`second sync failed: ${JSON.stringify(r.error)}`);
+  for (const i of readers) await syncUntilOk(f.phones[i]!, f.settings);
+  await pause(1100);
+}
+
+/** A sync tried again after a passing network failure (on a loaded machine a server may drop an idle
+ *  keep-alive connection as it is reused), as the phone's own back-off would. */
+async function syncUntilOk(phone: MemoryRecordSource, settings: SyncSettings): Promise<SyncReport> {
+  for (let attempt = 1; ; attempt++) {
+    const report = await syncPhone(phone, settings);
+    if (report.ok) return report;
+    if (!report.error?.retryable || attempt >= 3) throw new Error(`sync of ${phone.device} failed: ${JSON.stringify(report.error)}`);
   }
-  await pause(1100);
 }
 
 /** One drop of the log retimed on `phone`, as a new version stamped after everything it holds. */
