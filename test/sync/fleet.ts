@@ -26,14 +26,15 @@ export const emptyTraffic = (): Traffic => ({ requests: 0, sent: 0, received: 0,
 
 /**
  * Node's fetch, resending a request once when it failed on a kept-alive connection the server had closed while
- * idle (UND_ERR_SOCKET): a long merge keeps Node's event loop from seeing the close in time. Browsers resend such
- * a request themselves; Node's fetch does not.
+ * idle (UND_ERR_SOCKET, EPIPE, ECONNRESET): a long merge keeps Node's event loop from seeing the close in time.
+ * Browsers resend such a request themselves; Node's fetch does not.
  */
+const STALE_CONNECTION = new Set(['UND_ERR_SOCKET', 'EPIPE', 'ECONNRESET']);
 export const resendingFetch: typeof fetch = async (input, init) => {
   try {
     return await fetch(input, init);
   } catch (error) {
-    if ((error as { cause?: { code?: string } }).cause?.code !== 'UND_ERR_SOCKET') throw error;
+    if (!STALE_CONNECTION.has((error as { cause?: { code?: string } }).cause?.code ?? '')) throw error;
     return fetch(input, init);
   }
 };
