@@ -39,10 +39,19 @@ async function one(name: string, start: () => Promise<DavServer>): Promise<void>
     if (!upload.ok) throw new Error(JSON.stringify(upload.error));
     console.log(line('the phone that changed a drop, its sync', up, performance.now() - t));
     for (const i of readers) {
-      const traffic = emptyTraffic();
-      t = performance.now();
-      const report = await syncPhone(f.phones[i]!, f.settings, traffic);
-      const ms = performance.now() - t;
+      // A run that fails on a passing network fault (the server dropping a connection on this loaded machine) is
+      // run again, as the phone's back-off would; the figures are those of the run that succeeded.
+      let traffic = emptyTraffic();
+      let report;
+      let ms = 0;
+      for (let attempt = 1; ; attempt++) {
+        traffic = emptyTraffic();
+        t = performance.now();
+        report = await syncPhone(f.phones[i]!, f.settings, traffic);
+        ms = performance.now() - t;
+        if (report.ok || !report.error?.retryable || attempt >= 3) break;
+        console.log(`  phone${i}: run ${attempt} failed (${report.error.message}); again`);
+      }
       if (!report.ok) throw new Error(JSON.stringify(report.error));
       const merged = report.merged.reduce((n, m) => n + m.updated + m.added, 0);
       console.log(`${line(`phone${i}, its next sync`, traffic, ms)}; records taken in ${merged}; load ${load()}`);

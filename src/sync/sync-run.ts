@@ -31,7 +31,7 @@
  * the progress made (files merged, parts uploaded) is saved in the sync state as it happens. The run itself
  * never throws: the report carries the error, and the state remembers it for the screens and the back-off.
  */
-import { partFileName, readLogFile, readPartIndex, splitLog, type Conflict, type LogFile, type LogPartIndex } from '../log';
+import { assembleParts, exportLog, partFileName, readLogFile, readPartIndex, splitLog, type Conflict, type LogFile, type LogPartIndex } from '../log';
 import { contentHash } from './content-hash';
 import { describeError, SyncError } from './errors';
 import { fileProblem, problemWeight, type FileProblem } from './file-problem';
@@ -179,10 +179,10 @@ type MergeOutcome = { ok: true } | { ok: false; problem: FileProblem; weight: 'f
  * newer format, truncated, a record refused on the way into the store), is reported and skipped: one bad file
  * never stops the run. Only a store that cannot be used at all stops it.
  */
-async function mergeFetched(source: RecordSource, name: string, fetched: FetchedFile, report: SyncReport): Promise<MergeOutcome> {
-  let file: LogFile | null = null;
+async function mergeFetched(source: RecordSource, name: string, fetched: FetchedFile, report: SyncReport, read: LogFile | null = null): Promise<MergeOutcome> {
+  let file: LogFile | null = read;
   try {
-    file = readLogFile(fetched.body);
+    file ??= readLogFile(fetched.body);
     const done = await applyImport(source, file);
     report.merged.push({ name, added: done.added.length, updated: done.updated.length, unchanged: done.unchanged, conflicts: done.conflicts.length });
     report.conflicts.push(...done.conflicts);
@@ -305,11 +305,26 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
     const ownParts = state.own_parts!;
     const folder = partFolderName(ownIndex);
     const changed = split.parts.filter((p) => ownParts[p.key] !== p.hash);
-    for (const part of changed) {
-      await putVerified(client, [folder, partFileName(part.key)], part.text, part.hash, options);
-      ownParts[part.key] = part.hash;
-      report.uploaded = true;
-      await progress.tick();
+    try {
+      for (const part of changed) {
+        await putVerified(client, [folder, partFileName(part.key)], part.text, part.hash, options);
+        ownParts[part.key] = part.hash;
+        report.uploaded = true;
+        await progress.tick();
+      }
+    } catch (error) {
+      if (!(error instanceof NoPartFolder)) throw error;
+      // A folder whose server does not let this phone make a sub-folder (a CORS set-up that allows only the
+      // methods of older versions, or a server without MKCOL): the whole log goes to the single file as before.
+      const text = exportLog(records, { device, app_version: options.appVersion });
+      const hash = contentHash(text);
+      if (!(ownEntry && state.own?.hash === hash && state.uploaded_hash === hash)) {
+        state.own = await putVerified(client, ownName, text, hash, options);
+        state.uploaded_hash = hash;
+        report.uploaded = true;
+      }
+      await saveSyncState(source, state);
+      return { sent: true, value: undefined };
     }
     const indexHash = contentHash(split.indexText);
     if (!indexEntry || state.uploaded_index_hash !== indexHash || state.own_index?.hash !== indexHash) {
@@ -319,17 +334,20 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
     }
     await saveSyncState(source, state);
     const keep = new Set(split.parts.map((p) => p.key));
+    // Removing is tidying only: a server (or a CORS set-up) that does not allow DELETE leaves a file no index
+    // names (never read) or an old single file that no longer changes (read once more, merging nothing new).
     for (const key of Object.keys(ownParts)) {
       if (keep.has(key)) continue;
-      await client.delete([folder, partFileName(key)]);
+      await removeQuietly(client, [folder, partFileName(key)]);
       delete ownParts[key];
     }
     if (ownEntry) {
       // The old single file's records are in the parts now (it was merged above, or it is what this phone wrote);
       // one refused for itself is named in this run's report (own_problem), as when an upload replaced it.
-      await client.delete(ownName);
-      state.own = null;
-      state.uploaded_hash = null;
+      if (await removeQuietly(client, ownName)) {
+        state.own = null;
+        state.uploaded_hash = null;
+      }
     }
     await saveSyncState(source, state);
     return { sent: true, value: undefined };
@@ -385,6 +403,7 @@ async function mergeIndexed(
   const folder = partFolderName(name);
   let complete = true;
   const named = new Set<string>();
+  const pending: { path: string; part: FetchedFile; hash: string; file: LogFile }[] = [];
   for (const entry of index.parts) {
     const path = `${folder}/${partFileName(entry.key)}`;
     named.add(path);
@@ -400,14 +419,54 @@ async function mergeIndexed(
       await onPart(path, part);
       seen[path] = remoteState(part, partHash);
     } else {
-      const outcome = await mergeFetched(source, path, part, report);
-      seen[path] = rememberRead(part, partHash, outcome);
-      if (!outcome.ok && outcome.weight === 'passing') complete = false;
+      try {
+        pending.push({ path, part, hash: partHash, file: readLogFile(part.body) });
+      } catch (error) {
+        const problem = fileProblem(error, part.body, null);
+        report.problems.push({ name: path, ...problem });
+        seen[path] = remoteState(part, partHash, problem);
+      }
     }
     await progress.tick();
   }
+  // The parts read are merged together, in one reading of the store and one write: a phone's first sync reads
+  // hundreds of parts, and merging each alone would read the whole store once per part. Should the merge be
+  // refused, each part is merged alone, so the part to blame is named and the others are taken in.
+  let together = false;
+  if (pending.length > 1) {
+    try {
+      const done = await applyImport(source, assembleParts(pending.map((p) => p.file)));
+      report.merged.push({ name: `${folder}/`, added: done.added.length, updated: done.updated.length, unchanged: done.unchanged, conflicts: done.conflicts.length });
+      report.conflicts.push(...done.conflicts);
+      for (const p of pending) seen[p.path] = remoteState(p.part, p.hash);
+      together = true;
+    } catch (error) {
+      if (problemWeight(error) === 'fatal') throw error;
+    }
+  }
+  if (!together) {
+    for (const p of pending) {
+      const outcome = await mergeFetched(source, p.path, p.part, report, p.file);
+      seen[p.path] = rememberRead(p.part, p.hash, outcome);
+      if (!outcome.ok && outcome.weight === 'passing') complete = false;
+    }
+  }
   for (const path of Object.keys(seen)) if (path.startsWith(`${folder}/`) && !named.has(path)) delete seen[path];
   return complete ? remoteState(fetched, hash) : { ...remoteState(fetched, '', null), settled: false, seen_at: null };
+}
+
+/** The phone's part folder could not be made. */
+class NoPartFolder extends Error {}
+
+/** Removes a file; false when the server refused (the run goes on). */
+async function removeQuietly(client: WebDavClient, name: FilePath): Promise<boolean> {
+  try {
+    await client.delete(name);
+    return true;
+  } catch (error) {
+    if (error instanceof SyncError && (error.code === 'sync-unauthorized' || error.code === 'sync-redirected')) throw error;
+    return false;
+  }
 }
 
 /**
@@ -425,7 +484,12 @@ async function putVerified(client: WebDavClient, name: FilePath, text: string, h
       // The first part of a phone: its sub-folder is made on demand (Apache answers 409 Conflict for a missing
       // parent, RFC 4918 §9.7.1; nginx makes it itself with create_full_put_path).
       if (!(error instanceof SyncError && error.status === 409 && typeof name !== 'string' && name.length === 2)) throw error;
-      await client.makeFolder(name[0]!);
+      try {
+        await client.makeFolder(name[0]!);
+      } catch (refused) {
+        if (refused instanceof SyncError && ['sync-network', 'sync-forbidden', 'sync-http'].includes(refused.code)) throw new NoPartFolder();
+        throw refused;
+      }
       await client.put(name, text);
     }
     const held = await client.get(name);
