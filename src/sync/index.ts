@@ -18,3 +18,4 @@ export * from './scheduler';
 export * from './auto-sync';
 export * from './csv-export';
 export * from './send-log';
+export * from './send-records';

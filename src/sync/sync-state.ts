@@ -44,6 +44,12 @@ export interface SyncState {
   failures: number;
   /** This phone's own file, written by someone else, could not be merged at the last run (absent in old states). */
   own_problem?: SkippedFile | null;
+  /** This phone's part index (see log/log-parts.ts) as last written or read; absent in old states. */
+  own_index?: RemoteFileState | null;
+  /** contentHash of the part index last uploaded and read back. */
+  uploaded_index_hash?: string | null;
+  /** This phone's parts in the folder, by key: the contentHash of each as uploaded and read back. */
+  own_parts?: Record<string, string>;
 }
 
 export function emptySyncState(folderUrl: string): SyncState {

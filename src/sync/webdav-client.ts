@@ -1,6 +1,8 @@
 /**
  * A WebDAV client for one folder (RFC 4918): list it (PROPFIND, Depth 1), read a file (GET, HEAD), write one
- * (PUT, conditional on an ETag where the server gives ETags).
+ * (PUT, conditional on an ETag where the server gives ETags), remove one (DELETE), make a sub-folder (MKCOL).
+ * A file is named by its name in the folder, or by a path of names inside a sub-folder (["a.parts", "b.json"]);
+ * each name is one path segment, encoded as such, and "." or ".." is refused.
  *
  * Every request has a timeout covering the whole exchange, the body included (AbortController), so a server
  * that never answers, or stops halfway, cannot hang a sync. Requests go with `credentials: 'omit'` and an
@@ -37,6 +39,11 @@ export interface FileVersion {
 export interface FetchedFile extends FileVersion {
   body: string;
 }
+
+/** A file's name in the folder, or its path of names inside a sub-folder. */
+export type FilePath = string | readonly string[];
+
+const pathName = (name: FilePath): string => (typeof name === 'string' ? name : name.join('/'));
 
 export interface PutConditions {
   /** Write only if the file is still this version (RFC 9110 §13.1.1). */
@@ -110,9 +117,14 @@ export class WebDavClient {
     this.clearTimer = options.clearTimeout ?? ((h) => globalThis.clearTimeout(h as ReturnType<typeof setTimeout>));
   }
 
-  /** The URL of a file in the folder. */
-  fileUrl(name: string): string {
-    return new URL(encodeURIComponent(name), this.folderUrl).href;
+  /** The URL of a file in the folder, or of one in a sub-folder when given as a path of names. */
+  fileUrl(name: FilePath): string {
+    const segments = typeof name === 'string' ? [name] : name;
+    for (const segment of segments) {
+      // A caller's bug: the names come from the listing (one segment each) or from a checked part index.
+      if (segment === '' || segment === '.' || segment === '..') throw new RangeError(`not a file name in the folder: ${JSON.stringify(segment)}`);
+    }
+    return new URL(segments.map(encodeURIComponent).join('/'), this.folderUrl).href;
   }
 
   /** The files of the folder (not the folder itself, not sub-folders). */
@@ -139,10 +151,10 @@ export class WebDavClient {
   }
 
   /** The file's text and version, or null when there is no such file. */
-  async get(name: string): Promise<FetchedFile | null> {
-    const answer = await this.request('GET', this.fileUrl(name), { headers: { Accept: 'application/json' }, what: `read ${name}` });
+  async get(name: FilePath): Promise<FetchedFile | null> {
+    const answer = await this.request('GET', this.fileUrl(name), { headers: { Accept: 'application/json' }, what: `read ${pathName(name)}` });
     if (answer.status === 404) return null;
-    this.expect(answer, [200], `read ${name}`);
+    this.expect(answer, [200], `read ${pathName(name)}`);
     // The size of the file itself, as the listing's getcontentlength counts it (a compressed transfer's
     // Content-Length would differ).
     return { ...versionOf(answer.headers), contentLength: new TextEncoder().encode(answer.text).length, body: answer.text };
@@ -160,16 +172,31 @@ export class WebDavClient {
    * Write the file. Throws SyncError 'sync-precondition' (412) when a condition fails: someone else wrote it
    * since. Servers that ignore conditions on PUT (nginx) simply write.
    */
-  async put(name: string, body: string, conditions: PutConditions = {}): Promise<FileVersion> {
+  async put(name: FilePath, body: string, conditions: PutConditions = {}): Promise<FileVersion> {
     const headers: Record<string, string> = { 'Content-Type': 'application/json; charset=utf-8' };
     if (conditions.ifMatch) headers['If-Match'] = conditions.ifMatch;
     if (conditions.ifNoneMatch) headers['If-None-Match'] = conditions.ifNoneMatch;
-    const answer = await this.request('PUT', this.fileUrl(name), { headers, body, what: `write ${name}` });
+    const answer = await this.request('PUT', this.fileUrl(name), { headers, body, what: `write ${pathName(name)}` });
     if (answer.status === 412) {
-      throw new SyncError({ code: 'sync-precondition', field: null, value: conditions.ifMatch ?? conditions.ifNoneMatch ?? null, allowed: null, message: `${name} changed on the server since it was read (412)`, status: 412 });
+      throw new SyncError({ code: 'sync-precondition', field: null, value: conditions.ifMatch ?? conditions.ifNoneMatch ?? null, allowed: null, message: `${pathName(name)} changed on the server since it was read (412)`, status: 412 });
     }
-    this.expect(answer, [200, 201, 204], `write ${name}`);
+    this.expect(answer, [200, 201, 204], `write ${pathName(name)}`);
     return versionOf(answer.headers);
+  }
+
+  /** Removes the file; a file already gone is fine. */
+  async delete(name: FilePath): Promise<void> {
+    const answer = await this.request('DELETE', this.fileUrl(name), { what: `remove ${pathName(name)}` });
+    if (answer.status === 404) return;
+    this.expect(answer, [200, 204], `remove ${pathName(name)}`);
+  }
+
+  /** Makes a sub-folder of the folder; one that exists already is fine (405, RFC 4918 §9.3.1). */
+  async makeFolder(name: string): Promise<void> {
+    const url = `${this.fileUrl(name)}/`;
+    const answer = await this.request('MKCOL', url, { what: `make the folder ${name}` });
+    if (answer.status === 405) return;
+    this.expect(answer, [200, 201, 204], `make the folder ${name}`);
   }
 
   private expect(answer: Answer, ok: number[], what: string): void {

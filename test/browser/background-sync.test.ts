@@ -2,10 +2,10 @@
 // once the phone is online again (here: once the server is back), from the same IndexedDB the pages use.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { readLogFile } from '../../src/log/export-parse';
-import { deviceFileName } from '../../src/sync/sync-run';
+import { deviceIndexName } from '../../src/sync/sync-run';
+import { folderLog } from '../sync/folder-log';
 import { BACKGROUND_SYNC_TAG } from '../../src/sync/scheduler';
-import { folderFiles, readFolderFile, type DavServer } from '../servers/dav-server';
+import { folderFiles, type DavServer } from '../servers/dav-server';
 import { nginxMissing, startNginx } from '../servers/nginx';
 import { PHONE, baseUrl, expectVisible, haveChromium, launchBrowser, waitForServiceWorker } from './harness';
 
@@ -57,12 +57,11 @@ describe.skipIf(!haveChromium || nginxMissing() !== null)('Background Sync in th
     await server.start();
     await expect.poll(() => registrations.find((r) => r.scopeURL === `${baseUrl}/`), { timeout: 10_000 }).toBeTruthy();
     const registration = registrations.find((r) => r.scopeURL === `${baseUrl}/`)!;
-    expect(await folderFiles(server)).not.toContain(deviceFileName(device));
+    expect(await folderFiles(server)).not.toContain(deviceIndexName(device));
     await cdp.send('ServiceWorker.dispatchSyncEvent', { origin: baseUrl, registrationId: registration.registrationId, tag: BACKGROUND_SYNC_TAG, lastChance: false });
-    await expect.poll(async () => (await folderFiles(server)).includes(deviceFileName(device)), { timeout: 20_000, interval: 250 }).toBe(true);
-    const sent = readLogFile(await readFolderFile(server, deviceFileName(device)));
-    expect(sent.device).toBe(device);
-    expect(sent.records.filter((r) => r.kind === 'drop').length).toBe(26);
+    await expect.poll(async () => (await folderFiles(server)).includes(deviceIndexName(device)), { timeout: 20_000, interval: 250 }).toBe(true);
+    const sent = await folderLog(server, device);
+    expect(sent.filter((r) => r.kind === 'drop').length).toBe(26);
     await context.close();
   });
 });

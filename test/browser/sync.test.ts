@@ -11,7 +11,8 @@ import { startStaticServer, type StaticServer } from '../../scripts/static-serve
 import { exportLog } from '../../src/log/export';
 import { readLogFile } from '../../src/log/export-parse';
 import type { LogRecord, DropRecord } from '../../src/log/types';
-import { deviceFileName } from '../../src/sync/sync-run';
+import { deviceFileName, deviceIndexName } from '../../src/sync/sync-run';
+import { folderLog as folderLogOf, partsOf } from '../sync/folder-log';
 import type { SyncSettings } from '../../src/sync/settings';
 import { apacheMissing, startApache } from '../servers/apache';
 import { folderFiles, putFolderFile, readFolderFile, type DavServer } from '../servers/dav-server';
@@ -71,9 +72,8 @@ function settings(folderUrl: string, server: DavServer, extra: Partial<SyncSetti
   return { folder_url: folderUrl, ...server.credentials, enabled: true, timeout_ms: 5000, ...extra };
 }
 
-async function folderLog(server: DavServer, device: string): Promise<LogRecord[]> {
-  return readLogFile(await readFolderFile(server, deviceFileName(device))).records;
-}
+/** The phone's log as its part index and parts in the folder hold it. */
+const folderLog = (server: DavServer, device: string): Promise<LogRecord[]> => folderLogOf(server, device);
 
 const ids = (records: LogRecord[]) => records.map((r) => r.id).sort();
 const times = [1.578, 1.581, 1.576];
@@ -103,12 +103,12 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     for (const p of phones) await p.context.close();
     await server.start();
     proxy.set(null);
-    for (const f of await readdir(server.dataDir)) await rm(join(server.dataDir, f), { force: true });
+    for (const f of await readdir(server.dataDir)) await rm(join(server.dataDir, f), { recursive: true, force: true });
     phones = [await openPhone(site.url, query), await openPhone(site.url, query)];
     return phones as [Phone, Phone];
   }
 
-  it.skipIf(missing)('exchange their logs, each writing its own file, and see edits and deletions of the other', async () => {
+  it.skipIf(missing)('exchange their logs, each writing its own index and parts, and see edits and deletions of the other', async () => {
     const [a, b] = await freshPhones();
     await call(a.page, 'configure', settings(server.folderUrl, server));
     await call(b.page, 'configure', settings(server.folderUrl, server));
@@ -119,7 +119,7 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     const recordsB = await call(b.page, 'records');
     expect(ids(recordsA)).toEqual(ids(recordsB));
     expect(recordsA).toHaveLength(5 + 3 + 5 + 2);
-    expect(await folderFiles(server)).toEqual([deviceFileName(a.device), deviceFileName(b.device)].sort());
+    expect(await folderFiles(server)).toEqual([deviceIndexName(a.device), partsOf(a.device), deviceIndexName(b.device), partsOf(b.device)].sort());
 
     // B corrects one of A's drops and deletes another; A sees both after a sync each.
     const drops = recordsB.filter((r): r is DropRecord => r.kind === 'drop' && r.device === a.device);
@@ -194,15 +194,15 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     await call(b.page, 'addSeries', 'South terrace', times);
     await call(b.page, 'sync');
     await call(a.page, 'addSeries', 'North quarry wall', times);
-    // A has read B's file; as its own PUT leaves, the server goes down.
-    await a.page.route('**/dav/*.json', async (route) => {
+    // A has read B's parts; as its first PUT leaves, the server goes down.
+    await a.page.route('**/dav/**', async (route) => {
       if (route.request().method() !== 'PUT') return route.continue();
       await server.stop();
       return route.continue().catch(() => undefined);
     });
     const cut = await call(a.page, 'sync');
     expect(cut.error?.code).toBe('sync-network');
-    await a.page.unroute('**/dav/*.json');
+    await a.page.unroute('**/dav/**');
     expect(await call(a.page, 'records')).toHaveLength(16);
     await server.start();
     expect((await call(a.page, 'sync')).error).toBeNull();
@@ -216,9 +216,10 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     await call(b.page, 'addSeries', 'South terrace', times);
     expect((await call(b.page, 'sync')).error).toBeNull();
     expect((await call(a.page, 'sync')).error).toBeNull();
-    // B's file is replaced by one that passes every check of the file, but whose merge with the copy A holds
-    // makes a drop the store refuses (a history entry newer than the current version, with an empty body).
-    const bFile = readLogFile(await readFolderFile(server, deviceFileName(b.device)));
+    // A file of B's in the old single-file layout appears that passes every check of the file, but whose merge
+    // with the copy A holds makes a drop the store refuses (a history entry newer than the current version, with
+    // an empty body).
+    const bFile = { records: await folderLog(server, b.device) };
     const drop = bFile.records.find((r): r is DropRecord => r.kind === 'drop')!;
     const newer = drop.rev.replace(/^(\d{15})/, (ms) => String(Number(ms) + 5000).padStart(15, '0'));
     const poisoned = bFile.records.map((r) =>
@@ -228,11 +229,11 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     const series = (await call(a.page, 'records')).find((r) => r.kind === 'series' && r.device === b.device)!;
     const late = await call(a.page, 'addDrop', series.id, 9, 1.58);
     const before = await call(a.page, 'records');
-    // And the server acknowledges A's first upload without storing it.
+    // And the server acknowledges A's first upload (the day's part) without storing it: it goes again, then the index.
     proxy.set({ fault: { kind: 'acknowledge', status: 204 }, methods: ['PUT'], times: 1 });
     proxy.seen.length = 0;
     const report = await call(a.page, 'sync');
-    expect(proxy.seen.filter((r) => r.startsWith('PUT '))).toHaveLength(2);
+    expect(proxy.seen.filter((r) => r.startsWith('PUT '))).toHaveLength(3);
     expect(report.error).toBeNull();
     expect(report.uploaded).toBe(true);
     expect(report.problems).toEqual([expect.objectContaining({ name: deviceFileName(b.device), device: b.device, record: drop.id })]);

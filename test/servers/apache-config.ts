@@ -71,7 +71,7 @@ ${origins ? `SetEnvIf Origin "^(${origins})$" PLUMMET_ORIGIN=$0` : ''}
   RewriteRule ^ - [R=204,L]
 ${auth}
   Header always set Access-Control-Allow-Origin "%{PLUMMET_ORIGIN}e" env=PLUMMET_ORIGIN
-  Header always set Access-Control-Allow-Methods "GET, HEAD, PUT, PROPFIND, OPTIONS" env=PLUMMET_ORIGIN
+  Header always set Access-Control-Allow-Methods "GET, HEAD, PUT, DELETE, MKCOL, PROPFIND, OPTIONS" env=PLUMMET_ORIGIN
   Header always set Access-Control-Allow-Headers "Authorization, Content-Type, Depth, If-Match, If-None-Match" env=PLUMMET_ORIGIN
   Header always set Access-Control-Expose-Headers "ETag, DAV, Content-Length, Last-Modified, Date" env=PLUMMET_ORIGIN
   Header always set Vary Origin

@@ -25,6 +25,8 @@ export interface FaultRule {
   fault: Fault;
   /** Methods it applies to (default: all but OPTIONS). */
   methods?: string[];
+  /** Only requests whose (decoded) path contains this. */
+  pathContains?: string;
   /** How many requests it applies to before the proxy passes everything again (default: all). */
   times?: number;
 }
@@ -107,7 +109,7 @@ export async function startFaultProxy(targetPort: number): Promise<FaultProxy> {
   const server = createServer((req, res) => {
     seen.push(`${req.method} ${req.url}`);
     let fault: Fault = { kind: 'pass' };
-    if (rule && rule.left > 0 && (rule.methods ?? ['GET', 'HEAD', 'PUT', 'PROPFIND', 'DELETE']).includes(req.method ?? '')) {
+    if (rule && rule.left > 0 && (rule.methods ?? ['GET', 'HEAD', 'PUT', 'PROPFIND', 'DELETE']).includes(req.method ?? '') && (!rule.pathContains || decodeURIComponent(req.url ?? '').includes(rule.pathContains))) {
       fault = rule.fault;
       rule.left--;
     }

@@ -73,7 +73,7 @@ function folderLocation(o: NginxSiteOptions): string {
     lines.push(
       '    # CORS for the app (a page on another origin); `always` keeps them on 207, 401 and 412 answers.',
       '    add_header Access-Control-Allow-Origin $plummet_cors_origin always;',
-      '    add_header Access-Control-Allow-Methods "GET, HEAD, PUT, PROPFIND, OPTIONS" always;',
+      '    add_header Access-Control-Allow-Methods "GET, HEAD, PUT, DELETE, MKCOL, PROPFIND, OPTIONS" always;',
       '    add_header Access-Control-Allow-Headers "Authorization, Content-Type, Depth, If-Match, If-None-Match" always;',
       '    add_header Access-Control-Expose-Headers "ETag, DAV, Content-Length, Last-Modified, Date" always;',
       '    add_header Access-Control-Max-Age 600 always;',
