@@ -252,6 +252,7 @@ export function RecordActions({
   fields,
   consequence,
   removable = true,
+  correctable = true,
   onRemoved,
 }: {
   record: LogRecord;
@@ -261,6 +262,8 @@ export function RecordActions({
   /** What else a removal takes with it, as a sentence ending in a space. */
   consequence?: string;
   removable?: boolean;
+  /** False where the screen has its own form for the record (a specimen). */
+  correctable?: boolean;
   /** Called after the record was removed (a screen showing only it goes back). */
   onRemoved?: () => void;
 }) {
@@ -269,9 +272,11 @@ export function RecordActions({
   return (
     <div class="record-actions">
       <div class="btn-row">
-        <button type="button" class="btn btn-quiet" aria-expanded={open === 'edit'} aria-label={`Correct ${label}`} onClick={() => toggle('edit')}>
-          Correct
-        </button>
+        {correctable ? (
+          <button type="button" class="btn btn-quiet" aria-expanded={open === 'edit'} aria-label={`Correct ${label}`} onClick={() => toggle('edit')}>
+            Correct
+          </button>
+        ) : null}
         <button type="button" class="btn btn-quiet" aria-expanded={open === 'history'} aria-label={`History of ${label}`} onClick={() => toggle('history')}>
           History
         </button>

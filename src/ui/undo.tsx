@@ -71,7 +71,7 @@ export function UndoProvider({ children }: { children: ComponentChildren }) {
       <div class="undo-bar" role="status" aria-live="polite" hidden={!offer && !message}>
         {offer ? (
           <>
-            <span class="undo-text">{offer.label}</span>
+            <span class="undo-text">{offer.label.charAt(0).toUpperCase() + offer.label.slice(1)}</span>
             <button type="button" class="btn undo-btn" onClick={() => void undo()}>
               Undo
             </button>

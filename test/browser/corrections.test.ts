@@ -184,6 +184,30 @@ describe.skipIf(!haveChromium)('correcting, removing and undoing on the phone', 
     await page.getByRole('button', { name: 'History of this series' }).click();
     await expectVisible(page.getByText('Why: it was the right ball'));
     await shot(page, '08-series-restored-history');
+  });
+
+  it('removes the whole day with a reason and restores it from the Log', async () => {
+    await page.getByRole('link', { name: /Quarry rim/ }).click();
+    await page.getByText('Correct the day or the site').click();
+    await page.getByRole('button', { name: 'Remove this day' }).click();
+    await box(page, 'Why remove this day?').fill('wrong site chosen');
+    await shot(page, '09-day-remove');
+    await page.getByRole('button', { name: 'Remove it' }).click();
+    await expectVisible(page.getByRole('heading', { name: 'Removed days' }));
+    await shot(page, '10-log-removed-days');
+    await axe(page, 'removed days');
+    await page.getByRole('button', { name: /^Restore day/ }).click();
+    await box(page, /^Why restore day/).fill('right site after all');
+    await page.getByRole('button', { name: 'Restore it' }).click();
+    await page.locator('a.row-link', { hasText: 'Quarry rim' }).click();
+    await page.locator('a.row-link').first().click();
+    const corrected = [...TIMES.slice(0, 2), 1.602, ...TIMES.slice(3)];
+    await cd(page, cdOf(corrected, COLD));
+    await page.goto(`${baseUrl}/#/specimens`);
+    await page.getByRole('link', { name: /Leather ball/ }).click();
+    await page.getByRole('button', { name: 'History of Leather ball 95 mm' }).click();
+    await expectVisible(page.getByText('created'));
+    await shot(page, '11-specimen-history');
     expect(errors).toEqual([]);
   });
 });

@@ -109,7 +109,7 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
         ? (() => {
             const d = drops.find((x) => x.id === picked)!;
             return (
-              <div class="subform" role="group" aria-label={`Drop ${d.seq}`}>
+              <div class="drop-tools" role="group" aria-label={`Drop ${d.seq}`}>
                 <h4>
                   Drop {d.seq}: {d.time_s.toFixed(3)} s
                 </h4>
