@@ -36,6 +36,12 @@ export function localInput(iso: string): string {
 
 type Values = Record<string, FieldState | string>;
 
+/** "this series" → "Series", "drop 3" → "Drop 3": how the undo bar names the record. */
+const undoName = (label: string) => {
+  const name = label.replace(/^this /, '');
+  return name.charAt(0).toUpperCase() + name.slice(1);
+};
+
 function initialValues(record: LogRecord, fields: readonly EditField[]): Values {
   const body = record as unknown as Record<string, unknown>;
   const values: Values = {};
@@ -160,7 +166,7 @@ function EditForm({ record, label, fields, onDone }: { record: LogRecord; label:
     setError(null);
     try {
       const next = await app.store.revise(record.kind, record.id, patch as Partial<BodyOf[RecordKind]>, reason.trim() || null, { expectedRev: record.rev });
-      if (next.rev !== record.rev) offerUndo(`${label} corrected`, [next]);
+      if (next.rev !== record.rev) offerUndo(`${undoName(label)} corrected`, [next]);
       app.notifyChanged();
       onDone();
     } catch (e) {
@@ -216,7 +222,7 @@ function RemoveForm({ record, label, consequence, onDone }: { record: LogRecord;
     try {
       const gone = await app.store.remove(record.kind, record.id, reason.trim());
       // Undoing the container restores what was removed with it.
-      offerUndo(`${label} removed`, [gone]);
+      offerUndo(`${undoName(label)} removed`, [gone]);
       app.notifyChanged();
       onDone(true);
     } catch (e) {
@@ -313,7 +319,7 @@ export function RestoreRow({ record, label, detail }: { record: LogRecord; label
     setError(null);
     try {
       const back = await app.store.restore(record.kind, record.id, reason.trim());
-      offerUndo(`${label} restored`, [back]);
+      offerUndo(`${undoName(label)} restored`, [back]);
       app.notifyChanged();
     } catch (e) {
       setError(describeError(e));

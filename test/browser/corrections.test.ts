@@ -118,7 +118,7 @@ describe.skipIf(!haveChromium)('correcting, removing and undoing on the phone', 
     await save.click();
     const corrected = [...TIMES.slice(0, 2), 1.602, ...TIMES.slice(3)];
     await cd(page, cdOf(corrected));
-    await expectVisible(page.locator('.undo-bar').getByText('drop 3 corrected'));
+    await expectVisible(page.locator('.undo-bar').getByText('Drop 3 corrected'));
     await shot(page, '03-corrected-with-undo-bar');
     await page.getByRole('button', { name: 'History of drop 3' }).click();
     await expectVisible(page.getByText('time (s): 1.652 → 1.602'));
@@ -132,7 +132,7 @@ describe.skipIf(!haveChromium)('correcting, removing and undoing on the phone', 
     await group.getByRole('textbox', { name: /^Note/ }).fill('gust at release');
     await group.getByRole('button', { name: 'Save the correction' }).click();
     await page.locator('.undo-bar').getByRole('button', { name: 'Undo' }).click();
-    await expectVisible(page.locator('.undo-bar').getByText(/Undone: drop 3 corrected/));
+    await expectVisible(page.locator('.undo-bar').getByText(/Undone: Drop 3 corrected/));
     const corrected = [...TIMES.slice(0, 2), 1.602, ...TIMES.slice(3)];
     await cd(page, cdOf(corrected));
     await page.getByRole('button', { name: 'History of drop 3' }).click();
