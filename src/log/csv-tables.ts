@@ -9,7 +9,7 @@
 import { toCsv, type CsvOptions, type CsvValue } from './csv';
 import { readingForSeries, readingAloftForSeries } from './reading-for-series';
 
-export { readingForSeries, readingAloftForSeries };
+export { readingForSeries, readingAloftForSeries, seriesReadingChoice, type SeriesReadingChoice } from './reading-for-series';
 import type { DayRecord, DropRecord, LogRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from './types';
 
 /** Everything the computation of one series needs, taken from the log. */

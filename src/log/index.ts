@@ -9,6 +9,7 @@ export * from './fields';
 export * from './validate';
 export * from './record-gate';
 export * from './records';
+export * from './undo-steps';
 export * from './canonical';
 export * from './content-hash';
 export * from './schema';

@@ -160,6 +160,30 @@ export function conflictBetween(a: LogRecord, b: LogRecord): Conflict | null {
   };
 }
 
+/**
+ * A removal and an edit that crossed, seen from the phone whose own version was buried by the merge. Every
+ * tombstone this app writes gives the version it replaced a reason, and so does every restore of a tombstone:
+ * a version buried under a tombstone, or a tombstone buried under a live version, with no reason in the merged
+ * history was never seen by the phone that made the newer version. The phone that received the crossing directly
+ * finds it with conflictBetween(); this finds it on the other phone, so neither side loses its action in silence.
+ */
+export function removalCrossing(before: LogRecord, after: LogRecord): Conflict | null {
+  if (before.id !== after.id || before.rev === after.rev || before.deleted === after.deleted) return null;
+  const held = revisionOf(before);
+  const buried = (after.history as unknown as AnyRevision[]).find((h) => h.rev === before.rev && versionIdentity(h) === versionIdentity(held));
+  if (!buried || buried.reason !== null) return null;
+  return {
+    id: after.id,
+    kind: after.kind,
+    kept_rev: after.rev,
+    kept_device: after.device,
+    other_rev: before.rev,
+    other_device: before.device,
+    fields: differingFields(revisionOf(after), held, false),
+    measured: true,
+  };
+}
+
 /** The body fields (and "deleted"; with `envelope`, the device and time too) whose values differ, sorted. */
 function differingFields(a: AnyRevision, b: AnyRevision, envelope: boolean): string[] {
   const fields = Object.keys({ ...a.body, ...b.body }).filter((k) => !sameValue(a.body[k], b.body[k]));
@@ -235,6 +259,8 @@ export function previewMerge(local: readonly LogRecord[], incoming: readonly Log
     const found = sameStampConflicts(before, record);
     const conflict = before.rev === record.rev ? null : conflictBetween(before, record);
     if (conflict) found.push(conflict);
+    const crossing = conflict ? null : removalCrossing(before, after);
+    if (crossing) found.push(crossing);
     preview.conflicts.push(...found);
   }
   preview.changes = [...preview.added, ...preview.updated.map((u) => u.after)];

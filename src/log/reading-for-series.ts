@@ -28,3 +28,18 @@ export function readingAloftForSeries(series: SeriesRecord, readings: readonly R
   if (!series.reading_aloft_id) return null;
   return readings.find((r) => r.id === series.reading_aloft_id && !r.deleted) ?? null;
 }
+
+/** Which reading a series uses and why: the crew's choice, or the nearest in time (also when the chosen one is gone). */
+export interface SeriesReadingChoice {
+  reading: ReadingRecord | null;
+  how: 'chosen' | 'nearest' | 'chosen-missing';
+  /** Minutes between the reading's time and the series' start (positive: the reading is later). */
+  gap_min: number | null;
+}
+
+export function seriesReadingChoice(series: SeriesRecord, readings: readonly ReadingRecord[]): SeriesReadingChoice {
+  const reading = readingForSeries(series, readings);
+  const gap_min = reading ? (Date.parse(reading.taken_at) - Date.parse(series.started_at)) / 60000 : null;
+  if (series.reading_id === null) return { reading, how: 'nearest', gap_min };
+  return { reading, how: reading?.id === series.reading_id ? 'chosen' : 'chosen-missing', gap_min };
+}

@@ -200,6 +200,19 @@ export function deleteRecord<R extends LogRecord>(record: R, ctx: DeleteContext)
   return nextVersion(record, bodyOf(record), true, ctx.reason.trim(), ctx);
 }
 
+/**
+ * A removed record brought back: a new live version with the tombstone's body, the tombstone kept in the history
+ * with the reason it was undone. Restoring a live record changes nothing. Nothing is erased either way.
+ */
+export function restoreRecord<R extends LogRecord>(record: R, ctx: DeleteContext): R {
+  checkDevice(ctx);
+  if (!record.deleted) return record;
+  if (blank(ctx.reason)) {
+    throw new LogError({ code: 'reason-required', field: 'reason', value: ctx.reason ?? null, allowed: 'a non-empty reason', message: `restoring a ${record.kind} needs a reason (it stays in the history)` });
+  }
+  return nextVersion(record, bodyOf(record), false, ctx.reason.trim(), ctx);
+}
+
 /** Every version of the record, oldest first, ending with the current one (whose reason is null). */
 export function recordHistory<R extends LogRecord>(record: R): Revision<BodyOf[R['kind']]>[] {
   return [...copy(record.history), asRevision(record, null)] as Revision<BodyOf[R['kind']]>[];

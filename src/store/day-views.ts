@@ -8,9 +8,9 @@ import { StoreError } from './errors';
 import { byCreated, compareKeys, isLive } from './live-records';
 import type { LogStore } from './log-store';
 import type { StoreContext } from './store-context';
-import type { DayListItem, DayView } from './types';
+import type { DayListItem, DayView, RemovedInDay } from './types';
 
-export function dayViews(ctx: StoreContext): Pick<LogStore, 'listDays' | 'loadDay'> {
+export function dayViews(ctx: StoreContext): Pick<LogStore, 'listDays' | 'loadDay' | 'loadRemoved'> {
   const { backend } = ctx;
   return {
     async listDays() {
@@ -66,6 +66,20 @@ export function dayViews(ctx: StoreContext): Pick<LogStore, 'listDays' | 'loadDa
           series: liveSeries,
           drops: dropLists.flatMap((list) => list.filter(isLive).sort((a, b) => a.seq - b.seq || compareKeys(a.captured_at, b.captured_at))),
           specimens: specimens.filter((s): s is RecordOf['specimen'] => s !== undefined),
+        };
+      });
+    },
+
+    async loadRemoved(dayId) {
+      ctx.ensureOpen();
+      return backend.read(async (tx): Promise<RemovedInDay> => {
+        const [readings, series] = await Promise.all([tx.getAllByIndex('reading', 'by_day', dayId), tx.getAllByIndex('series', 'by_day', dayId)]);
+        const dropLists = await Promise.all(series.map((s) => tx.getAllByIndex('drop', 'by_series', s.id)));
+        const newestFirst = (a: { updated_at: string; id: string }, b: { updated_at: string; id: string }) => compareKeys(b.updated_at, a.updated_at) || compareKeys(a.id, b.id);
+        return {
+          readings: readings.filter((r) => r.deleted).sort(newestFirst),
+          series: series.filter((s) => s.deleted).sort(newestFirst),
+          drops: dropLists.flat().filter((d) => d.deleted).sort(newestFirst),
         };
       });
     },

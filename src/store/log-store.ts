@@ -10,6 +10,7 @@ import type {
   LogAction,
   MetaKey,
   MetaValues,
+  RemovedInDay,
   ReviseOptions,
   StoreStatus,
   WriteOptions,
@@ -23,6 +24,8 @@ export interface LogStore {
   listDays(): Promise<DayListItem[]>;
   /** One day with everything needed to show it; 'not-found' when there is no such day or it is deleted. */
   loadDay(dayId: string): Promise<DayView>;
+  /** The removed readings, series and drops of one day (tombstones), to list as removed and restore. */
+  loadRemoved(dayId: string): Promise<RemovedInDay>;
 
   /** A drop's `seq` is the one asked for or, if a live drop of its series already has it or a higher one, the next
    *  after the highest: derived inside the write, so two tabs adding to one series never give one number twice. */
@@ -31,6 +34,12 @@ export interface LogStore {
   revise<K extends RecordKind>(kind: K, id: string, patch: Partial<BodyOf[K]>, reason?: string | null, options?: ReviseOptions): Promise<RecordOf[K]>;
   /** Leaves a tombstone. Removing a day or a series removes what is inside it in the same transaction. */
   remove<K extends RecordKind>(kind: K, id: string, reason: string, options?: WriteOptions): Promise<RecordOf[K]>;
+  /** Brings a removed record back as a new version (a reason is kept); a day or a series brings back what was
+   *  removed together with it. Refused ('reference-missing') while what it points at is removed. */
+  restore<K extends RecordKind>(kind: K, id: string, reason: string, options?: WriteOptions): Promise<RecordOf[K]>;
+  /** Undoes an action that wrote `written` (as it left them), as one new action: nothing is erased. Refused
+   *  ('changed-elsewhere') when one of the records has changed since. Returns what the undo wrote. */
+  undo(written: readonly LogRecord[], reason: string): Promise<LogRecord[]>;
   /** Several steps of one user action in one transaction: all are written or none. Returns what was written. */
   commit(actions: LogAction[], options?: WriteOptions): Promise<LogRecord[]>;
   history<K extends RecordKind>(kind: K, id: string): Promise<Revision<BodyOf[K]>[]>;

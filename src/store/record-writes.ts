@@ -18,7 +18,7 @@ import { knownKinds } from './known-kinds';
 import { isKind } from './live-records';
 import type { LogStore } from './log-store';
 import { checkReferences } from './record-references';
-import { removalSet } from './removal-set';
+import { removalSet, restorationSet } from './removal-set';
 import { Staging } from './staging';
 import type { StoreContext } from './store-context';
 import type { LogAction, WriteOptions } from './types';
@@ -31,7 +31,7 @@ import { loadWriteChecks } from './load-write-checks';
 type Step =
   | { op: 'create'; kind: RecordKind; body: BodyOf[RecordKind]; id?: string | undefined }
   | { op: 'revise'; kind: RecordKind; id: string; patch: Partial<BodyOf[RecordKind]>; reason?: string | null; expectedRev?: string | undefined }
-  | { op: 'remove'; kind: RecordKind; id: string; reason: string };
+  | { op: 'remove' | 'restore'; kind: RecordKind; id: string; reason: string; expectedRev?: string | undefined };
 
 /**
  * A new drop's number, read from the drops stored (and staged by this action) inside the write transaction, not
@@ -59,13 +59,13 @@ function changedElsewhere(current: LogRecord, expectedRev: string): StoreError {
 export function recordWrites(
   ctx: StoreContext,
   askPersistenceOnce: () => void,
-): Pick<LogStore, 'create' | 'revise' | 'remove' | 'commit' | 'newId'> {
+): Pick<LogStore, 'create' | 'revise' | 'remove' | 'restore' | 'undo' | 'commit' | 'newId'> {
   const { backend, env, clock } = ctx;
 
   async function runSteps(steps: readonly Step[], options: WriteOptions = {}): Promise<LogRecord[]> {
     ctx.ensureOpen();
     // Before the transaction: inside it, only its own requests may be awaited.
-    const { assertGateRecords, createRecord, deleteRecord, reviseRecord } = await loadWriteChecks();
+    const { assertGateRecords, createRecord, deleteRecord, restoreRecord, reviseRecord } = await loadWriteChecks();
     const now = env.now();
     const written = await backend.write(async (tx) => {
       const [storedClock, unsentBefore] = await Promise.all([tx.getMeta('clock'), tx.getMeta('unsent_changes')]);
@@ -96,9 +96,19 @@ export function recordWrites(
           if (next === current) continue;
           await checkReferences(next, current, staging);
           staging.stage(next, current);
-        } else {
+        } else if (step.op === 'remove') {
           if (current.deleted) continue;
+          if (step.expectedRev !== undefined && current.rev !== step.expectedRev) throw changedElsewhere(current, step.expectedRev);
           for (const record of await removalSet(current, staging)) staging.stage(deleteRecord(record, { ...recordCtx, reason: step.reason }), record);
+        } else {
+          if (!current.deleted) continue;
+          if (step.expectedRev !== undefined && current.rev !== step.expectedRev) throw changedElsewhere(current, step.expectedRev);
+          // Containers first, so each restored record finds what it points at live again.
+          for (const record of await restorationSet(current, staging)) {
+            const next = restoreRecord(record, { ...recordCtx, reason: step.reason });
+            await checkReferences(next, undefined, staging);
+            staging.stage(next, record);
+          }
         }
       }
       const records = [...staging.records.values()];
@@ -149,6 +159,15 @@ export function recordWrites(
 
     async remove(kind, id, reason, options = {}) {
       return resultOf(await runSteps([{ op: 'remove', kind, id, reason }], options), kind, id);
+    },
+
+    async restore(kind, id, reason, options = {}) {
+      return resultOf(await runSteps([{ op: 'restore', kind, id, reason }], options), kind, id);
+    },
+
+    async undo(written, reason) {
+      const { undoSteps } = await loadWriteChecks();
+      return runSteps(undoSteps(written, reason));
     },
 
     commit: (actions: LogAction[], options?: WriteOptions) => runSteps(actions, options),

@@ -50,4 +50,17 @@ export class Staging {
     for (const r of this.records.values()) if (isKind(r, kind)) found.set(r.id, r);
     return [...found.values()].filter((r) => isLive(r) && pointer(r) === id);
   }
+
+  /** Removed records (tombstones) of `kind` found by `index` whose `pointer` is `id`, as they stand after the steps so far. */
+  async removedReferrers<K extends IndexedKind>(
+    kind: K,
+    index: IndexName<K>,
+    id: string,
+    pointer: (record: RecordOf[K]) => string | null,
+  ): Promise<RecordOf[K][]> {
+    const found = new Map<string, RecordOf[K]>();
+    for (const r of await this.tx.getAllByIndex(kind, index, id)) found.set(r.id, r);
+    for (const r of this.records.values()) if (isKind(r, kind)) found.set(r.id, r);
+    return [...found.values()].filter((r) => r.deleted && pointer(r) === id);
+  }
 }

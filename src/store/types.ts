@@ -39,6 +39,14 @@ export interface DayView {
   specimens: SpecimenRecord[];
 }
 
+/** The removed records of one day, to show as removed and restore; newest removal first. */
+export interface RemovedInDay {
+  readings: ReadingRecord[];
+  series: SeriesRecord[];
+  /** Removed drops of the day's live and removed series. */
+  drops: DropRecord[];
+}
+
 /** Counts kept per day so the list of days opens without reading every drop (schema version 2). */
 export interface DaySummary {
   day_id: string;
@@ -49,11 +57,13 @@ export interface DaySummary {
 
 type CreateAction<K extends RecordKind> = { op: 'create'; kind: K; body: BodyOf[K]; id?: string };
 type ReviseAction<K extends RecordKind> = { op: 'revise'; kind: K; id: string; patch: Partial<BodyOf[K]>; reason?: string | null; expectedRev?: string };
-type RemoveAction<K extends RecordKind> = { op: 'remove'; kind: K; id: string; reason: string };
+type RemoveAction<K extends RecordKind> = { op: 'remove'; kind: K; id: string; reason: string; expectedRev?: string };
+/** Brings a removed record back (a day or series with what was removed together with it). */
+type RestoreAction<K extends RecordKind> = { op: 'restore'; kind: K; id: string; reason: string; expectedRev?: string };
 
 /** One step of a user action; commit() applies a list of them in one transaction. */
 export type LogAction = {
-  [K in RecordKind]: CreateAction<K> | ReviseAction<K> | RemoveAction<K>;
+  [K in RecordKind]: CreateAction<K> | ReviseAction<K> | RemoveAction<K> | RestoreAction<K>;
 }[RecordKind];
 
 export interface WriteOptions {

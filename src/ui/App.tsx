@@ -6,6 +6,7 @@ import type { UpdateHandle } from './service-worker';
 import { useApp } from './app-context';
 import { lazyScreen } from './lazy';
 import { Notice } from './Notice';
+import { UndoProvider } from './undo';
 // The day is the screen the app opens on: its router is small and comes with the shell; its parts load lazily.
 import { DayScreen, preloadDayScreen } from './screens/DayScreen';
 
@@ -53,6 +54,7 @@ export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) =>
   }, [route.screen, route.params.join('/')]);
 
   return (
+    <UndoProvider>
     <div class="shell">
       <header class="topbar">
         <a class="brand" href={routeHref('day')}>
@@ -88,5 +90,6 @@ export function App({ updates }: { updates: { subscribe(fn: (u: UpdateHandle) =>
       {update ? <UpdateNotice update={update} onDismiss={() => setUpdate(null)} /> : null}
       <Nav current={route.screen} unsent={status?.unsentChanges ?? 0} />
     </div>
+    </UndoProvider>
   );
 }

@@ -211,6 +211,85 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
       });
     });
 
+    describe('restoring and undoing', () => {
+      it('restores a removed series with the drops removed together with it, not a drop removed on its own before', async () => {
+        const { specimen, day } = await seedDay(store);
+        const written = await store.commit(seriesActions(store, day.id, specimen.id, [1.12, 1.13, 1.14]).actions);
+        const series = written[0]!;
+        fake.advance(1000);
+        await store.remove('drop', written[3]!.id, 'entered twice');
+        fake.advance(1000);
+        await store.remove('series', series.id, 'wrong specimen');
+        expect((await store.loadDay(day.id)).series).toEqual([]);
+        const removed = await store.loadRemoved(day.id);
+        expect(removed.series.map((s) => s.id)).toEqual([series.id]);
+        expect(removed.drops).toHaveLength(3);
+        fake.advance(1000);
+        const back = await store.restore('series', series.id, 'it was the right specimen');
+        expect(back.deleted).toBe(false);
+        const view = await store.loadDay(day.id);
+        expect(view.series.map((s) => s.id)).toEqual([series.id]);
+        expect(view.drops.map((d) => d.time_s)).toEqual([1.12, 1.13]);
+        expect((await store.listDays())[0]).toMatchObject({ series_count: 1, drop_count: 2 });
+        expect((await store.history('series', series.id)).map((v) => [v.deleted, v.reason])).toEqual([
+          [false, 'wrong specimen'],
+          [true, 'it was the right specimen'],
+          [false, null],
+        ]);
+      });
+
+      it('restores a removed day with everything removed with it', async () => {
+        const { specimen, day } = await seedDay(store);
+        await store.create('reading', { ...demo.reading(), day_id: day.id });
+        await store.commit(seriesActions(store, day.id, specimen.id, [1.12, 1.13]).actions);
+        fake.advance(1000);
+        await store.remove('day', day.id, 'wrong site');
+        fake.advance(1000);
+        await store.restore('day', day.id, 'right site after all');
+        const view = await store.loadDay(day.id);
+        expect([view.readings.length, view.series.length, view.drops.length]).toEqual([1, 1, 2]);
+        expect((await store.listDays())[0]).toMatchObject({ reading_count: 1, series_count: 1, drop_count: 2 });
+      });
+
+      it('refuses to restore a drop while its series is removed', async () => {
+        const { specimen, day } = await seedDay(store);
+        const [series, drop] = await store.commit(seriesActions(store, day.id, specimen.id, [1.12]).actions);
+        await store.remove('series', series!.id, 'wrong specimen');
+        expect(await codeOf(store.restore('drop', drop!.id, 'needed'))).toBe('reference-missing');
+        expect(await codeOf(store.restore('series', series!.id, ' '))).toBe('reason-required');
+      });
+
+      it('undoes an added drop, a correction and a removal, each as a new version', async () => {
+        const { specimen, day } = await seedDay(store);
+        const [series] = await store.commit(seriesActions(store, day.id, specimen.id, [1.12]).actions);
+        const added = await store.create('drop', { ...demo.drop(2), series_id: series!.id, time_s: 1.5031 });
+        await store.undo([added], 'undone');
+        expect((await store.loadDay(day.id)).drops.map((d) => d.time_s)).toEqual([1.12]);
+        expect((await store.get('drop', added.id))?.deleted).toBe(true);
+
+        const drop = (await store.loadDay(day.id)).drops[0]!;
+        const fixed = await store.revise('drop', drop.id, { time_s: 1.21 }, 'typed 1.12 for 1.21');
+        await store.undo([fixed], 'undone');
+        const after = await store.get('drop', drop.id);
+        expect(after?.time_s).toBe(1.12);
+        expect(after?.history).toHaveLength(2);
+
+        const gone = await store.remove('series', series!.id, 'wrong specimen');
+        const restored = await store.undo([gone], 'undone');
+        expect(restored.some((r) => r.kind === 'series' && !r.deleted)).toBe(true);
+        expect((await store.loadDay(day.id)).drops.map((d) => d.time_s)).toEqual([1.12]);
+      });
+
+      it('refuses an undo once the record has changed since', async () => {
+        const { specimen, day } = await seedDay(store);
+        const [series] = await store.commit(seriesActions(store, day.id, specimen.id, [1.12]).actions);
+        const added = await store.create('drop', { ...demo.drop(2), series_id: series!.id, time_s: 1.3 });
+        await store.revise('drop', added.id, { note: 'gusty' });
+        expect(await codeOf(store.undo([added], 'undone'))).toBe('changed-elsewhere');
+        expect((await store.get('drop', added.id))?.deleted).toBe(false);
+      });
+    });
+
     describe('one transaction per user action', () => {
       it('writes a series and its drops together', async () => {
         const { specimen, day } = await seedDay(store);

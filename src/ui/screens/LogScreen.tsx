@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { analyzeDay } from '../../analysis';
+import { RestoreRow } from '../record-edit';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { routeHref } from '../router';
@@ -57,7 +58,28 @@ export function LogScreen() {
         ))}
       </ul>
       {data.state === 'ready' && rows.length === 0 && data.value.days.length > 0 ? <p>No day matches “{query}”.</p> : null}
+      <RemovedDays />
     </div>
+  );
+}
+
+/** Days removed from the log, each with the way back (its readings, series and drops come back with it). */
+function RemovedDays() {
+  const app = useApp();
+  const removed = useStoreData(async () => {
+    const [days, sites] = await Promise.all([app.store.list('day', { includeDeleted: true }), app.store.list('site', { includeDeleted: true })]);
+    return days.filter((d) => d.deleted).map((d) => ({ d, site: sites.find((s) => s.id === d.site_id)?.name ?? 'site missing' }));
+  }, []);
+  if (removed.state !== 'ready' || removed.value.length === 0) return null;
+  return (
+    <section aria-labelledby="removed-days-h">
+      <h2 id="removed-days-h">Removed days</h2>
+      <ul class="rows">
+        {removed.value.map(({ d, site }) => (
+          <RestoreRow key={d.id} record={d} label={`day ${d.date}`} detail={site} />
+        ))}
+      </ul>
+    </section>
   );
 }
 

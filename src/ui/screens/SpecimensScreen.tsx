@@ -5,6 +5,7 @@ import { useDraft, useStoreData } from '../hooks';
 import { Choice, MeasuredField, Notice, QField, TextField, field, fieldsValid, type FieldState } from '../forms';
 import { navigate, routeHref } from '../router';
 import { describeError } from '../errors';
+import { RecordActions, RestoreRow } from '../record-edit';
 
 const SHAPES: Array<{ value: ShapeKind; label: string }> = [
   { value: 'sphere', label: 'Sphere' },
@@ -39,6 +40,7 @@ function describeShape(shape: SpecimenShape, format: (v: number, k: 'smallLength
 function SpecimenList() {
   const app = useApp();
   const list = useStoreData(() => app.store.list('specimen'), []);
+  const removed = useStoreData(async () => (await app.store.list('specimen', { includeDeleted: true })).filter((s) => s.deleted), []);
   return (
     <div>
       <a class="btn btn-block" href={routeHref('specimens', 'new')}>
@@ -65,6 +67,16 @@ function SpecimenList() {
               ))
           : null}
       </ul>
+      {removed.state === 'ready' && removed.value.length > 0 ? (
+        <section aria-labelledby="removed-spec-h">
+          <h2 id="removed-spec-h">Removed</h2>
+          <ul class="rows">
+            {removed.value.map((s) => (
+              <RestoreRow key={s.id} record={s} label={s.name} detail={app.format(s.mass_kg, 'mass')} />
+            ))}
+          </ul>
+        </section>
+      ) : null}
     </div>
   );
 }
@@ -285,6 +297,17 @@ function SpecimenForm({ record: opened }: { record: SpecimenRecord | null }) {
       <button type="button" class="btn btn-block" disabled={!valid || needsReason} onClick={save}>
         {record ? 'Save changes' : 'Add to the catalogue'}
       </button>
+      {record && !record.deleted ? (
+        <RecordActions
+          key={record.rev}
+          record={record}
+          label={record.name}
+          correctable={false}
+          fields={[]}
+          consequence="Series that use it keep it until they are changed; a specimen in use cannot be removed. "
+          onRemoved={() => navigate('specimens')}
+        />
+      ) : null}
     </section>
   );
 }

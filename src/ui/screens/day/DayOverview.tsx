@@ -6,6 +6,8 @@ import { Notice } from '../../Notice';
 import { routeHref } from '../../router';
 import { describeError } from '../../errors';
 import { lazyModule, lazyScreen } from '../../lazy';
+import { inputRange, LIMITS, type ReadingRecord } from '../../../log';
+import { RecordActions, RestoreRow, type EditField } from '../../record-edit';
 
 // The overview shows the day at once; the physics behind its figures, and the forms it opens on a tap, load apart.
 const useDayFigures = lazyModule(() => import('./day-figures'));
@@ -24,6 +26,7 @@ export function DayOverview({ dayId }: { dayId: string }) {
   return (
     <div>
       <DayHeader view={view} />
+      <DayTools view={view} />
       <section aria-labelledby="readings-h">
         <h2 id="readings-h">Air readings</h2>
         {view.readings.length === 0 ? <p>No reading yet. The air density needs one.</p> : <ReadingList view={view} />}
@@ -50,6 +53,7 @@ export function DayOverview({ dayId }: { dayId: string }) {
           </button>
         )}
       </section>
+      <RemovedInDay view={view} />
       <div class="btn-row">
         <a class="btn btn-quiet" href={routeHref('day', dayId, 'summary')}>
           End of the day
@@ -90,17 +94,118 @@ function ReadingList({ view }: { view: DayView }) {
           density = rho === null ? 'not computable' : format(rho, 'density');
         }
         return (
-          <li key={r.id} class="row">
-            <span class="row-main">
-              {new Date(r.taken_at).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · {format(r.temperature_C, 'temperature')} ·{' '}
-              {format(r.pressure_Pa, 'pressure')} {r.pressure_reference === 'station' ? 'on site' : 'reported, sea level'} ·{' '}
-              {r.humidity.kind === 'relative' ? `${r.humidity.relative_humidity_pct} % RH` : `dew point ${format(r.humidity.dew_point_C, 'temperature')}`}
-            </span>
-            <span class="row-side">ρ {density}</span>
+          <li key={r.id}>
+            <details class="row-details">
+              <summary class="row" aria-label={`Reading of ${clock(r.taken_at)}: correct, history or remove`}>
+                <span class="row-main">
+                  {clock(r.taken_at)} · {format(r.temperature_C, 'temperature')} ·{' '}
+                  {format(r.pressure_Pa, 'pressure')} {r.pressure_reference === 'station' ? 'on site' : 'reported, sea level'} ·{' '}
+                  {r.humidity.kind === 'relative' ? `${r.humidity.relative_humidity_pct} % RH` : `dew point ${format(r.humidity.dew_point_C, 'temperature')}`}
+                </span>
+                <span class="row-side">ρ {density}</span>
+              </summary>
+              <RecordActions key={r.rev} record={r} label={`the reading of ${clock(r.taken_at)}`} fields={readingFields(r)} />
+            </details>
           </li>
         );
       })}
     </ul>
+  );
+}
+
+const clock = (iso: string) => new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+
+function readingFields(r: ReadingRecord): EditField[] {
+  const humidity: EditField[] =
+    r.humidity.kind === 'relative'
+      ? [{ name: 'humidity.relative_humidity_pct', label: 'Relative humidity', type: 'quantity', kind: 'percent', ...inputRange(LIMITS.relative_humidity_pct) }]
+      : [{ name: 'humidity.dew_point_C', label: 'Dew point', type: 'quantity', kind: 'temperature', ...inputRange(LIMITS.dew_point_C) }];
+  return [
+    { name: 'taken_at', label: 'Time of the reading', type: 'instant' },
+    { name: 'temperature_C', label: 'Air temperature', type: 'quantity', kind: 'temperature', ...inputRange(LIMITS.temperature_C) },
+    { name: 'pressure_Pa', label: 'Pressure', type: 'quantity', kind: 'pressure', ...inputRange(r.pressure_reference === 'sea_level' ? LIMITS.sea_level_pressure_Pa : LIMITS.station_pressure_Pa) },
+    ...humidity,
+    { name: 'wind_speed_m_s', label: 'Wind speed (optional)', type: 'quantity', kind: 'speed', optional: true, ...inputRange(LIMITS.wind_speed_m_s) },
+    { name: 'instrument', label: 'Instrument', type: 'text' },
+    { name: 'notes', label: 'Notes', type: 'text' },
+  ];
+}
+
+/** Correcting or removing the day itself and its site. */
+function DayTools({ view }: { view: DayView }) {
+  const app = useApp();
+  const sites = useStoreData(() => app.store.list('site'), []);
+  const siteOptions = (sites.state === 'ready' ? sites.value : view.site ? [view.site] : []).map((s) => ({ value: s.id, label: s.name }));
+  return (
+    <details class="card row-details">
+      <summary>Correct the day or the site</summary>
+      <h3>The day</h3>
+      <RecordActions
+        key={view.day.rev}
+        record={view.day}
+        label="this day"
+        consequence="Its readings, series and drops are removed with it. "
+        fields={[
+          { name: 'date', label: 'Date', type: 'date' },
+          { name: 'site_id', label: 'Site', type: 'select', options: siteOptions },
+          { name: 'crew', label: 'Crew (separated by commas)', type: 'list' },
+          { name: 'notes', label: 'Notes', type: 'text' },
+        ]}
+        onRemoved={() => {
+          void app.updateSettings({ currentDayId: null });
+          location.hash = routeHref('log');
+        }}
+      />
+      {view.site ? (
+        <>
+          <h3>The site: {view.site.name}</h3>
+          <RecordActions
+            key={view.site.rev}
+            record={view.site}
+            label="this site"
+            removable={false}
+            fields={[
+              { name: 'name', label: 'Site name', type: 'text' },
+              { name: 'latitude_deg', label: 'Latitude', type: 'quantity', kind: 'angle', ...inputRange(LIMITS.latitude_deg) },
+              { name: 'longitude_deg', label: 'Longitude', type: 'quantity', kind: 'angle', ...inputRange(LIMITS.longitude_deg) },
+              { name: 'elevation_m', label: 'Elevation', type: 'quantity', kind: 'length', ...inputRange(LIMITS.elevation_m) },
+              { name: 'notes', label: 'Notes', type: 'text' },
+            ]}
+          />
+        </>
+      ) : null}
+    </details>
+  );
+}
+
+/** What was removed from this day, each with the way back. */
+function RemovedInDay({ view }: { view: DayView }) {
+  const app = useApp();
+  const { format } = app;
+  const removed = useStoreData(() => app.store.loadRemoved(view.day.id), [view.day.id]);
+  const specimens = useStoreData(() => app.store.list('specimen', { includeDeleted: true }), []);
+  if (removed.state !== 'ready') return null;
+  const { readings, series, drops } = removed.value;
+  const liveSeries = new Map(view.series.map((s) => [s.id, s]));
+  const loose = drops.filter((d) => liveSeries.has(d.series_id));
+  if (readings.length + series.length + loose.length === 0) return null;
+  const nameOf = (id: string) => (specimens.state === 'ready' ? specimens.value.find((p) => p.id === id)?.name : undefined) ?? 'Unknown specimen';
+  return (
+    <section aria-labelledby="removed-h">
+      <h2 id="removed-h">Removed</h2>
+      <p class="hint">Kept with the reason; restore brings each back as it was.</p>
+      <ul class="rows">
+        {series.map((s) => (
+          <RestoreRow key={s.id} record={s} label={`series ${nameOf(s.specimen_id)}`} detail={`from ${format(s.height_m, 'length', 2)}`} />
+        ))}
+        {readings.map((r) => (
+          <RestoreRow key={r.id} record={r} label={`reading of ${clock(r.taken_at)}`} detail={format(r.temperature_C, 'temperature')} />
+        ))}
+        {loose.map((d) => (
+          <RestoreRow key={d.id} record={d} label={`drop ${d.seq} of ${nameOf(liveSeries.get(d.series_id)!.specimen_id)}`} detail={`${d.time_s.toFixed(3)} s`} />
+        ))}
+      </ul>
+    </section>
   );
 }
 

@@ -22,6 +22,8 @@ interface ReadingDraft extends ReadingPlaceDraft {
   wind: FieldState;
   instrument: string;
   notes: string;
+  /** When the air was read, as the phone's local "YYYY-MM-DDTHH:MM"; empty: now, when saved. */
+  takenAt?: string;
 }
 
 /** The live air figures for what has been typed so far (or why there are none yet). */
@@ -76,7 +78,7 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
         'reading',
         {
           day_id: dayId,
-          taken_at: new Date().toISOString(),
+          taken_at: d.takenAt ? new Date(d.takenAt).toISOString() : new Date().toISOString(),
           temperature_C: d.temperature.value!,
           u_temperature_C: d.uTemperature.value!,
           pressure_Pa: d.pressure.value!,
@@ -137,6 +139,13 @@ export function ReadingForm({ dayId, site, onDone }: { dayId: string; site: Site
       <QField label="Wind speed (optional)" kind="speed" required={false} state={d.wind} {...inputRange(LIMITS.wind_speed_m_s)} onChange={(wind) => form.set({ wind })} />
       <ReadingPlaceFields draft={d} onChange={(next) => form.set(next)} />
       <TextField id="instrument" label="Instrument" value={d.instrument} onInput={(instrument) => form.set({ instrument })} />
+      <div class="field">
+        <label for="reading-time">Time of the reading</label>
+        <input id="reading-time" type="datetime-local" value={d.takenAt ?? ''} aria-describedby="reading-time-hint" onInput={(e) => form.set({ takenAt: (e.target as HTMLInputElement).value })} />
+        <div class="hint" id="reading-time-hint">
+          Empty: now. A reading typed in later keeps the time the air was read; each series uses the reading nearest its start.
+        </div>
+      </div>
       <AirFigures preview={preview} />
       {error ? <Notice tone="bad">{error}</Notice> : null}
       <div class="btn-row">

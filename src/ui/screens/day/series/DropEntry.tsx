@@ -6,6 +6,7 @@ import { useDraft } from '../../../hooks';
 import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../../forms';
 import { describeError } from '../../../errors';
 import type { TimeCapturedDetail } from '../../../../widgets';
+import { useUndo } from '../../../undo';
 
 interface DropDraft {
   time: FieldState;
@@ -38,18 +39,23 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
   const d = form.value;
   const valid = fieldsValid(d.time) && (!d.otherHeight || fieldsValid(d.height));
 
-  const save = async () => {
-    if (!valid || saving) return;
+  const { offerUndo } = useUndo();
+  /** Saves the drop; a capture from the timer pad is passed in directly (Impact adds the drop, with undo). */
+  const save = async (capture?: { time_s: number; raw: TimeCapturedDetail['raw'] }) => {
+    if ((!capture && !valid) || saving) return;
+    if (capture && d.otherHeight && !fieldsValid(d.height)) return;
     setSaving(true);
     setError(null);
     try {
-      await app.store.create(
+      const time_s = capture ? capture.time_s : d.time.value!;
+      const raw = capture ? capture.raw : (d.captured ?? { kind: 'typed' as const, text: d.time.text ?? String(d.time.value) });
+      const drop = await app.store.create(
         'drop',
         {
           series_id: series.id,
           seq: nextSeq,
-          raw: d.captured ?? { kind: 'typed', text: d.time.text ?? String(d.time.value) },
-          time_s: d.time.value!,
+          raw,
+          time_s,
           height_m: d.otherHeight ? d.height.value : null,
           excluded: false,
           exclusion_reason: null,
@@ -60,6 +66,7 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
       );
       await form.clear();
       form.replace({ ...d, time: { value: null, error: null, text: '' }, note: '', captured: null });
+      offerUndo(`Drop ${drop.seq} added: ${time_s.toFixed(3)} s`, [drop]);
       app.notifyChanged();
       (input.current as { focus?: () => void } | null)?.focus?.();
     } catch (e) {
@@ -96,8 +103,8 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
               decimalComma={app.settings.decimalComma}
               ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
                 // The capture carries its sound-travel correction as data (raw.sound_travel).
-                const t = e.detail.time_s;
-                form.set({ time: { value: t, error: null, text: t.toFixed(4) }, captured: e.detail.raw });
+                // Impact adds the drop at once; the undo bar takes it back if the tap was a slip.
+                void save({ time_s: e.detail.time_s, raw: e.detail.raw });
               }}
             />
           </>

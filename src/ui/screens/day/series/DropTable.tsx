@@ -7,12 +7,15 @@ import { useApp } from '../../../app-context';
 import { Notice, TextField } from '../../../forms';
 import { describeError } from '../../../errors';
 import { formatNumber } from '../../../../widgets/units';
+import { RecordActions } from '../../../record-edit';
+import { inputRange, LIMITS } from '../../../../log';
 
 export function DropTable({ drops, series, outcome }: { drops: readonly DropRecord[]; series: SeriesRecord; outcome: SeriesOutcome }) {
   const app = useApp();
   const [excluding, setExcluding] = useState<string | null>(null);
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string | null>(null);
+  const [picked, setPicked] = useState<string | null>(null);
   const rows = seriesDropRows(series, drops, outcome).map((r) => ({
     d: r.drop,
     h: r.height_m,
@@ -82,7 +85,17 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
               const diff = difference(row);
               return (
               <tr key={d.id} class={d.excluded ? 'excluded' : ''}>
-                <th scope="row">{d.seq}</th>
+                <th scope="row">
+                  <button
+                    type="button"
+                    class="btn btn-quiet btn-small drop-num"
+                    aria-expanded={picked === d.id}
+                    aria-label={`Correct or remove drop ${d.seq}`}
+                    onClick={() => setPicked((p) => (p === d.id ? null : d.id))}
+                  >
+                    {d.seq}
+                  </button>
+                </th>
                 {oneHeight ? null : <td>{app.format(h, 'length', 2).replace(/ \S+$/, '')}</td>}
                 <td>{formatNumber(d.time_s, 3, app.settings.decimalComma)}</td>
                 <td>{predicted !== null ? formatNumber(predicted, 3, app.settings.decimalComma) : '—'}</td>
@@ -108,6 +121,29 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
           </tbody>
         </table>
       </div>
+      {picked && drops.some((x) => x.id === picked)
+        ? (() => {
+            const d = drops.find((x) => x.id === picked)!;
+            return (
+              <div class="drop-tools" role="group" aria-label={`Drop ${d.seq}`}>
+                <h4>
+                  Drop {d.seq}: {d.time_s.toFixed(3)} s
+                </h4>
+                <RecordActions
+                  key={d.id}
+                  record={d}
+                  label={`drop ${d.seq}`}
+                  fields={[
+                    { name: 'time_s', label: 'Fall time', type: 'quantity', kind: 'time', ...inputRange(LIMITS.time_s) },
+                    { name: 'height_m', label: 'Height of this drop (empty: the series height)', type: 'quantity', kind: 'length', optional: true, ...inputRange(LIMITS.height_m) },
+                    { name: 'note', label: 'Note', type: 'text' },
+                  ]}
+                  onRemoved={() => setPicked(null)}
+                />
+              </div>
+            );
+          })()
+        : null}
       {rows
         .filter((r) => r.d.excluded)
         .map((r) => (
