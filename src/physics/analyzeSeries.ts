@@ -12,7 +12,7 @@ import { groupDrops, type DropGroups } from './dropGroups';
 import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from './fallModel';
 import { fallWithVariableDrag } from './fallWithVariableDrag';
 import { solveFallTimeFactor } from './fitDragConstant';
-import { grubbsTest } from './grubbsTest';
+import { grubbsPerSeries } from './grubbsTest';
 import { monteCarloPropagation, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
 import type { PhysicsWarning } from './physicsWarning';
 import { fitSeries, type SeriesFit } from './seriesFit';
@@ -241,16 +241,17 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     });
   }
 
-  // Per height statistics and outlier flags.
+  // Per height statistics and outlier flags (Grubbs' α shared out over the heights: at most 5 % false alarms per series).
+  const grubbsByHeight = grubbsPerSeries(groupTimes);
   const heights: HeightResult[] = groupHeights.map((h, j) => {
     const times = groupTimes[j]!;
     const stats = seriesStatistics(times);
-    const grubbs = grubbsTest(times);
+    const grubbs = grubbsByHeight[j]!;
     if (grubbs?.outlier) {
       const dropIndex = groupDrops[j]![grubbs.suspect_index]!;
       warnings.push({
         code: 'possible-outlier',
-        message: `Drop ${dropIndex + 1} of the series (${times[grubbs.suspect_index]} s from ${h} m) fails Grubbs' test (G = ${grubbs.statistic.toFixed(3)} > ${grubbs.critical_value.toFixed(3)} at α = 0.05). It is kept; check the log before removing it.`,
+        message: `Drop ${dropIndex + 1} of the series (${times[grubbs.suspect_index]} s from ${h} m) fails Grubbs' test (G = ${grubbs.statistic.toFixed(3)} > ${grubbs.critical_value.toFixed(3)} at α = ${grubbs.alpha.toPrecision(2)} for this height, 0.05 for the series). It is kept; check the log before removing it.`,
       });
     }
     return {

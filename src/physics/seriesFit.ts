@@ -53,6 +53,7 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
   }
   x0[L.timingOffset_s] = setup.subtractedOffset_s;
   x0[L.addedMassChange] = 0;
+  x0[L.densityRelativeChange] = 0;
   const estimate = model.evaluate(x0);
   if (model.status !== 'ok') {
     throw new PhysicsInputError({

@@ -56,6 +56,8 @@ export interface SeriesModelLayout {
   timingOffset_s: number;
   /** Optional trailing position: added to the added-mass coefficient (0 when absent). */
   addedMassChange: number;
+  /** Optional trailing position: relative change of the computed air density (the formula's own error; 0 when absent). */
+  densityRelativeChange: number;
   /** With the optional trailing positions; a shorter vector reads them as 0. */
   fullLength: number;
 }
@@ -105,7 +107,8 @@ export class SeriesModel {
       length: firstTime + J,
       timingOffset_s: firstTime + J,
       addedMassChange: firstTime + J + 1,
-      fullLength: firstTime + J + 2,
+      densityRelativeChange: firstTime + J + 2,
+      fullLength: firstTime + J + 3,
     };
     this.heights = new Float64Array(J);
     this.times = new Float64Array(J);
@@ -115,6 +118,7 @@ export class SeriesModel {
   density(x: Float64Array): number {
     const L = this.layout;
     if (this.setup.densityOverride) return x[L.density_kg_m3]!;
+    const formulaError = 1 + (x[L.densityRelativeChange] ?? 0);
     const T = x[L.temperature_K]!;
     const p = x[L.pressure_Pa]!;
     let xv = 0;
@@ -123,7 +127,7 @@ export class SeriesModel {
     } else if (this.setup.humidity === 'dew-point') {
       xv = vapourMoleFractionFromDewPoint(p, x[L.humidity]!);
     }
-    return moistAirDensity(p, T, xv, this.setup.co2MoleFraction);
+    return moistAirDensity(p, T, xv, this.setup.co2MoleFraction) * formulaError;
   }
 
   // Intermediate values of the last evaluate(), for evaluateDetailed().
