@@ -65,7 +65,7 @@ export interface AnalysisOptions {
   buoyancy?: boolean;
   /** Default by shape: 0.5 for a sphere (potential flow), a spheroid estimate for cylinder, disc and box, 0 for custom. */
   added_mass_coefficient?: number;
-  /** Monte Carlo draws; default 20 000. */
+  /** Monte Carlo draws, exactly; without it the draws are adaptive (JCGM 101 §7.9, batches of 2000 up to 200 000). */
   monte_carlo_draws?: number;
   /** Seed of the Monte Carlo generator; a fixed default keeps results reproducible. */
   seed?: number;
@@ -184,6 +184,21 @@ export interface AnalysisResult {
     standard_deviation: number;
     interval_95: [number, number];
     upper_bound_95: number;
+    /**
+     * Present when the request did not name its number of draws: the draws went on in batches until the mean, the
+     * standard deviation, both interval ends and the one-sided bound were each stable to the numerical tolerance
+     * (JCGM 101 §7.9; see monteCarloPropagation.ts), at most max_draws.
+     */
+    adaptive?: {
+      batch_size: number;
+      batches: number;
+      /** δ in units of C_d: each reported value is within it with about 95 % probability (2s ≤ δ). */
+      numerical_tolerance: number;
+      /** δ as a fraction of the Monte Carlo standard deviation (1/20). */
+      relative_tolerance: number;
+      max_draws: number;
+      stabilized: boolean;
+    };
   };
   prediction: {
     /** 'morrison-sphere-correlation' only in results made before the standard curve replaced it. */

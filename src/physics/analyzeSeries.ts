@@ -13,7 +13,7 @@ import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from
 import { fallWithVariableDrag } from './fallWithVariableDrag';
 import { solveFallTimeFactor } from './fitDragConstant';
 import { grubbsPerSeries } from './grubbsTest';
-import { monteCarloPropagation, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
+import { adaptiveMonteCarloPropagation, monteCarloPropagation, type AdaptiveMonteCarloResult, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
 import type { PhysicsWarning } from './physicsWarning';
 import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
@@ -116,12 +116,22 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     },
   };
   if (humidityKind === 'dew-point') mcSpec.dewPoint = { index: L.humidity, temperatureIndex: L.temperature_K };
-  const mc = monteCarloPropagation(model, x0, mcSpec, fitOffset);
+  // A request that names its number of draws gets exactly that many; otherwise the draws go on in batches until
+  // the reported values are numerically stable (JCGM 101 §7.9, monteCarloPropagation.ts), up to a cap.
+  const adaptive = req.options?.monte_carlo_draws === undefined;
+  const mc = adaptive ? adaptiveMonteCarloPropagation(model, x0, mcSpec, fitOffset) : monteCarloPropagation(model, x0, mcSpec, fitOffset);
+  const adaptiveRun = adaptive ? (mc as AdaptiveMonteCarloResult).adaptive : null;
   const mcCd = mc.dragCoefficient;
   if (mcCd.failed > 0) {
     warnings.push({
       code: 'monte-carlo-failed-draws',
-      message: `${mcCd.failed} of ${draws} Monte Carlo draws gave no drag coefficient and were left out.`,
+      message: `${mcCd.failed} of ${mcCd.draws} Monte Carlo draws gave no drag coefficient and were left out.`,
+    });
+  }
+  if (adaptiveRun && !adaptiveRun.stabilized) {
+    warnings.push({
+      code: 'monte-carlo-not-stabilized',
+      message: `The Monte Carlo interval did not settle to its numerical tolerance (${adaptiveRun.tolerance.toPrecision(2)}, a twentieth of its standard deviation) within ${adaptiveRun.max_draws} draws: its ends may move by about ${(adaptiveRun.worst_ratio * adaptiveRun.tolerance).toPrecision(2)} between runs.`,
     });
   }
 
@@ -311,13 +321,25 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       interval_95: [estimate - coverageFactor * uc, estimate + coverageFactor * uc],
     },
     monte_carlo: {
-      draws,
+      draws: mcCd.draws,
       failed_draws: mcCd.failed,
       seed,
       mean: mcCd.mean,
       standard_deviation: mcCd.standard_deviation,
       interval_95: mcCd.interval_95,
       upper_bound_95: mcCd.upper_bound_95,
+      ...(adaptiveRun
+        ? {
+            adaptive: {
+              batch_size: adaptiveRun.batch_size,
+              batches: adaptiveRun.batches,
+              numerical_tolerance: adaptiveRun.tolerance,
+              relative_tolerance: adaptiveRun.relative_tolerance,
+              max_draws: adaptiveRun.max_draws,
+              stabilized: adaptiveRun.stabilized,
+            },
+          }
+        : {}),
     },
     prediction: {
       method: predictionMethod,
