@@ -18,6 +18,7 @@ import type { PhysicsWarning } from './physicsWarning';
 import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
 import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
+import { seriesDragLaw } from './seriesDragLaw';
 import { seriesStatistics } from './seriesStatistics';
 import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
 import { studentTQuantile } from './studentT';
@@ -155,6 +156,10 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       message: `Drag is not resolved: the delay it causes is within about twice the timing uncertainty (or the 95 % interval reaches zero). The drag coefficient is below ${upperBound.toPrecision(3)} with 95 % probability; drop from higher or time more precisely to measure it.`,
     });
   }
+
+  // The drag law (dragLaw.ts): reported values in the chosen law, the constant fit kept beside them.
+  const dragLaw = seriesDragLaw(setup, groups, fit, mc, budget.combined_standard_uncertainty, resolved, excess);
+  warnings.push(...dragLaw.warnings);
 
   // GUM interval (for comparison with the Monte Carlo one).
   const nuEff = budget.effective_degrees_of_freedom;
@@ -305,12 +310,14 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     },
     gravity_m_s2: g,
     gravity_source: site.source,
-    drag_coefficient: resolved ? estimate : null,
-    drag_coefficient_estimate: estimate,
-    drag_coefficient_standard_uncertainty: uc,
-    drag_coefficient_interval_95: resolved ? mcCd.interval_95 : [0, upperBound],
+    drag_coefficient: resolved ? dragLaw.estimate : null,
+    drag_coefficient_estimate: dragLaw.estimate,
+    drag_coefficient_standard_uncertainty: dragLaw.standardUncertainty,
+    drag_coefficient_interval_95: resolved ? dragLaw.interval_95 : [0, upperBound],
     drag_resolved: resolved,
-    terminal_velocity_m_s: resolved ? Math.sqrt(gEff / kHat) : null,
+    drag_law: dragLaw.law,
+    drag_law_details: dragLaw.details,
+    terminal_velocity_m_s: resolved ? dragLaw.terminalVelocity_m_s : null,
     drops,
     heights,
     budget: budgetRows,

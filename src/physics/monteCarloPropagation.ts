@@ -295,6 +295,11 @@ function swap(v: Float64Array, i: number, j: number): void {
   v[j] = t;
 }
 
+/** The summary of a set of draws (reorders them). */
+export function summariseDraws(values: Float64Array, draws: number, failed: number): MonteCarloSummary {
+  return summarise(values, draws, failed);
+}
+
 function summarise(values: Float64Array, draws: number, failed: number): MonteCarloSummary {
   const n = values.length;
   let sum = 0;
