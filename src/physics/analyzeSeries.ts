@@ -149,7 +149,10 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   }
   const resolved = kHat > 0 && mcCd.interval_95[0] > 0 && bestDelayRatio >= 2;
   const detectionCd = Number.isFinite(detectionK) ? cdFromDragConstant(setup, detectionK) : 0;
-  const upperBound = Math.max(mcCd.upper_bound_95, detectionCd);
+  // The one-sided bound is the Monte Carlo's 95th percentile: a floor at the detection limit would make it hold
+  // far more often than the 95 % it states (measured: 100 % instead of 95 % on heavy balls, coverageUnresolved.test.ts).
+  void detectionCd;
+  const upperBound = Math.max(mcCd.upper_bound_95, 0);
   if (!resolved) {
     warnings.push({
       code: 'drag-not-resolved',
