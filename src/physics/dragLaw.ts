@@ -16,7 +16,7 @@
  * height the map is exact; with several it follows the direction in which timing noise moves the times most.
  */
 import type { VariableDragBody } from './fallWithVariableDrag';
-import { standardSphereDragCoefficient } from './standardSphereDrag';
+import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, standardSphereDragCoefficient } from './standardSphereDrag';
 
 export type DragLaw = 'constant' | 'scaled_sphere';
 export type DragLawOption = DragLaw | 'auto';
@@ -145,24 +145,25 @@ export interface DragLawChoice {
   law: DragLaw;
   /** The Reynolds numbers over which the law was judged: half the lowest impact Re up to the highest. */
   reynolds_range: [number, number];
-  /** |C_d,std(low)/C_d,std(high) − 1|. */
+  /** |C_d,std(low)/C_d,std(high) − 1|, both Reynolds numbers capped at NEWTON_REGIME_REYNOLDS. */
   sphere_curve_change: number;
   reason: string;
 }
 
 /**
- * Measured standard curves differ by up to about 10 % between wind tunnels at Re 2e3–2e5 (standardSphereDrag.ts):
- * a change of the curve smaller than that cannot be told from a different curve, so it does not call for a
- * speed-dependent law (our reading of that spread).
+ * Above this Reynolds number a sphere is in Newton's regime, where its drag is nearly constant (about 0.4–0.5 up
+ * to the drag crisis; common practice) and measured standard curves differ by up to about 10 % between wind tunnels
+ * (standardSphereDrag.ts): the curve's shape there cannot be told from a constant, so `auto` counts only the change
+ * below it.
  */
-export const SPHERE_CURVE_SPREAD = 0.1;
+export const NEWTON_REGIME_REYNOLDS = 2e3;
 
 /**
  * The rule of `auto`: the standard sphere curve's relative change between half the lowest impact Reynolds number
  * (below half its impact speed a body feels at most a quarter of its drag) and the highest impact Reynolds number,
- * against the series' relative standard uncertainty of C_d (and at least the curves' own spread,
- * SPHERE_CURVE_SPREAD). Larger: a constant C_d is the wrong model. In practice this picks the scaled curve below
- * Re of a few thousand (seeds, particles, small light bodies) and keeps a constant C_d for balls in Newton's regime.
+ * both capped at NEWTON_REGIME_REYNOLDS, against the series' relative standard uncertainty of C_d, and at least the
+ * curve's own stated 5 % (STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY). Larger: a constant C_d is the wrong model. In
+ * practice this picks the scaled curve for seeds, particles and small light bodies, and a constant C_d for balls.
  */
 export function chooseDragLaw(
   option: DragLawOption,
@@ -172,13 +173,15 @@ export function chooseDragLaw(
 ): DragLawChoice {
   const low = 0.5 * Math.min(...impactReynolds);
   const high = Math.max(...impactReynolds);
-  const change = low > 0 && high > 0 ? Math.abs(standardSphereDragCoefficient(low) / standardSphereDragCoefficient(high) - 1) : 0;
+  const lowCapped = Math.min(low, NEWTON_REGIME_REYNOLDS);
+  const highCapped = Math.min(high, NEWTON_REGIME_REYNOLDS);
+  const change = low > 0 && high > 0 ? Math.abs(standardSphereDragCoefficient(lowCapped) / standardSphereDragCoefficient(highCapped) - 1) : 0;
   const range: [number, number] = [low, high];
   if (option !== 'auto') return { law: option, reynolds_range: range, sphere_curve_change: change, reason: 'requested' };
   if (shape !== 'sphere' && shape !== 'custom') {
     return { law: 'constant', reynolds_range: range, sphere_curve_change: change, reason: `a ${shape} has sharp edges: its drag depends little on Re` };
   }
-  const threshold = Math.max(relativeUncertainty, SPHERE_CURVE_SPREAD);
+  const threshold = Math.max(relativeUncertainty, STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY);
   const speedDependent = change > threshold;
   return {
     law: speedDependent ? 'scaled_sphere' : 'constant',

@@ -116,7 +116,8 @@ export function adaptiveMonteCarloPropagation(
 ): AdaptiveMonteCarloResult {
   const M = options.batch_size;
   const maxBatches = Math.max(2, Math.floor(options.max_draws / M));
-  const run = new MonteCarloRun(model, x0, { ...spec, draws: maxBatches * M }, withOffset, maxBatches * M);
+  // Room for a few batches at first (most runs stop early); it grows when more are needed.
+  const run = new MonteCarloRun(model, x0, { ...spec, draws: maxBatches * M }, withOffset, Math.min(8, maxBatches) * M);
   // Per batch: mean, standard deviation, 2.5 %, 97.5 % and 95 % points.
   const stats: number[][] = [[], [], [], [], []];
   let h = 0;
@@ -166,8 +167,8 @@ function standardDeviationOf(v: ArrayLike<number>): number {
 /** One stream of draws from one seed, drawn in as many batches as wanted; the same seed gives the same draws. */
 class MonteCarloRun {
   private readonly random: RandomSource;
-  readonly values: Float64Array;
-  private readonly offsets: Float64Array | null;
+  values: Float64Array;
+  private offsets: Float64Array | null;
   private readonly x: Float64Array;
   ok = 0;
   failed = 0;
@@ -187,6 +188,17 @@ class MonteCarloRun {
   }
 
   drawBatch(count: number): void {
+    if (this.ok + count > this.values.length) {
+      const size = Math.max(2 * this.values.length, this.ok + count);
+      const grown = new Float64Array(size);
+      grown.set(this.values.subarray(0, this.ok));
+      this.values = grown;
+      if (this.offsets) {
+        const grownOffsets = new Float64Array(size);
+        grownOffsets.set(this.offsets.subarray(0, this.ok));
+        this.offsets = grownOffsets;
+      }
+    }
     const { model, x0, x, random, values, offsets } = this;
     const { normals, times, dewPoint } = this.spec;
     const declaredVariance = times.declared_s * times.declared_s;

@@ -61,8 +61,12 @@ describe('the scaled standard sphere curve', () => {
   it('chooses the law by the rule: the curve\'s change across the Reynolds range against the series\' uncertainty', () => {
     // Standard curve (standardSphereDrag.ts): C_d(250) = 0.80, C_d(500) = 0.56: a 43 % change.
     expect(chooseDragLaw('auto', 'sphere', [500], 0.03).law).toBe('scaled_sphere');
-    // Re 4e4 to 8e4: 0.464 to 0.496 (6.5 %): within the 10 % spread of measured curves, even for a 2 % series.
+    // Re 4e4 to 8e4 (0.464 to 0.496 on the curve): Newton's regime, where the curve's shape is within the spread of
+    // measured curves; a ball keeps a constant C_d even in a 2 % series.
     expect(chooseDragLaw('auto', 'sphere', [8e4], 0.02).law).toBe('constant');
+    expect(chooseDragLaw('auto', 'sphere', [8e4], 0.02).sphere_curve_change).toBe(0);
+    // Impacts at Re 1000 and 8000: the range 500–8000 counts up to 2000 only (C_d 0.555 to 0.421, 32 %).
+    expect(chooseDragLaw('auto', 'sphere', [1000, 8000], 0.02).sphere_curve_change).toBeCloseTo(0.5549 / 0.4211 - 1, 3);
     // Re 250 to 500 against a series known to only 50 %: the series cannot tell.
     expect(chooseDragLaw('auto', 'sphere', [500], 0.5).law).toBe('constant');
     expect(chooseDragLaw('auto', 'box', [500], 0.03).law).toBe('constant');
