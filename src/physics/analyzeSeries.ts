@@ -11,13 +11,12 @@ import { dropDragCoefficients } from './dropDragCoefficient';
 import { groupDrops, type DropGroups } from './dropGroups';
 import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from './fallModel';
 import { fallWithVariableDrag } from './fallWithVariableDrag';
-import { solveFallTimeFactor } from './fitDragConstant';
 import { grubbsPerSeries } from './grubbsTest';
 import { adaptiveMonteCarloPropagation, monteCarloPropagation, type AdaptiveMonteCarloResult, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
 import type { PhysicsWarning } from './physicsWarning';
 import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
-import { cdFromDragConstant, DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
+import { DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesDragLaw } from './seriesDragLaw';
 import { seriesStatistics } from './seriesStatistics';
 import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
@@ -138,20 +137,15 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
 
   // Is drag resolved at all?
   let bestDelayRatio = -Infinity;
-  let detectionK = Infinity;
   for (let j = 0; j < J; j++) {
     const h = groupHeights[j]!;
     const t0 = fallTime(h, noDrag);
     const uj = meanTimeU(j);
     bestDelayRatio = Math.max(bestDelayRatio, (fallTime(h, fitted) - t0) / uj);
-    const solved = solveFallTimeFactor(1 + (2 * uj) / t0);
-    if (solved.status === 'ok') detectionK = Math.min(detectionK, solved.x / h);
   }
   const resolved = kHat > 0 && mcCd.interval_95[0] > 0 && bestDelayRatio >= 2;
-  const detectionCd = Number.isFinite(detectionK) ? cdFromDragConstant(setup, detectionK) : 0;
   // The one-sided bound is the Monte Carlo's 95th percentile: a floor at the detection limit would make it hold
   // far more often than the 95 % it states (measured: 100 % instead of 95 % on heavy balls, coverageUnresolved.test.ts).
-  void detectionCd;
   const upperBound = Math.max(mcCd.upper_bound_95, 0);
   if (!resolved) {
     warnings.push({
