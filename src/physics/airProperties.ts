@@ -55,12 +55,19 @@ export interface AirProperties {
   vapour_mole_fraction: number | null;
   saturation_vapour_pressure_Pa: number;
   compressibility_factor: number | null;
+  /**
+   * The extra relative standard uncertainty of the CIPM-2007 density outside the range it was validated for
+   * (cipmExtrapolationRelativeUncertainty); 0 inside it, or when the density was given.
+   */
+  cipm_extrapolation_relative_uncertainty: number;
   warnings: PhysicsWarning[];
 }
 
 export const AIR_LIMITS = {
   temperature_C: { min: -100, max: 100, text: '-100 to 100 °C' },
-  pressure_Pa: { min: 0, minExclusive: true, max: 200_000, text: 'above 0 Pa and at most 200 000 Pa' },
+  // 20 kPa is the standard atmosphere near 11.8 km, above any release point or reading this analysis accepts
+  // (ISO 2533): a lower reading is a typing or unit error (hPa or kPa typed as Pa), never air we can use.
+  pressure_Pa: { min: 20_000, max: 200_000, text: '20 000 Pa to 200 000 Pa' },
   relative_humidity_pct: { min: 0, max: 100, text: '0 to 100 %' },
   co2_mole_fraction: { min: 0, max: 0.01, text: '0 to 0.01 (0 to 10 000 µmol/mol)' },
   density_kg_m3: { min: 0.1, max: 2, text: '0.1 to 2 kg/m³' },
@@ -74,6 +81,32 @@ export const CIPM_VALID_RANGE = {
 } as const;
 
 /**
+ * The sea-level pressures a day's weather makes likely. Outside tropical cyclones and the strongest winter highs
+ * nearly all sea-level readings fall within 940–1060 hPa (common practice); the world records are 870 hPa and
+ * 1083.8 hPa (WMO Archive of Weather and Climate Extremes, from memory). A station reading whose sea-level
+ * equivalent at the site's elevation falls outside this range is more likely a sea-level (QNH) value typed as the
+ * station pressure, or the reverse: at 400 m a QNH of 1013 hPa typed as station pressure reads as 1062 hPa.
+ */
+export const LIKELY_SEA_LEVEL_PRESSURE_PA: readonly [number, number] = [94_000, 106_000];
+
+/**
+ * Above this a reading in °C is more likely a Fahrenheit value (common practice: air above 45 °C is rare in the
+ * shade where crews read thermometers; the hottest reliably measured air, 54.4 °C, is from memory).
+ */
+export const LIKELY_MAX_TEMPERATURE_C = 45;
+
+/**
+ * CIPM-2007 inside its validated range: relative standard uncertainty 22 × 10⁻⁶ of the formula itself (Picard et
+ * al., Metrologia 45 (2008) 149, section 5, from memory). Outside it, the parts of the formula that are fits to
+ * measurements (the compressibility factor Z and the enhancement factor) are extrapolated. We bound the extra error
+ * by the whole compressibility correction |1 − Z| (about 4 × 10⁻⁴ near the ground) and take it as a rectangular
+ * distribution (GUM 4.3.7): u_rel = |1 − Z|/√3, at least 1 × 10⁻⁴/√3 (our assessment).
+ */
+export function cipmExtrapolationRelativeUncertainty(compressibility: number): number {
+  return Math.max(Math.abs(1 - compressibility), 1e-4) / Math.sqrt(3);
+}
+
+/**
  * Air properties from readings. Errors (PhysicsInputError) for impossible input; warnings for
  * input outside the CIPM-2007 validation range. `field` prefixes every error's path.
  */
@@ -81,6 +114,13 @@ export function airProperties(air: AirInput, elevation_m?: number, field = 'air'
   const warnings: PhysicsWarning[] = [];
   const temperature_C = checkNumber(`${field}.temperature_C`, air.temperature_C, AIR_LIMITS.temperature_C);
   const T = temperature_C + 273.15;
+  if (temperature_C > LIKELY_MAX_TEMPERATURE_C) {
+    const asCelsius = ((temperature_C - 32) * 5) / 9;
+    warnings.push({
+      code: 'temperature-maybe-fahrenheit',
+      message: `Air temperature ${temperature_C} °C is above ${LIKELY_MAX_TEMPERATURE_C} °C, which shaded air rarely reaches: was it read in °F? (${temperature_C} °F would be ${asCelsius.toFixed(1)} °C.)`,
+    });
+  }
   const co2 =
     checkOptionalNumber(`${field}.co2_mole_fraction`, air.co2_mole_fraction, AIR_LIMITS.co2_mole_fraction) ??
     REFERENCE_CO2_MOLE_FRACTION;
@@ -111,6 +151,25 @@ export function airProperties(air: AirInput, elevation_m?: number, field = 'air'
       stationPressure = p;
       seaLevelPressure =
         elevation_m !== undefined && Number.isFinite(elevation_m) ? seaLevelPressureFromStation(p, elevation_m) : null;
+    }
+    if (stationPressure < AIR_LIMITS.pressure_Pa.min) {
+      throw new PhysicsInputError({
+        code: 'out-of-range',
+        field: `${field}.pressure_Pa`,
+        value: p,
+        allowed: `a station pressure of at least ${AIR_LIMITS.pressure_Pa.min} Pa at elevation ${elevation_m} m`,
+      });
+    }
+    const [likelyLow, likelyHigh] = LIKELY_SEA_LEVEL_PRESSURE_PA;
+    if (seaLevelPressure !== null && (seaLevelPressure < likelyLow || seaLevelPressure > likelyHigh)) {
+      const range = `${likelyLow / 100}–${likelyHigh / 100} hPa`;
+      warnings.push({
+        code: reference === 'station' ? 'station-pressure-unlikely' : 'sea-level-pressure-unlikely',
+        message:
+          reference === 'station'
+            ? `Station pressure ${Math.round(p)} Pa at ${elevation_m} m corresponds to ${Math.round(seaLevelPressure / 100)} hPa at sea level, outside the ${range} a day's weather makes likely: was a sea-level (QNH) value typed as the station pressure? Then set pressure_reference to "sea_level".`
+            : `Sea-level pressure ${Math.round(p)} Pa is outside the ${range} a day's weather makes likely: was the station pressure typed as a sea-level (QNH) value? Then set pressure_reference to "station".`,
+      });
     }
   }
 
@@ -167,21 +226,30 @@ export function airProperties(air: AirInput, elevation_m?: number, field = 'air'
   if (stationPressure !== null && xv !== null) {
     Z = compressibilityFactor(stationPressure, T, xv);
     cipmDensity = moistAirDensity(stationPressure, T, xv, co2);
+    // Routine outdoors (every cool morning): an information note, and the formula's extra uncertainty enters the
+    // budget when the density is computed (cipm_extrapolation_relative_uncertainty).
+    const extra = `its extra relative standard uncertainty ${cipmExtrapolationRelativeUncertainty(Z).toExponential(1)} is in the budget`;
     const [pLow, pHigh] = CIPM_VALID_RANGE.pressure_Pa;
     if (stationPressure < pLow || stationPressure > pHigh) {
       warnings.push({
         code: 'outside-cipm-pressure-range',
-        message: `Station pressure ${Math.round(stationPressure)} Pa is outside 60 000–110 000 Pa, the range CIPM-2007 was validated for; the density is extrapolated.`,
+        severity: 'info',
+        message: `Station pressure ${Math.round(stationPressure)} Pa is outside 60 000–110 000 Pa, the range CIPM-2007 was validated for; the density is extrapolated and ${extra}.`,
       });
     }
     const [tLow, tHigh] = CIPM_VALID_RANGE.temperature_C;
     if (temperature_C < tLow || temperature_C > tHigh) {
       warnings.push({
         code: 'outside-cipm-temperature-range',
-        message: `Air temperature ${temperature_C} °C is outside 15–27 °C, the range CIPM-2007 was validated for; the density is extrapolated (typically still within 0.1 % outdoors).`,
+        severity: 'info',
+        message: `Air temperature ${temperature_C} °C is outside 15–27 °C, the range CIPM-2007 was validated for; the density is extrapolated and ${extra}.`,
       });
     }
   }
+  const [pLow, pHigh] = CIPM_VALID_RANGE.pressure_Pa;
+  const [tLow, tHigh] = CIPM_VALID_RANGE.temperature_C;
+  const outsideCipm =
+    Z !== null && stationPressure !== null && (stationPressure < pLow || stationPressure > pHigh || temperature_C < tLow || temperature_C > tHigh);
 
   let density: number;
   let source: AirProperties['density_source'];
@@ -213,6 +281,7 @@ export function airProperties(air: AirInput, elevation_m?: number, field = 'air'
     vapour_mole_fraction: xv,
     saturation_vapour_pressure_Pa: psv,
     compressibility_factor: Z,
+    cipm_extrapolation_relative_uncertainty: outsideCipm && densityOverride === undefined ? cipmExtrapolationRelativeUncertainty(Z!) : 0,
     warnings,
   };
 }

@@ -4,6 +4,7 @@
  * A field may be added; none may change meaning.
  */
 import type { AirInput, PressureReference } from './airProperties';
+import type { DragLaw, DragLawOption } from './dragLaw';
 import type { SiteInput } from './normalGravity';
 import type { PhysicsWarning } from './physicsWarning';
 import type { SpecimenInput } from './specimenGeometry';
@@ -88,10 +89,16 @@ export interface AnalysisOptions {
   buoyancy?: boolean;
   /** Default by shape: 0.5 for a sphere (potential flow), a spheroid estimate for cylinder, disc and box, 0 for custom. */
   added_mass_coefficient?: number;
-  /** Monte Carlo draws; default 20 000. */
+  /** Monte Carlo draws, exactly; without it the draws are adaptive (JCGM 101 §7.9, batches of 2000 up to 200 000). */
   monte_carlo_draws?: number;
   /** Seed of the Monte Carlo generator; a fixed default keeps results reproducible. */
   seed?: number;
+  /**
+   * How C_d may depend on speed (dragLaw.ts): "constant", "scaled_sphere" (the standard sphere curve times one
+   * fitted factor), or "auto" (the default): scaled_sphere for a sphere or custom shape whose standard curve changes
+   * by more than the series' relative uncertainty across its Reynolds range, constant otherwise.
+   */
+  drag_law?: DragLawOption;
 }
 
 export interface AnalysisRequest {
@@ -188,7 +195,39 @@ export interface AnalysisResult {
     /** Where the values come from: "given", or the method's source. */
     source: string;
   };
-  /** Null when drag is not resolved. */
+  /**
+   * The drag law the result is given in (options.drag_law, or what "auto" chose) and why; see dragLaw.ts. With
+   * scaled_sphere, drag_coefficient (its estimate, standard uncertainty and interval) is C_d at the terminal Reynolds
+   * number; budget, gum and monte_carlo stay those of the constant-C_d fit every draw is mapped from.
+   */
+  drag_law: DragLaw;
+  drag_law_details: {
+    requested: DragLawOption;
+    reason: string;
+    /** Reynolds numbers the law was judged over: half the lowest impact Re up to the highest impact Re. */
+    reynolds_range: [number, number];
+    /** The standard sphere curve's relative change across that range. */
+    sphere_curve_change: number;
+    /** The constant-C_d fit, whatever the law (the value every draw of the uncertainty starts from). */
+    constant_drag_coefficient: number;
+    /** Only for scaled_sphere: the fitted factor on the standard sphere curve, its standard uncertainty and interval. */
+    scale_factor: number | null;
+    scale_factor_standard_uncertainty: number | null;
+    scale_factor_interval_95: [number, number] | null;
+    /** Re at the terminal (settling) speed, and the law's C_d there (for scaled_sphere this is drag_coefficient). */
+    terminal_reynolds_number: number | null;
+    drag_coefficient_at_terminal: number | null;
+    /** The law's C_d at the highest impact Reynolds number of the series. */
+    drag_coefficient_at_max_impact: number | null;
+    /**
+     * Per-height C_d (constant) or factor (scaled_sphere), each from its own height's mean time, tested for a trend
+     * against ln(height): slope over its standard error. Null below three heights (four with a fitted offset).
+     */
+    trend_z: number | null;
+    /** True when |trend_z| > 2: the law does not fit these heights (a warning says so). */
+    misfit: boolean;
+  };
+  /** Null when drag is not resolved. For scaled_sphere, the speed where s·C_d,std(Re)·v² balances effective gravity. */
   terminal_velocity_m_s: number | null;
   /** Only when drag is not resolved. */
   terminal_velocity_lower_bound_m_s?: number;
@@ -209,6 +248,21 @@ export interface AnalysisResult {
     standard_deviation: number;
     interval_95: [number, number];
     upper_bound_95: number;
+    /**
+     * Present when the request did not name its number of draws: the draws went on in batches until the mean, the
+     * standard deviation, both interval ends and the one-sided bound were each stable to the numerical tolerance
+     * (JCGM 101 §7.9; see monteCarloPropagation.ts), at most max_draws.
+     */
+    adaptive?: {
+      batch_size: number;
+      batches: number;
+      /** δ in units of C_d: each reported value is within it with about 95 % probability (2s ≤ δ). */
+      numerical_tolerance: number;
+      /** δ as a fraction of the Monte Carlo standard deviation (1/20). */
+      relative_tolerance: number;
+      max_draws: number;
+      stabilized: boolean;
+    };
   };
   prediction: {
     /** 'morrison-sphere-correlation' only in results made before the standard curve replaced it. */

@@ -99,6 +99,17 @@ export function budgetInputs(setup: SeriesSetup, groups: DropGroups, fit: Series
       single('dew_point_C', 'dew point', L.humidity, 1, u.dew_point_C);
     }
   }
+  if (air.cipm_extrapolation_relative_uncertainty > 0) {
+    specs.push({
+      input: 'air_density_formula',
+      description: 'CIPM-2007 used outside 15–27 °C or 600–1100 hPa: the formula\'s extra relative uncertainty (|1 − Z|/√3, see airProperties.ts)',
+      evaluation: 'B',
+      standard_uncertainty: air.cipm_extrapolation_relative_uncertainty,
+      indices: [L.densityRelativeChange],
+      weights: [1],
+      degrees_of_freedom: Infinity,
+    });
+  }
   if (u.gravity_m_s2 !== undefined || site.source === 'override') {
     single('gravity_m_s2', site.source === 'override' ? 'local gravity (given)' : 'local gravity', L.gravity_m_s2, 1, u.gravity_m_s2);
   }

@@ -6,6 +6,11 @@
  *   G = max|x_i − x̄| / s,   G_crit = (n−1)/√n · √( t² / (n − 2 + t²) ),  t = t_{1−α/(2n), n−2}
  *
  * The test only flags; nothing is ever removed from a series because of it.
+ *
+ * A series runs the test once per height, so at α = 0.05 per height a clean four-height series would be flagged
+ * about 1 − 0.95⁴ ≈ 19 % of the time. grubbsPerSeries keeps the false-alarm rate per series at α instead: each of
+ * the m heights it can test runs at α_h = 1 − (1 − α)^(1/m) (Šidák's correction for m independent tests; the
+ * heights' drops are independent, so it is exact up to the test's own slight conservatism).
  */
 import { mean, standardDeviation } from './seriesStatistics';
 import { studentTQuantile } from './studentT';
@@ -46,4 +51,19 @@ export function grubbsTest(values: ArrayLike<number>, alpha = 0.05): GrubbsResul
   const statistic = worst / s;
   const critical = grubbsCriticalValue(n, alpha);
   return { statistic, critical_value: critical, alpha, suspect_index: index, outlier: statistic > critical };
+}
+
+/** The false-alarm rate per series of grubbsPerSeries: clean data is flagged in at most this share of series. */
+export const SERIES_OUTLIER_FALSE_ALARM_RATE = 0.05;
+
+/** Each group's own α so that m independent tests together raise a false alarm with probability familyAlpha. */
+export function perGroupAlpha(testedGroups: number, familyAlpha = SERIES_OUTLIER_FALSE_ALARM_RATE): number {
+  return testedGroups <= 1 ? familyAlpha : 1 - Math.pow(1 - familyAlpha, 1 / testedGroups);
+}
+
+/** Grubbs' test on every group (height) of a series, at the per-group α that keeps the series' rate at familyAlpha. */
+export function grubbsPerSeries(groups: readonly ArrayLike<number>[], familyAlpha = SERIES_OUTLIER_FALSE_ALARM_RATE): (GrubbsResult | null)[] {
+  const testable = groups.filter((g) => g.length >= 3 && standardDeviation(g) > 0).length;
+  const alpha = perGroupAlpha(testable, familyAlpha);
+  return groups.map((g) => grubbsTest(g, alpha));
 }

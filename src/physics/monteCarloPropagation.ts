@@ -12,7 +12,7 @@
  * time is normal with variance (u_timing² + s_excess²·ν/χ²)/n_j, so one normal per height is
  * enough and the loop stays short.
  */
-import { createRandom } from './createRandom';
+import { createRandom, type RandomSource } from './createRandom';
 import type { SeriesModel } from './seriesModel';
 
 export interface NormalInput {
@@ -66,46 +66,181 @@ export function monteCarloPropagation(
   spec: MonteCarloSpec,
   withOffset: boolean,
 ): MonteCarloResult {
-  const random = createRandom(spec.seed);
-  const values = new Float64Array(spec.draws);
-  const offsets = withOffset ? new Float64Array(spec.draws) : null;
-  const x = Float64Array.from(x0);
-  const { normals, times, dewPoint } = spec;
-  const declaredVariance = times.declared_s * times.declared_s;
-  const excessVariance = times.excess_s * times.excess_s;
-  const dof = times.degrees_of_freedom;
-  let ok = 0;
-  let failed = 0;
-  for (let draw = 0; draw < spec.draws; draw++) {
-    for (let i = 0; i < normals.length; i++) {
-      const input = normals[i]!;
-      let value = x0[input.index]! + input.u * random.normal();
-      if (input.min !== undefined && value < input.min) value = input.min;
-      if (input.max !== undefined && value > input.max) value = input.max;
-      x[input.index] = value;
-    }
-    if (dewPoint && x[dewPoint.index]! > x[dewPoint.temperatureIndex]!) x[dewPoint.index] = x[dewPoint.temperatureIndex]!;
-    const variance = excessVariance > 0 ? declaredVariance + (excessVariance * dof) / random.chiSquare(dof) : declaredVariance;
-    for (let j = 0; j < times.indices.length; j++) {
-      const index = times.indices[j]!;
-      x[index] = x0[index]! + Math.sqrt(variance / times.counts[j]!) * random.normal();
-    }
-    const cd = model.evaluate(x);
-    if (model.status === 'ok' && Number.isFinite(cd)) {
-      values[ok] = cd;
-      if (offsets) offsets[ok] = model.offset_s;
-      ok++;
-    } else {
-      failed++;
+  const run = new MonteCarloRun(model, x0, spec, withOffset, spec.draws);
+  run.drawBatch(spec.draws);
+  return run.result();
+}
+
+/**
+ * The adaptive procedure of JCGM 101:2008 §7.9: draws in batches of `batch_size` until every quantity reported
+ * from the draws is numerically stable. After h ≥ 2 batches, for each of the mean, the standard deviation, the
+ * two ends of the 95 % interval and the one-sided 95 % bound, s = (standard deviation of its h batch values)/√h;
+ * stable when 2s ≤ δ for all of them (§7.9.4 f–h), then the results come from all h·M draws together.
+ *
+ * Our choices, stated: M = 2000 draws per batch, J = 100/(1 − p) for p = 0.95, the least §7.2.2 allows for a
+ * 95 % interval (§7.9.4 b) suggests max(J, 10⁴); the smaller batch lets a phone stop early when the result is
+ * already stable, and the h ≥ 2 batches are pooled anyway). δ = u/20: the tolerance §7.9.2 gives for u stated to
+ * two significant digits with leading digits 10, fixed relative to u so the cost does not jump with u's leading
+ * digits. At most `max_draws` draws (a cap, so a phone never waits long); a run that reaches it says so.
+ */
+export interface AdaptiveMonteCarloOptions {
+  batch_size: number;
+  /** δ as a fraction of the standard deviation of the draws. */
+  relative_tolerance: number;
+  max_draws: number;
+}
+
+export const ADAPTIVE_MONTE_CARLO: AdaptiveMonteCarloOptions = { batch_size: 2000, relative_tolerance: 1 / 20, max_draws: 200_000 };
+
+export interface AdaptiveMonteCarloResult extends MonteCarloResult {
+  adaptive: {
+    batch_size: number;
+    batches: number;
+    /** δ, in the quantity's units. */
+    tolerance: number;
+    relative_tolerance: number;
+    max_draws: number;
+    /** False when the cap stopped the draws before every quantity met the tolerance. */
+    stabilized: boolean;
+    /** Twice the largest s/δ ratio at the end (≤ 1 when stabilized). */
+    worst_ratio: number;
+  };
+}
+
+export function adaptiveMonteCarloPropagation(
+  model: SeriesModel,
+  x0: Float64Array,
+  spec: Omit<MonteCarloSpec, 'draws'>,
+  withOffset: boolean,
+  options: AdaptiveMonteCarloOptions = ADAPTIVE_MONTE_CARLO,
+): AdaptiveMonteCarloResult {
+  const M = options.batch_size;
+  const maxBatches = Math.max(2, Math.floor(options.max_draws / M));
+  // Room for a few batches at first (most runs stop early); it grows when more are needed.
+  const run = new MonteCarloRun(model, x0, { ...spec, draws: maxBatches * M }, withOffset, Math.min(8, maxBatches) * M);
+  // Per batch: mean, standard deviation, 2.5 %, 97.5 % and 95 % points.
+  const stats: number[][] = [[], [], [], [], []];
+  let h = 0;
+  let stabilized = false;
+  let worst = Infinity;
+  let tolerance = NaN;
+  while (h < maxBatches) {
+    const start = run.ok;
+    run.drawBatch(M);
+    h++;
+    const batch = run.values.slice(start, run.ok);
+    const summary = summarise(batch, M, 0);
+    [summary.mean, summary.standard_deviation, summary.interval_95[0], summary.interval_95[1], summary.upper_bound_95].forEach((v, i) => stats[i]!.push(v));
+    if (h < 2) continue;
+    tolerance = options.relative_tolerance * standardDeviationOf(run.values.subarray(0, run.ok));
+    worst = 0;
+    for (const series of stats) worst = Math.max(worst, (2 * standardDeviationOf(series)) / Math.sqrt(h) / tolerance);
+    if (worst <= 1) {
+      stabilized = true;
+      break;
     }
   }
-  model.evaluate(x0); // leave the model at its nominal point
-  const used = values.subarray(0, ok);
   return {
-    dragCoefficient: summarise(used, spec.draws, failed),
-    offset: offsets ? summarise(offsets.subarray(0, ok), spec.draws, failed) : null,
-    values: used,
+    ...run.result(),
+    adaptive: {
+      batch_size: M,
+      batches: h,
+      tolerance,
+      relative_tolerance: options.relative_tolerance,
+      max_draws: maxBatches * M,
+      stabilized,
+      worst_ratio: worst,
+    },
   };
+}
+
+function standardDeviationOf(v: ArrayLike<number>): number {
+  const n = v.length;
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += v[i]!;
+  const m = sum / n;
+  let ss = 0;
+  for (let i = 0; i < n; i++) ss += (v[i]! - m) ** 2;
+  return n > 1 ? Math.sqrt(ss / (n - 1)) : NaN;
+}
+
+/** One stream of draws from one seed, drawn in as many batches as wanted; the same seed gives the same draws. */
+class MonteCarloRun {
+  private readonly random: RandomSource;
+  values: Float64Array;
+  private offsets: Float64Array | null;
+  private readonly x: Float64Array;
+  ok = 0;
+  failed = 0;
+  drawn = 0;
+
+  constructor(
+    private readonly model: SeriesModel,
+    private readonly x0: Float64Array,
+    private readonly spec: MonteCarloSpec,
+    withOffset: boolean,
+    capacity: number,
+  ) {
+    this.random = createRandom(spec.seed);
+    this.values = new Float64Array(capacity);
+    this.offsets = withOffset ? new Float64Array(capacity) : null;
+    this.x = Float64Array.from(x0);
+  }
+
+  drawBatch(count: number): void {
+    if (this.ok + count > this.values.length) {
+      const size = Math.max(2 * this.values.length, this.ok + count);
+      const grown = new Float64Array(size);
+      grown.set(this.values.subarray(0, this.ok));
+      this.values = grown;
+      if (this.offsets) {
+        const grownOffsets = new Float64Array(size);
+        grownOffsets.set(this.offsets.subarray(0, this.ok));
+        this.offsets = grownOffsets;
+      }
+    }
+    const { model, x0, x, random, values, offsets } = this;
+    const { normals, times, dewPoint } = this.spec;
+    const declaredVariance = times.declared_s * times.declared_s;
+    const excessVariance = times.excess_s * times.excess_s;
+    const dof = times.degrees_of_freedom;
+    let ok = this.ok;
+    for (let draw = 0; draw < count; draw++) {
+      for (let i = 0; i < normals.length; i++) {
+        const input = normals[i]!;
+        let value = x0[input.index]! + input.u * random.normal();
+        if (input.min !== undefined && value < input.min) value = input.min;
+        if (input.max !== undefined && value > input.max) value = input.max;
+        x[input.index] = value;
+      }
+      if (dewPoint && x[dewPoint.index]! > x[dewPoint.temperatureIndex]!) x[dewPoint.index] = x[dewPoint.temperatureIndex]!;
+      const variance = excessVariance > 0 ? declaredVariance + (excessVariance * dof) / random.chiSquare(dof) : declaredVariance;
+      for (let j = 0; j < times.indices.length; j++) {
+        const index = times.indices[j]!;
+        x[index] = x0[index]! + Math.sqrt(variance / times.counts[j]!) * random.normal();
+      }
+      const cd = model.evaluate(x);
+      if (model.status === 'ok' && Number.isFinite(cd)) {
+        values[ok] = cd;
+        if (offsets) offsets[ok] = model.offset_s;
+        ok++;
+      } else {
+        this.failed++;
+      }
+    }
+    this.ok = ok;
+    this.drawn += count;
+    model.evaluate(x0); // leave the model at its nominal point
+  }
+
+  result(): MonteCarloResult {
+    const used = this.values.subarray(0, this.ok);
+    return {
+      dragCoefficient: summarise(used, this.drawn, this.failed),
+      offset: this.offsets ? summarise(this.offsets.subarray(0, this.ok), this.drawn, this.failed) : null,
+      values: used,
+    };
+  }
 }
 
 /** Linear interpolation between order statistics of sorted values, p in [0, 1]. */
@@ -170,6 +305,11 @@ function swap(v: Float64Array, i: number, j: number): void {
   const t = v[i]!;
   v[i] = v[j]!;
   v[j] = t;
+}
+
+/** The summary of a set of draws (reorders them). */
+export function summariseDraws(values: Float64Array, draws: number, failed: number): MonteCarloSummary {
+  return summarise(values, draws, failed);
 }
 
 function summarise(values: Float64Array, draws: number, failed: number): MonteCarloSummary {

@@ -76,6 +76,7 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
   }
   x0[L.timingOffset_s] = setup.subtractedOffset_s;
   x0[L.addedMassChange] = 0;
+  x0[L.densityRelativeChange] = 0;
   const column = setup.column;
   x0[L.lapseRate_K_per_m] = column.lapseRate_K_per_m;
   x0[L.verticalWind_m_s] = column.verticalWind_m_s;

@@ -71,6 +71,8 @@ export interface SeriesModelLayout {
   aloftHumidity: number;
   aloftVerticalWind_m_s: number;
   aloftWindSpeed_m_s: number;
+  /** Optional trailing position: relative change of the computed air density (the formula's own error; 0 when absent). */
+  densityRelativeChange: number;
   /** With the optional trailing positions; a shorter vector reads them as 0. */
   fullLength: number;
 }
@@ -141,7 +143,8 @@ export class SeriesModel {
       aloftHumidity: firstTime + J + 7,
       aloftVerticalWind_m_s: firstTime + J + 8,
       aloftWindSpeed_m_s: firstTime + J + 9,
-      fullLength: firstTime + J + 10,
+      densityRelativeChange: firstTime + J + 10,
+      fullLength: firstTime + J + 11,
     };
     this.columnSlopes = new Float64Array(J).fill(NaN);
     this.heights = new Float64Array(J);
@@ -152,11 +155,12 @@ export class SeriesModel {
   density(x: Float64Array): number {
     const L = this.layout;
     if (this.setup.densityOverride) return x[L.density_kg_m3]!;
+    const formulaError = 1 + (x[L.densityRelativeChange] ?? 0);
     const T = x[L.temperature_K]!;
     const p = x[L.pressure_Pa]!;
     const xv = vapourFraction(p, T, x[L.humidity]!, this.setup.humidity, 0);
     this.lastVapour = xv;
-    return moistAirDensity(p, T, xv, this.setup.co2MoleFraction);
+    return moistAirDensity(p, T, xv, this.setup.co2MoleFraction) * formulaError;
   }
 
   /** The air along the fall: 0 keeps the closed form in uniform still air (set from columnEffect, see columnCorrection.ts). */

@@ -246,7 +246,7 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
 
   if (root['options'] !== undefined) {
     const o = asObject(root['options'], 'options');
-    rejectUnknown(o, 'options', ['buoyancy', 'added_mass_coefficient', 'monte_carlo_draws', 'seed']);
+    rejectUnknown(o, 'options', ['buoyancy', 'added_mass_coefficient', 'monte_carlo_draws', 'seed', 'drag_law']);
     const options: AnalysisOptions = {};
     if (o['buoyancy'] !== undefined) {
       if (typeof o['buoyancy'] !== 'boolean') {
@@ -260,6 +260,13 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
       options.monte_carlo_draws = checkInteger('options.monte_carlo_draws', o['monte_carlo_draws'], OPTION_LIMITS.monte_carlo_draws);
     }
     if (o['seed'] !== undefined) options.seed = checkInteger('options.seed', o['seed'], OPTION_LIMITS.seed);
+    if (o['drag_law'] !== undefined) {
+      const law = o['drag_law'];
+      if (law !== 'auto' && law !== 'constant' && law !== 'scaled_sphere') {
+        throw new PhysicsInputError({ code: 'out-of-range', field: 'options.drag_law', value: law, allowed: '"auto", "constant" or "scaled_sphere"' });
+      }
+      options.drag_law = law;
+    }
     request.options = options;
   }
   return request;

@@ -46,10 +46,47 @@ describe('airProperties', () => {
     expect(e.allowed).toBe('"station" or "sea_level"');
   });
 
-  it('still computes outside 15–27 °C and 600–1100 hPa, with one warning for each', () => {
+  it('still computes outside 15–27 °C and 600–1100 hPa, with an information note for each and the extra uncertainty', () => {
     const air = airProperties({ ...day, temperature_C: 4, pressure_Pa: 55000 });
     expect(Number.isFinite(air.density_kg_m3)).toBe(true);
     expect(air.warnings.map((w) => w.code).sort()).toEqual(['outside-cipm-pressure-range', 'outside-cipm-temperature-range']);
+    expect(air.warnings.every((w) => w.severity === 'info')).toBe(true);
+    // |1 − Z|/√3 (GUM 4.3.7, rectangular): Z from the same reading.
+    expect(air.cipm_extrapolation_relative_uncertainty).toBeCloseTo(Math.abs(1 - air.compressibility_factor!) / Math.sqrt(3), 12);
+    expect(air.cipm_extrapolation_relative_uncertainty).toBeGreaterThan(1e-4 / Math.sqrt(3) - 1e-12);
+    expect(air.cipm_extrapolation_relative_uncertainty).toBeLessThan(1e-3);
+  });
+
+  it('adds no extrapolation uncertainty inside the CIPM range, nor to a given density', () => {
+    expect(airProperties(day).cipm_extrapolation_relative_uncertainty).toBe(0);
+    expect(airProperties({ ...day, temperature_C: 4, density_kg_m3: 1.2 }).cipm_extrapolation_relative_uncertainty).toBe(0);
+  });
+
+  it('asks whether a temperature above 45 °C was read in °F, and stays quiet at 45 °C', () => {
+    const hot = airProperties({ ...day, temperature_C: 72, relative_humidity_pct: 10 });
+    const w = hot.warnings.find((x) => x.code === 'temperature-maybe-fahrenheit');
+    expect(w?.message).toContain('°F');
+    // 72 °F = (72 − 32)·5/9 = 22.2 °C (the Fahrenheit scale's definition).
+    expect(w?.message).toContain('22.2 °C');
+    expect(airProperties({ ...day, temperature_C: 45, relative_humidity_pct: 10 }).warnings.map((x) => x.code)).not.toContain('temperature-maybe-fahrenheit');
+  });
+
+  it('asks whether a sea-level value was typed as the station pressure at an elevated site', () => {
+    // At 1500 m the standard atmosphere's station pressure is 84.6 kPa (ISO 2533 table, from memory); 101 300 Pa
+    // typed as station pressure is 1199 hPa at sea level, far outside 940–1060 hPa.
+    const typedQnh = airProperties({ ...day, pressure_Pa: 101_300 }, 1500);
+    const w = typedQnh.warnings.find((x) => x.code === 'station-pressure-unlikely');
+    expect(w?.message).toContain('sea_level');
+    expect(w?.message).toContain('940–1060 hPa');
+    // The right station reading at 1500 m, and the same QNH given as what it is, raise nothing.
+    expect(airProperties({ ...day, pressure_Pa: 84_600 }, 1500).warnings.map((x) => x.code)).not.toContain('station-pressure-unlikely');
+    const asQnh = airProperties({ ...day, pressure_Pa: 101_300, pressure_reference: 'sea_level' }, 1500);
+    expect(asQnh.warnings.map((x) => x.code)).not.toContain('sea-level-pressure-unlikely');
+    // A station reading typed as QNH: 84 600 Pa is no sea-level pressure a day's weather gives.
+    const typedStation = airProperties({ ...day, pressure_Pa: 84_600, pressure_reference: 'sea_level' }, 1500);
+    expect(typedStation.warnings.map((x) => x.code)).toContain('sea-level-pressure-unlikely');
+    // Near sea level the check cannot tell the two apart and stays quiet (at 100 m they differ by 1.2 %).
+    expect(airProperties({ ...day, pressure_Pa: 101_300 }, 100).warnings.map((x) => x.code)).not.toContain('station-pressure-unlikely');
   });
 
   it('refuses a relative humidity above 100 %, naming field, value and range', () => {
@@ -77,6 +114,12 @@ describe('airProperties', () => {
 
   it('refuses zero or negative pressure and non-finite numbers', () => {
     expect(errorOf(() => airProperties({ ...day, pressure_Pa: 0 })).code).toBe('out-of-range');
+    // Below 20 kPa (the standard atmosphere near 11.8 km, ISO 2533): a unit slip, refused with field and range.
+    const low = errorOf(() => airProperties({ ...day, pressure_Pa: 19_999 }));
+    expect([low.code, low.field, low.value, low.allowed]).toEqual(['out-of-range', 'air.pressure_Pa', 19_999, '20 000 Pa to 200 000 Pa']);
+    expect(airProperties({ ...day, temperature_C: -40, pressure_Pa: 20_000 }).station_pressure_Pa).toBe(20_000);
+    // A sea-level value that puts the station below 20 kPa is refused too (94 kPa at 9000 m is about 29 kPa: accepted).
+    expect(errorOf(() => airProperties({ ...day, pressure_Pa: 60_000, pressure_reference: 'sea_level' }, 9000)).field).toBe('air.pressure_Pa');
     expect(errorOf(() => airProperties({ ...day, pressure_Pa: -5 })).code).toBe('out-of-range');
     expect(errorOf(() => airProperties({ ...day, temperature_C: Number.NaN })).code).toBe('not-finite');
     expect(errorOf(() => airProperties({ ...day, temperature_C: Infinity })).code).toBe('not-finite');

@@ -42,7 +42,7 @@ describe('validateAnalysisRequest', () => {
   it('names field, value and allowed range for each kind of bad value', () => {
     const cases: [unknown, string, unknown, RegExp][] = [
       [variant((r) => (r.air.relative_humidity_pct = 120)), 'air.relative_humidity_pct', 120, /0 to 100 %/],
-      [variant((r) => (r.air.pressure_Pa = -1)), 'air.pressure_Pa', -1, /above 0 Pa/],
+      [variant((r) => (r.air.pressure_Pa = -1)), 'air.pressure_Pa', -1, /20 000 Pa to 200 000 Pa/],
       [variant((r) => (r.site.latitude_deg = 123)), 'site.latitude_deg', 123, /-90 to 90/],
       [variant((r) => (r.drops[1].time_s = 0)), 'drops[1].time_s', 0, /above 0/],
       [variant((r) => (r.drops[0].height_m = '12')), 'drops[0].height_m', '12', /a number/],

@@ -1,0 +1,124 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeSeries } from '../../src/physics/analyzeSeries';
+import type { AnalysisRequest } from '../../src/physics/analysisTypes';
+import { chooseDragLaw, fitSphereScale, scaledSphereFallTime, scaledSphereTerminalVelocity } from '../../src/physics/dragLaw';
+import { fallWithVariableDrag } from '../../src/physics/fallWithVariableDrag';
+import { standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
+import { odexSolver } from './odexSolver';
+import { particleBody, particleRequest, PARTICLE } from './particleSeries';
+
+describe('the scaled standard sphere curve', () => {
+  it('integrates the same fall as odex, a general-purpose integrator, to 1e-6', () => {
+    // The 1 mm glass bead from 1 m: Re runs from 0 through the Stokes range to several hundred.
+    const body = particleBody();
+    const s = 1.15;
+    const t = scaledSphereFallTime(1, body, s);
+    const drag = (v: number) => (v > 0 ? body.drag_constant_per_unit_cd_per_m * s * standardSphereDragCoefficient(body.reynolds_per_speed_s_m * v) * v * v : 0);
+    const reference = odexSolver(2, 1e-12).solve((_t, [, v]) => [v!, body.effective_gravity_m_s2 - drag(v!)], 0, [0, 0], t);
+    expect(Math.abs(reference.y[0]! - 1)).toBeLessThan(1e-6);
+    // And our adaptive Dormand–Prince, for a near-settling fall of a light bead too (10 m, v close to v_T).
+    for (const [h, scale] of [[1, 1.15], [10, 1], [0.2, 0.7]] as const) {
+      const own = fallWithVariableDrag(h, { ...body, dragCoefficient: (re) => scale * standardSphereDragCoefficient(re) }, 1e-12).time_s;
+      expect(Math.abs(scaledSphereFallTime(h, body, scale) / own - 1)).toBeLessThan(1e-6);
+    }
+    const light = { ...body, drag_constant_per_unit_cd_per_m: 30 * body.drag_constant_per_unit_cd_per_m };
+    const own = fallWithVariableDrag(5, { ...light, dragCoefficient: standardSphereDragCoefficient }, 1e-12).time_s;
+    expect(Math.abs(scaledSphereFallTime(5, light, 1) / own - 1)).toBeLessThan(1e-6);
+  });
+
+  it('fits the factor, and a timing offset beside it, back out of exact times', () => {
+    const body = particleBody();
+    const heights = [0.5, 1, 2, 3];
+    const times = heights.map((h) => scaledSphereFallTime(h, body, 1.3));
+    const fit = fitSphereScale(body, heights, times, [3, 3, 3, 3], false, 1);
+    expect(fit.converged).toBe(true);
+    expect(fit.scale).toBeCloseTo(1.3, 8);
+    const late = times.map((t) => t + 0.012);
+    const withOffset = fitSphereScale(body, heights, late, [3, 3, 3, 3], true, 1);
+    expect(withOffset.scale).toBeCloseTo(1.3, 6);
+    expect(withOffset.offset_s).toBeCloseTo(0.012, 8);
+  });
+
+  it('settles at the Stokes speed for a 10 µm bead (Stokes 1851: v = (ρ_p − ρ)·g·d²/(18μ))', () => {
+    const d = 10e-6;
+    const rhoP = 2500;
+    const rho = 1.2;
+    const mu = 1.81e-5;
+    const g = 9.81;
+    const m = (rhoP * Math.PI * d ** 3) / 6;
+    const V = (Math.PI * d ** 3) / 6;
+    // Terminal speed does not depend on added mass (no acceleration): g_e·m_e = (m − ρV)·g.
+    const mEff = m + 0.5 * rho * V;
+    const body = { effective_gravity_m_s2: (g * (m - rho * V)) / mEff, drag_constant_per_unit_cd_per_m: (rho * Math.PI * d * d) / 4 / (2 * mEff), reynolds_per_speed_s_m: (rho * d) / mu };
+    const stokes = ((rhoP - rho) * g * d * d) / (18 * mu);
+    // At Re ≈ 0.005 the curve's Oseen term (3/16 beside 24/Re) adds Re/128 ≈ 4e-5 to the drag.
+    expect(Math.abs(scaledSphereTerminalVelocity(body, 1) / stokes - 1)).toBeLessThan(1e-3);
+    // And a long fall approaches it.
+    const fall = fallWithVariableDrag(0.5, { ...body, dragCoefficient: standardSphereDragCoefficient });
+    expect(Math.abs(fall.impact_speed_m_s / scaledSphereTerminalVelocity(body, 1) - 1)).toBeLessThan(1e-6);
+  });
+
+  it('chooses the law by the rule: the curve\'s change across the Reynolds range against the series\' uncertainty', () => {
+    // Standard curve (standardSphereDrag.ts): C_d(250) = 0.80, C_d(500) = 0.56: a 43 % change.
+    expect(chooseDragLaw('auto', 'sphere', [500], 0.03).law).toBe('scaled_sphere');
+    // Re 4e4 to 8e4 (0.464 to 0.496 on the curve): Newton's regime, where the curve's shape is within the spread of
+    // measured curves; a ball keeps a constant C_d even in a 2 % series.
+    expect(chooseDragLaw('auto', 'sphere', [8e4], 0.02).law).toBe('constant');
+    expect(chooseDragLaw('auto', 'sphere', [8e4], 0.02).sphere_curve_change).toBe(0);
+    // Impacts at Re 1000 and 8000: the range 500–8000 counts up to 2000 only (C_d 0.555 to 0.421, 32 %).
+    expect(chooseDragLaw('auto', 'sphere', [1000, 8000], 0.02).sphere_curve_change).toBeCloseTo(0.5549 / 0.4211 - 1, 3);
+    // Re 250 to 500 against a series known to only 50 %: the series cannot tell.
+    expect(chooseDragLaw('auto', 'sphere', [500], 0.5).law).toBe('constant');
+    expect(chooseDragLaw('auto', 'box', [500], 0.03).law).toBe('constant');
+    expect(chooseDragLaw('constant', 'sphere', [500], 0.03).law).toBe('constant');
+  });
+});
+
+describe('a series analysed with speed-dependent drag', () => {
+  it('reports for a 1 mm bead C_d at the terminal Reynolds number, at impact, the factor and the settling speed', () => {
+    const result = analyzeSeries(particleRequest({ scale: 1, heights: [1, 1, 1, 1, 1] }));
+    expect(result.drag_law).toBe('scaled_sphere');
+    const d = result.drag_law_details;
+    expect(d.scale_factor).toBeCloseTo(1, 6);
+    const body = particleBody();
+    const vT = scaledSphereTerminalVelocity(body, 1);
+    expect(result.terminal_velocity_m_s).toBeCloseTo(vT, 6);
+    expect(result.drag_coefficient).toBeCloseTo(standardSphereDragCoefficient(body.reynolds_per_speed_s_m * vT), 6);
+    expect(d.terminal_reynolds_number).toBeCloseTo(body.reynolds_per_speed_s_m * vT, 4);
+    // The constant C_d of the same times lies above both: it stands for the slower, draggier part of the fall.
+    expect(d.constant_drag_coefficient).toBeGreaterThan(1.05 * d.drag_coefficient_at_max_impact!);
+    expect(d.drag_coefficient_at_max_impact!).toBeGreaterThan(d.drag_coefficient_at_terminal!);
+    const [low, high] = result.drag_coefficient_interval_95;
+    expect(low).toBeLessThan(result.drag_coefficient!);
+    expect(high).toBeGreaterThan(result.drag_coefficient!);
+    expect(d.reynolds_range[1]).toBeGreaterThan(d.reynolds_range[0]);
+  });
+
+  it('uses a constant C_d when asked to', () => {
+    const result = analyzeSeries(particleRequest({ scale: 1, heights: [1, 1, 1, 1, 1], drag_law: 'constant' }));
+    expect(result.drag_law).toBe('constant');
+    expect(result.drag_law_details.requested).toBe('constant');
+    expect(result.drag_law_details.scale_factor).toBeNull();
+  });
+
+  it('warns when the chosen law does not fit the heights, and not when it does', () => {
+    const heights = [0.3, 0.3, 0.3, 1, 1, 1, 3, 3, 3];
+    const constant = analyzeSeries(particleRequest({ scale: 1, heights, drag_law: 'constant' }));
+    expect(constant.warnings.map((w) => w.code)).toContain('drag-law-misfit');
+    expect(Math.abs(constant.drag_law_details.trend_z!)).toBeGreaterThan(2);
+    const scaled = analyzeSeries(particleRequest({ scale: 1, heights }));
+    expect(scaled.drag_law).toBe('scaled_sphere');
+    expect(scaled.warnings.map((w) => w.code)).not.toContain('drag-law-misfit');
+    expect(Math.abs(scaled.drag_law_details.trend_z!)).toBeLessThan(1e-3);
+  });
+
+  it('refuses an unknown drag law, naming the field and the choices', () => {
+    const request = particleRequest({ scale: 1, heights: [1, 1, 1] });
+    const hostile = { ...request, options: { ...request.options, drag_law: 'quadratic' } } as unknown as AnalysisRequest;
+    expect(() => analyzeSeries(hostile)).toThrow(/options\.drag_law/);
+  });
+
+  it('names the bead it uses', () => {
+    expect(PARTICLE.diameter_m).toBe(0.001);
+  });
+});
