@@ -128,3 +128,34 @@ export function planFor(inputs: PlanInputs): { plan: DropPlan; sources: PlanSour
   const { request, sources } = planRequest(inputs);
   return { plan: planDrop(request), sources };
 }
+
+/**
+ * What the crew should do next, as facts the screen words in its own units (never the planner's search limits):
+ * - `more`: `more` further drops from this height reach the target (`total` in all);
+ * - `scatter`: the planner says the drops made should already reach it, so the drops scatter more than the
+ *   series' declared timing: the timing or an outlier needs a look, not more drops;
+ * - `elsewhere`: this height and timing cannot within ADVICE_DEFAULTS.max_drops; `drops` drops from `height_m`
+ *   (the fewest-drops height the planner found, rounded up to 0.1 m) can;
+ * - `cannot`: no height the crew can reach does it with this timing; `floor` is what no number of drops removes
+ *   (size, mass, air, height), or null when better timing would help.
+ */
+export type SeriesAdvice =
+  | { kind: 'more'; more: number; total: number; height_m: number }
+  | { kind: 'scatter'; total: number; height_m: number }
+  | { kind: 'elsewhere'; drops: number; height_m: number }
+  | { kind: 'cannot'; floor: number | null };
+
+export function seriesAdviceFacts(outcome: Extract<SeriesOutcome, { kind: 'ready' }>, series: SeriesRecord, dropsUsed: number): SeriesAdvice {
+  const target = seriesAdvice(outcome, series);
+  if (!target) return { kind: 'cannot', floor: null };
+  const here = target.drops_at_planned_height;
+  if (here !== null) {
+    return here > dropsUsed ? { kind: 'more', more: here - dropsUsed, total: here, height_m: series.height_m } : { kind: 'scatter', total: here, height_m: series.height_m };
+  }
+  // The fewest drops first: of the counts the planner tried, the smallest that reaches the target from some height.
+  const best = target.heights_by_drops.find((h) => h.smallest_height_m !== null);
+  if (!best || best.smallest_height_m === null) {
+    return { kind: 'cannot', floor: target.systematic_relative_uncertainty_at_max_height >= target.relative_uncertainty ? target.systematic_relative_uncertainty_at_max_height : null };
+  }
+  return { kind: 'elsewhere', drops: best.drops, height_m: Math.ceil(best.smallest_height_m * 10) / 10 };
+}
