@@ -32,6 +32,9 @@ export interface QFieldProps {
   hint?: string;
   compact?: boolean;
   id?: string;
+  /** The keyboard's Enter key label (enterkeyhint) and what Enter does; without onEnter, Enter does nothing. */
+  enterHint?: 'next' | 'done' | 'send' | 'go' | 'enter';
+  onEnter?(state: FieldState): void;
 }
 
 /** A quantity field bound to a form's state, in the crew's chosen unit. */
@@ -53,9 +56,14 @@ export function QField(props: QFieldProps) {
       hint={props.hint ?? ''}
       compact={props.compact ?? false}
       decimalComma={settings.decimalComma}
+      enterHint={props.enterHint ?? 'next'}
       onquantity-change={(e: CustomEvent) => {
         const d = e.detail as QuantityChangeDetail;
         props.onChange({ text: d.text, value: d.value, error: d.error });
+      }}
+      onquantity-enter={(e: CustomEvent) => {
+        const d = e.detail as QuantityChangeDetail;
+        props.onEnter?.({ text: d.text, value: d.value, error: d.error });
       }}
     />
   );

@@ -1,6 +1,10 @@
-// Entering one drop: the timer pad (taps or sound) or a typed time, kept as a draft until saved.
+// Entering one drop: the timer pad (taps or sound) or a typed time, kept as a draft until saved. One motion per
+// drop: Enter (the keyboard's Next) adds it, focus stays in the time field, Add stays above the keyboard, and the
+// saved drop is confirmed beside the field (and by a short vibration where the phone has one).
 import { useRef, useState } from 'preact/hooks';
 import { inputRange, LIMITS, type SeriesRecord } from '../../../../log';
+import { tooFastTime } from '../../../../analysis';
+import { tooFastText } from './verdict-text';
 import { useApp } from '../../../app-context';
 import { useDraft } from '../../../hooks';
 import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../../forms';
@@ -19,7 +23,21 @@ interface DropDraft {
   landingDistance: FieldState;
 }
 
-export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; nextSeq: number; airTemperature: number | null }) {
+/** A short buzz on a saved drop, where the phone has a vibration motor (ms). */
+const SAVED_VIBRATION_MS = 30;
+
+export function DropEntry({
+  series,
+  nextSeq,
+  airTemperature,
+  gravity,
+}: {
+  series: SeriesRecord;
+  nextSeq: number;
+  airTemperature: number | null;
+  /** The site's gravity for the vacuum bound at entry; null when the site cannot give one (no check then). */
+  gravity: number | null;
+}) {
   const app = useApp();
   const key = `drop:${series.id}`;
   const form = useDraft<DropDraft>(key, () => ({
@@ -34,12 +52,22 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
   const padMode = series.timing_method === 'sound' ? 'listen' : series.timing_method === 'tap' ? 'tap' : null;
   const [error, setError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
+  const [saved, setSaved] = useState<string | null>(null);
   const input = useRef<HTMLElement>(null);
   const d = form.value;
   const valid = fieldsValid(d.time) && (!d.otherHeight || fieldsValid(d.height));
 
-  const save = async () => {
-    if (!valid || saving) return;
+  const focusTime = () => (input.current?.querySelector('pl-quantity') as { focus?: () => void } | null)?.focus?.();
+
+  const save = async (time = d.time) => {
+    if (!(fieldsValid(time) && (!d.otherHeight || fieldsValid(d.height))) || saving) return;
+    const height = d.otherHeight && d.height.value !== null ? d.height.value : series.height_m;
+    const tooFast = gravity !== null ? tooFastTime({ seq: nextSeq, time_s: time.value!, height_m: height }, gravity) : null;
+    if (tooFast) {
+      setError(tooFastText(tooFast, app.format));
+      setSaved(null);
+      return;
+    }
     setSaving(true);
     setError(null);
     try {
@@ -48,8 +76,8 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
         {
           series_id: series.id,
           seq: nextSeq,
-          raw: d.captured ?? { kind: 'typed', text: d.time.text ?? String(d.time.value) },
-          time_s: d.time.value!,
+          raw: d.captured ?? { kind: 'typed', text: time.text ?? String(time.value) },
+          time_s: time.value!,
           height_m: d.otherHeight ? d.height.value : null,
           excluded: false,
           exclusion_reason: null,
@@ -61,7 +89,9 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
       await form.clear();
       form.replace({ ...d, time: { value: null, error: null, text: '' }, note: '', captured: null });
       app.notifyChanged();
-      (input.current as { focus?: () => void } | null)?.focus?.();
+      setSaved(`Drop ${nextSeq} saved: ${app.format(time.value!, 'time')}${d.otherHeight ? ` from ${app.format(height, 'length', 2)}` : ''}`);
+      navigator.vibrate?.(SAVED_VIBRATION_MS);
+      focusTime();
     } catch (e) {
       setError(describeError(e));
     } finally {
@@ -108,9 +138,23 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
             kind="time"
             state={d.time}
             {...inputRange(LIMITS.time_s)}
+            enterHint="next"
             hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
-            onChange={(time) => form.set({ time, captured: null })}
+            onChange={(time) => {
+              form.set({ time, captured: null });
+              if (error) setError(null);
+            }}
+            onEnter={(time) => void save(time)}
           />
+        </div>
+        {error ? <Notice tone="bad">{error}</Notice> : null}
+        <div class="entry-bar">
+          <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
+            Add drop {nextSeq}
+          </button>
+          <p class="entry-saved" role="status" aria-live="polite" data-testid="drop-saved">
+            {saved ? `✓ ${saved}` : ''}
+          </p>
         </div>
         <label class="check">
           <input type="checkbox" checked={d.otherHeight} onChange={(e) => form.set({ otherHeight: (e.target as HTMLInputElement).checked })} />
@@ -120,10 +164,6 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
           <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
         ) : null}
         <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
-        {error ? <Notice tone="bad">{error}</Notice> : null}
-        <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
-          Add drop {nextSeq}
-        </button>
       </form>
     </section>
   );
