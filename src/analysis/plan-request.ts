@@ -32,6 +32,8 @@ export const ADVICE_DEFAULTS = {
   max_height_m: 100,
   /** Most drops considered from one height. */
   max_drops: 50,
+  /** A usual series from one height: the count the advice prefers when another height is needed (common practice). */
+  usual_drops: 10,
 } as const;
 
 export interface PlanInputs {
@@ -152,8 +154,11 @@ export function seriesAdviceFacts(outcome: Extract<SeriesOutcome, { kind: 'ready
   if (here !== null) {
     return here > dropsUsed ? { kind: 'more', more: here - dropsUsed, total: here, height_m: series.height_m } : { kind: 'scatter', total: here, height_m: series.height_m };
   }
-  // The fewest drops first: of the counts the planner tried, the smallest that reaches the target from some height.
-  const best = target.heights_by_drops.find((h) => h.smallest_height_m !== null);
+  // Of the counts the planner tried, the largest up to a usual series (ADVICE_DEFAULTS.usual_drops) that reaches
+  // the target from some height, which asks for the lowest release among them; failing that, the fewest above it.
+  // Never the search's own limit unless nothing less will do.
+  const reaching = target.heights_by_drops.filter((h) => h.smallest_height_m !== null);
+  const best = [...reaching].reverse().find((h) => h.drops <= ADVICE_DEFAULTS.usual_drops) ?? reaching[0];
   if (!best || best.smallest_height_m === null) {
     return { kind: 'cannot', floor: target.systematic_relative_uncertainty_at_max_height >= target.relative_uncertainty ? target.systematic_relative_uncertainty_at_max_height : null };
   }

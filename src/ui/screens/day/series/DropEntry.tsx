@@ -147,8 +147,8 @@ export function DropEntry({
             onEnter={(time) => void save(time)}
           />
         </div>
-        {error ? <Notice tone="bad">{error}</Notice> : null}
         <div class="entry-bar">
+          {error ? <Notice tone="bad">{error}</Notice> : null}
           <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
             Add drop {nextSeq}
           </button>
