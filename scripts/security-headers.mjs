@@ -57,8 +57,8 @@ export function pageContentSecurityPolicy(folderOrigins = null) {
 }
 
 /**
- * The powerful features the app uses: the microphone (timing by sound), the position (the site) and the share
- * sheet (sending a log). Video clips are picked with <input type="file" capture>, which opens the phone's own
+ * The powerful features the app uses: the microphone (timing by sound), the position (the site), the share
+ * sheet (sending a log) and the screen wake lock (the screen stays on while a series is open). Video clips are picked with <input type="file" capture>, which opens the phone's own
  * camera app and needs no camera permission for the page. Everything else is denied, to the page and to any
  * frame. Only names Chromium knows are listed (it logs an error for any other).
  */
@@ -66,6 +66,7 @@ export const PERMISSIONS_POLICY = [
   'microphone=(self)',
   'geolocation=(self)',
   'web-share=(self)',
+  'screen-wake-lock=(self)',
   'camera=()',
   'display-capture=()',
   'accelerometer=()',
@@ -79,7 +80,6 @@ export const PERMISSIONS_POLICY = [
   'payment=()',
   'publickey-credentials-get=()',
   'idle-detection=()',
-  'screen-wake-lock=()',
   'xr-spatial-tracking=()',
   'clipboard-read=()',
 ].join(', ');

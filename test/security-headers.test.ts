@@ -35,12 +35,13 @@ describe('the Content-Security-Policy', () => {
 });
 
 describe('the permissions policy', () => {
-  it('allows the microphone, the position and the share sheet to the app itself, and denies the camera', () => {
+  it('allows the microphone, the position, the share sheet and the screen wake lock to the app itself, and denies the camera', () => {
     const features = new Map(PERMISSIONS_POLICY.split(', ').map((f) => f.split('=') as [string, string]));
     expect(features.get('microphone')).toBe('(self)');
     expect(features.get('geolocation')).toBe('(self)');
     expect(features.get('web-share')).toBe('(self)');
+    expect(features.get('screen-wake-lock')).toBe('(self)');
     expect(features.get('camera')).toBe('()');
-    expect([...features.values()].filter((v) => v !== '()')).toHaveLength(3);
+    expect([...features.values()].filter((v) => v !== '()')).toHaveLength(4);
   });
 });

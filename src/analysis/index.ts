@@ -2,6 +2,8 @@
 // back. Pure, used by the screens, the CSV export and the office command alike.
 export * from './series-request';
 export * from './series-analysis';
+export * from './vacuum-check';
+export * from './series-verdict';
 export * from './series-computer';
 export * from './drop-rows';
 export * from './series-curves';

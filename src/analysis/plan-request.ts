@@ -32,6 +32,8 @@ export const ADVICE_DEFAULTS = {
   max_height_m: 100,
   /** Most drops considered from one height. */
   max_drops: 50,
+  /** A usual series from one height: the count the advice prefers when another height is needed (common practice). */
+  usual_drops: 10,
 } as const;
 
 export interface PlanInputs {
@@ -127,4 +129,38 @@ export function seriesAdvice(outcome: Extract<SeriesOutcome, { kind: 'ready' }>,
 export function planFor(inputs: PlanInputs): { plan: DropPlan; sources: PlanSources } {
   const { request, sources } = planRequest(inputs);
   return { plan: planDrop(request), sources };
+}
+
+/**
+ * What the crew should do next, as facts the screen words in its own units (never the planner's search limits):
+ * - `more`: `more` further drops from this height reach the target (`total` in all);
+ * - `scatter`: the planner says the drops made should already reach it, so the drops scatter more than the
+ *   series' declared timing: the timing or an outlier needs a look, not more drops;
+ * - `elsewhere`: this height and timing cannot within ADVICE_DEFAULTS.max_drops; `drops` drops from `height_m`
+ *   (the fewest-drops height the planner found, rounded up to 0.1 m) can;
+ * - `cannot`: no height the crew can reach does it with this timing; `floor` is what no number of drops removes
+ *   (size, mass, air, height), or null when better timing would help.
+ */
+export type SeriesAdvice =
+  | { kind: 'more'; more: number; total: number; height_m: number }
+  | { kind: 'scatter'; total: number; height_m: number }
+  | { kind: 'elsewhere'; drops: number; height_m: number }
+  | { kind: 'cannot'; floor: number | null };
+
+export function seriesAdviceFacts(outcome: Extract<SeriesOutcome, { kind: 'ready' }>, series: SeriesRecord, dropsUsed: number): SeriesAdvice {
+  const target = seriesAdvice(outcome, series);
+  if (!target) return { kind: 'cannot', floor: null };
+  const here = target.drops_at_planned_height;
+  if (here !== null) {
+    return here > dropsUsed ? { kind: 'more', more: here - dropsUsed, total: here, height_m: series.height_m } : { kind: 'scatter', total: here, height_m: series.height_m };
+  }
+  // Of the counts the planner tried, the largest up to a usual series (ADVICE_DEFAULTS.usual_drops) that reaches
+  // the target from some height, which asks for the lowest release among them; failing that, the fewest above it.
+  // Never the search's own limit unless nothing less will do.
+  const reaching = target.heights_by_drops.filter((h) => h.smallest_height_m !== null);
+  const best = [...reaching].reverse().find((h) => h.drops <= ADVICE_DEFAULTS.usual_drops) ?? reaching[0];
+  if (!best || best.smallest_height_m === null) {
+    return { kind: 'cannot', floor: target.systematic_relative_uncertainty_at_max_height >= target.relative_uncertainty ? target.systematic_relative_uncertainty_at_max_height : null };
+  }
+  return { kind: 'elsewhere', drops: best.drops, height_m: Math.ceil(best.smallest_height_m * 10) / 10 };
 }

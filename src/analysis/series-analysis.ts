@@ -3,11 +3,25 @@ import { analyzeSeries, PhysicsInputError, type AnalysisRequest, type AnalysisRe
 import type { DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
 import { readingAloftForSeries, readingForSeries } from '../log';
 import { buildRequest, seriesParts, type MissingPart } from './series-request';
+import { siteGravity, tooFastDrop } from './vacuum-check';
+
+/**
+ * A stored drop the analysis left out because no finite drag explains its time: shorter than the vacuum fall
+ * (`vacuum_time_s`), or shorter than the drag-free fall of this body by far more than the timing noise (the
+ * physics' own check, `message`). Named by the crew's drop number, never by a place in a request.
+ */
+export interface SetAsideDrop {
+  drop: DropRecord;
+  /** The vacuum fall time from the drop's height, s, when that is what it beats; null for the physics' check. */
+  vacuum_time_s: number | null;
+  /** The physics' words when it refused the drop (drop number in place of the request's index). */
+  message: string | null;
+}
 
 export type SeriesOutcome =
-  | { kind: 'missing'; code: MissingPart; message: string }
-  | { kind: 'error'; message: string; field: string | null }
-  | { kind: 'ready'; request: AnalysisRequest; result: AnalysisResult; reading: ReadingRecord };
+  | { kind: 'missing'; code: MissingPart; message: string; setAside?: SetAsideDrop[] }
+  | { kind: 'error'; message: string; field: string | null; setAside?: SetAsideDrop[] }
+  | { kind: 'ready'; request: AnalysisRequest; result: AnalysisResult; reading: ReadingRecord; setAside: SetAsideDrop[] };
 
 export function analyzeSeriesRecords(
   site: SiteRecord | null,
@@ -19,14 +33,49 @@ export function analyzeSeriesRecords(
 ): SeriesOutcome {
   const parts = seriesParts({ series, site, specimen, reading: readingForSeries(series, readings), readingAloft: readingAloftForSeries(series, readings), drops });
   if (parts.kind === 'missing') return { kind: 'missing', code: parts.code, message: parts.message };
-  const request = buildRequest(parts.site, parts.reading, parts.specimen, series, parts.drops, parts.readingAloft);
-  if (options.monteCarloDraws !== undefined) request.options = { ...request.options, monte_carlo_draws: options.monteCarloDraws };
-  try {
-    return { kind: 'ready', request, result: analyzeSeries(request), reading: parts.reading };
-  } catch (error) {
-    if (error instanceof PhysicsInputError) return { kind: 'error', message: error.message, field: error.field };
-    return { kind: 'error', message: error instanceof Error ? error.message : String(error), field: null };
+  // Times no body can make are set aside first (a bad time from an import or an older record), so one bad
+  // time never blocks the series: it computes from its good drops and names the bad ones.
+  const g = siteGravity(parts.site);
+  const setAside: SetAsideDrop[] = [];
+  let good = parts.drops;
+  if (g !== null) {
+    good = [];
+    for (const drop of parts.drops) {
+      const bad = tooFastDrop(drop, series, g);
+      if (bad) setAside.push({ drop, vacuum_time_s: bad.vacuum_time_s, message: null });
+      else good.push(drop);
+    }
   }
+  // The physics also refuses a drop faster than this body's drag-free fall by far more than its noise; such a
+  // drop is set aside in turn (each round fails before the Monte Carlo, so a retry costs little).
+  for (;;) {
+    if (good.length === 0) {
+      return { kind: 'error', message: `No drop can be used: ${setAside.map((s) => `drop ${s.drop.seq}`).join(', ')} ${setAside.length === 1 ? 'is' : 'are'} faster than a free fall.`, field: null, setAside };
+    }
+    const request = buildRequest(parts.site, parts.reading, parts.specimen, series, good, parts.readingAloft);
+    if (options.monteCarloDraws !== undefined) request.options = { ...request.options, monte_carlo_draws: options.monteCarloDraws };
+    try {
+      return { kind: 'ready', request, result: analyzeSeries(request), reading: parts.reading, setAside };
+    } catch (error) {
+      if (!(error instanceof PhysicsInputError)) return { kind: 'error', message: error instanceof Error ? error.message : String(error), field: null, setAside };
+      const index = /^drops\[(\d+)\]/.exec(error.field ?? '');
+      const drop = index ? good[Number(index[1])] : undefined;
+      if (drop && error.code === 'faster-than-free-fall') {
+        setAside.push({ drop, vacuum_time_s: null, message: crewNumbered(error.message, good) });
+        good = good.filter((d) => d !== drop);
+        continue;
+      }
+      return { kind: 'error', message: crewNumbered(error.message, good), field: error.field, setAside };
+    }
+  }
+}
+
+/** A physics message with each request index ("drops[2].time_s") replaced by the crew's drop number. */
+function crewNumbered(message: string, drops: readonly DropRecord[]): string {
+  return message.replace(/drops\[(\d+)\](\.time_s)?/g, (whole, i: string, time: string | undefined) => {
+    const drop = drops[Number(i)];
+    return drop ? `drop ${drop.seq}${time ? '’s time' : ''}` : whole;
+  });
 }
 
 /** What a day view holds, as far as the analysis needs it (the store's DayView has it all). */

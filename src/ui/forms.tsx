@@ -34,6 +34,9 @@ export interface QFieldProps {
   id?: string;
   /** A coordinate: the hemisphere letters it takes. */
   hemispheres?: 'NS' | 'EW';
+  /** The keyboard's Enter key label (enterkeyhint) and what Enter does; without onEnter, Enter does nothing. */
+  enterHint?: 'next' | 'done' | 'send' | 'go' | 'enter';
+  onEnter?(state: FieldState): void;
 }
 
 /** A quantity field bound to a form's state, in the crew's chosen unit. */
@@ -56,9 +59,14 @@ export function QField(props: QFieldProps) {
       compact={props.compact ?? false}
       hemispheres={props.hemispheres ?? ''}
       decimalComma={settings.decimalComma}
+      enterHint={props.enterHint ?? 'next'}
       onquantity-change={(e: CustomEvent) => {
         const d = e.detail as QuantityChangeDetail;
         props.onChange({ text: d.text, value: d.value, error: d.error });
+      }}
+      onquantity-enter={(e: CustomEvent) => {
+        const d = e.detail as QuantityChangeDetail;
+        props.onEnter?.({ text: d.text, value: d.value, error: d.error });
       }}
     />
   );

@@ -12,8 +12,8 @@ declare module 'preact' {
     interface IntrinsicElements {
       'pl-quantity': WidgetProps<
         QuantityInput,
-        'label' | 'quantity' | 'unit' | 'value' | 'text' | 'min' | 'max' | 'minExclusive' | 'required' | 'delta' | 'hint' | 'decimalComma' | 'compact' | 'hemispheres'
-      > & { 'onquantity-change'?: (event: CustomEvent) => void };
+        'label' | 'quantity' | 'unit' | 'value' | 'text' | 'min' | 'max' | 'minExclusive' | 'required' | 'delta' | 'hint' | 'decimalComma' | 'compact' | 'hemispheres' | 'enterHint'
+      > & { 'onquantity-change'?: (event: CustomEvent) => void; 'onquantity-enter'?: (event: CustomEvent) => void };
       'pl-plot': WidgetProps<PlotChart, 'lines' | 'marks' | 'xLabel' | 'yLabel' | 'summary' | 'zeroLine'>;
       'pl-bars': WidgetProps<BarChart, 'bars' | 'heading'>;
     }

@@ -46,6 +46,7 @@ export class QuantityInput extends LitElement {
     decimalComma: { type: Boolean, attribute: 'decimal-comma' },
     compact: { type: Boolean, reflect: true },
     hemispheres: { type: String },
+    enterHint: { type: String, attribute: 'enter-hint' },
     error: { state: true },
   };
 
@@ -65,6 +66,8 @@ export class QuantityInput extends LitElement {
   declare compact: boolean;
   /** For a coordinate: the hemisphere letters it takes ("NS" or "EW"); degrees-minutes-seconds are read too. */
   declare hemispheres: 'NS' | 'EW' | '';
+  /** The label of the on-screen keyboard's Enter key (enterkeyhint): "next" by default, "done" or "send"… */
+  declare enterHint: string;
   declare error: string | null;
 
   private readonly inputId = `pl-q-${++nextId}`;
@@ -83,6 +86,7 @@ export class QuantityInput extends LitElement {
     this.decimalComma = false;
     this.compact = false;
     this.hemispheres = '';
+    this.enterHint = 'next';
     this.error = null;
   }
 
@@ -288,6 +292,17 @@ export class QuantityInput extends LitElement {
     );
   }
 
+  /**
+   * Enter (or the keyboard's Next) fires `quantity-enter` with the current check, so a screen can act on the
+   * value in one motion (the drop entry adds the drop). The key never reaches the text.
+   */
+  private onKeyDown(event: KeyboardEvent): void {
+    if (event.key !== 'Enter' || event.isComposing) return;
+    event.preventDefault();
+    const { value, error } = this.check(this.typed);
+    this.dispatchEvent(new CustomEvent<QuantityChangeDetail>('quantity-enter', { detail: { value, text: this.typed, error }, bubbles: true, composed: true }));
+  }
+
   private onBlur(): void {
     this.editing = false;
     this.error = this.check(this.typed).error;
@@ -311,12 +326,13 @@ export class QuantityInput extends LitElement {
           type="text"
           inputmode="decimal"
           autocomplete="off"
-          enterkeyhint="next"
+          enterkeyhint=${this.enterHint}
           .value=${this.typed}
           aria-invalid=${this.error ? 'true' : 'false'}
           aria-describedby=${described || nothing}
           ?required=${this.required}
           @input=${this.onInput}
+          @keydown=${this.onKeyDown}
           @blur=${this.onBlur}
         />
         ${this.signed

@@ -3,6 +3,7 @@ import type { DayView } from '../../../store';
 import { useApp } from '../../app-context';
 import { useStoreData } from '../../use-store-data';
 import { Notice } from '../../Notice';
+import { verdictLine } from './series/verdict-text';
 import { routeHref } from '../../router';
 import { describeError } from '../../errors';
 import { lazyModule, lazyScreen } from '../../lazy';
@@ -214,6 +215,11 @@ function SeriesList({ view }: { view: DayView }) {
   const figures = useDayFigures();
   // Only the C_d is shown here: the Monte Carlo interval needs no full draw count.
   const rows = useMemo(() => figures?.analyzeDay(view, { monteCarloDraws: 200 }) ?? null, [view, figures]);
+  // The same verdict as the series screen and the summary.
+  const verdicts = useMemo(
+    () => (rows && figures ? new Map(rows.map((r) => [r.series.id, verdictLine(figures.seriesVerdict(r.outcome, r.series, r.drops))])) : null),
+    [rows, figures],
+  );
   // The list shows at once from the day's records; each C_d fills in when the analysis has arrived.
   return (
     <ul class="rows" aria-busy={rows ? undefined : 'true'}>
@@ -235,6 +241,12 @@ function SeriesList({ view }: { view: DayView }) {
                       ? `C_d ${outcome.result.drag_coefficient.toFixed(3)}`
                       : 'drag not resolved'
                     : '—'}
+                {verdicts?.get(s.id) ? (
+                  <span class="hint row-verdict" data-testid="row-verdict">
+                    <br />
+                    {verdicts.get(s.id)}
+                  </span>
+                ) : null}
               </span>
             </a>
           </li>

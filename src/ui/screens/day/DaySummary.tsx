@@ -3,7 +3,8 @@ import { useApp } from '../../app-context';
 import { useStoreData } from '../../hooks';
 import { Notice } from '../../forms';
 import { routeHref } from '../../router';
-import { analyzeDay } from '../../../analysis';
+import { analyzeDay, seriesVerdict } from '../../../analysis';
+import { flagText, TONE_OF, verdictLine } from './series/verdict-text';
 import { DayHeader } from './DayOverview';
 import { RiskWarnings } from '../../RiskWarnings';
 import { describeError } from '../../errors';
@@ -13,10 +14,11 @@ import { inChosenUnits, warningText } from '../../unit-text';
 export function DaySummary({ dayId }: { dayId: string }) {
   const app = useApp();
   const data = useStoreData(() => app.store.loadDay(dayId), [dayId]);
-  const rows = useMemo(() => (data.state === 'ready' ? analyzeDay(data.value) : []), [data]);
+  const rows = useMemo(() => (data.state === 'ready' ? analyzeDay(data.value).map((row) => ({ ...row, verdict: seriesVerdict(row.outcome, row.series, row.drops) })) : []), [data]);
   if (data.state === 'loading') return <p>Loading…</p>;
   if (data.state === 'failed') return <Notice tone="bad">{describeError(data.error)}</Notice>;
-  const flagged = rows.filter((r) => !r.targetMet || (r.outcome.kind === 'ready' && r.outcome.result.warnings.length > 0));
+  // The same verdict as the series screen; a series is listed below when it is not met or carries any warning or problem.
+  const flagged = rows.filter((r) => r.verdict.verdict.state !== 'met' || r.verdict.flags.some((f) => f.kind !== 'info'));
   return (
     <div>
       <a class="back" href={routeHref('day', dayId)}>
@@ -28,7 +30,7 @@ export function DaySummary({ dayId }: { dayId: string }) {
         {plural(data.value.readings.length, 'air reading')} · {rows.length} series · {plural(data.value.drops.length, 'drop')}
       </p>
       <ul class="rows">
-        {rows.map(({ series: s, specimen, drops, outcome, targetMet: met }) => {
+        {rows.map(({ series: s, specimen, outcome, verdict }) => {
           const r = outcome.kind === 'ready' ? outcome.result : null;
           return (
             <li key={s.id}>
@@ -37,8 +39,7 @@ export function DaySummary({ dayId }: { dayId: string }) {
                   <strong>{specimen?.name ?? 'unknown specimen'}</strong>
                   <br />
                   <span class="hint">
-                    {app.format(s.height_m, 'length', 1)} · {drops.filter((d) => !d.excluded).length} drops · target {(s.target_relative_uncertainty * 100).toFixed(0)} %{' '}
-                    {met ? 'met' : 'not met'}
+                    {app.format(s.height_m, 'length', 1)} · {plural(verdict.drops_used, 'drop')} used · <span data-testid="summary-verdict">{verdictLine(verdict)}</span>
                   </span>
                 </span>
                 <span class="row-side">
@@ -56,14 +57,22 @@ export function DaySummary({ dayId }: { dayId: string }) {
       {flagged.length ? (
         <Notice tone="warn" title="Look at these before you leave">
           <ul>
-            {flagged.map(({ series: s, specimen, outcome }) => (
+            {flagged.map(({ series: s, specimen, verdict }) => (
               <li key={s.id}>
-                {specimen?.name ?? 'unknown'} from {app.format(s.height_m, 'length', 1)}:{' '}
-                {outcome.kind !== 'ready'
-                  ? inChosenUnits(outcome.message, app.format)
-                  : outcome.result.drag_coefficient === null
-                    ? 'drag not resolved'
-                    : [...outcome.result.warnings.map((w) => warningText(w, app.format, { temperature_C: outcome.reading.temperature_C, station_pressure_Pa: outcome.result.air.station_pressure_Pa })), 'target uncertainty not met'].slice(0, 2).join(' ')}
+                <strong>
+                  {specimen?.name ?? 'unknown'} from {app.format(s.height_m, 'length', 1)}:
+                </strong>{' '}
+                {verdict.verdict.state === 'blocked' ? inChosenUnits(verdict.verdict.message, app.format) : verdictLine(verdict)}
+                {verdict.flags.length ? (
+                  <ul class="flag-list">
+                    {verdict.flags.map((f, i) => (
+                      <li key={i} class={`flag-${TONE_OF[f.kind]}`}>
+                        {f.kind === 'info' ? 'Note: ' : f.kind === 'problem' ? 'Problem: ' : 'Warning: '}
+                        {flagText(f, app.format)}
+                      </li>
+                    ))}
+                  </ul>
+                ) : null}
               </li>
             ))}
           </ul>

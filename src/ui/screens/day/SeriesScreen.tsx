@@ -3,14 +3,17 @@
 import '../../../widgets';
 import type { DropRecord, SeriesRecord, SpecimenRecord } from '../../../log';
 import type { DayView } from '../../../store';
-import { seriesOfDay, usedDrops } from '../../../analysis';
+import { seriesOfDay, seriesVerdict, siteGravity } from '../../../analysis';
+import { useMemo } from 'preact/hooks';
+import { useScreenWakeLock } from '../../use-wake-lock';
+import { useKeyboardInset } from '../../use-keyboard-inset';
 import { useApp } from '../../app-context';
 import { useStoreData } from '../../hooks';
 import { Notice } from '../../forms';
 import { describeError } from '../../errors';
 import { SeriesHeader } from './series/SeriesHeader';
 import { DropEntry } from './series/DropEntry';
-import { Verdict } from './series/Verdict';
+import { Verdict, VerdictBar } from './series/Verdict';
 import { SeriesCharts } from './series/SeriesCharts';
 import { DropTable } from './series/DropTable';
 import { BudgetChart } from './series/BudgetChart';
@@ -30,15 +33,21 @@ export function SeriesScreen({ dayId, seriesId }: { dayId: string; seriesId: str
 
 export function SeriesBody({ view, series, specimen, drops }: { view: DayView; series: SeriesRecord; specimen: SpecimenRecord | undefined; drops: DropRecord[] }) {
   const outcome = useSeriesAnalysis(view.site, view.readings, specimen, series, drops);
+  const verdict = useMemo(() => seriesVerdict(outcome, series, drops), [outcome, series, drops]);
+  // The screen stays awake and Add stays above the keyboard while the series is open.
+  useScreenWakeLock();
+  useKeyboardInset();
   return (
     <div>
+      <VerdictBar outcome={outcome} verdict={verdict} />
       <SeriesHeader view={view} series={series} specimen={specimen} />
       <DropEntry
+        gravity={siteGravity(view.site)}
         series={series}
         nextSeq={drops.reduce((m, d) => Math.max(m, d.seq), 0) + 1}
         airTemperature={outcome.kind === 'ready' ? outcome.reading.temperature_C : (view.readings[view.readings.length - 1]?.temperature_C ?? null)}
       />
-      <Verdict outcome={outcome} series={series} usedDrops={usedDrops(drops)} />
+      <Verdict outcome={outcome} series={series} verdict={verdict} />
       {outcome.kind === 'ready' ? <SeriesCharts outcome={outcome} drops={drops} series={series} /> : null}
       <DropTable drops={drops} series={series} outcome={outcome} />
       {outcome.kind === 'ready' ? <BudgetChart result={outcome.result} /> : null}

@@ -1,6 +1,10 @@
-// Entering one drop: the timer pad (taps or sound) or a typed time, kept as a draft until saved.
+// Entering one drop: the timer pad (taps or sound) or a typed time, kept as a draft until saved. One motion per
+// drop: Enter (the keyboard's Next) adds it, focus stays in the time field, Add stays above the keyboard, and the
+// saved drop is confirmed beside the field (and by a short vibration where the phone has one).
 import { useRef, useState } from 'preact/hooks';
 import { inputRange, LIMITS, type SeriesRecord } from '../../../../log';
+import { tooFastTime } from '../../../../analysis';
+import { tooFastText } from './verdict-text';
 import { useApp } from '../../../app-context';
 import { useDraft } from '../../../hooks';
 import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../../forms';
@@ -20,7 +24,21 @@ interface DropDraft {
   landingDistance: FieldState;
 }
 
-export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesRecord; nextSeq: number; airTemperature: number | null }) {
+/** A short buzz on a saved drop, where the phone has a vibration motor (ms). */
+const SAVED_VIBRATION_MS = 30;
+
+export function DropEntry({
+  series,
+  nextSeq,
+  airTemperature,
+  gravity,
+}: {
+  series: SeriesRecord;
+  nextSeq: number;
+  airTemperature: number | null;
+  /** The site's gravity for the vacuum bound at entry; null when the site cannot give one (no check then). */
+  gravity: number | null;
+}) {
   const app = useApp();
   const key = `drop:${series.id}`;
   const form = useDraft<DropDraft>(key, () => ({
@@ -35,20 +53,32 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
   const padMode = series.timing_method === 'sound' ? 'listen' : series.timing_method === 'tap' ? 'tap' : null;
   const [error, setError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
+  const [saved, setSaved] = useState<string | null>(null);
   const input = useRef<HTMLElement>(null);
   const d = form.value;
   const valid = fieldsValid(d.time) && (!d.otherHeight || fieldsValid(d.height));
 
+  const focusTime = () => (input.current?.querySelector('pl-quantity') as { focus?: () => void } | null)?.focus?.();
   const { offerUndo } = useUndo();
-  /** Saves the drop; a capture from the timer pad is passed in directly (Impact adds the drop, with undo). */
-  const save = async (capture?: { time_s: number; raw: TimeCapturedDetail['raw'] }) => {
-    if ((!capture && !valid) || saving) return;
-    if (capture && d.otherHeight && !fieldsValid(d.height)) return;
+
+  /**
+   * Saves the drop: the typed time (Enter or Add), or a capture from the timer pad passed in directly (Impact adds
+   * the drop, with undo). A time no fall can make is refused here, before anything is stored.
+   */
+  const save = async (time = d.time, capture?: { time_s: number; raw: TimeCapturedDetail['raw'] }) => {
+    if ((!capture && !fieldsValid(time)) || (d.otherHeight && !fieldsValid(d.height)) || saving) return;
+    const time_s = capture ? capture.time_s : time.value!;
+    const height = d.otherHeight && d.height.value !== null ? d.height.value : series.height_m;
+    const tooFast = gravity !== null ? tooFastTime({ seq: nextSeq, time_s, height_m: height }, gravity) : null;
+    if (tooFast) {
+      setError(tooFastText(tooFast, app.format));
+      setSaved(null);
+      return;
+    }
     setSaving(true);
     setError(null);
     try {
-      const time_s = capture ? capture.time_s : d.time.value!;
-      const raw = capture ? capture.raw : (d.captured ?? { kind: 'typed' as const, text: d.time.text ?? String(d.time.value) });
+      const raw = capture ? capture.raw : (d.captured ?? { kind: 'typed' as const, text: time.text ?? String(time.value) });
       const drop = await app.store.create(
         'drop',
         {
@@ -66,9 +96,11 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
       );
       await form.clear();
       form.replace({ ...d, time: { value: null, error: null, text: '' }, note: '', captured: null });
-      offerUndo(`Drop ${drop.seq} added: ${time_s.toFixed(3)} s`, [drop]);
+      offerUndo(`Drop ${drop.seq} added: ${app.format(time_s, 'time')}`, [drop]);
       app.notifyChanged();
-      (input.current as { focus?: () => void } | null)?.focus?.();
+      setSaved(`Drop ${drop.seq} saved: ${app.format(time_s, 'time')}${d.otherHeight ? ` from ${app.format(height, 'length', 2)}` : ''}`);
+      navigator.vibrate?.(SAVED_VIBRATION_MS);
+      focusTime();
     } catch (e) {
       setError(describeError(e));
     } finally {
@@ -104,7 +136,7 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
               ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
                 // The capture carries its sound-travel correction as data (raw.sound_travel).
                 // Impact adds the drop at once; the undo bar takes it back if the tap was a slip.
-                void save({ time_s: e.detail.time_s, raw: e.detail.raw });
+                void save(d.time, { time_s: e.detail.time_s, raw: e.detail.raw });
               }}
             />
           </>
@@ -115,9 +147,23 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
             kind="time"
             state={d.time}
             {...inputRange(LIMITS.time_s)}
+            enterHint="next"
             hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
-            onChange={(time) => form.set({ time, captured: null })}
+            onChange={(time) => {
+              form.set({ time, captured: null });
+              if (error) setError(null);
+            }}
+            onEnter={(time) => void save(time)}
           />
+        </div>
+        <div class="entry-bar">
+          {error ? <Notice tone="bad">{error}</Notice> : null}
+          <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
+            Add drop {nextSeq}
+          </button>
+          <p class="entry-saved" role="status" aria-live="polite" data-testid="drop-saved">
+            {saved ? `✓ ${saved}` : ''}
+          </p>
         </div>
         <label class="check">
           <input type="checkbox" checked={d.otherHeight} onChange={(e) => form.set({ otherHeight: (e.target as HTMLInputElement).checked })} />
@@ -127,10 +173,6 @@ export function DropEntry({ series, nextSeq, airTemperature }: { series: SeriesR
           <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
         ) : null}
         <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
-        {error ? <Notice tone="bad">{error}</Notice> : null}
-        <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
-          Add drop {nextSeq}
-        </button>
       </form>
     </section>
   );

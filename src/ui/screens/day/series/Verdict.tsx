@@ -1,7 +1,8 @@
 // The series' verdict: its C_d with the uncertainty, the figures, whether it is enough and what it would take.
 import { useMemo } from 'preact/hooks';
-import type { DropRecord, SeriesRecord } from '../../../../log';
-import { dropOfResult, relativeUncertainty, seriesAdvice, type SeriesOutcome } from '../../../../analysis';
+import type { SeriesRecord } from '../../../../log';
+import { dragCoefficientWithoutBuoyancyAndAddedMass, seriesAdviceFacts, type SeriesOutcome, type SeriesVerdict } from '../../../../analysis';
+import { adviceText, flagText, flagTitle, TONE_OF, verdictLine, verdictTone } from './verdict-text';
 import { useApp } from '../../../app-context';
 import { Notice } from '../../../forms';
 import { impactEnergyWarning } from '../../../SafetyCaution';
@@ -9,16 +10,27 @@ import { describeError } from '../../../errors';
 import { inChosenUnits, warningText } from '../../../unit-text';
 import { formatSignificant } from '../../../../widgets/units';
 
-export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome; series: SeriesRecord; usedDrops: readonly DropRecord[] }) {
+export function Verdict({ outcome, series, verdict }: { outcome: SeriesOutcome; series: SeriesRecord; verdict: SeriesVerdict }) {
   const app = useApp();
-  const dropsUsed = usedDrops.length;
+  const lumped = useMemo(() => dragCoefficientWithoutBuoyancyAndAddedMass(outcome), [outcome]);
+  const flags = verdict.flags.map((f, i) => (
+    <Notice key={`${f.code}-${i}`} tone={TONE_OF[f.kind]} title={flagTitle(f)}>
+      {flagText(f, app.format)}
+    </Notice>
+  ));
   if (outcome.kind === 'missing') return <Notice tone="info">{inChosenUnits(outcome.message, app.format)}</Notice>;
-  if (outcome.kind === 'error') return <Notice tone="bad" title="The series cannot be computed">{inChosenUnits(outcome.message, app.format)}</Notice>;
+  if (outcome.kind === 'error')
+    return (
+      <>
+        <Notice tone="bad" title="The series cannot be computed">
+          {inChosenUnits(outcome.message, app.format)}
+        </Notice>
+        {flags}
+      </>
+    );
   const r = outcome.result;
   const cd = r.drag_coefficient;
   const U = 2 * r.drag_coefficient_standard_uncertainty;
-  const rel = relativeUncertainty(r);
-  const met = rel !== null && rel <= series.target_relative_uncertainty;
   const maxEnergy = Math.max(...r.drops.map((d) => d.impact_energy_J));
   const energyWarning = impactEnergyWarning(maxEnergy);
   return (
@@ -34,6 +46,16 @@ export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome
             <strong>
               {r.drag_coefficient_interval_95[0].toFixed(3)} to {r.drag_coefficient_interval_95[1].toFixed(3)}
             </strong>
+          </p>
+          <p class="hint what-cd" data-testid="cd-meaning">
+            This C_d comes from a fall model that {r.model.buoyancy ? 'includes' : 'leaves out'} the air’s buoyancy and includes its added mass (C_a ={' '}
+            {r.model.added_mass_coefficient.toFixed(2)}).
+            {lumped !== null && Math.abs(lumped - cd) >= 0.0005 ? (
+              <>
+                {' '}
+                A model with drag alone would read <strong>{lumped.toFixed(3)}</strong> from the same drops.
+              </>
+            ) : null}
           </p>
         </>
       ) : (
@@ -68,68 +90,44 @@ export function Verdict({ outcome, series, usedDrops }: { outcome: SeriesOutcome
         ) : null}
       </dl>
       {energyWarning ? <Notice tone="bad" title="Impact energy">{energyWarning}</Notice> : null}
-      <Enough outcome={outcome} series={series} met={met} rel={rel} dropsUsed={dropsUsed} />
-      {r.warnings
-        .filter((w) => w.code !== 'possible-outlier')
-        .map((w, i) => (
-          <Notice key={`${w.code}-${i}`} tone="warn">
-            {warningText(w, app.format, { temperature_C: outcome.reading.temperature_C, station_pressure_Pa: r.air.station_pressure_Pa })}
-          </Notice>
-        ))}
-      {r.heights
-        .filter((h) => h.grubbs?.outlier)
-        .map((h) => {
-          // The core numbers drops by their place in the fit; the crew knows them by their own number (joined by id).
-          const drop = dropOfResult(r, h.grubbs!.suspect_drop_index, usedDrops);
-          return (
-            <Notice key={`g${h.height_m}`} tone="warn" title="Possible outlier">
-              Grubbs’ test flags drop {drop?.seq ?? '?'} ({drop?.time_s.toFixed(3)} s from {app.format(h.height_m, 'length', 2)}): G ={' '}
-              {h.grubbs!.statistic.toFixed(2)} is above the critical {h.grubbs!.critical_value.toFixed(2)} (α = 0.05). It is kept: check it, and exclude it
-              only with a reason.
-            </Notice>
-          );
-        })}
+      {verdict.verdict.state === 'not-met' || verdict.verdict.state === 'unresolved' ? <Advice outcome={outcome} series={series} dropsUsed={verdict.drops_used} /> : null}
+      {flags}
     </section>
   );
 }
 
-function Enough({
-  outcome,
-  series,
-  met,
-  rel,
-  dropsUsed,
-}: {
-  outcome: Extract<SeriesOutcome, { kind: 'ready' }>;
-  series: SeriesRecord;
-  met: boolean;
-  rel: number | null;
-  dropsUsed: number;
-}) {
+/** The verdict and the C_d in one line, pinned at the top of the series screen while drops are entered. */
+export function VerdictBar({ outcome, verdict }: { outcome: SeriesOutcome; verdict: SeriesVerdict }) {
+  const r = outcome.kind === 'ready' ? outcome.result : null;
+  return (
+    <div class={`verdict-bar verdict-${verdictTone(verdict)}`} role="status" aria-live="polite" data-testid="verdict-bar">
+      <span class="verdict-cd">
+        {r?.drag_coefficient != null
+          ? `C_d ${r.drag_coefficient.toFixed(3)} ± ${(2 * r.drag_coefficient_standard_uncertainty).toFixed(3)}`
+          : r
+            ? `C_d < ${r.drag_coefficient_upper_bound_95?.toFixed(3) ?? '?'}`
+            : 'C_d —'}
+      </span>
+      <span class="verdict-line" data-testid="verdict-line">
+        {verdictLine(verdict)}
+      </span>
+    </div>
+  );
+}
+
+function Advice({ outcome, series, dropsUsed }: { outcome: Extract<SeriesOutcome, { kind: 'ready' }>; series: SeriesRecord; dropsUsed: number }) {
   const app = useApp();
   const advice = useMemo(() => {
-    if (met) return null;
     try {
-      return seriesAdvice(outcome, series);
+      return adviceText(seriesAdviceFacts(outcome, series, dropsUsed), app.format);
     } catch (e) {
-      return { message: describeError(e), drops_at_planned_height: null, reachable: false } as const;
+      return describeError(e);
     }
     // A reload hands over a new series object: its revision stamp says whether it changed.
-  }, [outcome, series.id, series.rev, met]);
+  }, [outcome, series.id, series.rev, dropsUsed, app.format]);
   return (
-    <div class={`enough ${met ? 'enough-yes' : 'enough-no'}`} role="status">
-      <strong>{met ? 'Enough: the target is met.' : 'Not enough yet.'}</strong>{' '}
-      {rel !== null ? `Relative uncertainty ${(rel * 100).toFixed(1)} % against a target of ${(series.target_relative_uncertainty * 100).toFixed(1)} %.` : ''}
-      {!met && advice ? (
-        <div>
-          {advice.drops_at_planned_height !== null && advice.drops_at_planned_height !== undefined
-            ? advice.drops_at_planned_height > dropsUsed
-              ? `About ${advice.drops_at_planned_height - dropsUsed} more drops from ${app.format(series.height_m, 'length', 1)} should reach it. `
-              : ''
-            : ''}
-          {inChosenUnits(advice.message, app.format)}
-        </div>
-      ) : null}
-    </div>
+    <p class="advice" data-testid="advice">
+      {advice}
+    </p>
   );
 }
