@@ -8,8 +8,8 @@
  *   C_d = C_d,u · (1 + w·(R − 1)),  R = C_d,c / C_d,u
  *
  * with a weight w fixed once per analysis from the nominal inputs (columnWeight below): 0 where the column's
- * effect e on every mean time (its nominal shift plus its inputs' shifts at one standard uncertainty, added
- * linearly) is under a tenth of that mean time's smallest standard uncertainty (the declared timing uncertainty
+ * effect e on every mean time (its nominal shift and its inputs' shifts at one standard uncertainty, in
+ * quadrature) is under a tenth of that mean time's smallest standard uncertainty (the declared timing uncertainty
  * over √n), 1 from two tenths, and a smoothstep between, so the result has no step where the closed form hands
  * over, and the part left out, (1 − w)·e, is never more than 0.11 of that uncertainty (its largest, at e ≈ 0.115).
  *
