@@ -93,6 +93,7 @@ describe('the reported 95 % interval covers the true C_d in 93–97 % of 500 ser
     [3000, 13],
   ])('tall drops from %i m, air read on the ground, the lapse rate uncertain', (height, seed) => {
     const rate = coverage({ height, specimen: BALL, timingU: 0.05 }, seed);
+    if (process.env['PLUMMET_PRINT_COVERAGE']) console.log(`coverage from ${height} m: ${(100 * rate).toFixed(1)} %`);
     expect(rate).toBeGreaterThanOrEqual(0.93);
     expect(rate).toBeLessThanOrEqual(0.97);
   }, 600_000);
@@ -100,6 +101,7 @@ describe('the reported 95 % interval covers the true C_d in 93–97 % of 500 ser
   it('a light ball from 20 m in a declared 0.3 ± 0.1 m/s updraft (crosswind 0 ± 0.3 m/s)', () => {
     const light = { shape: 'sphere' as const, mass_kg: 0.02, diameter_m: 0.1 };
     const rate = coverage({ height: 20, specimen: light, timingU: 0.01, motion: { W: 0.3, uW: 0.1, uU: 0.3 } }, 14);
+    if (process.env['PLUMMET_PRINT_COVERAGE']) console.log(`coverage in the updraft: ${(100 * rate).toFixed(1)} %`);
     expect(rate).toBeGreaterThanOrEqual(0.93);
     expect(rate).toBeLessThanOrEqual(0.97);
   }, 600_000);
