@@ -17,7 +17,8 @@
  * times, evaluates the closed form exactly and R through a separable quadratic surrogate: for each input, a
  * parabola through R at the nominal value and at ± one standard uncertainty (JCGM 101 allows any model evaluation
  * accurate enough; the surrogate's error is third order in each input's spread and second order in the cross
- * terms, and test/physics/airColumnSeries.test.ts compares its intervals with those of the exact model).
+ * terms it leaves out; test/physics/airColumnSeries.test.ts compares it with the exact model at draws of the
+ * inputs: within 5 % of u_c (2.7 % for a 3000 m series in a crosswind, about a tenth at twice the spread).
  */
 import { AirColumn } from './airColumn';
 
