@@ -12,6 +12,8 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { cpus, loadavg } from 'node:os';
 import { analyzeSeries, dragCoefficientFromTime, fallParameters, fallTime, fallWithVariableDrag, validateAnalysisRequest } from '../src/physics/index';
+import { AirColumn, FREE_AIR_GRAVITY_GRADIENT_PER_S2 } from '../src/physics/airColumn';
+import { fallThroughColumn } from '../src/physics/fallThroughColumn';
 
 interface OdexSolver {
   absoluteTolerance: number;
@@ -88,6 +90,41 @@ const dpBody = { effective_gravity_m_s2: g, drag_constant_per_unit_cd_per_m: kd 
 const ownMs = median(() => (sink += fallWithVariableDrag(h, dpBody, 1e-10).time_s), 51, 10);
 const ownTime = fallWithVariableDrag(h, dpBody, 1e-10).time_s;
 
+// 4. A five-drop 3000 m series through the air column with a 4 m/s crosswind, full budget and 20 000-draw Monte
+// Carlo (invented scenario: a 0.5 kg, 100 mm ball, hand-timed).
+const tall = validateAnalysisRequest({
+  site: { latitude_deg: 46.1, elevation_m: 430 },
+  air: { temperature_C: 17.5, pressure_Pa: 96120, pressure_reference: 'station', relative_humidity_pct: 55, wind_speed_m_s: 4 },
+  specimen: { shape: 'sphere', mass_kg: 0.5, diameter_m: 0.1 },
+  drops: [78.02, 77.95, 78.08, 78.0, 77.97].map((t) => ({ height_m: 3000, time_s: t })),
+  timing: { standard_uncertainty_s: 0.05 },
+  uncertainty: { height_m: 1, mass_kg: 0.001, diameter_m: 0.0003, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3 },
+});
+const tallMs = median(() => (sink += analyzeSeries(tall).drag_coefficient_estimate), 7);
+
+// 5. The stratified fall (still air: the quadrature) against the same fall by odex driving the full equations.
+const column = new AirColumn(
+  { height_m: 0, temperature_K: 290.65, pressure_Pa: 96120, gasFactor: (1.1505 * 290.65) / 96120, verticalWind_m_s: 0, windSpeed_m_s: 0 },
+  9.8061,
+  0.0065,
+);
+const tallBody = { mass_kg: 0.5, area_m2: (Math.PI * 0.1 ** 2) / 4, volume_m3: (Math.PI * 0.1 ** 3) / 6, characteristic_length_m: 0.1, buoyancy: true, added_mass_coefficient: 0.5, drag_coefficient: 0.5 };
+const stratifiedMs = median(() => (sink += fallThroughColumn(3000 + 1e-9 * (k++ % 7), tallBody, column, 1e-10, true).time_s), 51, 20);
+const stratifiedTime = fallThroughColumn(3000, tallBody, column, 1e-10, true).time_s;
+const odexTall = new odex.Solver(2);
+odexTall.absoluteTolerance = 1e-10;
+odexTall.relativeTolerance = 1e-10;
+odexTall.maxSteps = 1_000_000;
+const tallRhs = (_t: number, [d, v]: number[]): number[] => {
+  const z = 3000 - d!;
+  const rho = column.density(z);
+  const me = 0.5 + 0.5 * rho * tallBody.volume_m3;
+  const g = 9.8061 - FREE_AIR_GRAVITY_GRADIENT_PER_S2 * z;
+  return [v!, (g * (0.5 - rho * tallBody.volume_m3)) / me - ((rho * 0.5 * tallBody.area_m2) / (2 * me)) * v! * Math.abs(v!)];
+};
+const odexTallMs = median(() => (sink += odexTall.solve(tallRhs, 0, [0, 0], stratifiedTime).y[0]!), 11, 2);
+const odexTallDistance = odexTall.solve(tallRhs, 0, [0, 0], stratifiedTime).y[0]!;
+
 const us = (ms: number): string => `${(ms * 1000).toFixed(2)} µs`;
 console.log(`Plummet physics benchmark — Node ${process.version}, ${cpus().length} cores, load average ${loadavg().map((l) => l.toFixed(2)).join(' ')}`);
 console.log('');
@@ -101,4 +138,9 @@ console.log(`the same 14 m fall of the 70 mm ball, time to impact:`);
 console.log(`  closed form                                  ${us(closedMs).padStart(12)}   1×`);
 console.log(`  odex (GBS extrapolation), tolerance 1e-10    ${us(odexMs).padStart(12)}   ${(odexMs / closedMs).toFixed(0)}× the closed form  (distance error ${(odexDistance / h - 1).toExponential(1)})`);
 console.log(`  our Dormand–Prince 5(4) with event, 1e-10    ${us(ownMs).padStart(12)}   ${(ownMs / closedMs).toFixed(0)}× the closed form  (time error ${(ownTime / tFall - 1).toExponential(1)})`);
+console.log('');
+console.log(`five-drop 3000 m series through the air column, 4 m/s crosswind, full budget + 20 000-draw Monte Carlo: ${tallMs.toFixed(1)} ms  (target ≤ 100 ms)`);
+console.log(`the 3000 m fall in still stratified air, time to impact:`);
+console.log(`  our quadrature (48 + 96 panels, Richardson)  ${us(stratifiedMs).padStart(12)}   1×`);
+console.log(`  odex, tolerance 1e-10, same equations        ${us(odexTallMs).padStart(12)}   ${(odexTallMs / stratifiedMs).toFixed(0)}× the quadrature  (odex's distance at our time: error ${(odexTallDistance / 3000 - 1).toExponential(1)})`);
 if (!Number.isFinite(sink)) console.log('(sink)', sink);

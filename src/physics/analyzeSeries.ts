@@ -69,7 +69,7 @@ function airColumnSummary(
   };
   let fall: { impact_mach: number; drift_m: number; impact_relative_speed_m_s: number } = { impact_mach: NaN, drift_m: 0, impact_relative_speed_m_s: NaN };
   try {
-    fall = fallThroughColumn(top, body, column);
+    fall = fallThroughColumn(top, body, column, 1e-9);
   } catch {
     // Reported through the fit already; the summary then has no impact figures.
   }

@@ -194,8 +194,8 @@ export class SeriesModel {
 
   /**
    * The column's effect on the fall times at x (evaluated first), over the smallest standard uncertainty of each
-   * mean time (timingU/√n_j), largest over the heights: the nominal shift plus the given inputs' shifts at one
-   * standard uncertainty, added linearly (see columnCorrection.ts).
+   * mean time (timingU/√n_j), largest over the heights: the nominal shift and the given inputs' shifts at one
+   * standard uncertainty, in quadrature (see columnCorrection.ts).
    */
   columnEffect(x: Float64Array, timingU: number, inputs: { index: number; u: number }[]): number {
     const cd = this.evaluate(x);
@@ -217,7 +217,7 @@ export class SeriesModel {
         shifted[input.index] = x[input.index]!;
         spread += (moved - t) ** 2;
       }
-      const effect = Math.abs(t - fallTime(h, closed)) + Math.sqrt(spread);
+      const effect = Math.sqrt((t - fallTime(h, closed)) ** 2 + spread);
       worst = Math.max(worst, effect / (timingU / Math.sqrt(this.setup.counts[j]!)));
     }
     this.evaluate(x);

