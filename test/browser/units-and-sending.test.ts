@@ -133,17 +133,18 @@ describe.skipIf(!haveChromium)('units, whole, and sending that says what happene
     await expectVisible(page.locator('.row', { hasText: 'on site' }));
   });
 
-  it('adds a specimen in ounces and inches, and runs a series of five drops', async () => {
-    await page.goto(`${baseUrl}/#/specimens/new`);
+  it('adds a specimen in ounces and inches from inside the series form, and runs a series of five drops', async () => {
+    await page.getByRole('button', { name: 'Start a series' }).click();
+    await page.getByRole('button', { name: /Understood/ }).click();
+    // The catalogue is empty: the specimen is made right here, without leaving the day.
+    await expectVisible(page.getByText(/The specimen catalogue is empty/));
     await box(page, 'Name').fill('Leather ball 3.74 in');
     await box(page, /^Mass/).fill('7.41');
     await box(page, /^Diameter/).fill('3.74');
+    await shot(page, '03b-specimen-inside-series-form');
     await page.getByRole('button', { name: 'Add to the catalogue' }).click();
-    await expectVisible(page.getByText('Leather ball 3.74 in'));
-    await page.goto(`${baseUrl}/#/day`);
-    await page.getByRole('button', { name: 'Start a series' }).click();
-    const understood = page.getByRole('button', { name: /Understood/ });
-    if (await understood.isVisible()) await understood.click();
+    await expect.poll(() => page.getByLabel('Specimen', { exact: true }).locator('option:checked').textContent()).toBe('Leather ball 3.74 in');
+    expect(page.url()).toContain('#/day');
     await box(page, /^Release height/).fill('39.37');
     await page.getByLabel('Timing method').selectOption('typed');
     await page.getByRole('button', { name: 'Start the series' }).click();
