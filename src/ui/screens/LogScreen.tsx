@@ -98,9 +98,10 @@ function DayGlance({ dayId }: { dayId: string }) {
     let live = true;
     const run = async () => {
       const v = await app.store.loadDay(dayId);
-      const parts = analyzeDay(v, { monteCarloDraws: 200 }).map(({ specimen, outcome: out }) => {
+      const parts = analyzeDay(v, { monteCarloDraws: 200 }).map(({ specimen, outcome: out, targetMet }) => {
         const name = specimen?.name.replace(/\s*\(sample\)$/, '') ?? 'unknown';
-        return out.kind === 'ready' && out.result.drag_coefficient !== null ? `${name}: C_d ${out.result.drag_coefficient.toFixed(3)}` : `${name}: —`;
+        const target = targetMet ? 'target met' : 'target not met';
+        return out.kind === 'ready' && out.result.drag_coefficient !== null ? `${name}: C_d ${out.result.drag_coefficient.toFixed(3)}, ${target}` : `${name}: —, ${target}`;
       });
       if (live) setText(parts.join(' · '));
     };

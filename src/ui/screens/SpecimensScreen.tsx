@@ -172,7 +172,11 @@ function SpecimenEditor({ id }: { id: string | null }) {
   return <SpecimenForm record={existing.value} key={id ?? 'new'} />;
 }
 
-function SpecimenForm({ record: opened }: { record: SpecimenRecord | null }) {
+/**
+ * A specimen's form. With `onCreated`, a new specimen made from inside another form (the series form): the crew
+ * stays where they are and that form picks the new specimen.
+ */
+export function SpecimenForm({ record: opened, onCreated }: { record: SpecimenRecord | null; onCreated?: (id: string) => void }) {
   const app = useApp();
   // The record as this form last read it: replaced by the stored one when the crew reloads a stale form.
   const [record, setRecord] = useState(opened);
@@ -208,10 +212,11 @@ function SpecimenForm({ record: opened }: { record: SpecimenRecord | null }) {
       // is refused instead of reverting it.
       const expected = d.openedRev ? { expectedRev: d.openedRev } : {};
       if (record) await app.store.revise('specimen', record.id, body, measuredChanged ? d.reason.trim() : null, { clearDraft: key, ...expected });
-      else await app.store.create('specimen', body, { clearDraft: key });
+      const created = record ? null : await app.store.create('specimen', body, { clearDraft: key });
       await form.clear();
       app.notifyChanged();
-      navigate('specimens');
+      if (created && onCreated) onCreated(created.id);
+      else navigate('specimens');
     } catch (e) {
       setError(describeError(e));
       setStale((e as { code?: unknown } | null)?.code === 'changed-elsewhere');
@@ -231,9 +236,11 @@ function SpecimenForm({ record: opened }: { record: SpecimenRecord | null }) {
 
   return (
     <section class="card" aria-labelledby="spec-h">
-      <a class="back" href={routeHref('specimens')}>
-        ← Catalogue
-      </a>
+      {onCreated ? null : (
+        <a class="back" href={routeHref('specimens')}>
+          ← Catalogue
+        </a>
+      )}
       <h2 id="spec-h">{record ? `Edit ${record.name}` : 'New specimen'}</h2>
       {form.restored ? <Notice tone="info">Your unsaved entries were brought back.</Notice> : null}
       <TextField id="spec-name" label="Name" value={d.name} required onInput={(name) => form.set({ name })} />

@@ -75,7 +75,7 @@ export function DayHeader({ view }: { view: DayView }) {
       <div class="day-site">{view.site?.name ?? 'Site record missing'}</div>
       {view.site ? (
         <div class="hint">
-          {view.site.latitude_deg.toFixed(4)}°, {view.site.longitude_deg.toFixed(4)}° · elevation {format(view.site.elevation_m, 'length', 0)} ({view.site.elevation_source})
+          {coordinate(view.site.latitude_deg, 'NS')}, {coordinate(view.site.longitude_deg, 'EW')} · elevation {format(view.site.elevation_m, 'length', 0)} ({view.site.elevation_source})
         </div>
       ) : null}
       {view.day.crew.length ? <div class="hint">Crew: {view.day.crew.join(', ')}</div> : null}
@@ -226,12 +226,14 @@ function SeriesList({ view }: { view: DayView }) {
       {view.series.map((s) => {
         const specimen = view.specimens.find((p) => p.id === s.specimen_id);
         const drops = view.drops.filter((d) => d.series_id === s.id);
-        const outcome = rows?.find((r) => r.series.id === s.id)?.outcome;
+        const row = rows?.find((r) => r.series.id === s.id);
+        const outcome = row?.outcome;
         return (
           <li key={s.id}>
             <a class="row row-link" href={routeHref('day', view.day.id, 'series', s.id)}>
               <span class="row-main">
                 <strong>{specimen?.name ?? 'Unknown specimen'}</strong> from {format(s.height_m, 'length', 2)} · {drops.filter((d) => !d.excluded).length} drops
+                {row ? (row.targetMet ? ' · target met' : ' · target not met yet') : ''}
               </span>
               <span class="row-side">
                 {!outcome
@@ -254,4 +256,9 @@ function SeriesList({ view }: { view: DayView }) {
       })}
     </ul>
   );
+}
+
+/** A coordinate with its hemisphere letter: 46.1083° N, 8.2500° W. */
+function coordinate(degrees: number, letters: 'NS' | 'EW'): string {
+  return `${Math.abs(degrees).toFixed(4)}° ${degrees < 0 ? letters[1] : letters[0]}`;
 }

@@ -3,10 +3,14 @@ import { inputRange, LIMITS, type HeightMethod, type ReadingRecord, type Specime
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
-import { navigate, routeHref } from '../../router';
+import { navigate } from '../../router';
 import { describeError } from '../../errors';
 import { TIMING_METHOD_DEFAULTS } from '../../../physics';
 import { emptySeriesAirTiming, seriesAirTimingBody, seriesAirTimingValid, SeriesAirTimingFields, type SeriesAirTimingDraft } from './SeriesAirTimingFields';
+import { lazyScreen } from '../../lazy';
+
+// The specimen form, loaded only when a series is started without the specimen in the catalogue.
+const InlineSpecimenForm = lazyScreen(() => import('../SpecimensScreen').then((m) => m.SpecimenForm));
 
 /**
  * Each timing method's label and the random standard uncertainty of one drop the form starts from: the physics'
@@ -79,6 +83,7 @@ export function SeriesForm({
   }));
   const d = form.value;
   const [error, setError] = useState<string | null>(null);
+  const [addingSpecimen, setAddingSpecimen] = useState(false);
   const specimenOk = specimens.some((s) => s.id === d.specimenId);
   const valid = specimenOk && fieldsValid(d.height, d.uHeight, d.uTime, d.target) && seriesAirTimingValid(d, d.readingId);
 
@@ -113,14 +118,21 @@ export function SeriesForm({
     }
   };
 
-  if (specimens.length === 0) {
+  const picked = (id: string) => {
+    form.set({ specimenId: id });
+    setAddingSpecimen(false);
+  };
+  if (specimens.length === 0 || addingSpecimen) {
     return (
-      <section class="card">
-        <h3>Start a series</h3>
-        <p>The specimen catalogue is empty. Add the specimen you will drop first.</p>
-        <a class="btn" href={routeHref('specimens', 'new')}>
-          Add a specimen
-        </a>
+      <section class="card" aria-labelledby="series-h">
+        <h3 id="series-h">Start a series</h3>
+        {specimens.length === 0 ? <p>The specimen catalogue is empty. Add the specimen you will drop here; the series follows.</p> : null}
+        <InlineSpecimenForm record={null} onCreated={picked} />
+        {specimens.length ? (
+          <button type="button" class="btn btn-quiet" onClick={() => setAddingSpecimen(false)}>
+            Back to the series
+          </button>
+        ) : null}
       </section>
     );
   }
@@ -136,6 +148,9 @@ export function SeriesForm({
         options={specimens.map((s) => ({ value: s.id, label: s.name }))}
         onChange={(specimenId) => form.set({ specimenId })}
       />
+      <button type="button" class="btn btn-quiet btn-small" onClick={() => setAddingSpecimen(true)}>
+        A new specimen
+      </button>
       <MeasuredField form={form} name="height" uName="uHeight" label="Release height" kind="length" {...inputRange(LIMITS.height_m)} uMax={LIMITS.u_height_m.max} />
       <SelectField
         id="height-method"
