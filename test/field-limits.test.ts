@@ -213,12 +213,30 @@ const CASES: Case[] = [
         r.uncertainty.dew_point_C = v;
       }),
   },
-  // Wind is stored for the record; the physics does not read it.
-  { kind: 'reading', path: 'wind_speed_m_s', body: (v) => reading({ wind_speed_m_s: v }), form: 'speed' },
-  { kind: 'reading', path: 'u_wind_speed_m_s', body: (v) => reading({ u_wind_speed_m_s: v }), form: 'speed' },
-  { kind: 'reading', path: 'vertical_wind_m_s', body: (v) => reading({ vertical_wind_m_s: v }), form: 'speed' },
-  { kind: 'reading', path: 'u_vertical_wind_m_s', body: (v) => reading({ u_vertical_wind_m_s: v }), form: 'speed' },
-  { kind: 'reading', path: 'height_m', body: (v) => reading({ height_m: v }), form: 'length' },
+  // The air's motion and where it was read: the physics takes the drag on the velocity relative to the air.
+  { kind: 'reading', path: 'wind_speed_m_s', body: (v) => reading({ wind_speed_m_s: v }), form: 'speed', downstream: (v) => analyse((r) => (r.air.wind_speed_m_s = v)) },
+  {
+    kind: 'reading',
+    path: 'u_wind_speed_m_s',
+    body: (v) => reading({ u_wind_speed_m_s: v }),
+    form: 'speed',
+    downstream: (v) => analyse((r) => (r.uncertainty.wind_speed_m_s = v)),
+  },
+  {
+    kind: 'reading',
+    path: 'vertical_wind_m_s',
+    body: (v) => reading({ vertical_wind_m_s: v }),
+    form: 'speed',
+    downstream: (v) => analyse((r) => (r.air.vertical_wind_m_s = v)),
+  },
+  {
+    kind: 'reading',
+    path: 'u_vertical_wind_m_s',
+    body: (v) => reading({ u_vertical_wind_m_s: v }),
+    form: 'speed',
+    downstream: (v) => analyse((r) => (r.uncertainty.vertical_wind_m_s = v)),
+  },
+  { kind: 'reading', path: 'height_m', body: (v) => reading({ height_m: v }), form: 'length', downstream: (v) => analyse((r) => (r.air.height_m = v)) },
   {
     kind: 'series',
     path: 'height_m',

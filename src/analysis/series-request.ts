@@ -49,6 +49,8 @@ export function airInput(reading: ReadingRecord): { air: AnalysisRequest['air'];
     air: {
       ...(reading.height_m !== 0 ? { height_m: reading.height_m } : {}),
       ...(reading.vertical_wind_m_s !== null ? { vertical_wind_m_s: reading.vertical_wind_m_s } : {}),
+      // The horizontal wind pushes the body sideways and adds to the air speed it meets (drag in two dimensions).
+      ...(reading.wind_speed_m_s !== null ? { wind_speed_m_s: reading.wind_speed_m_s } : {}),
       temperature_C: reading.temperature_C,
       pressure_Pa: reading.pressure_Pa,
       pressure_reference: reading.pressure_reference,

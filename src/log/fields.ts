@@ -67,16 +67,17 @@ export const LIMITS = {
   u_dew_point_C: atLeast(0, 20, '°C'),
   // Beyond hurricane force nobody drops anything; the bound catches km/h typed as m/s only above 75.
   wind_speed_m_s: atLeast(0, 75, 'm/s'),
-  u_wind_speed_m_s: atLeast(0, 75, 'm/s'),
-  // Vertical air motion, positive upward: thermals near the ground rise at a few m/s, the strongest
-  // convective updrafts reach 30 m/s and more (from memory); nobody drops anything in those.
-  vertical_wind_m_s: atLeast(-30, 30, 'm/s'),
-  u_vertical_wind_m_s: atLeast(0, 30, 'm/s'),
+  // Gusts are the wind's uncertainty; a 30 m/s doubt is no reading (the physics' bound).
+  u_wind_speed_m_s: atLeast(0, 30, 'm/s'),
+  // Vertical air motion, positive upward: thermals near the ground rise at a few m/s (from memory); beyond
+  // 10 m/s it is a storm, and the physics' bound.
+  vertical_wind_m_s: atLeast(-10, 10, 'm/s'),
+  u_vertical_wind_m_s: atLeast(0, 10, 'm/s'),
   // Where a reading was taken, above the landing surface: on the ground (0) up to the highest release.
   reading_height_m: atLeast(0, 10_000, 'm'),
-  // A drop tower or a tethered balloon at most; drones are held to 120 m in most places. The physics
-  // takes the air as one column of constant properties, which it refuses beyond 1000 m.
-  height_m: above(0, 1000, 'm'),
+  // From a step ladder to a balloon or an aircraft: the physics follows the air along the fall (lapse rate,
+  // pressure, a reading aloft) up to 10 000 m, where the troposphere ends at mid latitudes.
+  height_m: above(0, 10_000, 'm'),
   u_height_m: atLeast(0, 10, 'm'),
   // The physics cannot weigh a drop whose timing is perfect: the uncertainty must be above zero.
   u_time_s: above(0, 10, 's'),

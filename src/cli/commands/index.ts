@@ -4,10 +4,11 @@ import type { Command } from '../command';
 import { analyzeCommand } from './analyze';
 import { checkCommand } from './check';
 import { mergeCommand } from './merge';
+import { report as reportCommand } from './report';
 
 export const COMMANDS: readonly Command[] = [
   analyzeCommand,
   mergeCommand,
   checkCommand,
-  // the day report's command (commands/report.ts) goes here
+  reportCommand,
 ];
