@@ -320,7 +320,7 @@ function seriesRows(rows: Row[]): CsvValue[][] {
       sig(result.air_density_kg_m3, 6),
       sig(result.gravity_m_s2, 7),
       rounded ? rounded.value : sig(cd, 4),
-      rounded ? rounded.u : u,
+      rounded ? rounded.u : typeof u === 'number' ? sig(u, 2) : u,
       expanded,
       bound(interval?.[0]),
       bound(interval?.[1]),

@@ -34,6 +34,7 @@
 import { assembleParts, exportLog, partFileName, readLogFile, readPartIndex, splitLog, type Conflict, type LogFile, type LogPartIndex } from '../log';
 import { contentHash } from './content-hash';
 import { describeError, SyncError } from './errors';
+import { PlummetError } from '../errors';
 import { fileProblem, problemWeight, type FileProblem } from './file-problem';
 import { applyImport } from './import-log';
 import type { RecordSource } from './record-source';
@@ -455,8 +456,16 @@ async function mergeIndexed(
   return complete ? remoteState(fetched, hash) : { ...remoteState(fetched, '', null), settled: false, seen_at: null };
 }
 
-/** The phone's part folder could not be made. */
-class NoPartFolder extends Error {}
+/**
+ * The phone's part folder could not be made (a server that refuses MKCOL): the run falls back to the single
+ * file. Caught inside the run, never shown.
+ */
+export class NoPartFolder extends PlummetError<'no-part-folder'> {
+  constructor(folder: string, cause: unknown) {
+    super({ code: 'no-part-folder', field: 'folder', value: folder, allowed: 'a folder where this phone may make a sub-folder', message: `the office folder refused the sub-folder ${folder}`, cause });
+    this.name = 'NoPartFolder';
+  }
+}
 
 /** Removes a file; false when the server refused (the run goes on). */
 async function removeQuietly(client: WebDavClient, name: FilePath): Promise<boolean> {
@@ -487,7 +496,7 @@ async function putVerified(client: WebDavClient, name: FilePath, text: string, h
       try {
         await client.makeFolder(name[0]!);
       } catch (refused) {
-        if (refused instanceof SyncError && ['sync-network', 'sync-forbidden', 'sync-http'].includes(refused.code)) throw new NoPartFolder();
+        if (refused instanceof SyncError && ['sync-network', 'sync-forbidden', 'sync-http'].includes(refused.code)) throw new NoPartFolder(name[0]!, refused);
         throw refused;
       }
       await client.put(name, text);

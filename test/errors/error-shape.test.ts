@@ -1,5 +1,7 @@
 // Every error the app throws has one shape: a PlummetError with a stable code, the field, the value and the
 // allowed range, and a message for people that names all three.
+import { NoPartFolder } from '../../src/sync/sync-run';
+import { ReportInputError, ReportUsageError } from '../../src/cli/commands/report';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import fc from 'fast-check';
@@ -82,6 +84,9 @@ const validRequest = (drops: { height_m: number; time_s: number }[]) => ({
 
 /** One real throw of each error class, from the code that throws it (not from its constructor). */
 const THROWN: Record<string, () => unknown | Promise<unknown>> = {
+  NoPartFolder: () => new NoPartFolder('plummet-log-0011223344556677.parts', new Error('405')),
+  ReportUsageError: () => new ReportUsageError('unknown option --colour'),
+  ReportInputError: () => new ReportInputError('no day 2026-13-01 in the logs'),
   PhysicsInputError: () => catchFrom(() => validateAnalysisRequest(validRequest([{ height_m: 12, time_s: -1 }]))),
   TimingError: () => catchFrom(() => checkFallTime(-1)),
   SoundCaptureError: () => new timing.SoundCaptureError({ code: 'microphone-refused', field: 'microphone', value: 'NotAllowedError', allowed: null, message: 'refused' }),

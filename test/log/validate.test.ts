@@ -75,7 +75,7 @@ describe('validateBody', () => {
       'time_s: "1.12" is not a finite number: must be > 0 and ≤ 3600 s',
     ]);
     expect(messages('series', { ...demo.series(), height_m: Number.POSITIVE_INFINITY })).toEqual([
-      'height_m: Infinity is not a finite number: must be > 0 and ≤ 1000 m',
+      'height_m: Infinity is not a finite number: must be > 0 and ≤ 10000 m',
     ]);
   });
 

@@ -99,7 +99,7 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
           error = e;
         }
         expect((error as LogError).code).toBe('record-invalid');
-        expect((error as Error).message).toContain('mass_kg: 0 is out of range: must be > 0 and ≤ 1000 kg');
+        expect((error as Error).message).toContain('mass_kg: 0 is out of range: must be > 0 and ≤ 20000 kg');
         expect(await store.list('specimen', { includeDeleted: true })).toEqual([]);
         expect((await store.status()).unsentChanges).toBe(0);
       });

@@ -47,13 +47,19 @@ interface Options {
   json: boolean;
 }
 
-class UsageError extends Error {}
+/** A slip in the command's arguments (an unknown option, a missing value): refused before anything is read. */
+export class ReportUsageError extends PlummetError<'usage'> {
+  constructor(message: string) {
+    super({ code: 'usage', field: 'arguments', value: null, allowed: 'the options plummet report --help lists', message });
+    this.name = 'ReportUsageError';
+  }
+}
 
 function parseArgs(args: readonly string[]): Options | 'help' {
   const o: Options = { logs: [], days: [], out: '-', pdf: null, paper: 'a4', draws: undefined, json: false };
   const value = (i: number, name: string) => {
     const v = args[i + 1];
-    if (v === undefined || (v.startsWith('-') && v !== '-')) throw new UsageError(`${name} needs a value`);
+    if (v === undefined || (v.startsWith('-') && v !== '-')) throw new ReportUsageError(`${name} needs a value`);
     return v;
   };
   for (let i = 0; i < args.length; i++) {
@@ -64,20 +70,20 @@ function parseArgs(args: readonly string[]): Options | 'help' {
     else if (a === '--pdf') o.pdf = value(i++, a);
     else if (a === '--paper') {
       const p = value(i++, a).toLowerCase();
-      if (p !== 'a4' && p !== 'letter') throw new UsageError(`--paper is ${JSON.stringify(p)}: allowed are a4 and letter`);
+      if (p !== 'a4' && p !== 'letter') throw new ReportUsageError(`--paper is ${JSON.stringify(p)}: allowed are a4 and letter`);
       o.paper = p;
     } else if (a === '--draws') {
       const v = value(i++, a);
       const n = Number(v);
-      if (!/^\d+$/.test(v) || n < 200 || n > 1_000_000) throw new UsageError(`--draws is ${JSON.stringify(v)}: allowed is a whole number from 200 to 1000000`);
+      if (!/^\d+$/.test(v) || n < 200 || n > 1_000_000) throw new ReportUsageError(`--draws is ${JSON.stringify(v)}: allowed is a whole number from 200 to 1000000`);
       o.draws = n;
     } else if (a === '--json') o.json = true;
     else if (a === '--') o.logs.push(...args.slice(i + 1)), (i = args.length);
-    else if (a.startsWith('-') && a !== '-') throw new UsageError(`unknown option ${a}`);
+    else if (a.startsWith('-') && a !== '-') throw new ReportUsageError(`unknown option ${a}`);
     else o.logs.push(a);
   }
-  if (o.logs.length === 0) throw new UsageError('name at least one log file (or - for standard input)');
-  if (o.logs.filter((l) => l === '-').length > 1) throw new UsageError('standard input (-) can be read only once');
+  if (o.logs.length === 0) throw new ReportUsageError('name at least one log file (or - for standard input)');
+  if (o.logs.filter((l) => l === '-').length > 1) throw new ReportUsageError('standard input (-) can be read only once');
   return o;
 }
 
@@ -106,7 +112,13 @@ async function readLogs(o: Options, io: CommandIo): Promise<LogRecord[]> {
   return records;
 }
 
-class ReportInputError extends Error {}
+/** A log or a --day the report cannot use; the message names the file or the day. */
+export class ReportInputError extends PlummetError<'report-input'> {
+  constructor(message: string) {
+    super({ code: 'report-input', field: 'logs', value: null, allowed: 'readable log files and days they hold', message });
+    this.name = 'ReportInputError';
+  }
+}
 
 /** The ids of the chosen days; refuses a --day that names no day of the logs. */
 function chosenDays(records: readonly LogRecord[], wanted: readonly string[]): string[] | undefined {
@@ -140,7 +152,7 @@ async function run(args: readonly string[], io: CommandIo): Promise<0 | 1 | 2> {
   try {
     o = parseArgs(args);
   } catch (error) {
-    if (!(error instanceof UsageError)) throw error;
+    if (!(error instanceof ReportUsageError)) throw error;
     io.stderr.write(`plummet report: ${error.message}\n(plummet report --help tells how)\n`);
     return 1;
   }
