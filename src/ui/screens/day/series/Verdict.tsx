@@ -78,8 +78,31 @@ export function Verdict({ outcome, series, verdict }: { outcome: SeriesOutcome; 
         <dd>{app.format(r.air.density_kg_m3, 'density')}</dd>
         <dt>Gravity here</dt>
         <dd>{app.format(r.gravity_m_s2, 'acceleration')}</dd>
-        <dt>Reynolds number at landing</dt>
-        <dd>{formatSignificant(Math.max(...r.drops.map((d) => d.reynolds_number)), 3)}</dd>
+        <dt>Reynolds numbers of the series</dt>
+        <dd>
+          {formatSignificant(r.drag_law_details.reynolds_range[0], 2)} to {formatSignificant(r.drag_law_details.reynolds_range[1], 2)}
+        </dd>
+        {r.air_column && r.air_column.weight > 0 ? (
+          <>
+            <dt>Air along the fall</dt>
+            <dd>
+              {app.format(r.air_column.density_at_release_kg_m3, 'density')} at release, {app.format(r.air_column.density_at_landing_kg_m3, 'density')} at landing
+              {r.air_column.drift_m > 0.005 ? `; drifts ${app.format(r.air_column.drift_m, 'length', 2)} downwind` : ''}
+            </dd>
+          </>
+        ) : null}
+        <dt>Drag law</dt>
+        <dd>
+          {r.drag_law === 'scaled_sphere'
+            ? `sphere curve × ${formatSignificant(r.drag_law_details.scale_factor ?? 1, 3)}`
+            : 'constant C_d'}
+        </dd>
+        {r.drag_law === 'scaled_sphere' && r.drag_law_details.drag_coefficient_at_max_impact !== null ? (
+          <>
+            <dt>C_d at the fastest landing</dt>
+            <dd>{formatSignificant(r.drag_law_details.drag_coefficient_at_max_impact, 3)}</dd>
+          </>
+        ) : null}
         {r.timing_offset_s !== undefined ? (
           <>
             <dt>Timing offset</dt>
