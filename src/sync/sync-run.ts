@@ -215,7 +215,7 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
   const ownName = report.own_file;
   const ownIndex = deviceIndexName(device);
   state.own_problem = null;
-  const { files, date: listedAt } = await client.listing();
+  const { files, folders, date: listedAt } = await client.listing();
   const listing = files.filter((r) => isLogName(r.name) || isIndexName(r.name));
   const listed = new Set(listing.map((r) => r.name));
   const progress = progressSaver(source, state);
@@ -307,6 +307,9 @@ async function runSteps(client: WebDavClient, state: SyncState, report: SyncRepo
     const folder = partFolderName(ownIndex);
     const changed = split.parts.filter((p) => ownParts[p.key] !== p.hash);
     try {
+      // The phone's part folder is made before its first part when the listing lacks it, so no request is sent
+      // that is sure to fail (a PUT into a missing folder: 409 on Apache, and an error in the browser's console).
+      if (changed.length > 0 && !folders.some((f) => f.name.replace(/\/$/, '') === folder)) await makePartFolder(client, folder);
       for (const part of changed) {
         await putVerified(client, [folder, partFileName(part.key)], part.text, part.hash, options);
         ownParts[part.key] = part.hash;
@@ -467,6 +470,16 @@ export class NoPartFolder extends PlummetError<'no-part-folder'> {
   }
 }
 
+/** Makes the phone's part folder; NoPartFolder when the server will not (the run falls back to the single file). */
+async function makePartFolder(client: WebDavClient, folder: string): Promise<void> {
+  try {
+    await client.makeFolder(folder);
+  } catch (refused) {
+    if (refused instanceof SyncError && ['sync-network', 'sync-forbidden', 'sync-http'].includes(refused.code)) throw new NoPartFolder(folder, refused);
+    throw refused;
+  }
+}
+
 /** Removes a file; false when the server refused (the run goes on). */
 async function removeQuietly(client: WebDavClient, name: FilePath): Promise<boolean> {
   try {
@@ -493,12 +506,7 @@ async function putVerified(client: WebDavClient, name: FilePath, text: string, h
       // The first part of a phone: its sub-folder is made on demand (Apache answers 409 Conflict for a missing
       // parent, RFC 4918 §9.7.1; nginx makes it itself with create_full_put_path).
       if (!(error instanceof SyncError && error.status === 409 && typeof name !== 'string' && name.length === 2)) throw error;
-      try {
-        await client.makeFolder(name[0]!);
-      } catch (refused) {
-        if (refused instanceof SyncError && ['sync-network', 'sync-forbidden', 'sync-http'].includes(refused.code)) throw new NoPartFolder(name[0]!, refused);
-        throw refused;
-      }
+      await makePartFolder(client, name[0]!);
       await client.put(name, text);
     }
     const held = await client.get(name);

@@ -135,7 +135,7 @@ export class WebDavClient {
   /** The files of the folder, and the server's clock (its Date header) when it listed them. One request,
    *  whatever the folder's size: Depth 1 gives every file's name, size, modification time and, where the
    *  server keeps one, its ETag. */
-  async listing(): Promise<{ files: DavResource[]; date: string | null }> {
+  async listing(): Promise<{ files: DavResource[]; folders: DavResource[]; date: string | null }> {
     const answer = await this.request('PROPFIND', this.folderUrl, {
       headers: { Depth: '1', 'Content-Type': 'application/xml; charset=utf-8' },
       body: PROPFIND_BODY,
@@ -146,8 +146,9 @@ export class WebDavClient {
     }
     this.expect(answer, [207], 'list its files');
     const own = decodedPath(this.folderUrl);
-    const files = parseMultistatus(answer.text, this.folderUrl).filter((r) => !r.collection && decodedPath(r.url) !== own);
-    return { files, date: answer.headers.get('date') };
+    const all = parseMultistatus(answer.text, this.folderUrl).filter((r) => decodedPath(r.url) !== own);
+    // The sub-folders too (a phone's part folder): a phone makes its own only when the listing lacks it.
+    return { files: all.filter((r) => !r.collection), folders: all.filter((r) => r.collection), date: answer.headers.get('date') };
   }
 
   /** The file's text and version, or null when there is no such file. */

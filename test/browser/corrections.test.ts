@@ -74,8 +74,8 @@ describe.skipIf(!haveChromium)('correcting, removing and undoing on the phone', 
     ] as const) {
       await page.getByRole('button', { name: 'Add an air reading' }).click();
       await box(page, /^Air temperature/).fill(String(air.temperature_C));
-      await page.getByText('Station pressure', { exact: true }).click();
-      await box(page, /^Pressure/).fill('961.2');
+      await box(page, /^Air pressure/).fill('961.2');
+      await page.getByText('Read on site: the air pressure where we stand', { exact: true }).click();
       await box(page, /^Relative humidity/).fill('55');
       if (minutes !== null) await page.getByLabel('Time of the reading').fill(await localInput(page, minutes));
       if (minutes !== null) await shot(page, '01-reading-with-its-time');

@@ -133,7 +133,7 @@ describe.skipIf(!haveChromium)('the Content-Security-Policy in Chromium', () => 
       expect(res.headers.get('content-security-policy'), path).toMatch(/^default-src 'none'; script-src 'self' blob:;/);
       expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');
       expect(res.headers.get('referrer-policy'), path).toBe('no-referrer');
-      expect(res.headers.get('permissions-policy'), path).toMatch(/^microphone=\(self\), geolocation=\(self\), web-share=\(self\), camera=\(\)/);
+      expect(res.headers.get('permissions-policy'), path).toMatch(/^microphone=\(self\), geolocation=\(self\), web-share=\(self\), screen-wake-lock=\(self\), camera=\(\)/);
     }
     const html = await (await fetch(`${server.url}/`)).text();
     // No inline script or style in the built page: every <script> has a src, and there is no <style>.

@@ -50,8 +50,8 @@ describe.skipIf(!haveChromium)('a drop in one motion', () => {
     await page.getByRole('button', { name: 'Start the day' }).click();
     await page.getByRole('button', { name: 'Add an air reading' }).click();
     await box(page, /^Air temperature/).fill('17.5');
-    await page.getByText('Station pressure', { exact: true }).click();
-    await box(page, /^Pressure/).fill('961.2');
+    await box(page, /^Air pressure/).fill('961.2');
+    await page.getByText('Read on site: the air pressure where we stand', { exact: true }).click();
     await box(page, /^Relative humidity/).fill('55');
     await page.getByRole('button', { name: 'Save reading' }).click();
     await page.goto(`${baseUrl}/#/specimens/new`);
