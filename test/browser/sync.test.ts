@@ -250,8 +250,10 @@ describe.skipIf(!haveChromium).each(kinds)('two phones syncing through %s, the p
     try {
       await call(a.page, 'configure', settings(proxy.folderUrl, server));
       await call(a.page, 'addSeries', 'North quarry wall', times);
-      for (const method of ['PROPFIND', 'PUT']) {
-        proxy.set({ fault: { kind: 'redirect', status: 307, location: `${elsewhere.folderUrl}${deviceFileName(a.device)}` }, methods: [method] });
+      // Writing starts with the phone's part folder (MKCOL) and goes on with PUTs: both are redirected.
+      for (const methods of [['PROPFIND'], ['MKCOL', 'PUT']]) {
+        const method = methods.join('+');
+        proxy.set({ fault: { kind: 'redirect', status: 307, location: `${elsewhere.folderUrl}${deviceFileName(a.device)}` }, methods });
         const report = await call(a.page, 'sync');
         expect(report.error, method).toMatchObject({ code: 'sync-redirected', retryable: false });
         expect(report.error!.message).toMatch(/redirect/);
