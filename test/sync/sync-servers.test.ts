@@ -329,7 +329,8 @@ describe.each(kinds)('syncing through %s', (name, missing, start) => {
 
   it.skipIf(missing)('reports a server error (500), loses nothing, and succeeds on the next try', async () => {
     await sync(phoneB, direct);
-    proxy.set({ fault: { kind: 'status', status: 500 }, methods: ['PUT'], times: 1 });
+    // The first write of a phone's parts is its part folder (MKCOL), then the PUTs: the first of them fails.
+    proxy.set({ fault: { kind: 'status', status: 500 }, methods: ['MKCOL', 'PUT'], times: 1 });
     const failed = await sync(phoneA, viaProxy);
     expect(failed.error).toMatchObject({ code: 'sync-server', status: 500, retryable: true });
     expect(await folderFiles(server)).toEqual([deviceIndexName('phoneB'), partsOf('phoneB')]);
@@ -485,9 +486,11 @@ describe.each(kinds)('syncing through %s', (name, missing, start) => {
   it.skipIf(missing)('does not follow a redirect: the log never goes to the other origin, and the run says why', async () => {
     const elsewhere = await startFaultProxy(server.port);
     try {
-      for (const method of ['PROPFIND', 'PUT']) {
+      // Writing starts with the phone's part folder (MKCOL) and goes on with PUTs: both are redirected.
+      for (const methods of [['PROPFIND'], ['MKCOL', 'PUT']]) {
+        const method = methods.join('+');
         for (const status of [301, 302, 307, 308]) {
-          proxy.set({ fault: { kind: 'redirect', status, location: `${elsewhere.folderUrl}${deviceFileName('phoneA')}` }, methods: [method] });
+          proxy.set({ fault: { kind: 'redirect', status, location: `${elsewhere.folderUrl}${deviceFileName('phoneA')}` }, methods });
           const report = await sync(phoneA, viaProxy);
           expect(report.error, `${method} ${status}`).toMatchObject({ code: 'sync-redirected', status, retryable: false });
           expect(report.error!.message).toContain(elsewhere.origin);
