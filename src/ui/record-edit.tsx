@@ -88,19 +88,47 @@ function patchOf(record: LogRecord, fields: readonly EditField[], values: Values
 }
 
 const SHOW_FIELD: Record<string, string> = {
-  time_s: 'time (s)',
-  height_m: 'height (m)',
-  u_height_m: 'height uncertainty (m)',
+  time_s: 'time',
+  height_m: 'height',
+  u_height_m: 'height uncertainty',
   taken_at: 'reading time',
   started_at: 'start',
-  temperature_C: 'temperature (°C)',
-  pressure_Pa: 'pressure (Pa)',
+  temperature_C: 'temperature',
+  pressure_Pa: 'pressure',
   specimen_id: 'specimen',
   reading_id: 'air reading',
   site_id: 'site',
   series_id: 'series',
   excluded: 'excluded',
 };
+
+/** Stored numbers shown in the crew's units in the history (the rest as stored). */
+const FIELD_KIND: Record<string, QuantityKind> = {
+  time_s: 'time',
+  height_m: 'length',
+  u_height_m: 'length',
+  temperature_C: 'temperature',
+  u_temperature_C: 'temperature',
+  pressure_Pa: 'pressure',
+  u_pressure_Pa: 'pressure',
+  mass_kg: 'mass',
+  u_mass_kg: 'mass',
+  wind_speed_m_s: 'speed',
+  u_wind_speed_m_s: 'speed',
+  vertical_wind_m_s: 'speed',
+  u_vertical_wind_m_s: 'speed',
+  elevation_m: 'length',
+  timing_delay_s: 'time',
+  u_timing_delay_s: 'time',
+  u_time_s: 'time',
+};
+
+type Format = (value: number, kind: QuantityKind) => string;
+
+function shownValue(key: string, v: unknown, format: Format): string {
+  const kind = FIELD_KIND[key];
+  return typeof v === 'number' && kind ? format(v, kind) : shortValue(v);
+}
 
 function shortValue(v: unknown): string {
   if (v === null || v === undefined || v === '') return '—';
@@ -113,7 +141,7 @@ function shortValue(v: unknown): string {
     .join(', ');
 }
 
-function changes(before: Revision<Record<string, unknown>> | undefined, after: Revision<Record<string, unknown>>): string[] {
+function changes(before: Revision<Record<string, unknown>> | undefined, after: Revision<Record<string, unknown>>, format: Format): string[] {
   if (!before) return ['created'];
   const out: string[] = [];
   if (before.deleted !== after.deleted) out.push(after.deleted ? 'removed' : 'restored');
@@ -121,7 +149,7 @@ function changes(before: Revision<Record<string, unknown>> | undefined, after: R
     if (k === 'raw') continue;
     const a = JSON.stringify(before.body[k]);
     const b = JSON.stringify(after.body[k]);
-    if (a !== b) out.push(`${SHOW_FIELD[k] ?? k.replace(/_/g, ' ')}: ${shortValue(before.body[k])} → ${shortValue(after.body[k])}`);
+    if (a !== b) out.push(`${SHOW_FIELD[k] ?? k.replace(/_/g, ' ')}: ${shownValue(k, before.body[k], format)} → ${shownValue(k, after.body[k], format)}`);
   }
   return out.length ? out : ['no change of value'];
 }
@@ -134,7 +162,8 @@ export function RecordHistory({ kind, id }: { kind: RecordKind; id: string }) {
   const { versions, me } = data.value;
   const all = versions as unknown as Revision<Record<string, unknown>>[];
   // A version's reason is stored with it when the next one replaced it: shown beside the change it explains.
-  const rows = all.map((v, i) => ({ v, what: changes(all[i - 1], v), why: all[i - 1]?.reason ?? null })).reverse();
+  const format: Format = (value, kind) => app.format(value, kind);
+  const rows = all.map((v, i) => ({ v, what: changes(all[i - 1], v, format), why: all[i - 1]?.reason ?? null })).reverse();
   return (
     <ol class="history" aria-label="History">
       {rows.map(({ v, what, why }) => (

@@ -4,7 +4,7 @@
 import type { HTMLAttributes } from 'preact';
 import type { TimeCapturedDetail, TimerMode, TimerPad } from './timer-pad';
 
-type TimerPadProps = 'label' | 'mode' | 'releaseDistance' | 'landingDistance' | 'airTemperature' | 'releaseHeight' | 'disabled' | 'decimalComma';
+type TimerPadProps = 'label' | 'mode' | 'releaseDistance' | 'landingDistance' | 'airTemperature' | 'releaseHeight' | 'disabled' | 'decimalComma' | 'units';
 
 declare module 'preact' {
   namespace JSX {

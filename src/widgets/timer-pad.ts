@@ -25,6 +25,7 @@ import {
 } from './timer-pad-state';
 import { timerPadStyles } from './timer-pad-styles';
 import { PAD_TEXT, formatSeconds } from './timer-pad-text';
+import { formatQuantity, inChosenUnits, unitSystemOf, type UnitChoice } from './units';
 
 /** Detail of `time-captured`: the fall time and the capture it came from, ready for a drop record. */
 export interface TimeCapturedDetail {
@@ -59,6 +60,7 @@ export class TimerPad extends LitElement {
     releaseHeight: { type: Number, attribute: 'release-height' },
     disabled: { type: Boolean, reflect: true },
     decimalComma: { type: Boolean, attribute: 'decimal-comma' },
+    units: { attribute: false },
     phase: { state: true },
     time: { state: true },
     elapsed: { state: true },
@@ -79,6 +81,8 @@ export class TimerPad extends LitElement {
   declare releaseHeight: number | null;
   declare disabled: boolean;
   declare decimalComma: boolean;
+  /** The crew's units: the pad's sentences (distances, the assumed temperature) are shown in them. */
+  declare units: UnitChoice;
   declare phase: PadPhase;
   /** The last captured fall time, s. */
   declare time: number | null;
@@ -119,6 +123,7 @@ export class TimerPad extends LitElement {
     this.releaseHeight = null;
     this.disabled = false;
     this.decimalComma = false;
+    this.units = {};
     this.phase = 'ready';
     this.time = null;
     this.elapsed = null;
@@ -278,6 +283,14 @@ export class TimerPad extends LitElement {
     this.dispatchEvent(new CustomEvent<{ mode: TimerMode }>('mode-change', { detail: { mode }, bubbles: true, composed: true }));
   }
 
+  /** A sentence of the pad in the crew's units (in SI it is shown as written). */
+  private inUnits(text: string): string {
+    if (unitSystemOf(this.units) === 'si') return text;
+    return inChosenUnits(text, (value, kind, decimals) =>
+      formatQuantity(value, kind, this.units, { decimalComma: this.decimalComma, ...(decimals !== undefined ? { decimals } : {}) }),
+    );
+  }
+
   override render() {
     const titleId = `${this.baseId}-title`;
     const running = this.phase === 'timing' && this.elapsed !== null;
@@ -332,8 +345,8 @@ export class TimerPad extends LitElement {
                 ${listening ? 'Stop listening' : 'Start listening'}
               </button>
             </div>`}
-        <p class="status" role="status">${this.message}</p>
-        ${this.problem ? html`<p class="problem" role="alert">${this.problem}</p>` : nothing}
+        <p class="status" role="status">${this.inUnits(this.message)}</p>
+        ${this.problem ? html`<p class="problem" role="alert">${this.inUnits(this.problem)}</p>` : nothing}
       </div>
     `;
   }

@@ -121,7 +121,7 @@ describe.skipIf(!haveChromium)('correcting, removing and undoing on the phone', 
     await expectVisible(page.locator('.undo-bar').getByText('Drop 3 corrected'));
     await shot(page, '03-corrected-with-undo-bar');
     await page.getByRole('button', { name: 'History of drop 3' }).click();
-    await expectVisible(page.getByText('time (s): 1.652 → 1.602'));
+    await expectVisible(page.getByText('time: 1.652 s → 1.602 s'));
     await expectVisible(page.getByText('Why: typed 1.652 for 1.602'));
     await shot(page, '04-drop-history');
   });

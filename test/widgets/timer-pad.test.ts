@@ -232,6 +232,15 @@ describe('<pl-timer-pad> listening', () => {
     expect(text(el, '[role="alert"]')).toBe('Distance to the release point: 1500 m is out of range. Allowed: 0 to 1000 m.');
   });
 
+  it('says the same in the crew’s US units: feet for the distances (NIST SP 811: 1 ft = 0.3048 m)', async () => {
+    const el = await make({ mode: 'listen', releaseDistance: 1500, landingDistance: 3, units: { length: 'ft' } }, 'pl-timer-pad-test');
+    lastCapture = null;
+    button(el, 'Start listening').click();
+    await el.updateComplete;
+    // 1500 m = 4921.26 ft, 1000 m = 3280.84 ft.
+    expect(text(el, '[role="alert"]')).toBe('Distance to the release point: 4921.3 ft is out of range. Allowed: 0.0 to 3280.8 ft.');
+  });
+
   it('says why when the microphone cannot be opened', async () => {
     const el = await make({ mode: 'listen' }, 'pl-timer-pad-test');
     const original = TestTimerPad.prototype['createSoundCapture'];

@@ -133,6 +133,7 @@ export function DropEntry({
               landingDistance={d.landingDistance.value ?? undefined}
               airTemperature={airTemperature ?? undefined}
               decimalComma={app.settings.decimalComma}
+              units={app.settings.units}
               ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
                 // The capture carries its sound-travel correction as data (raw.sound_travel).
                 // Impact adds the drop at once; the undo bar takes it back if the tap was a slip.
