@@ -210,4 +210,18 @@ describe.skipIf(!haveChromium)('correcting, removing and undoing on the phone', 
     await shot(page, '11-specimen-history');
     expect(errors).toEqual([]);
   });
+
+  it('lists the sites in the Log, refuses to remove one a day still uses, and says why', async () => {
+    await page.goto(`${baseUrl}/#/log`);
+    await expectVisible(page.getByRole('heading', { name: 'Sites' }));
+    await page.getByLabel(/^Site Quarry rim/).click();
+    await page.getByRole('button', { name: /^Remove the site Quarry rim/ }).click();
+    await box(page, /^Why remove the site Quarry rim/).fill('typed twice');
+    await page.getByRole('button', { name: 'Remove it' }).click();
+    // The store refuses: the day is still at this site, and nothing is removed.
+    await expectVisible(page.getByText(/is used by 1 day; change or remove those first/));
+    await shot(page, '12-log-sites-in-use');
+    await axe(page, 'sites in the log');
+    expect(errors).toEqual([]);
+  });
 });

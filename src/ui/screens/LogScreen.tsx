@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { analyzeDay } from '../../analysis';
-import { RestoreRow } from '../record-edit';
+import { inputRange, LIMITS } from '../../log';
+import { RecordActions, RestoreRow } from '../record-edit';
 import { useApp } from '../app-context';
 import { useStoreData } from '../hooks';
 import { routeHref } from '../router';
@@ -59,7 +60,56 @@ export function LogScreen() {
       </ul>
       {data.state === 'ready' && rows.length === 0 && data.value.days.length > 0 ? <p>No day matches “{query}”.</p> : null}
       <RemovedDays />
+      <Sites />
     </div>
+  );
+}
+
+/**
+ * The sites of the log, each correctable and removable (a site that a live day still uses is refused by name:
+ * remove or move those days first), and the removed ones with the way back.
+ */
+function Sites() {
+  const app = useApp();
+  const sites = useStoreData(async () => {
+    const [all, days] = await Promise.all([app.store.list('site', { includeDeleted: true }), app.store.list('day')]);
+    return all.map((site) => ({ site, days: days.filter((d) => d.site_id === site.id).length }));
+  }, []);
+  if (sites.state !== 'ready' || sites.value.length === 0) return null;
+  const live = sites.value.filter(({ site }) => !site.deleted);
+  const removed = sites.value.filter(({ site }) => site.deleted);
+  return (
+    <section aria-labelledby="sites-h">
+      <h2 id="sites-h">Sites</h2>
+      <ul class="rows">
+        {live.map(({ site, days }) => (
+          <li key={site.id}>
+            <details class="row-details">
+              <summary class="row" aria-label={`Site ${site.name}: correct, history or remove`}>
+                <span class="row-main">{site.name}</span>
+                <span class="row-side">{days === 1 ? '1 day' : `${days} days`}</span>
+              </summary>
+              <RecordActions
+                key={site.rev}
+                record={site}
+                label={`the site ${site.name}`}
+                consequence={days > 0 ? 'It is still the site of some days: remove or move them first. ' : undefined}
+                fields={[
+                  { name: 'name', label: 'Site name', type: 'text' },
+                  { name: 'latitude_deg', label: 'Latitude', type: 'quantity', kind: 'angle', ...inputRange(LIMITS.latitude_deg) },
+                  { name: 'longitude_deg', label: 'Longitude', type: 'quantity', kind: 'angle', ...inputRange(LIMITS.longitude_deg) },
+                  { name: 'elevation_m', label: 'Elevation', type: 'quantity', kind: 'length', ...inputRange(LIMITS.elevation_m) },
+                  { name: 'notes', label: 'Notes', type: 'text' },
+                ]}
+              />
+            </details>
+          </li>
+        ))}
+        {removed.map(({ site }) => (
+          <RestoreRow key={site.id} record={site} label={`site ${site.name}`} detail="removed" />
+        ))}
+      </ul>
+    </section>
   );
 }
 

@@ -8,10 +8,12 @@ import { Notice, TextField } from '../../../forms';
 import { describeError } from '../../../errors';
 import { formatNumber } from '../../../../widgets/units';
 import { RecordActions } from '../../../record-edit';
+import { useUndo } from '../../../undo';
 import { inputRange, LIMITS } from '../../../../log';
 
 export function DropTable({ drops, series, outcome }: { drops: readonly DropRecord[]; series: SeriesRecord; outcome: SeriesOutcome }) {
   const app = useApp();
+  const { offerUndo } = useUndo();
   const [excluding, setExcluding] = useState<string | null>(null);
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string | null>(null);
@@ -28,12 +30,14 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
   const toggle = async (d: DropRecord) => {
     setError(null);
     try {
+      let written: DropRecord;
       if (d.excluded) {
-        await app.store.revise('drop', d.id, { excluded: false, exclusion_reason: null }, reason.trim() || 'included again', { expectedRev: d.rev });
+        written = await app.store.revise('drop', d.id, { excluded: false, exclusion_reason: null }, reason.trim() || 'included again', { expectedRev: d.rev });
       } else {
         // The drop as this table showed it: refused ("changed elsewhere: reload") if another tab changed it since.
-        await app.store.revise('drop', d.id, { excluded: true, exclusion_reason: reason.trim() }, reason.trim(), { expectedRev: d.rev });
+        written = await app.store.revise('drop', d.id, { excluded: true, exclusion_reason: reason.trim() }, reason.trim(), { expectedRev: d.rev });
       }
+      offerUndo(d.excluded ? `Drop ${d.seq} included again` : `Drop ${d.seq} excluded`, [written]);
       setExcluding(null);
       setReason('');
       app.notifyChanged();
