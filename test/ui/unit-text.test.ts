@@ -34,3 +34,11 @@ describe('the core sentences in the crew units', () => {
     expect(text).not.toMatch(/°C/);
   });
 });
+
+describe('the CIPM-2007 range the screens word', () => {
+  it('is the range the physics checks (Picard et al. 2008, as physics/airProperties.ts states it)', async () => {
+    const { CIPM_VALID_RANGE } = await import('../../src/physics');
+    const { CIPM_RANGE_SHOWN } = await import('../../src/ui/unit-text');
+    expect(CIPM_RANGE_SHOWN).toEqual(CIPM_VALID_RANGE);
+  });
+});

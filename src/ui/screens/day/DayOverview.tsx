@@ -8,7 +8,11 @@ import { routeHref } from '../../router';
 import { describeError } from '../../errors';
 import { lazyModule, lazyScreen } from '../../lazy';
 import { inputRange, LIMITS, type ReadingRecord } from '../../../log';
-import { RecordActions, RestoreRow, type EditField } from '../../record-edit';
+import type { EditField } from '../../record-edit';
+
+// Correcting and restoring load when a panel first needs them: the day's first screen stays small.
+const RecordActions = lazyScreen(() => import('../../record-edit').then((m) => m.RecordActions), null);
+const RestoreRow = lazyScreen(() => import('../../record-edit').then((m) => m.RestoreRow), null);
 
 // The overview shows the day at once; the physics behind its figures, and the forms it opens on a tap, load apart.
 const useDayFigures = lazyModule(() => import('./day-figures'));
