@@ -10,12 +10,14 @@ const LAYERS = {
   log: ['errors'],
   analysis: ['physics', 'log', 'errors'],
   timing: ['physics', 'log', 'errors'],
+  motion: ['physics', 'log', 'errors'],
+  video: ['motion', 'errors'],
   charts: ['analysis', 'physics', 'log', 'errors'],
   report: ['charts', 'analysis', 'physics', 'log', 'errors'],
   store: ['log', 'errors'],
   sync: ['log', 'analysis', 'store', 'errors'],
   widgets: ['charts', 'timing', 'physics', 'log', 'errors'],
-  ui: ['errors', 'physics', 'log', 'analysis', 'charts', 'report', 'timing', 'store', 'sync', 'widgets'],
+  ui: ['errors', 'physics', 'log', 'analysis', 'charts', 'report', 'timing', 'motion', 'video', 'store', 'sync', 'widgets'],
   cli: ['report', 'physics', 'log', 'analysis', 'errors'],
 };
 
@@ -24,7 +26,7 @@ const SERVICE_WORKER = ['sync', 'store', 'log', 'errors'];
 
 /** Pure core: no platform, no clock, no randomness, no packages (tsconfig.core.json and check-pure-calls cover the rest). */
 const PURE_CORE = [
-  '^src/(physics|log|analysis|errors|charts|report)/',
+  '^src/(physics|log|analysis|errors|charts|report|motion)/',
   '^src/timing/(tap-timing|onset-detector|sound-interval|sound-travel|timing-error)\\.ts$',
 ];
 
