@@ -21,6 +21,7 @@ import { LogFileError, readLogFile, seriesInputs } from '../log';
 import { physicsSeriesComputer } from '../analysis';
 import { inputKind, writeLogCsv } from './log-to-csv';
 import { nestedTooDeeply, parseJsonText } from './parse-json';
+import { describeFault, describeProblem, isStackOverflow } from './describe-problem';
 
 const USAGE =
   'usage: plummet analyze request.json        (one series analysis request; see examples/)\n' +
@@ -35,23 +36,11 @@ export interface CliOutcome {
 
 const refused = (stderr: string): CliOutcome => ({ exitCode: 1, stdout: '', stderr });
 
-/** A coded error as the command prints it: its message, then where, what and what is allowed. */
-function report(error: PlummetError, prefix = ''): string {
-  const value = JSON.stringify(error.value) ?? 'undefined';
-  const shownValue = value.length > 80 ? `${value.slice(0, 77)}...` : value;
-  const rule = error instanceof LogFileError ? 'rule' : 'allowed';
-  return `${prefix}${error.message}\n  field: ${error.field ?? '(none)'}\n  value: ${shownValue}\n  ${rule}: ${error.allowed ?? '(none)'}\n  code: ${error.code}\n`;
-}
-
-/** The stack overflows only on input nested deeper than any check walks; said as such, never as a stack trace. */
-const isStackOverflow = (error: unknown) => error instanceof RangeError && /call stack/i.test(error.message);
+/** A coded error as the command prints it: a log file's problems name their rule, a request's what is allowed. */
+const report = (error: PlummetError, prefix = ''): string => describeProblem(error, prefix, error instanceof LogFileError ? 'rule' : 'allowed');
 
 /** A fault of our own: exit 2 with its message; the stack only when PLUMMET_DEBUG is set. */
-function internal(path: string, error: unknown): CliOutcome {
-  const debug = typeof process !== 'undefined' && Boolean(process.env['PLUMMET_DEBUG']);
-  const reason = error instanceof Error ? (debug ? (error.stack ?? error.message) : `${error.name}: ${error.message}`) : String(error);
-  return { exitCode: 2, stdout: '', stderr: `internal error while analysing ${path}: ${reason}\n(this is a fault of the office command; set PLUMMET_DEBUG=1 for its stack)\n` };
-}
+const internal = (path: string, error: unknown): CliOutcome => ({ exitCode: 2, stdout: '', stderr: describeFault(`analysing ${path}`, error) });
 
 /** The whole command as a function of its arguments and a file reader, so it can be tested without spawning. */
 export function runAnalyze(args: string[], readText: (path: string) => string): CliOutcome {

@@ -5,22 +5,10 @@
  */
 import { existsSync } from 'node:fs';
 import { PlummetError } from '../errors';
+// The project's one list of Chromium flags (the tests, the benchmarks and this command; each explained there).
+import { CHROMIUM_ARGS } from '../../scripts/chromium-args.mjs';
 
 export type Paper = 'a4' | 'letter';
-
-/**
- * The project's Chromium flags (scripts/chromium-args.mjs, where each is explained), repeated here because the
- * command is built from src/ alone; test/cli/report-command.test.ts fails when the two lists differ.
- */
-export const PDF_CHROMIUM_ARGS: readonly string[] = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 
 /** Where a Chromium is (CHROME_PATH, then Debian's and Ubuntu's paths), or null. */
 export function findChromium(env: Record<string, string | undefined> = process.env): string | null {
@@ -35,7 +23,7 @@ export async function printPdf(html: string, paper: Paper, chromiumPath: string)
   } catch (error) {
     throw new PlummetError({ code: 'pdf-unavailable', field: '--pdf', value: 'playwright-core', allowed: 'an installation with playwright-core (npm ci)', message: 'cannot print a PDF: the package playwright-core is not installed', cause: error });
   }
-  const browser = await playwright.chromium.launch({ executablePath: chromiumPath, args: [...PDF_CHROMIUM_ARGS], headless: true });
+  const browser = await playwright.chromium.launch({ executablePath: chromiumPath, args: [...CHROMIUM_ARGS], headless: true });
   try {
     const context = await browser.newContext({ javaScriptEnabled: false, offline: true });
     await context.route('**/*', (route) => route.abort());

@@ -10,8 +10,7 @@ import { analyzeDay } from '../../src/analysis';
 import { dayRecords } from '../../src/report';
 import type { DayRecord } from '../../src/log/types';
 import { reportLog } from '../report/report-fixture';
-import { CHROMIUM_ARGS, findChromium } from '../support/chromium';
-import { PDF_CHROMIUM_ARGS } from '../../src/cli/print-pdf';
+import { findChromium } from '../support/chromium';
 
 const dir = mkdtempSync(join(tmpdir(), 'plummet-report-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -81,10 +80,6 @@ describe('plummet report', () => {
     const r = await runReport(['log.json', '--paper', 'a3', '--pdf', 'x.pdf']);
     expect(r.code).toBe(1);
     expect(r.err).toContain('allowed are a4 and letter');
-  });
-
-  it('starts Chromium with the project\'s one list of flags', () => {
-    expect([...PDF_CHROMIUM_ARGS]).toEqual(CHROMIUM_ARGS);
   });
 
   const chromium = findChromium();
