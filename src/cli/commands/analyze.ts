@@ -1,6 +1,8 @@
 import { isAbsolute, resolve } from 'node:path';
 import type { Command } from '../command';
 import { writeText } from '../write-text';
+// Small and already in the start-up chunk (report.ts reads input the same way).
+import { readInputFile, readInputStream } from '../read-input';
 
 const help = `plummet analyze - the figures of one series, or of every series in one log
 
@@ -26,7 +28,7 @@ export const analyzeCommand: Command = {
       await writeText(io.stdout, help);
       return 0;
     }
-    const [{ runAnalyze }, { readInputFile, readInputStream }] = await Promise.all([import('../analyze'), import('../read-input')]);
+    const { runAnalyze } = await import('../analyze');
     const rest = args.filter((a) => a !== '--json');
     // Standard input is read before the command runs (its size is known only while reading: capped as it comes).
     let piped: { text: string } | { error: unknown } | null = null;
