@@ -8,23 +8,54 @@ import type { LogRecord } from '../log';
 import { StoreError } from './errors';
 import type { Staging } from './staging';
 
+/** How the crew knows a record: a site or specimen by its name, a day by its date, a reading by its time. */
+function nameOf(record: LogRecord): string {
+  switch (record.kind) {
+    case 'site':
+      return `The site “${record.name}”`;
+    case 'specimen':
+      return `The specimen “${record.name}”`;
+    case 'reading':
+      return `The air reading of ${record.taken_at.slice(0, 16).replace('T', ' ')} UTC`;
+    case 'day':
+      return `The day ${record.date}`;
+    default:
+      return `This ${record.kind}`;
+  }
+}
+
+/** "1 day (2026-05-03)", "3 series", "4 days (2026-05-03, 2026-05-04, 2026-05-05, …)": at most three names. */
+function counted(n: number, noun: string, names: readonly string[] = []): string {
+  const plural = n === 1 || noun === 'series' ? noun : `${noun}s`;
+  const shown = [...new Set(names)].sort();
+  const list = shown.length ? ` (${shown.slice(0, 3).join(', ')}${shown.length > 3 ? ', …' : ''})` : '';
+  return `${n} ${plural}${list}`;
+}
+
 export async function removalSet(record: LogRecord, staging: Staging): Promise<LogRecord[]> {
-  const inUse = (what: string, n: number) =>
-    new StoreError({ code: 'record-in-use', field: null, value: record.id, allowed: null, message: `${record.kind} ${record.id} is used by ${n} ${what}; change or remove those first` });
+  // Named as the crew knows it (a site or specimen by its name, a reading by its time), with the records in the way.
+  const inUse = (users: string, field: string) =>
+    new StoreError({
+      code: 'record-in-use',
+      field,
+      value: record.id,
+      allowed: null,
+      message: `${nameOf(record)} is still used by ${users}; change or remove ${users.startsWith('1 ') ? 'it' : 'them'} first`,
+    });
   switch (record.kind) {
     case 'site': {
       const days = await staging.referrers('day', 'by_site', record.id, (d) => d.site_id);
-      if (days.length > 0) throw inUse(days.length === 1 ? 'day' : 'days', days.length);
+      if (days.length > 0) throw inUse(counted(days.length, 'day', days.map((d) => d.date)), 'site_id');
       return [record];
     }
     case 'specimen': {
       const series = await staging.referrers('series', 'by_specimen', record.id, (s) => s.specimen_id);
-      if (series.length > 0) throw inUse('series', series.length);
+      if (series.length > 0) throw inUse(counted(series.length, 'series'), 'specimen_id');
       return [record];
     }
     case 'reading': {
       const series = (await staging.referrers('series', 'by_day', record.day_id, (s) => s.day_id)).filter((s) => s.reading_id === record.id || s.reading_aloft_id === record.id);
-      if (series.length > 0) throw inUse('series', series.length);
+      if (series.length > 0) throw inUse(counted(series.length, 'series'), 'reading_id');
       return [record];
     }
     case 'series':

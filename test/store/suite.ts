@@ -198,6 +198,10 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
         await store.commit(seriesActions(store, day.id, specimen.id, [1.12]).actions);
         expect(await codeOf(store.remove('site', site.id, 'moved'))).toBe('record-in-use');
         expect(await codeOf(store.remove('specimen', specimen.id, 'lost'))).toBe('record-in-use');
+        // Named as the crew knows them: the site by its name, the day in the way by its date.
+        const refusal = await store.remove('site', site.id, 'moved').then(() => null, (error: StoreError) => error);
+        expect(refusal?.message).toBe(`The site “${site.name}” is still used by 1 day (${day.date}); change or remove it first`);
+        expect(refusal?.field).toBe('site_id');
         await store.remove('day', day.id, 'wrong site');
         await store.remove('site', site.id, 'moved');
         expect((await store.get('site', site.id))?.deleted).toBe(true);

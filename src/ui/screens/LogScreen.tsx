@@ -12,8 +12,13 @@ export function LogScreen() {
   const app = useApp();
   const [query, setQuery] = useState('');
   const data = useStoreData(async () => {
-    const [days, series, specimens] = await Promise.all([app.store.listDays(), app.store.list('series'), app.store.list('specimen')]);
-    return { days, series, specimens };
+    const [days, series, specimens, everyDay] = await Promise.all([
+      app.store.listDays(),
+      app.store.list('series'),
+      app.store.list('specimen'),
+      app.store.list('day', { includeDeleted: true }),
+    ]);
+    return { days, series, specimens, removedDays: everyDay.length - days.length };
   }, []);
   const rows = useMemo(() => {
     if (data.state !== 'ready') return [];
@@ -34,7 +39,13 @@ export function LogScreen() {
         <label for="log-search">Search by site, specimen or date</label>
         <input id="log-search" type="search" value={query} onInput={(e) => setQuery((e.target as HTMLInputElement).value)} />
       </div>
-      {data.state === 'ready' && data.value.days.length === 0 ? (
+      {data.state === 'ready' && data.value.days.length === 0 && data.value.removedDays > 0 ? (
+        <p>
+          No day is left in the log: {data.value.removedDays === 1 ? 'the one day was' : `all ${data.value.removedDays} days were`} removed, and can be
+          restored under Removed days below. Or <a href={routeHref('day', 'new')}>start a test day</a>.
+        </p>
+      ) : null}
+      {data.state === 'ready' && data.value.days.length === 0 && data.value.removedDays === 0 ? (
         <p>
           The log is empty. <a href={routeHref('day', 'new')}>Start a test day</a>, or load the sample log in <a href={routeHref('settings')}>Settings</a>.
         </p>
