@@ -214,7 +214,9 @@ export function analyzeMarksSeries(request: AnalysisRequest): AnalysisResult {
       degrees_of_freedom: Infinity,
     });
   }
-  specs.push({
+  // Without a stated tape error the distances are exact (budgetInputs' warning says so): no row, and none of the
+  // many distinct distances of a video is differentiated for nothing.
+  if (setup.heightU > 0) specs.push({
     input: 'height_m',
     description: `distance of each mark, independent at each of the ${M.distinctDistances.length} distinct distances (shared by every drop that has it)`,
     evaluation: 'B',

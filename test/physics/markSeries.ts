@@ -18,8 +18,8 @@ import { prepareSetup } from '../../src/physics/seriesSetup';
 
 export const BALL = { shape: 'sphere' as const, diameter_m: 0.07, mass_kg: 0.005 };
 export const BALL_CD = 0.47;
-const SITE = { latitude_deg: 46.1, elevation_m: 430 };
-const AIR = { temperature_C: 19, pressure_Pa: 96_120, pressure_reference: 'station' as const, relative_humidity_pct: 55 };
+export const SITE = { latitude_deg: 46.1, elevation_m: 430 };
+export const AIR = { temperature_C: 19, pressure_Pa: 96_120, pressure_reference: 'station' as const, relative_humidity_pct: 55 };
 const INPUTS_U = { mass_kg: 0.00005, diameter_m: 0.0002, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3 };
 
 export interface MarkSeriesOptions {
@@ -35,7 +35,7 @@ export interface MarkSeriesOptions {
 }
 
 /** The truth's fall parameters with the true inputs. */
-function trueFall(specimen: typeof BALL, air: typeof AIR, cd: number): FallParameters {
+export function trueFall(specimen: typeof BALL, air: typeof AIR, cd: number): FallParameters {
   const setup = prepareSetup({ site: SITE, air, specimen, drops: [{ height_m: 1, time_s: 1 }], timing: { standard_uncertainty_s: 0.001 } });
   const k = (setup.density_kg_m3 * cd * setup.geometry.area_m2) / (2 * setup.effectiveMass_kg);
   return { effective_gravity_m_s2: setup.effectiveGravity_m_s2, drag_constant_per_m: k, effective_mass_kg: setup.effectiveMass_kg };
