@@ -13,7 +13,9 @@ function exactVideo(): AnalysisRequest {
   const clip = () => {
     const marks = [];
     for (let t = 0.1; fallDistance(t, p) < 2; t += 0.01) marks.push({ distance_m: fallDistance(t, p), time_s: t - 0.007 });
-    return { marks, release_time_known: false };
+    // The typed request carries the landing; here it is the last mark itself (the validation takes it as that mark).
+    const last = marks[marks.length - 1]!;
+    return { height_m: last.distance_m, time_s: last.time_s, marks, release_time_known: false };
   };
   return { site: SITE, air: AIR, specimen: BALL, drops: [clip(), clip(), clip()], timing: { standard_uncertainty_s: 0.001, method: 'video' }, options: { monte_carlo_draws: 2000 } };
 }
