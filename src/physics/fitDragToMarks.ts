@@ -76,25 +76,30 @@ function modelTime(d: number, k: number, g: number, out: Float64Array): void {
   out[1] = scale * d * phi[1]!;
 }
 
-interface Work {
-  model: Float64Array;
-  slope: Float64Array;
-  weight: Float64Array;
-}
-
-function workFor(drops: readonly MarkedDrop[]): Work[] {
-  return drops.map((d) => ({ model: new Float64Array(d.times_s.length), slope: new Float64Array(d.times_s.length), weight: new Float64Array(d.times_s.length) }));
-}
+// Scratch space shared by all calls (the fit runs once per Monte Carlo draw; allocating per call costs more than
+// the arithmetic). Nothing here keeps state between calls.
+let sharedModel = new Float64Array(64);
+let sharedSlope = new Float64Array(64);
+let sharedWeight = new Float64Array(64);
+const state = new Float64Array(7);
+const S_ = 0;
+const A00 = 1;
+const A01 = 2;
+const A11 = 3;
+const B0 = 4;
+const B1 = 5;
+const MAX_SLOPE = 6;
 
 /** Fit k (and δ when `fitOffset`) to the drops' marks; `startK` a first guess, 1/m. */
 export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly MarkedDrop[], fitOffset: boolean, startK = 0): MarksFit {
   const g = effectiveGravity_m_s2;
-  const work = workFor(drops);
+  const N = drops.length;
   let dMax = 0;
   let tMax = 0;
   let marks = 0;
   let shifts = 0;
-  for (const drop of drops) {
+  for (let i = 0; i < N; i++) {
+    const drop = drops[i]!;
     marks += drop.times_s.length;
     if (!drop.releaseKnown) shifts++;
     for (let m = 0; m < drop.times_s.length; m++) {
@@ -102,25 +107,37 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
       tMax = Math.max(tMax, Math.abs(drop.times_s[m]!));
     }
   }
+  if (sharedModel.length < marks) {
+    sharedModel = new Float64Array(marks);
+    sharedSlope = new Float64Array(marks);
+    sharedWeight = new Float64Array(marks);
+  }
+  const model = sharedModel;
+  const slope = sharedSlope;
+  const weight = sharedWeight;
   const kLo = MIN_DRAG_X / dMax;
   const kHi = MAX_DRAG_X / dMax;
   const out = new Float64Array(2);
   const speedParams: FallParameters = { effective_gravity_m_s2: g, drag_constant_per_m: 0, effective_mass_kg: 1 };
+  let noisyDistances = false;
+  for (let i = 0; i < N; i++) if (drops[i]!.distanceU_m > 0) noisyDistances = true;
 
-  /** Weights at k: D⁻¹ per mark (the speeds at k), kept in work[i].weight. */
+  /** Weights at k: D⁻¹ per mark (the speeds at k). */
   const reweight = (k: number): void => {
     speedParams.drag_constant_per_m = Math.max(k, 0);
-    drops.forEach((drop, i) => {
-      const w = work[i]!.weight;
-      for (let m = 0; m < w.length; m++) {
+    let at = 0;
+    for (let i = 0; i < N; i++) {
+      const drop = drops[i]!;
+      const tu2 = drop.timeU_s * drop.timeU_s;
+      const du = drop.distanceU_m;
+      for (let m = 0; m < drop.times_s.length; m++, at++) {
         // A distance error δd moves the time at d by δd/v(d): nothing is known of a mark's time where v = 0.
-        const v = drop.distanceU_m > 0 ? fallSpeedAtHeight(drop.distances_m[m]!, speedParams) : 1;
-        w[m] = v > 0 ? 1 / (drop.timeU_s * drop.timeU_s + (drop.distanceU_m / v) ** 2) : 0;
+        const v = du > 0 ? fallSpeedAtHeight(drop.distances_m[m]!, speedParams) : 1;
+        weight[at] = v > 0 ? 1 / (tu2 + (du / v) ** 2) : 0;
       }
-    });
+    }
   };
-  // The normal equations at (k, δ): A = JᵀMJ (2×2, packed), b = JᵀMr, S = rᵀMr.
-  const state = { S: 0, a00: 0, a01: 0, a11: 0, b0: 0, b1: 0, maxSlope: 0 };
+  // The normal equations at (k, δ): A = JᵀMJ (2×2, packed), b = JᵀMr, S = rᵀMr, into `state`.
   const evaluate = (k: number, delta: number): void => {
     let S = 0;
     let a00 = 0;
@@ -129,30 +146,35 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
     let b0 = 0;
     let b1 = 0;
     let maxSlope = 0;
-    drops.forEach((drop, i) => {
-      const { model, slope, weight } = work[i]!;
+    let at = 0;
+    for (let i = 0; i < N; i++) {
+      const drop = drops[i]!;
       const known = drop.releaseKnown;
       const offset = known ? delta : 0;
-      const uses = fitOffset && known ? 1 : 0;
       let sw = 0;
       let swr = 0;
       let swj = 0;
       let swrr = 0;
       let swjj = 0;
       let swjr = 0;
-      for (let m = 0; m < model.length; m++) {
+      const count = drop.times_s.length;
+      for (let m = 0; m < count; m++, at++) {
         modelTime(drop.distances_m[m]!, k, g, out);
-        model[m] = out[0]!;
-        slope[m] = out[1]!;
-        if (out[1]! > maxSlope) maxSlope = out[1]!;
-        const w = weight[m]!;
-        const r = drop.times_s[m]! - out[0]! - offset;
+        const t = out[0]!;
+        const j = out[1]!;
+        model[at] = t;
+        slope[at] = j;
+        if (j > maxSlope) maxSlope = j;
+        const w = weight[at]!;
+        const r = drop.times_s[m]! - t - offset;
+        const wr = w * r;
+        const wj = w * j;
         sw += w;
-        swr += w * r;
-        swj += w * out[1]!;
-        swrr += w * r * r;
-        swjj += w * out[1]! * out[1]!;
-        swjr += w * out[1]! * r;
+        swr += wr;
+        swj += wj;
+        swrr += wr * r;
+        swjj += wj * j;
+        swjr += wj * r;
       }
       const rs = drop.releaseU_s * drop.releaseU_s;
       const c = known ? rs / (1 + rs * sw) : 1 / sw;
@@ -160,18 +182,24 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
       S += swrr - c * swr * swr;
       a00 += swjj - c * swj * swj;
       b0 += swjr - c * swj * swr;
-      if (uses) {
+      if (fitOffset && known) {
         a01 += swj - c * swj * sw;
         a11 += sw - c * sw * sw;
         b1 += swr - c * sw * swr;
       }
-    });
-    Object.assign(state, { S, a00, a01, a11, b0, b1, maxSlope });
+    }
+    state[S_] = S;
+    state[A00] = a00;
+    state[A01] = a01;
+    state[A11] = a11;
+    state[B0] = b0;
+    state[B1] = b1;
+    state[MAX_SLOPE] = maxSlope;
   };
   const solve = (): [number, number] => {
-    if (!fitOffset) return [state.b0 / state.a00, 0];
-    const det = state.a00 * state.a11 - state.a01 * state.a01;
-    return [(state.a11 * state.b0 - state.a01 * state.b1) / det, (state.a00 * state.b1 - state.a01 * state.b0) / det];
+    if (!fitOffset) return [state[B0]! / state[A00]!, 0];
+    const det = state[A00]! * state[A11]! - state[A01]! * state[A01]!;
+    return [(state[A11]! * state[B0]! - state[A01]! * state[B1]!) / det, (state[A00]! * state[B1]! - state[A01]! * state[B0]!) / det];
   };
 
   let k = Number.isFinite(startK) ? Math.min(Math.max(startK, kLo), kHi) : 0;
@@ -180,16 +208,19 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
   let iterations = 0;
   for (let iteration = 1; iteration <= 100; iteration++) {
     iterations = iteration;
-    reweight(k);
-    evaluate(k, delta);
-    if (!(state.a00 > 0) || (fitOffset && !(state.a00 * state.a11 - state.a01 * state.a01 > 0))) {
+    // Fixed weights need no new evaluation after the first: the accepted step's evaluation is the current one.
+    if (iteration === 1 || noisyDistances) {
+      reweight(k);
+      evaluate(k, delta);
+    }
+    if (!(state[A00]! > 0) || (fitOffset && !(state[A00]! * state[A11]! - state[A01]! * state[A01]! > 0))) {
       status = 'no-drag-information';
       break;
     }
-    const current = state.S;
+    const current = state[S_]!;
     let [dk, dd] = solve();
     // Whether the step moves any model time by more than 1e-10 of the longest: else take it and stop.
-    if (Math.abs(dk) * state.maxSlope + Math.abs(dd) <= 1e-10 * tMax) {
+    if (Math.abs(dk) * state[MAX_SLOPE]! + Math.abs(dd) <= 1e-10 * tMax) {
       k += dk;
       delta += dd;
       status = 'ok';
@@ -199,7 +230,7 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
     for (let halving = 0; halving < 40; halving++) {
       const next = Math.min(Math.max(k + dk, kLo), kHi);
       evaluate(next, delta + dd);
-      if (state.S <= current * (1 + 1e-12) + 1e-300) {
+      if (state[S_]! <= current * (1 + 1e-12) + 1e-300) {
         k = next;
         delta += dd;
         accepted = true;
@@ -218,25 +249,26 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
   // The end state: residuals, shifts and the covariance at the final k.
   reweight(k);
   evaluate(k, delta);
-  const det = fitOffset ? state.a00 * state.a11 - state.a01 * state.a01 : state.a00;
-  const covariance: [number, number, number] = fitOffset ? [state.a11 / det, -state.a01 / det, state.a00 / det] : [1 / state.a00, 0, 0];
-  const shiftsOut = drops.map((drop, i) => {
-    if (drop.releaseKnown) return null;
-    const { model, weight } = work[i]!;
+  const det = fitOffset ? state[A00]! * state[A11]! - state[A01]! * state[A01]! : state[A00]!;
+  const covariance: [number, number, number] = fitOffset ? [state[A11]! / det, -state[A01]! / det, state[A00]! / det] : [1 / state[A00]!, 0, 0];
+  const shiftsOut: (number | null)[] = [];
+  let at = 0;
+  for (let i = 0; i < N; i++) {
+    const drop = drops[i]!;
     let sw = 0;
     let swr = 0;
-    for (let m = 0; m < model.length; m++) {
-      sw += weight[m]!;
-      swr += weight[m]! * (drop.times_s[m]! - model[m]!);
+    for (let m = 0; m < drop.times_s.length; m++, at++) {
+      sw += weight[at]!;
+      swr += weight[at]! * (drop.times_s[m]! - model[at]!);
     }
-    return swr / sw;
-  });
+    shiftsOut.push(drop.releaseKnown ? null : swr / sw);
+  }
   return {
     status,
     dragConstant_per_m: k,
     offset_s: fitOffset ? delta : 0,
     shifts_s: shiftsOut,
-    sumOfSquares: state.S,
+    sumOfSquares: state[S_]!,
     degreesOfFreedom: marks - 1 - (fitOffset ? 1 : 0) - shifts,
     covariance,
     iterations,

@@ -148,7 +148,8 @@ export class MarksModel {
     const M = this.layout;
     const delay = x[L.timingOffset_s] ?? 0;
     const shutter = this.setup.video ? x[M.rollingShutter_s]! : 0;
-    this.setup.drops.forEach((setup, i) => {
+    for (let i = 0; i < this.drops.length; i++) {
+      const setup = this.setup.drops[i]!;
       const drop = this.drops[i]!;
       const release = x[M.firstRelease + i]!;
       const scale = 1 + x[M.firstScale + i]!;
@@ -161,7 +162,7 @@ export class MarksModel {
         drop.distances_m[k] = d;
         drop.times_s[k] = x[times[k]!]! - delay - release - shutterHere * d0;
       }
-    });
+    }
     const fit = fitDragToMarks(effectiveGravity, this.drops, this.setup.fitOffset, this.startDragConstant);
     this.lastFit = fit;
     this.status = fit.status;
