@@ -32,6 +32,23 @@ describe('analyzeSeries with marks', () => {
     expect(result.budget.map((b) => b.input)).toContain('rolling_shutter_s');
   });
 
+  it('carries a rolling shutter\'s delay growing with the distance into C_d as its budget row says (linear check)', () => {
+    // The same exact clips read 4 ms late at the bottom of each fall, in proportion to the distance fallen.
+    const request = exactVideo();
+    const late = 0.004;
+    for (const drop of request.drops) {
+      const reach = drop.marks![drop.marks!.length - 1]!.distance_m;
+      for (const mark of drop.marks!) mark.time_s += (late * mark.distance_m) / reach;
+      drop.time_s = drop.marks![drop.marks!.length - 1]!.time_s;
+    }
+    const result = analyzeSeries(request);
+    const row = result.budget.find((b) => b.input === 'rolling_shutter_s')!;
+    const bias = result.drag_coefficient_estimate - BALL_CD;
+    // Read late lower down looks like a slower fall: more drag. The model takes x·d/d_max off, so C_d moves by −c·x.
+    expect(bias).toBeGreaterThan(0);
+    expect(Math.abs(bias + row.sensitivity * late) / bias).toBeLessThan(0.05);
+  });
+
   it('gives the landing fitted time of a single drop in the series from the same fall', () => {
     const request = exactVideo();
     request.drops.push({ height_m: 1.5, time_s: fallTime(1.5, p) });
