@@ -140,6 +140,10 @@ export function analyzeMarksSeries(request: AnalysisRequest): AnalysisResult {
   }
   const kHat = fit.dragConstant_per_m;
   model.startDragConstant = kHat;
+  // The effective-variance weights depend on the speeds, so on k: from here on they stay those of the nominal fit,
+  // which makes the budget and the Monte Carlo propagate one fixed generalised least squares (its value at x0 is
+  // the same) and spares a reweighting in every draw.
+  model.freezeWeights(x0);
   const fitted: FallParameters = { effective_gravity_m_s2: setup.effectiveGravity_m_s2, drag_constant_per_m: kHat, effective_mass_kg: setup.effectiveMass_kg };
   const speedAt = (d: number) => fallSpeedAtHeight(d, { ...fitted, drag_constant_per_m: Math.max(kHat, 0) });
 

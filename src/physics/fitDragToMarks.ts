@@ -91,7 +91,17 @@ const B1 = 5;
 const MAX_SLOPE = 6;
 
 /** Fit k (and δ when `fitOffset`) to the drops' marks; `startK` a first guess, 1/m. */
-export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly MarkedDrop[], fitOffset: boolean, startK = 0): MarksFit {
+export function fitDragToMarks(
+  effectiveGravity_m_s2: number,
+  drops: readonly MarkedDrop[],
+  fitOffset: boolean,
+  startK = 0,
+  /**
+   * `fixed`: use these weights (D⁻¹ per mark, in order) instead of reweighting, which makes the fit an ordinary
+   * generalised least squares with a fixed weight matrix; `out`: receives the weights used at the end.
+   */
+  weights?: { fixed?: Float64Array; out?: Float64Array },
+): MarksFit {
   const g = effectiveGravity_m_s2;
   const N = drops.length;
   let dMax = 0;
@@ -123,7 +133,13 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
   for (let i = 0; i < N; i++) if (drops[i]!.distanceU_m > 0) noisyDistances = true;
 
   /** Weights at k: D⁻¹ per mark (the speeds at k). */
+  const fixed = weights?.fixed;
+  if (fixed !== undefined) noisyDistances = false;
   const reweight = (k: number): void => {
+    if (fixed !== undefined) {
+      weight.set(fixed.subarray(0, marks));
+      return;
+    }
     speedParams.drag_constant_per_m = Math.max(k, 0);
     let at = 0;
     for (let i = 0; i < N; i++) {
@@ -251,6 +267,7 @@ export function fitDragToMarks(effectiveGravity_m_s2: number, drops: readonly Ma
   evaluate(k, delta);
   const det = fitOffset ? state[A00]! * state[A11]! - state[A01]! * state[A01]! : state[A00]!;
   const covariance: [number, number, number] = fitOffset ? [state[A11]! / det, -state[A01]! / det, state[A00]! / det] : [1 / state[A00]!, 0, 0];
+  if (weights?.out !== undefined) weights.out.set(weight.subarray(0, marks));
   const shiftsOut: (number | null)[] = [];
   let at = 0;
   for (let i = 0; i < N; i++) {

@@ -72,6 +72,20 @@ export class MarksModel {
   area_m2 = NaN;
   /** Warm start of the fit (the nominal solution once known). */
   startDragConstant = 0;
+  /**
+   * The weights of the nominal fit, once frozen (freezeWeights): every later evaluation (budget, Monte Carlo) is the
+   * generalised least squares with this fixed weight matrix, the nominal one's value unchanged.
+   */
+  private frozenWeights: Float64Array | null = null;
+
+  /** Evaluates at x0 and keeps the weights of that fit for every later evaluation. */
+  freezeWeights(x0: Float64Array): number {
+    this.frozenWeights = null;
+    const out = new Float64Array(this.layout.markTime.reduce((n, t) => n + t.length, 0));
+    const cd = this.evaluate(x0, out);
+    this.frozenWeights = out;
+    return cd;
+  }
 
   constructor(
     readonly setup: MarksModelSetup,
@@ -124,7 +138,7 @@ export class MarksModel {
   }
 
   /** C_d at the inputs x; offset, k and status are left in the fields of the same names. */
-  evaluate(x: Float64Array): number {
+  evaluate(x: Float64Array, weightsOut?: Float64Array): number {
     const L = this.layout.physics;
     // The body, as SeriesModel's closed form computes it (seriesModel.ts, evaluateClosed).
     const rho = this.physics.density(x);
@@ -163,7 +177,10 @@ export class MarksModel {
         drop.times_s[k] = x[times[k]!]! - delay - release - shutterHere * d0;
       }
     }
-    const fit = fitDragToMarks(effectiveGravity, this.drops, this.setup.fitOffset, this.startDragConstant);
+    const fit = fitDragToMarks(effectiveGravity, this.drops, this.setup.fitOffset, this.startDragConstant, {
+      ...(this.frozenWeights !== null ? { fixed: this.frozenWeights } : {}),
+      ...(weightsOut !== undefined ? { out: weightsOut } : {}),
+    });
     this.lastFit = fit;
     this.status = fit.status;
     this.offset_s = fit.offset_s;
