@@ -24,6 +24,7 @@ import { studentTQuantile } from './studentT';
 import { modelDerivatives, uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
 import { fallThroughColumn } from './fallThroughColumn';
 import { PhysicsInputError } from './physicsInputError';
+import { analyzeMarksSeries, requestHasMarks } from './analyzeMarksSeries';
 
 /** Past this Mach number at impact the air near the body is compressed noticeably (ρ changes by about M²/2 ≈ 4.5 %; common practice). */
 export const COMPRESSIBILITY_WARNING_MACH = 0.3;
@@ -160,6 +161,9 @@ export function prepareSeries(request: AnalysisRequest): PreparedSeries {
 }
 
 export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
+  // A series with marks has its own measurement model (every mark, generalised least squares); without marks
+  // nothing below changes.
+  if (requestHasMarks(request)) return analyzeMarksSeries(request);
   const { setup, groups, fit, dropCd, scatter, inputs, warnings } = prepareSeries(request);
   const { site, air, specimen, geometry, fitOffset, timingU, draws, seed, body, noDrag, humidityKind } = setup;
   const req = setup.request;

@@ -5,7 +5,7 @@
 
 // The analysis of a series: used by the screens and the office command.
 export { analyzeSeries, DEFAULT_MONTE_CARLO_DRAWS, DRAG_CRISIS_REYNOLDS, CREEPING_FLOW_REYNOLDS } from './analyzeSeries';
-export { validateAnalysisRequest } from './validateAnalysisRequest';
+export { validateAnalysisRequest, MARK_LIMITS } from './validateAnalysisRequest';
 // Its named stages (the planner evaluates many drop sets on one setup).
 export { prepareSeries, type PreparedSeries } from './analyzeSeries';
 export { prepareSetup, cdFromDragConstant, dragConstantFromCd, type SeriesSetup } from './seriesSetup';
@@ -22,6 +22,7 @@ export type {
   AnalysisOptions,
   BudgetRow,
   DropInput,
+  DropMark,
   DropResult,
   HeightResult,
   TimingInput,
@@ -75,7 +76,7 @@ export {
   STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS,
   STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY,
 } from './standardSphereDrag';
-export { TIMING_METHOD_DEFAULTS, TIMING_METHODS, type TimingMethod, type TimingMethodDefaults } from './timingMethodDefaults';
+export { TIMING_METHOD_DEFAULTS, TIMING_METHODS, ROLLING_SHUTTER_STANDARD_UNCERTAINTY_S, type TimingMethod, type TimingMethodDefaults } from './timingMethodDefaults';
 export { defaultAddedMassUncertainty, ADDED_MASS_RELATIVE_UNCERTAINTY, CUSTOM_ADDED_MASS_UNCERTAINTY } from './addedMassCoefficient';
 
 // Drag from times.

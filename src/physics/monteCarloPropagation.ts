@@ -13,7 +13,7 @@
  * enough and the loop stays short.
  */
 import { createRandom, type RandomSource } from './createRandom';
-import type { SeriesModel } from './seriesModel';
+import type { MeasurementModel } from './uncertaintyBudget';
 
 export interface NormalInput {
   index: number;
@@ -61,7 +61,7 @@ export interface MonteCarloResult {
 }
 
 export function monteCarloPropagation(
-  model: SeriesModel,
+  model: MeasurementModel,
   x0: Float64Array,
   spec: MonteCarloSpec,
   withOffset: boolean,
@@ -108,7 +108,7 @@ export interface AdaptiveMonteCarloResult extends MonteCarloResult {
 }
 
 export function adaptiveMonteCarloPropagation(
-  model: SeriesModel,
+  model: MeasurementModel,
   x0: Float64Array,
   spec: Omit<MonteCarloSpec, 'draws'>,
   withOffset: boolean,
@@ -175,7 +175,7 @@ class MonteCarloRun {
   drawn = 0;
 
   constructor(
-    private readonly model: SeriesModel,
+    private readonly model: MeasurementModel,
     private readonly x0: Float64Array,
     private readonly spec: MonteCarloSpec,
     withOffset: boolean,

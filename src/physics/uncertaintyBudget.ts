@@ -10,7 +10,15 @@
  * uncertainty (per drop, per height) and an effective sensitivity √Σ c_j², so the entry's
  * contribution is exactly the combined effect of all of them.
  */
-import type { SeriesModel } from './seriesModel';
+/**
+ * What the budget and the Monte Carlo need of a measurement model: C_d at an input vector, and after it whether
+ * that evaluation succeeded and the fitted offset. SeriesModel (mean times per height) and MarksModel (marks) are two.
+ */
+export interface MeasurementModel {
+  evaluate(x: Float64Array): number;
+  readonly status: string;
+  readonly offset_s: number;
+}
 
 export interface BudgetInputSpec {
   /** Name with its unit, e.g. "temperature_C". */
@@ -47,7 +55,7 @@ export interface UncertaintyBudget {
 }
 
 /** Partial derivatives of the model at x0 for the given positions, by central differences. */
-export function modelDerivatives(model: SeriesModel, x0: Float64Array, steps: Map<number, number>): Map<number, number> {
+export function modelDerivatives(model: MeasurementModel, x0: Float64Array, steps: Map<number, number>): Map<number, number> {
   const x = Float64Array.from(x0);
   const result = new Map<number, number>();
   for (const [index, step] of steps) {
@@ -61,7 +69,7 @@ export function modelDerivatives(model: SeriesModel, x0: Float64Array, steps: Ma
   return result;
 }
 
-export function uncertaintyBudget(model: SeriesModel, x0: Float64Array, specs: BudgetInputSpec[]): UncertaintyBudget {
+export function uncertaintyBudget(model: MeasurementModel, x0: Float64Array, specs: BudgetInputSpec[]): UncertaintyBudget {
   // One step per position: a hundredth of its standard uncertainty (small enough for the
   // linearisation the GUM asks for, large enough to stay clear of the fit's own rounding),
   // or a millionth of its value when its uncertainty is zero.
