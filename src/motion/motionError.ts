@@ -15,7 +15,11 @@ export type MotionErrorCode =
   /** The fall line, the landing line or the frames do not fit together (outside the band, too few frames). */
   | 'bad-setup'
   /** The scale marks cannot give heights (not 0, 2 or 3 of them, two on one row, a map that folds over). */
-  | 'bad-scale';
+  | 'bad-scale'
+  /** An instant moved by hand outside the clip, or a release after the impact. */
+  | 'bad-instant'
+  /** Evidence too large to keep (too many frames, too many or too large key frames, not an image). */
+  | 'bad-evidence';
 
 export interface MotionErrorDetails extends PlummetErrorOptions<MotionErrorCode> {
   field: string;
