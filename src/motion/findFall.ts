@@ -113,7 +113,10 @@ export function findFall(clip: GreyClip, setup: ClipSetup): FallFinding {
   const fitEnd = range(flight.first, n).find((i) => found[i] && track[i]!.y_px! - rest_y_px > RELEASE_FIT_ROWS * span) ?? flight.first;
   const relIdx = range(Math.max(0, flight.first - 60), fitEnd).filter((i) => found[i]);
   const rel = releaseFrom(relIdx.map((i) => track[i]!.time_s), relIdx.map((i) => track[i]!.y_px!), rest_y_px, frame_s, u_y_px);
-  if (!rel) {
+  // The body must be seen at rest: at least two frames before the found release, and none of them moving.
+  const seenAtRest = rel ? relIdx.filter((i) => track[i]!.time_s < rel.release_s - 0.5 * frame_s) : [];
+  const still = seenAtRest.every((i) => Math.abs(track[i]!.y_px! - rel!.rest_y_px) < Math.max(1, 4 * rel!.residual_px));
+  if (!rel || seenAtRest.length < 2 || !still) {
     throw new MotionError({ code: 'no-release', field: 'clip.frames', value: `${relIdx.length} frames near the release`, allowed: 'a body leaving rest in a way a fall from rest explains', reason: 'no release fits the first frames of the fall' });
   }
 
