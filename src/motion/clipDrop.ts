@@ -7,7 +7,7 @@
  *   trajectory, which holds the detector's own scatter and the sampling at the frame interval after refinement);
  *   an instant moved by hand: ± half a frame, rectangular (JCGM 100 §4.3.7).
  * - the landing line's placement: a tap on a still frame, ± TAP_PX rectangular (common practice), divided by the
- *   body's image speed at the landing.
+ *   body's image speed at the landing; and the contact row's other part, the body's radius seen near the landing.
  * - frame timestamps: each instant is read on the clip's own timestamps, which carry the container's time
  *   resolution (± half of it, rectangular) and any unevenness of the frame intervals (± the probe's largest
  *   departure of one interval, rectangular); two instants, so √2 of one.
@@ -69,6 +69,11 @@ export function clipDrop(finding: FallFinding, setup: ClipSetup, probe: ClipProb
       source: 'landing line placement',
       u_s: TAP_PX / Math.sqrt(3) / finding.impact_fit.speed_px_s,
       basis: `± ${TAP_PX} px tap (common practice) at the image speed ${finding.impact_fit.speed_px_s.toFixed(0)} px/s, rectangular`,
+    });
+    budget.push({
+      source: 'contact row',
+      u_s: finding.u_contact_y_px / finding.impact_fit.speed_px_s,
+      basis: `the body's radius seen near the landing, ± ${finding.u_contact_y_px.toFixed(2)} px (standard), at the image speed`,
     });
   }
   const resolution = options.timestamp_resolution_s ?? 1e-3;

@@ -31,6 +31,8 @@ export interface FallFinding {
   /** The body's centre row at rest before the release, and where it touches the landing, full-frame px. */
   rest_y_px: number;
   contact_y_px: number;
+  /** Standard uncertainty of the contact row from the radius measured near the landing (the tap not included), px. */
+  u_contact_y_px: number;
   /** The body's radius as seen at rest, and just before the landing, full-frame px. */
   radius_px: number;
   landing_radius_px: number;
@@ -101,7 +103,11 @@ export function findFall(clip: GreyClip, setup: ClipSetup): FallFinding {
   const nearLanding = range(flight.first, Math.min(n, flight.last + 3)).filter(
     (i) => found[i] && track[i]!.y_px! > setup.landing_y_px - 0.25 * (setup.landing_y_px - rest_y_px) && track[i]!.y_px! < setup.landing_y_px - 1.5 * radius_px,
   );
-  const landing_radius_px = nearLanding.length > 0 ? median(nearLanding.map((i) => found[i]!.radius)) * s : radius_px;
+  const landingRadii = (nearLanding.length > 0 ? nearLanding : earlyRest).map((i) => found[i]!.radius * s);
+  const landing_radius_px = median(landingRadii);
+  // Its uncertainty: the radii's scatter over √n, and no less than 0.05 px (the spread estimate's own bias on a
+  // sampled disc, seen on rendered balls of 5 to 12 px radius).
+  const u_contact_y_px = Math.max(0.05, sd(landingRadii) / Math.sqrt(landingRadii.length));
   const contact_y_px = setup.landing_y_px - landing_radius_px;
   const span = contact_y_px - rest_y_px;
   if (!(span > 2 * radius_px) || !(radius_px > 0)) {
@@ -137,6 +143,7 @@ export function findFall(clip: GreyClip, setup: ClipSetup): FallFinding {
     impact: { time_s: imp.impact_s, u_time_s: imp.u_impact_s, frame: nearestFrame(clip.times_s, imp.impact_s), by: 'found' },
     rest_y_px: rel.rest_y_px,
     contact_y_px,
+    u_contact_y_px,
     radius_px,
     landing_radius_px,
     noise_grey: sigma,
@@ -528,6 +535,12 @@ function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
   const m = s.length >> 1;
   return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+}
+
+function sd(xs: number[]): number {
+  if (xs.length < 2) return 0;
+  const m = mean(xs);
+  return Math.sqrt(xs.reduce((acc, x) => acc + (x - m) ** 2, 0) / (xs.length - 1));
 }
 
 function mean(xs: number[]): number {
