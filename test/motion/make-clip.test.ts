@@ -27,6 +27,8 @@ describe.skipIf(!ffmpeg.path)('make-clip', () => {
   it('writes a clip with nothing falling, and a file no demuxer reads', async () => {
     const still = await makeStillClip(folder, options);
     expect(new Set(still.scene.truth.rows_px).size).toBe(1);
+    const colour = await makeFallClip(folder, 'colour', options, 'h264', true);
+    expect(probe(colour.file).out).toBe('h264,avc1,64,160,120/1,60');
     const bad = probe(makeUndecodableFile(folder));
     expect(bad.ok).toBe(false);
   }, 60_000);

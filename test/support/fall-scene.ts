@@ -304,3 +304,15 @@ export function greyBand(
   });
   return { width, height, x0_px, y0_px, step_px, times_s: [...times_s], frames: out };
 }
+
+/** RGB bytes (r, g, b per pixel) of a grey frame with a warm tint, for clips that should look like a camera's. */
+export function rgbFrame(grey: Uint8Array): Uint8Array {
+  const out = new Uint8Array(grey.length * 3);
+  for (let i = 0; i < grey.length; i++) {
+    const g = grey[i]!;
+    out[3 * i] = g;
+    out[3 * i + 1] = Math.round(g * 0.95);
+    out[3 * i + 2] = Math.round(g * 0.86);
+  }
+  return out;
+}

@@ -1,7 +1,8 @@
 /**
  * Clips for the tests of video timing, written by Debian's ffmpeg from frames of test/support/fall-scene.ts.
  *
- * The frames go to ffmpeg as raw grey bytes on standard input; the exact commands (W×H, R frames/s):
+ * The frames go to ffmpeg as raw grey bytes on standard input (or RGB: `-pix_fmt rgb24`, see rgbFrame); the exact
+ * commands (W×H, R frames/s):
  *
  *   H.264 MP4:  ffmpeg -y -loglevel error -f rawvideo -pix_fmt gray -s WxH -framerate R -i - \
  *                 -c:v libx264 -pix_fmt yuv420p -preset veryfast -crf 18 -movflags +faststart out.mp4
@@ -18,7 +19,7 @@ import { spawn, spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { renderFallScene, type FallScene, type FallSceneOptions } from './fall-scene';
+import { renderFallScene, rgbFrame, type FallScene, type FallSceneOptions } from './fall-scene';
 
 export type ClipCodec = 'h264' | 'vp9' | 'hevc';
 
@@ -41,7 +42,7 @@ export function clipFolder(): string {
   return mkdtempSync(join(tmpdir(), 'plummet-clips-'));
 }
 
-/** Encodes grey frames (width × height bytes each) at a constant rate into `file`. */
+/** Encodes frames at a constant rate into `file`: grey (width × height bytes each) or RGB (3 bytes a pixel). */
 export async function encodeFrames(
   frames: readonly Uint8Array[],
   size: { width: number; height: number },
@@ -50,7 +51,9 @@ export async function encodeFrames(
   file: string,
 ): Promise<string> {
   if (size.width % 2 || size.height % 2) throw new Error(`clip size ${size.width}×${size.height} must be even for yuv420p`);
-  const args = ['-y', '-loglevel', 'error', '-f', 'rawvideo', '-pix_fmt', 'gray', '-s', `${size.width}x${size.height}`];
+  const pixels = size.width * size.height;
+  const format = frames[0]?.length === 3 * pixels ? 'rgb24' : 'gray';
+  const args = ['-y', '-loglevel', 'error', '-f', 'rawvideo', '-pix_fmt', format, '-s', `${size.width}x${size.height}`];
   args.push('-framerate', String(frame_rate_hz), '-i', '-', ...ENCODER_ARGS[codec], file);
   const ffmpeg = spawn(findFfmpeg().path ?? 'ffmpeg', args, { stdio: ['pipe', 'ignore', 'pipe'] });
   let stderr = '';
@@ -74,10 +77,10 @@ export interface MadeClip {
 }
 
 /** Renders a fall and writes it as a clip of the given codec into `folder`. */
-export async function makeFallClip(folder: string, name: string, options: FallSceneOptions, codec: ClipCodec): Promise<MadeClip> {
+export async function makeFallClip(folder: string, name: string, options: FallSceneOptions, codec: ClipCodec, colour = false): Promise<MadeClip> {
   const scene = renderFallScene(options);
   const file = join(folder, `${name}.${EXTENSION[codec]}`);
-  await encodeFrames(scene.frames, scene, options.frame_rate_hz, codec, file);
+  await encodeFrames(colour ? scene.frames.map(rgbFrame) : scene.frames, scene, options.frame_rate_hz, codec, file);
   return { file, codec, scene };
 }
 
