@@ -18,6 +18,7 @@ import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
 import { DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesDragLaw } from './seriesDragLaw';
+import { scaledSphereFallTime } from './dragLaw';
 import { seriesStatistics } from './seriesStatistics';
 import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
 import { studentTQuantile } from './studentT';
@@ -175,7 +176,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const { model, layout: L, x0, estimate, fitted } = fit;
   const kHat = fit.dragConstant_per_m;
   const offsetHat = fit.offset_s;
-  const { fittedTimes, residuals, dof, scatter: scatterSd, excess, meanTimeU } = scatter;
+  const { dof, scatter: scatterSd, excess, meanTimeU } = scatter;
   const { specs, timeIndices } = inputs;
   const budget = uncertaintyBudget(model, x0, specs);
   // The Monte Carlo evaluates the air along the fall through its surrogate (columnCorrection.ts).
@@ -252,6 +253,20 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const dragLaw = seriesDragLaw(setup, groups, fit, mc, budget.combined_standard_uncertainty, resolved, excess);
   warnings.push(...dragLaw.warnings);
 
+  // Under the scaled sphere curve the fit, its times and its budget are the scaled law's: each drop's fitted time
+  // is the scaled curve's fall (plus the fitted offset or declared delay), and each budget row is carried to the
+  // reported C_d by the slope of the map from the constant fit (dragLaw.ts: exact with one height).
+  const scaledFit = dragLaw.scaled;
+  let fittedTimes = scatter.fittedTimes;
+  let residuals = scatter.residuals;
+  if (scaledFit !== null) {
+    const delay = scaledFit.offset_s + setup.subtractedOffset_s;
+    const byHeight = new Map(groupHeights.map((h) => [h, scaledSphereFallTime(h, scaledFit.body, scaledFit.scale) + delay]));
+    fittedTimes = req.drops.map((d) => byHeight.get(d.height_m)!);
+    residuals = req.drops.map((d, i) => d.time_s - fittedTimes[i]!);
+  }
+  const budgetSlope = scaledFit === null ? 1 : scaledFit.slope;
+
   // GUM interval (for comparison with the Monte Carlo one).
   const nuEff = budget.effective_degrees_of_freedom;
   if (setup.uncertainty.added_mass_coefficient === undefined) {
@@ -272,7 +287,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     }
   }
   const coverageFactor = nuEff === null ? 1.959963984540054 : studentTQuantile(0.975, nuEff);
-  const uc = budget.combined_standard_uncertainty;
+  const uc = budget.combined_standard_uncertainty * Math.abs(budgetSlope);
+  const gumEstimate = scaledFit === null ? estimate : dragLaw.estimate;
 
   // Predictions.
   const reference = specimen.reference_drag_coefficient;
@@ -318,8 +334,17 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const physicalK = Math.max(kHat, 0);
   const physical: FallParameters = { ...fitted, drag_constant_per_m: physicalK };
   const reynoldsPerSpeed = (rho * geometry.characteristic_length_m) / mu;
+  // Under the scaled law the impact speed is the scaled curve's too (its time is scaledSphereFallTime's, to 1e-6).
+  const scaledImpact = new Map<number, number>();
+  if (scaledFit !== null) {
+    const { body: b, scale } = scaledFit;
+    for (const h of groupHeights) {
+      const dragCoefficient = (re: number) => scale * standardSphereDragCoefficient(re);
+      scaledImpact.set(h, fallWithVariableDrag(h, { ...b, dragCoefficient }, 1e-9).impact_speed_m_s);
+    }
+  }
   const drops: DropResult[] = req.drops.map((drop, i) => {
-    const v = fallSpeedAtHeight(drop.height_m, physical);
+    const v = scaledImpact.get(drop.height_m) ?? fallSpeedAtHeight(drop.height_m, physical);
     return {
       ...(drop.id !== undefined ? { id: drop.id } : {}),
       height_m: drop.height_m,
@@ -386,8 +411,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const budgetRows: BudgetRow[] = budget.entries.map((e) => ({
     input: e.input,
     standard_uncertainty: e.standard_uncertainty,
-    sensitivity: e.sensitivity,
-    contribution: e.contribution,
+    sensitivity: e.sensitivity * budgetSlope,
+    contribution: e.contribution * Math.abs(budgetSlope),
     evaluation: e.evaluation,
     description: e.description,
     degrees_of_freedom: e.degrees_of_freedom,
@@ -422,7 +447,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       combined_standard_uncertainty: uc,
       effective_degrees_of_freedom: nuEff,
       coverage_factor: coverageFactor,
-      interval_95: [estimate - coverageFactor * uc, estimate + coverageFactor * uc],
+      interval_95: [gumEstimate - coverageFactor * uc, gumEstimate + coverageFactor * uc],
     },
     monte_carlo: {
       draws: mcCd.draws,
