@@ -24,6 +24,7 @@ import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_M
 import { studentTQuantile } from './studentT';
 import { modelDerivatives, uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
 import { fallThroughColumn } from './fallThroughColumn';
+import { nominalAirColumn, predictedFall } from './predictedFall';
 import { PhysicsInputError } from './physicsInputError';
 
 /** Past this Mach number at impact the air near the body is compressed noticeably (ρ changes by about M²/2 ≈ 4.5 %; common practice). */
@@ -295,27 +296,24 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   let predictionMethod: AnalysisResult['prediction']['method'] = 'none';
   const predictedByHeight = new Map<number, number>();
   const predictedUByHeight = new Map<number, number>();
+  // Predicted falls go through the air along the fall, as the planner's do (predictedFall.ts).
   if (reference !== null) {
     predictionMethod = 'reference-drag-coefficient';
-    const refParams = fallParameters({ ...body, drag_coefficient: reference });
-    for (const h of groupHeights) predictedByHeight.set(h, fallTime(h, refParams));
+    const column = nominalAirColumn(setup);
+    for (const h of groupHeights) predictedByHeight.set(h, predictedFall(setup, column, h, reference).time_s);
   } else if (geometry.shape === 'sphere') {
     predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
+    const column = nominalAirColumn(setup);
     const sphereFall = (h: number, scale: number) =>
-      fallWithVariableDrag(h, {
-        effective_gravity_m_s2: gEff,
-        drag_constant_per_unit_cd_per_m: (rho * geometry.area_m2) / (2 * mEff),
-        reynolds_per_speed_s_m: (rho * geometry.characteristic_length_m) / mu,
-        dragCoefficient: scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re),
-      });
+      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re));
     for (const h of groupHeights) {
       const fall = sphereFall(h, 1);
       predictedByHeight.set(h, fall.time_s);
       // The curve's own standard uncertainty, carried to the time by scaling it up and down (central difference).
       const u = STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY;
       predictedUByHeight.set(h, Math.abs(sphereFall(h, 1 + u).time_s - sphereFall(h, 1 - u).time_s) / 2);
-      maxRe = Math.max(maxRe, fall.reynolds_number);
+      maxRe = Math.max(maxRe, fall.impact_reynolds_number);
     }
     if (maxRe > STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS) {
       warnings.push({

@@ -190,6 +190,12 @@ export class SeriesModel {
     };
   }
 
+  /** The column at x from its air inputs alone (no fit: for predictions of a fall with a known C_d). */
+  airColumnAt(x: Float64Array) {
+    const rho = this.density(x);
+    return columnAt(this.setup.column!, this.layout, x, rho, this.lastVapour, this.aloftDensity);
+  }
+
   /** The column at x (after evaluate(x) has set the reading's density). */
   column(x: Float64Array) {
     return columnAt(this.setup.column!, this.layout, x, this.lastDensity, this.lastVapour, this.aloftDensity);

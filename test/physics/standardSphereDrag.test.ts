@@ -122,7 +122,8 @@ describe('sphere predictions in an analysis', () => {
     };
     const up = fallWithVariableDrag(12, { ...body, dragCoefficient: (re) => 1.05 * standardSphereDragCoefficient(re) }).time_s;
     const down = fallWithVariableDrag(12, { ...body, dragCoefficient: (re) => 0.95 * standardSphereDragCoefficient(re) }).time_s;
-    expect(predicted.time_standard_uncertainty_s).toBeCloseTo((up - down) / 2, 9);
+    // (The prediction goes through the air along the fall; uniform air at the reading differs by about 1e-5 of the time.)
+    expect(Math.abs(predicted.time_standard_uncertainty_s / ((up - down) / 2) - 1)).toBeLessThan(2e-3);
     // About 1.5 ms on a 1.6 s fall: 5 % of C_d moves a 12 m ball drop by a few thousandths of its time.
     expect(predicted.time_standard_uncertainty_s).toBeGreaterThan(0.001);
     expect(up).toBeGreaterThan(predicted.time_s);
