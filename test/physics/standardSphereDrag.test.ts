@@ -80,6 +80,17 @@ describe('the standard sphere drag curve', () => {
     expect(STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS).toBe(2e5);
   });
 
+  it('follows Oseen and Proudman–Pearson in creeping flow (Re 0.001–0.01) within 0.05 %, joining its next piece there', () => {
+    // C_d = 24/Re·(1 + 3Re/16 + (9/160)·Re²·ln(Re/2)) (Proudman & Pearson 1957, from memory), as above.
+    for (const re of [0.001, 0.003, 0.01]) {
+      const theory = (24 / re) * (1 + (3 * re) / 16 + (9 / 160) * re * re * Math.log(re / 2));
+      expect(Math.abs(relative(re, theory))).toBeLessThan(5e-4);
+    }
+    const below = standardSphereDragCoefficient(0.01 * (1 - 1e-9));
+    const above = standardSphereDragCoefficient(0.01 * (1 + 1e-9));
+    expect(Math.abs(above / below - 1)).toBeLessThan(5e-4);
+  });
+
   it('is nearly continuous where its pieces meet (within 0.8 % below the drag crisis)', () => {
     for (const re of [0.01, 20, 260, 1500, 1.2e4, 4.4e4, 3.38e5]) {
       const below = standardSphereDragCoefficient(re * (1 - 1e-9));
