@@ -300,13 +300,14 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   if (reference !== null) {
     predictionMethod = 'reference-drag-coefficient';
     const column = nominalAirColumn(setup);
-    for (const h of groupHeights) predictedByHeight.set(h, predictedFall(setup, column, h, reference).time_s);
+    for (const h of groupHeights) predictedByHeight.set(h, predictedFall(setup, column, h, reference, 1e-10, true).time_s);
   } else if (geometry.shape === 'sphere') {
     predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
     const column = nominalAirColumn(setup);
+    // 1e-8: far inside the 5 % the curve itself is uncertain by (a time to about 1e-8 of itself).
     const sphereFall = (h: number, scale: number) =>
-      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re));
+      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re), 1e-8);
     for (const h of groupHeights) {
       const fall = sphereFall(h, 1);
       predictedByHeight.set(h, fall.time_s);

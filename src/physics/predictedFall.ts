@@ -18,8 +18,18 @@ export function nominalAirColumn(setup: SeriesSetup): AirColumn {
   return model.airColumnAt(x0);
 }
 
-/** The fall from height_m with drag coefficient `cd` (a constant or a function of the Reynolds number). */
-export function predictedFall(setup: SeriesSetup, column: AirColumn, height_m: number, cd: number | ((reynolds: number) => number), relativeTolerance = 1e-10): ColumnFall {
+/**
+ * The fall from height_m with drag coefficient `cd` (a constant or a function of the Reynolds number). With
+ * `timeOnly` the impact speed of a constant-C_d fall in still air is left out (NaN; fallThroughColumn.ts).
+ */
+export function predictedFall(
+  setup: SeriesSetup,
+  column: AirColumn,
+  height_m: number,
+  cd: number | ((reynolds: number) => number),
+  relativeTolerance = 1e-10,
+  timeOnly = false,
+): ColumnFall {
   return fallThroughColumn(
     height_m,
     {
@@ -33,5 +43,6 @@ export function predictedFall(setup: SeriesSetup, column: AirColumn, height_m: n
     },
     column,
     relativeTolerance,
+    timeOnly,
   );
 }
