@@ -305,9 +305,10 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
     const column = nominalAirColumn(setup);
-    // 1e-8: far inside the 5 % the curve itself is uncertain by (a time to about 1e-8 of itself).
+    // 1e-8 for the time: far inside the 5 % the curve itself is uncertain by. The ± 5 % falls give only the time's
+    // uncertainty, a difference of about 1e-3 of the time: 1e-7 keeps it to 1e-4 of itself.
     const sphereFall = (h: number, scale: number) =>
-      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re), 1e-8);
+      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re), scale === 1 ? 1e-8 : 1e-7);
     for (const h of groupHeights) {
       const fall = sphereFall(h, 1);
       predictedByHeight.set(h, fall.time_s);
