@@ -8,6 +8,7 @@ import {
   standardSphereDragCoefficient,
   type AnalysisRequest,
   type AnalysisResult,
+  type VariableDragBody,
 } from '../physics';
 
 export type Curve = Array<[number, number]>;
@@ -31,30 +32,48 @@ export function seriesCurves(request: AnalysisRequest, result: AnalysisResult): 
   const vacuum = bodyFor(result, 0);
   const tVac = Math.min(tMax, Math.sqrt((2 * hMax * 1.05) / result.gravity_m_s2));
   const vacuumCurve = sampled(tVac, (t) => fallDistance(t, vacuum));
-  const fitted = result.drag_coefficient !== null ? bodyFor(result, result.drag_coefficient) : null;
-  const fittedCurve = fitted ? sampled(tMax, (t) => fallDistance(t, fitted)) : null;
+  const scale = result.drag_law === 'scaled_sphere' ? result.drag_law_details.scale_factor : null;
+  let fittedCurve: Curve | null = null;
+  if (result.drag_coefficient !== null && scale !== null) {
+    // The scaled sphere curve: the fall the series was fitted with, not a constant C_d.
+    fittedCurve = heightCurve(hMax, { ...variableDragBody(result), dragCoefficient: (re) => scale * standardSphereDragCoefficient(re) });
+  } else if (result.drag_coefficient !== null) {
+    const fitted = bodyFor(result, result.drag_coefficient);
+    fittedCurve = sampled(tMax, (t) => fallDistance(t, fitted));
+  }
   let predicted: Curve | null = null;
   if (result.prediction.method === 'reference-drag-coefficient' && result.prediction.reference_drag_coefficient !== null) {
     const p = bodyFor(result, result.prediction.reference_drag_coefficient);
     predicted = sampled(tMax, (t) => fallDistance(t, p));
   } else if (result.prediction.method === 'standard-sphere-drag-curve' || result.prediction.method === 'morrison-sphere-correlation') {
-    const rho = result.air.density_kg_m3;
-    const body = {
-      effective_gravity_m_s2: result.model.effective_gravity_m_s2,
-      drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
-      reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
+    predicted = heightCurve(hMax, {
+      ...variableDragBody(result),
       // The same sphere curve the prediction used.
       dragCoefficient: result.prediction.method === 'standard-sphere-drag-curve' ? standardSphereDragCoefficient : morrisonSphereDragCoefficient,
-    };
-    predicted = [[0, 0]];
-    for (let i = 1; i <= 16; i++) {
-      const h = (hMax * 1.05 * i) / 16;
-      try {
-        predicted.push([fallWithVariableDrag(h, body, 1e-8).time_s, h]);
-      } catch {
-        break;
-      }
-    }
+    });
   }
   return { fitted: fittedCurve, predicted, vacuum: vacuumCurve };
+}
+
+function variableDragBody(result: AnalysisResult): Omit<VariableDragBody, 'dragCoefficient'> {
+  const rho = result.air.density_kg_m3;
+  return {
+    effective_gravity_m_s2: result.model.effective_gravity_m_s2,
+    drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
+    reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
+  };
+}
+
+/** A speed-dependent fall as (time, height) points up to 5 % past the highest drop. */
+function heightCurve(hMax: number, body: VariableDragBody): Curve {
+  const curve: Curve = [[0, 0]];
+  for (let i = 1; i <= 16; i++) {
+    const h = (hMax * 1.05 * i) / 16;
+    try {
+      curve.push([fallWithVariableDrag(h, body, 1e-8).time_s, h]);
+    } catch {
+      break;
+    }
+  }
+  return curve;
 }

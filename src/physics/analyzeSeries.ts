@@ -18,11 +18,13 @@ import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
 import { DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesDragLaw } from './seriesDragLaw';
+import { scaledSphereFallTime } from './dragLaw';
 import { seriesStatistics } from './seriesStatistics';
 import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
 import { studentTQuantile } from './studentT';
 import { modelDerivatives, uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
 import { fallThroughColumn } from './fallThroughColumn';
+import { nominalAirColumn, predictedFall } from './predictedFall';
 import { PhysicsInputError } from './physicsInputError';
 import { analyzeMarksSeries, requestHasMarks } from './analyzeMarksSeries';
 
@@ -179,7 +181,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const { model, layout: L, x0, estimate, fitted } = fit;
   const kHat = fit.dragConstant_per_m;
   const offsetHat = fit.offset_s;
-  const { fittedTimes, residuals, dof, scatter: scatterSd, excess, meanTimeU } = scatter;
+  const { dof, scatter: scatterSd, excess, meanTimeU } = scatter;
   const { specs, timeIndices } = inputs;
   const budget = uncertaintyBudget(model, x0, specs);
   // The Monte Carlo evaluates the air along the fall through its surrogate (columnCorrection.ts).
@@ -256,6 +258,20 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const dragLaw = seriesDragLaw(setup, groups, fit, mc, budget.combined_standard_uncertainty, resolved, excess);
   warnings.push(...dragLaw.warnings);
 
+  // Under the scaled sphere curve the fit, its times and its budget are the scaled law's: each drop's fitted time
+  // is the scaled curve's fall (plus the fitted offset or declared delay), and each budget row is carried to the
+  // reported C_d by the slope of the map from the constant fit (dragLaw.ts: exact with one height).
+  const scaledFit = dragLaw.scaled;
+  let fittedTimes = scatter.fittedTimes;
+  let residuals = scatter.residuals;
+  if (scaledFit !== null) {
+    const delay = scaledFit.offset_s + setup.subtractedOffset_s;
+    const byHeight = new Map(groupHeights.map((h) => [h, scaledSphereFallTime(h, scaledFit.body, scaledFit.scale) + delay]));
+    fittedTimes = req.drops.map((d) => byHeight.get(d.height_m)!);
+    residuals = req.drops.map((d, i) => d.time_s - fittedTimes[i]!);
+  }
+  const budgetSlope = scaledFit === null ? 1 : scaledFit.slope;
+
   // GUM interval (for comparison with the Monte Carlo one).
   const nuEff = budget.effective_degrees_of_freedom;
   if (setup.uncertainty.added_mass_coefficient === undefined) {
@@ -276,34 +292,34 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     }
   }
   const coverageFactor = nuEff === null ? 1.959963984540054 : studentTQuantile(0.975, nuEff);
-  const uc = budget.combined_standard_uncertainty;
+  const uc = budget.combined_standard_uncertainty * Math.abs(budgetSlope);
+  const gumEstimate = scaledFit === null ? estimate : dragLaw.estimate;
 
   // Predictions.
   const reference = specimen.reference_drag_coefficient;
   let predictionMethod: AnalysisResult['prediction']['method'] = 'none';
   const predictedByHeight = new Map<number, number>();
   const predictedUByHeight = new Map<number, number>();
+  // Predicted falls go through the air along the fall, as the planner's do (predictedFall.ts).
   if (reference !== null) {
     predictionMethod = 'reference-drag-coefficient';
-    const refParams = fallParameters({ ...body, drag_coefficient: reference });
-    for (const h of groupHeights) predictedByHeight.set(h, fallTime(h, refParams));
+    const column = nominalAirColumn(setup);
+    for (const h of groupHeights) predictedByHeight.set(h, predictedFall(setup, column, h, reference, 1e-10, true).time_s);
   } else if (geometry.shape === 'sphere') {
     predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
+    const column = nominalAirColumn(setup);
+    // 1e-8 for the time: far inside the 5 % the curve itself is uncertain by. The ± 5 % falls give only the time's
+    // uncertainty, a difference of about 1e-3 of the time: 1e-7 keeps it to 1e-4 of itself.
     const sphereFall = (h: number, scale: number) =>
-      fallWithVariableDrag(h, {
-        effective_gravity_m_s2: gEff,
-        drag_constant_per_unit_cd_per_m: (rho * geometry.area_m2) / (2 * mEff),
-        reynolds_per_speed_s_m: (rho * geometry.characteristic_length_m) / mu,
-        dragCoefficient: scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re),
-      });
+      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re), scale === 1 ? 1e-8 : 1e-7);
     for (const h of groupHeights) {
       const fall = sphereFall(h, 1);
       predictedByHeight.set(h, fall.time_s);
       // The curve's own standard uncertainty, carried to the time by scaling it up and down (central difference).
       const u = STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY;
       predictedUByHeight.set(h, Math.abs(sphereFall(h, 1 + u).time_s - sphereFall(h, 1 - u).time_s) / 2);
-      maxRe = Math.max(maxRe, fall.reynolds_number);
+      maxRe = Math.max(maxRe, fall.impact_reynolds_number);
     }
     if (maxRe > STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS) {
       warnings.push({
@@ -322,8 +338,17 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const physicalK = Math.max(kHat, 0);
   const physical: FallParameters = { ...fitted, drag_constant_per_m: physicalK };
   const reynoldsPerSpeed = (rho * geometry.characteristic_length_m) / mu;
+  // Under the scaled law the impact speed is the scaled curve's too (its time is scaledSphereFallTime's, to 1e-6).
+  const scaledImpact = new Map<number, number>();
+  if (scaledFit !== null) {
+    const { body: b, scale } = scaledFit;
+    for (const h of groupHeights) {
+      const dragCoefficient = (re: number) => scale * standardSphereDragCoefficient(re);
+      scaledImpact.set(h, fallWithVariableDrag(h, { ...b, dragCoefficient }, 1e-9).impact_speed_m_s);
+    }
+  }
   const drops: DropResult[] = req.drops.map((drop, i) => {
-    const v = fallSpeedAtHeight(drop.height_m, physical);
+    const v = scaledImpact.get(drop.height_m) ?? fallSpeedAtHeight(drop.height_m, physical);
     return {
       ...(drop.id !== undefined ? { id: drop.id } : {}),
       height_m: drop.height_m,
@@ -390,8 +415,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const budgetRows: BudgetRow[] = budget.entries.map((e) => ({
     input: e.input,
     standard_uncertainty: e.standard_uncertainty,
-    sensitivity: e.sensitivity,
-    contribution: e.contribution,
+    sensitivity: e.sensitivity * budgetSlope,
+    contribution: e.contribution * Math.abs(budgetSlope),
     evaluation: e.evaluation,
     description: e.description,
     degrees_of_freedom: e.degrees_of_freedom,
@@ -426,7 +451,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       combined_standard_uncertainty: uc,
       effective_degrees_of_freedom: nuEff,
       coverage_factor: coverageFactor,
-      interval_95: [estimate - coverageFactor * uc, estimate + coverageFactor * uc],
+      interval_95: [gumEstimate - coverageFactor * uc, gumEstimate + coverageFactor * uc],
     },
     monte_carlo: {
       draws: mcCd.draws,

@@ -153,7 +153,8 @@ export function fallThroughColumn(height_m: number, body: ColumnBody, column: Ai
     const vr = v + column.verticalWind(z);
     const ur = crosswind ? y[3]! - column.windSpeed(z) : 0;
     const q = crosswind ? Math.sqrt(vr * vr + ur * ur) : Math.abs(vr);
-    const cd = cdFunction === null ? constantCd : cdFunction((rho * q * L) / column.viscosity(z));
+    // At rest relative to the air there is no drag (and no Reynolds number to ask a curve about).
+    const cd = cdFunction === null ? constantCd : q > 0 ? cdFunction((rho * q * L) / column.viscosity(z)) : 0;
     const kq = ((rho * cd * A) / (2 * me)) * q;
     dydt[0] = v;
     dydt[1] = ge - kq * vr;

@@ -34,16 +34,38 @@ export interface DragFit {
  * Returns NaN-free results: the bound itself with a status when the target is outside.
  */
 export function solveFallTimeFactor(target: number, x0?: number): { x: number; status: DragFitStatus; iterations: number } {
-  if (!(target > PHI_AT_MIN)) return { x: MIN_DRAG_X, status: 'faster-than-free-fall', iterations: 0 };
-  if (!(target < PHI_AT_MAX)) return { x: MAX_DRAG_X, status: 'drag-unexplained', iterations: 0 };
+  const status = solveFallTimeFactorInto(target, x0, solveScratch);
+  return { x: solveScratch[0]!, status, iterations: solveScratch[1]! };
+}
+
+const solveScratch = new Float64Array(2);
+
+/**
+ * solveFallTimeFactor without an object per call (the Monte Carlo solves once per draw): x goes to out[0], the
+ * iterations to out[1]; the status is returned.
+ */
+export function solveFallTimeFactorInto(target: number, x0: number | undefined, out: Float64Array): DragFitStatus {
+  out[1] = 0;
+  if (!(target > PHI_AT_MIN)) {
+    out[0] = MIN_DRAG_X;
+    return 'faster-than-free-fall';
+  }
+  if (!(target < PHI_AT_MAX)) {
+    out[0] = MAX_DRAG_X;
+    return 'drag-unexplained';
+  }
   let lo = MIN_DRAG_X;
   let hi = MAX_DRAG_X;
-  let x = x0 !== undefined && x0 > lo && x0 < hi ? x0 : initialGuess(target);
+  let x = x0 !== undefined && x0 > lo && x0 < hi ? predictedStart(target, x0) : initialGuess(target);
   const phi = scratch;
   for (let i = 1; i <= 200; i++) {
+    out[1] = i;
     fallTimeFactorWithDerivative(x, phi);
     const f = phi[0]! - target;
-    if (f === 0) return { x, status: 'ok', iterations: i };
+    if (f === 0) {
+      out[0] = x;
+      return 'ok';
+    }
     if (f < 0) lo = x;
     else hi = x;
     const step = f / phi[1]!;
@@ -54,15 +76,54 @@ export function solveFallTimeFactor(target: number, x0?: number): { x: number; s
     } else if (Math.abs(step) <= 1e-7 * Math.max(Math.abs(x), 1e-6)) {
       // Newton converges quadratically here: the error left after this step is about
       // |Φ″/2Φ′|·step² ≤ 0.1·step², far below rounding, so no further evaluation is needed.
-      return { x: next, status: 'ok', iterations: i };
+      out[0] = next;
+      return 'ok';
     }
-    if (hi - lo <= 1e-15 * Math.max(1, Math.abs(x))) return { x: next, status: 'ok', iterations: i };
+    if (hi - lo <= 1e-15 * Math.max(1, Math.abs(x))) {
+      out[0] = next;
+      return 'ok';
+    }
     x = next;
   }
-  return { x, status: 'not-converged', iterations: 200 };
+  out[0] = x;
+  return 'not-converged';
 }
 
 const scratch = new Float64Array(2);
+
+/**
+ * A remembered expansion point of Φ: x_m, Φ(x_m), Φ′(x_m) and Φ″/(2Φ′) there (a pure function's memo of one point;
+ * it changes only where the next solve starts, never its result beyond rounding).
+ */
+const expansion = Float64Array.of(NaN, NaN, NaN, NaN);
+
+/**
+ * Where Newton starts for a target near a given start x0: the inverse of Φ's second-order expansion about x0,
+ * x = x_m + d − (Φ″/2Φ′)·d² with d = (target − Φ(x_m))/Φ′(x_m), whose error is O(d³). The Monte Carlo solves once
+ * per draw from (nearly) the same nominal start, with targets a few tenths of a per cent apart: from this start the
+ * first Newton step is already below the stopping size, so a draw costs one evaluation of Φ instead of three.
+ * The expansion is made again (three evaluations, once) when x0 moves by more than 5 %.
+ */
+function predictedStart(target: number, x0: number): number {
+  const e = expansion;
+  if (!(Math.abs(x0 - e[0]!) <= 0.05 * Math.abs(x0))) {
+    const phi = scratch;
+    const step = 1e-4 * Math.max(Math.abs(x0), 1e-2);
+    fallTimeFactorWithDerivative(x0 + step, phi);
+    const up = phi[1]!;
+    fallTimeFactorWithDerivative(x0 - step, phi);
+    const down = phi[1]!;
+    fallTimeFactorWithDerivative(x0, phi);
+    e[0] = x0;
+    e[1] = phi[0]!;
+    e[2] = phi[1]!;
+    e[3] = (up - down) / (2 * step) / (2 * phi[1]!);
+  }
+  const d = (target - e[1]!) / e[2]!;
+  const x = e[0]! + d - e[3]! * d * d;
+  // Far from the expansion the quadratic term can overshoot; the plain start is then the safer one.
+  return Number.isFinite(x) && x > MIN_DRAG_X && x < MAX_DRAG_X && Math.abs(d) <= 0.5 * Math.max(Math.abs(e[0]!), 0.1) ? x : x0;
+}
 let sharedScale = new Float64Array(8);
 let sharedModel = new Float64Array(8);
 let sharedSlope = new Float64Array(8);
@@ -89,13 +150,37 @@ export function fitDragConstant(
   fitOffset: boolean,
   startDragConstant?: number,
 ): DragFit {
+  const out = fitScratch;
+  const status = fitDragConstantInto(effectiveGravity_m_s2, heights_m, meanTimes_s, counts, fitOffset, startDragConstant, out);
+  return { status, drag_constant_per_m: out[FIT_DRAG_CONSTANT]!, offset_s: out[FIT_OFFSET]!, iterations: out[FIT_ITERATIONS]! };
+}
+
+/** Positions in the array fitDragConstantInto fills. */
+export const FIT_DRAG_CONSTANT = 0;
+export const FIT_OFFSET = 1;
+export const FIT_ITERATIONS = 2;
+const fitScratch = new Float64Array(3);
+
+/**
+ * fitDragConstant without an object per call (the Monte Carlo fits once per draw): k, δ and the iterations go to
+ * `out` at the FIT_* positions; the status is returned.
+ */
+export function fitDragConstantInto(
+  effectiveGravity_m_s2: number,
+  heights_m: ArrayLike<number>,
+  meanTimes_s: ArrayLike<number>,
+  counts: ArrayLike<number>,
+  fitOffset: boolean,
+  startDragConstant: number | undefined,
+  out: Float64Array,
+): DragFitStatus {
   const J = heights_m.length;
   const g = effectiveGravity_m_s2;
   if (J === 1 && !fitOffset) {
     const h = heights_m[0]!;
     const target = meanTimes_s[0]! / Math.sqrt((2 * h) / g);
-    const solved = solveFallTimeFactor(target, startDragConstant !== undefined ? startDragConstant * h : undefined);
-    return { status: solved.status, drag_constant_per_m: solved.x / h, offset_s: 0, iterations: solved.iterations };
+    const status = solveFallTimeFactorInto(target, startDragConstant !== undefined ? startDragConstant * h : undefined, solveScratch);
+    return written(out, solveScratch[0]! / h, 0, solveScratch[1]!, status);
   }
 
   let hMax = 0;
@@ -119,8 +204,8 @@ export function fitDragConstant(
   } else {
     // Start from the tallest height's own solution: it carries the most drag information.
     const target = meanTimes_s[jMax]! / Math.sqrt((2 * hMax) / g);
-    const solved = solveFallTimeFactor(target);
-    k = Math.min(Math.max(solved.x / hMax, kLo), kHi);
+    solveFallTimeFactorInto(target, undefined, solveScratch);
+    k = Math.min(Math.max(solveScratch[0]! / hMax, kLo), kHi);
   }
 
   // Scratch space shared by all calls (the fit runs once per Monte Carlo draw; allocating typed
@@ -141,7 +226,7 @@ export function fitDragConstant(
   const evaluate = (kk: number): boolean =>
     evaluateProjected(kk, J, heights_m, meanTimes_s, counts, total, fitOffset, scale, model, slope);
 
-  if (!evaluate(k)) return { status: 'not-converged', drag_constant_per_m: k, offset_s: state[OFFSET]!, iterations: 0 };
+  if (!evaluate(k)) return written(out, k, state[OFFSET]!, 0, 'not-converged');
   for (let iteration = 1; iteration <= 200; iteration++) {
     const currentS = state[SUM_OF_SQUARES]!;
     let next = Math.min(Math.max(k + state[STEP]!, kLo), kHi);
@@ -149,12 +234,7 @@ export function fitDragConstant(
     if (Math.abs(trialStep) * state[MAX_SLOPE]! <= 1e-10 * timeScale) {
       // The step moves no model time by more than 1e-10 of the longest: take it and stop. The
       // offset follows the step to first order (∂δ/∂k is minus the weighted mean slope).
-      return {
-        status: boundStatus(next),
-        drag_constant_per_m: next,
-        offset_s: state[OFFSET]! - state[MEAN_SLOPE]! * trialStep,
-        iterations: iteration,
-      };
+      return written(out, next, state[OFFSET]! - state[MEAN_SLOPE]! * trialStep, iteration, boundStatus(next));
     }
     // Accept the step if it does not increase S; otherwise halve it (at most 40 times).
     let accepted = false;
@@ -169,11 +249,18 @@ export function fitDragConstant(
     }
     if (!accepted) {
       evaluate(k);
-      return { status: boundStatus(k), drag_constant_per_m: k, offset_s: state[OFFSET]!, iterations: iteration };
+      return written(out, k, state[OFFSET]!, iteration, boundStatus(k));
     }
     k = next;
   }
-  return { status: 'not-converged', drag_constant_per_m: k, offset_s: state[OFFSET]!, iterations: 200 };
+  return written(out, k, state[OFFSET]!, 200, 'not-converged');
+}
+
+function written(out: Float64Array, dragConstant: number, offset: number, iterations: number, status: DragFitStatus): DragFitStatus {
+  out[FIT_DRAG_CONSTANT] = dragConstant;
+  out[FIT_OFFSET] = offset;
+  out[FIT_ITERATIONS] = iterations;
+  return status;
 }
 
 // Results of evaluateProjected, in a typed array rather than captured variables: the fit's

@@ -120,6 +120,11 @@ export function adaptiveMonteCarloPropagation(
   const run = new MonteCarloRun(model, x0, { ...spec, draws: maxBatches * M }, withOffset, Math.min(8, maxBatches) * M);
   // Per batch: mean, standard deviation, 2.5 %, 97.5 % and 95 % points.
   const stats: number[][] = [[], [], [], [], []];
+  // The pooled mean and sum of squared deviations of all draws so far, batch by batch (Chan, Golub & LeVeque's
+  // pairwise update), so that each batch's check does not pass over every earlier draw again.
+  let pooledCount = 0;
+  let pooledMean = 0;
+  let pooledSquares = 0;
   let h = 0;
   let stabilized = false;
   let worst = Infinity;
@@ -131,8 +136,17 @@ export function adaptiveMonteCarloPropagation(
     const batch = run.values.slice(start, run.ok);
     const summary = summarise(batch, M, 0);
     [summary.mean, summary.standard_deviation, summary.interval_95[0], summary.interval_95[1], summary.upper_bound_95].forEach((v, i) => stats[i]!.push(v));
+    const n = batch.length;
+    if (n > 0) {
+      const squares = n > 1 ? summary.standard_deviation ** 2 * (n - 1) : 0;
+      const total = pooledCount + n;
+      const delta = summary.mean - pooledMean;
+      pooledSquares += squares + (delta * delta * pooledCount * n) / total;
+      pooledMean += (delta * n) / total;
+      pooledCount = total;
+    }
     if (h < 2) continue;
-    tolerance = options.relative_tolerance * standardDeviationOf(run.values.subarray(0, run.ok));
+    tolerance = options.relative_tolerance * (pooledCount > 1 ? Math.sqrt(pooledSquares / (pooledCount - 1)) : NaN);
     worst = 0;
     for (const series of stats) worst = Math.max(worst, (2 * standardDeviationOf(series)) / Math.sqrt(h) / tolerance);
     if (worst <= 1) {
@@ -170,6 +184,13 @@ class MonteCarloRun {
   values: Float64Array;
   private offsets: Float64Array | null;
   private readonly x: Float64Array;
+  // The normal inputs as flat arrays (absent bounds as ±∞): one shape in the draw loop, whichever bounds are given.
+  private readonly normalIndex: Int32Array;
+  private readonly normalU: Float64Array;
+  private readonly normalMin: Float64Array;
+  private readonly normalMax: Float64Array;
+  private readonly timeIndex: Int32Array;
+  private readonly timeCount: Float64Array;
   ok = 0;
   failed = 0;
   drawn = 0;
@@ -185,6 +206,13 @@ class MonteCarloRun {
     this.values = new Float64Array(capacity);
     this.offsets = withOffset ? new Float64Array(capacity) : null;
     this.x = Float64Array.from(x0);
+    const normals = spec.normals;
+    this.normalIndex = Int32Array.from(normals, (n) => n.index);
+    this.normalU = Float64Array.from(normals, (n) => n.u);
+    this.normalMin = Float64Array.from(normals, (n) => n.min ?? -Infinity);
+    this.normalMax = Float64Array.from(normals, (n) => n.max ?? Infinity);
+    this.timeIndex = Int32Array.from(spec.times.indices);
+    this.timeCount = Float64Array.from(spec.times.counts);
   }
 
   drawBatch(count: number): void {
@@ -199,25 +227,27 @@ class MonteCarloRun {
         this.offsets = grownOffsets;
       }
     }
-    const { model, x0, x, random, values, offsets } = this;
-    const { normals, times, dewPoint } = this.spec;
+    const { model, x0, x, random, values, offsets, normalIndex, normalU, normalMin, normalMax, timeIndex, timeCount } = this;
+    const { times, dewPoint } = this.spec;
+    const normalCount = normalIndex.length;
+    const timeInputs = timeIndex.length;
     const declaredVariance = times.declared_s * times.declared_s;
     const excessVariance = times.excess_s * times.excess_s;
     const dof = times.degrees_of_freedom;
     let ok = this.ok;
     for (let draw = 0; draw < count; draw++) {
-      for (let i = 0; i < normals.length; i++) {
-        const input = normals[i]!;
-        let value = x0[input.index]! + input.u * random.normal();
-        if (input.min !== undefined && value < input.min) value = input.min;
-        if (input.max !== undefined && value > input.max) value = input.max;
-        x[input.index] = value;
+      for (let i = 0; i < normalCount; i++) {
+        const index = normalIndex[i]!;
+        let value = x0[index]! + normalU[i]! * random.normal();
+        if (value < normalMin[i]!) value = normalMin[i]!;
+        if (value > normalMax[i]!) value = normalMax[i]!;
+        x[index] = value;
       }
       if (dewPoint && x[dewPoint.index]! > x[dewPoint.temperatureIndex]!) x[dewPoint.index] = x[dewPoint.temperatureIndex]!;
       const variance = excessVariance > 0 ? declaredVariance + (excessVariance * dof) / random.chiSquare(dof) : declaredVariance;
-      for (let j = 0; j < times.indices.length; j++) {
-        const index = times.indices[j]!;
-        x[index] = x0[index]! + Math.sqrt(variance / times.counts[j]!) * random.normal();
+      for (let j = 0; j < timeInputs; j++) {
+        const index = timeIndex[j]!;
+        x[index] = x0[index]! + Math.sqrt(variance / timeCount[j]!) * random.normal();
       }
       const cd = model.evaluate(x);
       if (model.status === 'ok' && Number.isFinite(cd)) {
@@ -272,10 +302,11 @@ export function selectQuantile(values: Float64Array, p: number): number {
   return a + fraction * (b - a);
 }
 
-/** Reorders `v` so that v[k] is its k-th smallest value, smaller ones left, larger right. */
-function selectOrderStatistic(v: Float64Array, k: number): number {
-  let left = 0;
-  let right = v.length - 1;
+/**
+ * Reorders v[left..right] so that v[k] is its k-th smallest value, smaller ones left, larger right (the range must
+ * hold the order statistics left…right of the whole array as a set).
+ */
+function selectOrderStatistic(v: Float64Array, k: number, left = 0, right = v.length - 1): number {
   while (right > left) {
     const mid = (left + right) >> 1;
     // Median of three as the pivot, moved to v[k]'s side of the range.
@@ -319,12 +350,34 @@ function summarise(values: Float64Array, draws: number, failed: number): MonteCa
   const m = n > 0 ? sum / n : NaN;
   let ss = 0;
   for (let i = 0; i < n; i++) ss += (values[i]! - m) ** 2;
+  // The highest quantile first: each later selection then searches only the values left of the previous one.
+  const upper = selectQuantile(values, 0.975);
+  const bound = n > 0 ? quantileAtOrBelow(values, 0.95, Math.floor(0.975 * (n - 1))) : NaN;
+  const lower = n > 0 ? quantileAtOrBelow(values, 0.025, Math.floor(0.95 * (n - 1))) : NaN;
   return {
     draws,
     failed,
     mean: m,
     standard_deviation: n > 1 ? Math.sqrt(ss / (n - 1)) : NaN,
-    interval_95: [selectQuantile(values, 0.025), selectQuantile(values, 0.975)],
-    upper_bound_95: selectQuantile(values, 0.95),
+    interval_95: [lower, upper],
+    upper_bound_95: bound,
   };
+}
+
+/**
+ * selectQuantile after an earlier selection put the `last`-th order statistic in place (every value left of it
+ * smaller or equal): the selection searches values[0..last] only.
+ */
+function quantileAtOrBelow(values: Float64Array, p: number, last: number): number {
+  const n = values.length;
+  const position = p * (n - 1);
+  const lower = Math.floor(position);
+  const fraction = position - lower;
+  const a = selectOrderStatistic(values, lower, 0, last);
+  if (fraction === 0 || lower + 1 >= n) return a;
+  // The next order statistic: the least value right of `lower` (within the range, which holds the smaller ones).
+  let b = Infinity;
+  const end = lower + 1 <= last ? last : n - 1;
+  for (let i = lower + 1; i <= end; i++) if (values[i]! < b) b = values[i]!;
+  return a + fraction * (b - a);
 }

@@ -28,6 +28,7 @@ import { prepareSetup } from './seriesSetup';
 import type { BudgetInputSpec } from './uncertaintyBudget';
 import { DROP_LIMITS } from './validateAnalysisRequest';
 import { fallBodyFor } from './fallBodyFor';
+import { nominalAirColumn, predictedFall } from './predictedFall';
 
 export interface DropPlanRequest {
   site: SiteInput;
@@ -149,7 +150,6 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   }
 
   const params = fallParameters({ ...body, drag_coefficient: cd });
-  const noDrag = fallParameters({ ...body, drag_coefficient: 0 });
 
   // One setup (validation, air, gravity, the body) for the whole plan; each height and drop count then costs
   // only the fit and the budget of drops that fall exactly as predicted.
@@ -163,9 +163,13 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   };
   if (request.uncertainty !== undefined) setupRequest.uncertainty = request.uncertainty;
   const setup = prepareSetup(setupRequest);
+  // Planned falls go through the air along the fall, as an analysis' predicted falls do (predictedFall.ts): a planned
+  // 3000 m drop takes the time the analysis will predict for it, and a short one the closed form's (to 1e-5).
+  const column = nominalAirColumn(setup);
+  const plannedFall = (height: number) => predictedFall(setup, column, height, cd);
   const timingOnlySpec = (s: BudgetInputSpec): boolean => s.input === 'time_s';
   const relativeUncertainty = (height: number, drops: number, timingOnly = false): number => {
-    const time = checkNumber('drops[0].time_s', fallTime(height, params), DROP_LIMITS.time_s);
+    const time = checkNumber('drops[0].time_s', plannedFall(height).time_s, DROP_LIMITS.time_s);
     const synthetic = Array.from({ length: drops }, () => ({ height_m: height, time_s: time }));
     const { budget, estimate } = seriesBudget(setup, synthetic, timingOnly ? timingOnlySpec : undefined);
     return budget.combined_standard_uncertainty / estimate;
@@ -177,13 +181,15 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   };
 
   const describe = (height: number): DropAtHeight => {
-    const time = fallTime(height, params);
-    const v = fallSpeedAtHeight(height, params);
+    const fall = plannedFall(height);
+    const time = fall.time_s;
+    const v = fall.impact_speed_m_s;
     return {
       height_m: height,
       fall_time_s: time,
       vacuum_time_s: Math.sqrt((2 * height) / g),
-      drag_delay_s: time - fallTime(height, noDrag),
+      // Against the drag-free fall through the same air (buoyancy and gravity still follow the height).
+      drag_delay_s: time - predictedFall(setup, column, height, 0).time_s,
       impact_speed_m_s: v,
       impact_energy_J: 0.5 * specimen.mass_kg * v * v,
       reynolds_number: reynoldsPerSpeed * v,

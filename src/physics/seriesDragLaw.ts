@@ -33,6 +33,12 @@ export interface SeriesDragLaw {
   upperBound_95: number;
   terminalVelocity_m_s: number;
   warnings: PhysicsWarning[];
+  /**
+   * For scaled_sphere: the fitted fall (the body, the factor and the fitted offset, 0 without one) and dC_d/dC_d,const,
+   * the slope of the map from the constant fit, which carries the constant law's budget rows to this law's C_d.
+   * Null for the constant law.
+   */
+  scaled: { body: SphereScaleBody; scale: number; offset_s: number; slope: number } | null;
 }
 
 export function seriesDragLaw(
@@ -75,6 +81,7 @@ export function seriesDragLaw(
     upperBound_95: mc.dragCoefficient.upper_bound_95,
     terminalVelocity_m_s: Math.sqrt(setup.effectiveGravity_m_s2 / kHat),
     warnings,
+    scaled: null,
     details: {
       requested,
       reason: choice.reason,
@@ -149,6 +156,7 @@ export function seriesDragLaw(
       warnings.push({ code: 'drag-law-fit-not-converged', message: 'The fit of the scaled standard sphere curve did not converge; its factor may be off.' });
     }
     const fittedOffset = fitted.offset_s;
+    base.scaled = { body, scale, offset_s: offsetFit ? fittedOffset : 0, slope: slope('terminalCd') };
     perHeight = (j, t) => fitSphereScale(body, [groups.heights[j]!], [t - fittedOffset], [groups.counts[j]!], false, scale).scale;
   }
 

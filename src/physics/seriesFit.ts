@@ -45,7 +45,8 @@ export function columnUncertainties(setup: SeriesSetup, L: SeriesModelLayout): {
   return list.filter((i) => i.u > 0);
 }
 
-export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
+/** The measurement model of these groups on the setup, and its nominal inputs (before any fit). */
+export function seriesModelAt(setup: SeriesSetup, groups: DropGroups): { model: SeriesModel; x0: Float64Array } {
   const { request: req, air, specimen, geometry } = setup;
   const model = new SeriesModel({
     shape: geometry.shape,
@@ -88,6 +89,12 @@ export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
     x0[L.aloftVerticalWind_m_s] = column.aloft.verticalWind_m_s;
     x0[L.aloftWindSpeed_m_s] = column.aloft.windSpeed_m_s;
   }
+  return { model, x0 };
+}
+
+export function fitSeries(setup: SeriesSetup, groups: DropGroups): SeriesFit {
+  const { model, x0 } = seriesModelAt(setup, groups);
+  const L = model.layout;
   // The air along the fall: its weight from its effect at the nominal inputs, fixed for the whole analysis.
   const columnEffect = model.columnEffect(x0, setup.timingU, columnUncertainties(setup, L));
   model.columnWeight = columnWeight(columnEffect);

@@ -15,14 +15,14 @@
 import { columnAt, ColumnSurrogate, type ColumnHumidity, type ColumnSetup } from './columnCorrection';
 import { fallParameters, fallTime } from './fallModel';
 import { fallThroughColumn, type ColumnBody } from './fallThroughColumn';
-import { fitDragConstant, type DragFit } from './fitDragConstant';
+import { FIT_DRAG_CONSTANT, FIT_OFFSET, fitDragConstantInto, type DragFit } from './fitDragConstant';
 import { fitDragInColumn } from './fitDragInColumn';
 import {
   moistAirDensity,
   vapourMoleFractionFromDewPoint,
   vapourMoleFractionFromRelativeHumidity,
 } from './moistAirDensity';
-import { geometryFromDimensions, type SpecimenShape } from './specimenGeometry';
+import { GEOMETRY_ADDED_MASS, GEOMETRY_AREA, GEOMETRY_LENGTH, GEOMETRY_VOLUME, writeGeometry, type SpecimenShape } from './specimenGeometry';
 
 export type SeriesStatus = DragFit['status'] | 'not-heavier-than-air';
 
@@ -109,6 +109,9 @@ export class SeriesModel {
   /** Mean times less the declared delay, as last fitted. */
   private readonly times: Float64Array;
   private readonly dims: Float64Array;
+  // Scratch for the geometry and the fit of each evaluation (writeGeometry, fitDragConstantInto): no objects per draw.
+  private readonly geometry = new Float64Array(5);
+  private readonly fitResult = new Float64Array(3);
   /** Warm start for the next fit (the nominal solution). */
   startDragConstant: number | undefined;
   // Outputs of the last evaluate(), kept in fields so the hot loop creates no objects.
@@ -185,6 +188,12 @@ export class SeriesModel {
       added_mass_coefficient: this.lastAddedMass,
       drag_coefficient: 0,
     };
+  }
+
+  /** The column at x from its air inputs alone (no fit: for predictions of a fall with a known C_d). */
+  airColumnAt(x: Float64Array) {
+    const rho = this.density(x);
+    return columnAt(this.setup.column!, this.layout, x, rho, this.lastVapour, this.aloftDensity);
   }
 
   /** The column at x (after evaluate(x) has set the reading's density). */
@@ -314,20 +323,23 @@ export class SeriesModel {
     const L = this.layout;
     const rho = this.density(x);
     for (let i = 0; i < this.dims.length; i++) this.dims[i] = x[L.firstDimension + i]!;
-    const geometry = geometryFromDimensions(this.setup.shape, this.dims, this.setup.characteristicLength);
-    const Ca = (this.setup.addedMassCoefficient ?? geometry.default_added_mass_coefficient) + (x[L.addedMassChange] ?? 0);
+    const geometry = this.geometry;
+    writeGeometry(this.setup.shape, this.dims, this.setup.characteristicLength, geometry);
+    const area = geometry[GEOMETRY_AREA]!;
+    const volume = geometry[GEOMETRY_VOLUME]!;
+    const Ca = (this.setup.addedMassCoefficient ?? geometry[GEOMETRY_ADDED_MASS]!) + (x[L.addedMassChange] ?? 0);
     const m = x[L.mass_kg]!;
-    const displaced = rho * geometry.volume_m3;
+    const displaced = rho * volume;
     const effectiveMass = m + Ca * displaced;
     const effectiveGravity = x[L.gravity_m_s2]! * ((m - (this.setup.buoyancy ? displaced : 0)) / effectiveMass);
     this.lastDensity = rho;
     this.lastEffectiveGravity = effectiveGravity;
     this.lastEffectiveMass = effectiveMass;
-    this.lastArea = geometry.area_m2;
-    this.lastVolume = geometry.volume_m3;
+    this.lastArea = area;
+    this.lastVolume = volume;
     this.lastAddedMass = Ca;
     this.lastMass = m;
-    this.lastLength = geometry.characteristic_length_m;
+    this.lastLength = geometry[GEOMETRY_LENGTH]!;
     if (!(effectiveGravity > 0)) {
       this.status = 'not-heavier-than-air';
       this.offset_s = NaN;
@@ -339,11 +351,11 @@ export class SeriesModel {
       this.heights[j] = x[L.firstHeight + j]!;
       this.times[j] = x[L.firstTime + j]! - delay;
     }
-    const fit = fitDragConstant(effectiveGravity, this.heights, this.times, this.setup.counts, this.setup.fitOffset, this.startDragConstant);
-    this.offset_s = fit.offset_s;
-    this.dragConstant_per_m = fit.drag_constant_per_m;
-    this.status = fit.status;
-    return (2 * effectiveMass * fit.drag_constant_per_m) / (rho * geometry.area_m2);
+    const fit = this.fitResult;
+    this.status = fitDragConstantInto(effectiveGravity, this.heights, this.times, this.setup.counts, this.setup.fitOffset, this.startDragConstant, fit);
+    this.offset_s = fit[FIT_OFFSET]!;
+    this.dragConstant_per_m = fit[FIT_DRAG_CONSTANT]!;
+    return (2 * effectiveMass * this.dragConstant_per_m) / (rho * area);
   }
 
   evaluateDetailed(x: Float64Array): SeriesEvaluation {

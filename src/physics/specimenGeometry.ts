@@ -82,54 +82,72 @@ export function geometryFromDimensions(
   dims: ArrayLike<number>,
   characteristicLength?: number,
 ): SpecimenGeometry {
+  const out = geometryScratch;
+  writeGeometry(shape, dims, characteristicLength, out);
+  return {
+    shape,
+    area_m2: out[GEOMETRY_AREA]!,
+    volume_m3: out[GEOMETRY_VOLUME]!,
+    characteristic_length_m: out[GEOMETRY_LENGTH]!,
+    length_along_fall_m: shape === 'custom' ? null : out[GEOMETRY_ALONG_FALL]!,
+    default_added_mass_coefficient: out[GEOMETRY_ADDED_MASS]!,
+  };
+}
+
+/** Positions in the array writeGeometry fills. */
+export const GEOMETRY_AREA = 0;
+export const GEOMETRY_VOLUME = 1;
+export const GEOMETRY_LENGTH = 2;
+export const GEOMETRY_ALONG_FALL = 3;
+export const GEOMETRY_ADDED_MASS = 4;
+const geometryScratch = new Float64Array(5);
+
+/**
+ * The numbers of geometryFromDimensions written into `out` (area, volume, Reynolds length, length along the fall
+ * (NaN for a custom shape), default C_a at the GEOMETRY_* positions): the Monte Carlo evaluates the geometry once
+ * per draw, and an object per draw would cost more in the collector than the arithmetic.
+ */
+export function writeGeometry(shape: SpecimenShape, dims: ArrayLike<number>, characteristicLength: number | undefined, out: Float64Array): void {
   const d0 = dims[0]!;
   const d1 = dims[1]!;
   switch (shape) {
     case 'sphere': {
-      return {
-        shape,
-        area_m2: (Math.PI * d0 * d0) / 4,
-        volume_m3: (Math.PI * d0 * d0 * d0) / 6,
-        characteristic_length_m: d0,
-        length_along_fall_m: d0,
-        default_added_mass_coefficient: 0.5,
-      };
+      out[GEOMETRY_AREA] = (Math.PI * d0 * d0) / 4;
+      out[GEOMETRY_VOLUME] = (Math.PI * d0 * d0 * d0) / 6;
+      out[GEOMETRY_LENGTH] = d0;
+      out[GEOMETRY_ALONG_FALL] = d0;
+      out[GEOMETRY_ADDED_MASS] = 0.5;
+      return;
     }
     case 'cylinder':
     case 'disc': {
       const area = (Math.PI * d0 * d0) / 4;
       const volume = area * d1;
-      return {
-        shape,
-        area_m2: area,
-        volume_m3: volume,
-        characteristic_length_m: d0,
-        length_along_fall_m: d1,
-        default_added_mass_coefficient: equivalentSpheroidAddedMassCoefficient(area, d1, volume),
-      };
+      out[GEOMETRY_AREA] = area;
+      out[GEOMETRY_VOLUME] = volume;
+      out[GEOMETRY_LENGTH] = d0;
+      out[GEOMETRY_ALONG_FALL] = d1;
+      out[GEOMETRY_ADDED_MASS] = equivalentSpheroidAddedMassCoefficient(area, d1, volume);
+      return;
     }
     case 'box': {
       const area = d0 * d1;
       const t = dims[2]!;
       const volume = area * t;
-      return {
-        shape,
-        area_m2: area,
-        volume_m3: volume,
-        characteristic_length_m: Math.sqrt((4 * area) / Math.PI),
-        length_along_fall_m: t,
-        default_added_mass_coefficient: equivalentSpheroidAddedMassCoefficient(area, t, volume),
-      };
+      out[GEOMETRY_AREA] = area;
+      out[GEOMETRY_VOLUME] = volume;
+      out[GEOMETRY_LENGTH] = Math.sqrt((4 * area) / Math.PI);
+      out[GEOMETRY_ALONG_FALL] = t;
+      out[GEOMETRY_ADDED_MASS] = equivalentSpheroidAddedMassCoefficient(area, t, volume);
+      return;
     }
     case 'custom': {
-      return {
-        shape,
-        area_m2: d0,
-        volume_m3: d1,
-        characteristic_length_m: characteristicLength ?? Math.sqrt((4 * d0) / Math.PI),
-        length_along_fall_m: null,
-        default_added_mass_coefficient: 0,
-      };
+      out[GEOMETRY_AREA] = d0;
+      out[GEOMETRY_VOLUME] = d1;
+      out[GEOMETRY_LENGTH] = characteristicLength ?? Math.sqrt((4 * d0) / Math.PI);
+      out[GEOMETRY_ALONG_FALL] = NaN;
+      out[GEOMETRY_ADDED_MASS] = 0;
+      return;
     }
   }
 }

@@ -1,9 +1,10 @@
 /**
  * The standard drag curve of a smooth sphere: C_d against Reynolds number as tabulated piecewise by R. Clift,
  * J. R. Grace and M. E. Weber, Bubbles, Drops, and Particles (Academic Press, 1978), Table 5.2 (coefficients from
- * memory; the pieces join within 0.8 % at every boundary below Re = 3.38e5, which checks them). w = log10 Re.
+ * memory, and the same in an independent open-source transcription; the pieces join within 0.8 % at every boundary
+ * below Re = 3.38e5, which checks them). w = log10 Re.
  *
- *   Re ≤ 0.01            C_d = 3/16 + 24/Re
+ *   Re ≤ 0.01            C_d = 9/2 + 24/Re       (Oseen: 24/Re·(1 + 3Re/16))
  *   0.01 < Re ≤ 20       C_d = 24/Re·(1 + 0.1315·Re^(0.82 − 0.05w))
  *   20 < Re ≤ 260        C_d = 24/Re·(1 + 0.1935·Re^0.6305)
  *   260 < Re ≤ 1500      log10 C_d = 1.6435 − 1.1242w + 0.1558w²
@@ -29,7 +30,7 @@ export function standardSphereDragCoefficient(reynolds: number): number {
   if (!(reynolds > 0)) throw new RangeError(`Reynolds number must be positive, got ${reynolds}`);
   const Re = reynolds;
   const w = Math.log10(Re);
-  if (Re <= 0.01) return 3 / 16 + 24 / Re;
+  if (Re <= 0.01) return 9 / 2 + 24 / Re;
   if (Re <= 20) return (24 / Re) * (1 + 0.1315 * Math.pow(Re, 0.82 - 0.05 * w));
   if (Re <= 260) return (24 / Re) * (1 + 0.1935 * Math.pow(Re, 0.6305));
   if (Re <= 1500) return 10 ** (1.6435 - 1.1242 * w + 0.1558 * w * w);

@@ -201,7 +201,10 @@ describe('analyzeSeries', () => {
       gravity_m_s2: withReference.gravity_m_s2,
       added_mass_coefficient: 0.5,
     });
-    expect(withReference.drops[0]!.predicted_time_s).toBeCloseTo(fallTime(12, ref), 12);
+    // Predictions go through the air along the fall (predictedFall.ts): over 12 m the thinning air shortens the
+    // fall by about 1e-5 of its time against uniform air at the reading (checked exactly against odex in
+    // planDrop.test.ts, at 3000 m).
+    expect(Math.abs(withReference.drops[0]!.predicted_time_s! / fallTime(12, ref) - 1)).toBeLessThan(3e-5);
 
     const sphere = analyzeSeries(exactRequest(0.47, [12]));
     expect(sphere.prediction.method).toBe('standard-sphere-drag-curve');
@@ -211,7 +214,7 @@ describe('analyzeSeries', () => {
       reynolds_per_speed_s_m: (sphere.air.density_kg_m3 * 0.095) / sphere.air.dynamic_viscosity_Pa_s,
       dragCoefficient: standardSphereDragCoefficient,
     });
-    expect(sphere.drops[0]!.predicted_time_s).toBeCloseTo(fall.time_s, 12);
+    expect(Math.abs(sphere.drops[0]!.predicted_time_s! / fall.time_s - 1)).toBeLessThan(3e-5);
   });
 
   it('warns near the drag crisis', () => {

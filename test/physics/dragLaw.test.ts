@@ -122,3 +122,48 @@ describe('a series analysed with speed-dependent drag', () => {
     expect(PARTICLE.diameter_m).toBe(0.001);
   });
 });
+
+describe('a series under the scaled sphere curve takes its fit, times and budget from that law', () => {
+  // A 1 mm bead from three heights, exact times of the curve scaled by 1.15 (invented scenario, particleSeries.ts).
+  const heights = [0.3, 0.3, 1, 1, 3, 3];
+  const scaled = analyzeSeries(particleRequest({ scale: 1.15, heights, drag_law: 'scaled_sphere' }));
+  const constant = analyzeSeries(particleRequest({ scale: 1.15, heights, drag_law: 'constant' }));
+
+  it('gives each drop the fitted time of the scaled law, as odex integrates its equation of motion', () => {
+    expect(scaled.drag_law).toBe('scaled_sphere');
+    const s = scaled.drag_law_details.scale_factor!;
+    expect(s).toBeCloseTo(1.15, 5);
+    const rho = scaled.air.density_kg_m3;
+    const g = scaled.model.effective_gravity_m_s2;
+    const c = (rho * scaled.model.area_m2) / (2 * scaled.model.effective_mass_kg);
+    const rps = (rho * scaled.model.characteristic_length_m) / scaled.air.dynamic_viscosity_Pa_s;
+    // Reference: odex driving dv/dt = g_e − (ρA/2m_e)·s·C_d,std(ρLv/μ)·v² to the fitted time; the distance it
+    // reaches must be the drop's height.
+    const solver = odexSolver(2, 1e-12);
+    const rhs = (_t: number, [, v]: number[]): number[] => [v!, v! > 0 ? g - c * s * standardSphereDragCoefficient(rps * v!) * v! * v! : g];
+    for (const drop of scaled.drops) {
+      const reached = solver.solve(rhs, 0, [0, 0], drop.fitted_time_s).y[0]!;
+      expect(Math.abs(reached / drop.height_m - 1)).toBeLessThan(1e-6);
+      expect(drop.residual_s).toBe(drop.time_s - drop.fitted_time_s);
+      // Exact times of this law: the scaled law leaves no residual, the constant one does.
+      expect(Math.abs(drop.residual_s)).toBeLessThan(1e-6 * drop.time_s);
+    }
+    const constantWorst = Math.max(...constant.drops.map((d) => Math.abs(d.residual_s) / d.time_s));
+    expect(constantWorst).toBeGreaterThan(1e-4);
+  });
+
+  it('states its budget, its GUM interval and its impact speeds in the scaled law', () => {
+    const rows = Math.sqrt(scaled.budget.reduce((sum, row) => sum + row.contribution ** 2, 0));
+    expect(rows / scaled.drag_coefficient_standard_uncertainty - 1).toBeCloseTo(0, 9);
+    expect(scaled.gum.combined_standard_uncertainty / scaled.drag_coefficient_standard_uncertainty - 1).toBeCloseTo(0, 12);
+    const [low, high] = scaled.gum.interval_95;
+    expect((low + high) / 2 / scaled.drag_coefficient! - 1).toBeCloseTo(0, 12);
+    // The constant law's budget is a different one: its u_c belongs to the constant C_d.
+    expect(Math.abs(constant.gum.combined_standard_uncertainty / scaled.gum.combined_standard_uncertainty - 1)).toBeGreaterThan(0.01);
+    // Impact speed: the scaled curve's fall (fallWithVariableDrag, itself checked against odex above).
+    const body = { effective_gravity_m_s2: scaled.model.effective_gravity_m_s2, drag_constant_per_unit_cd_per_m: (scaled.air.density_kg_m3 * scaled.model.area_m2) / (2 * scaled.model.effective_mass_kg), reynolds_per_speed_s_m: (scaled.air.density_kg_m3 * 0.001) / scaled.air.dynamic_viscosity_Pa_s };
+    const s = scaled.drag_law_details.scale_factor!;
+    const v = fallWithVariableDrag(3, { ...body, dragCoefficient: (re) => s * standardSphereDragCoefficient(re) }).impact_speed_m_s;
+    expect(scaled.drops[5]!.impact_speed_m_s / v - 1).toBeCloseTo(0, 6);
+  });
+});

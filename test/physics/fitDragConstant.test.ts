@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { describe, expect, it } from 'vitest';
-import { fallTime } from '../../src/physics/fallModel';
+import { fallTime, fallTimeFactor } from '../../src/physics/fallModel';
 import { fitDragConstant, solveFallTimeFactor } from '../../src/physics/fitDragConstant';
 
 const g = 9.79;
@@ -88,5 +88,21 @@ describe('solveFallTimeFactor', () => {
   it('says "faster than free fall" for a time a quarter of the drag-free one, and "unexplained" for one 10⁵ times longer', () => {
     expect(solveFallTimeFactor(0.2).status).toBe('faster-than-free-fall');
     expect(solveFallTimeFactor(1e5).status).toBe('drag-unexplained');
+  });
+
+  it('finds the same root from a warm start near the answer as from none, wherever the start and the target lie', () => {
+    // A warm start goes through a remembered second-order expansion of Φ (the Monte Carlo's path): it may change
+    // the iterations, never the root.
+    fc.assert(
+      fc.property(fc.double({ min: -15, max: 1e5, noNaN: true }), fc.double({ min: -0.2, max: 0.2, noNaN: true }), (x, spread) => {
+        const target = fallTimeFactor(x);
+        const cold = solveFallTimeFactor(target);
+        const warm = solveFallTimeFactor(target * (1 + spread / 100), x * (1 + spread));
+        const warmSame = solveFallTimeFactor(target, x * (1 + spread / 10));
+        expect([cold.status, warm.status, warmSame.status]).toEqual(['ok', 'ok', 'ok']);
+        expect(Math.abs(warmSame.x - cold.x)).toBeLessThanOrEqual(1e-12 * Math.max(1, Math.abs(cold.x)));
+      }),
+      { numRuns: 400, seed: 5 },
+    );
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { adaptiveMonteCarloPropagation, ADAPTIVE_MONTE_CARLO, monteCarloPropagation, selectQuantile, sortedQuantile } from '../../src/physics/monteCarloPropagation';
+import { adaptiveMonteCarloPropagation, ADAPTIVE_MONTE_CARLO, monteCarloPropagation, selectQuantile, sortedQuantile, summariseDraws } from '../../src/physics/monteCarloPropagation';
 import fc from 'fast-check';
 import { SeriesModel } from '../../src/physics/seriesModel';
 import { studentTQuantile } from '../../src/physics/studentT';
@@ -107,6 +107,21 @@ describe('selectQuantile', () => {
         expect(selectQuantile(Float64Array.from(values), p)).toBe(sortedQuantile(sorted, p));
       }),
       { numRuns: 500, seed: 13 },
+    );
+  });
+});
+
+describe('summariseDraws', () => {
+  it('reads the interval ends and the one-sided bound as sorting first would, however few or tied the draws', () => {
+    // Its three quantiles share one array: each later selection searches left of the previous one.
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: -20, max: 20 }).map((v) => v / 4), { minLength: 1, maxLength: 300 }), (values) => {
+        const sorted = Float64Array.from(values).sort();
+        const summary = summariseDraws(Float64Array.from(values), values.length, 0);
+        expect(summary.interval_95).toEqual([sortedQuantile(sorted, 0.025), sortedQuantile(sorted, 0.975)]);
+        expect(summary.upper_bound_95).toBe(sortedQuantile(sorted, 0.95));
+      }),
+      { numRuns: 500, seed: 29 },
     );
   });
 });

@@ -63,8 +63,11 @@ describe('the standard sphere drag curve', () => {
     // Their sphere data as reproduced in the sheardata repository (data/E1971001/spheres.csv), averaged per
     // band (geometric mean of the measured C_d against the curve). Bands and their measured points:
     const bands: { re: [number, number]; points: [number, number][] }[] = [
+      { re: [5, 50], points: [[5.33, 7.06], [5.99, 6.41], [11, 4.01], [13.1, 3.76], [13.2, 3.66], [13.9, 3.59], [14.6, 3.41], [16.2, 3.29], [21.1, 2.82], [23.4, 2.48], [29.1, 2.28], [45, 1.79]] },
       { re: [50, 100], points: [[50.6, 1.58], [54.4, 1.52], [68.9, 1.35], [68.9, 1.33], [78.2, 1.27], [88.1, 1.12], [93.8, 1.03]] },
+      { re: [100, 500], points: [[101, 1.08], [104, 1.05], [108, 1.02], [109, 1.03], [124, 0.994], [130, 0.927], [138, 0.907], [163, 0.879], [168, 0.799], [170, 0.819], [186, 0.799], [186, 0.841], [189, 0.778], [190, 0.751], [191, 0.799], [193, 0.732], [229, 0.711], [229, 0.71], [240, 0.7], [258, 0.721], [280, 0.674], [284, 0.646], [286, 0.675], [311, 0.592], [312, 0.607], [318, 0.656], [358, 0.627], [361, 0.6], [364, 0.632], [379, 0.595], [409, 0.579], [444, 0.585], [468, 0.578], [472, 0.566], [480, 0.572]] },
       { re: [500, 1000], points: [[500, 0.547], [522, 0.544], [532, 0.543], [532, 0.556], [557, 0.552], [579, 0.523], [588, 0.52], [603, 0.531], [644, 0.525], [713, 0.505], [727, 0.48], [833, 0.485], [932, 0.472], [984, 0.466], [985, 0.477], [985, 0.485]] },
+      { re: [1000, 2000], points: [[1000, 0.472], [1000, 0.483], [1070, 0.452], [1330, 0.436], [1650, 0.44], [1690, 0.435], [1950, 0.427], [2000, 0.43]] },
       { re: [5e4, 1.2e5], points: [[52400, 0.503], [53500, 0.497], [57500, 0.48], [57700, 0.492], [71900, 0.451], [89000, 0.502], [100000, 0.467], [118300, 0.476]] },
     ];
     for (const band of bands) {
@@ -75,6 +78,17 @@ describe('the standard sphere drag curve', () => {
     // one): the spread between measured curves there is what the stated 5 % standard uncertainty stands for.
     expect(STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY).toBe(0.05);
     expect(STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS).toBe(2e5);
+  });
+
+  it('follows Oseen and Proudman–Pearson in creeping flow (Re 0.001–0.01) within 0.05 %, joining its next piece there', () => {
+    // C_d = 24/Re·(1 + 3Re/16 + (9/160)·Re²·ln(Re/2)) (Proudman & Pearson 1957, from memory), as above.
+    for (const re of [0.001, 0.003, 0.01]) {
+      const theory = (24 / re) * (1 + (3 * re) / 16 + (9 / 160) * re * re * Math.log(re / 2));
+      expect(Math.abs(relative(re, theory))).toBeLessThan(5e-4);
+    }
+    const below = standardSphereDragCoefficient(0.01 * (1 - 1e-9));
+    const above = standardSphereDragCoefficient(0.01 * (1 + 1e-9));
+    expect(Math.abs(above / below - 1)).toBeLessThan(5e-4);
   });
 
   it('is nearly continuous where its pieces meet (within 0.8 % below the drag crisis)', () => {
@@ -122,7 +136,8 @@ describe('sphere predictions in an analysis', () => {
     };
     const up = fallWithVariableDrag(12, { ...body, dragCoefficient: (re) => 1.05 * standardSphereDragCoefficient(re) }).time_s;
     const down = fallWithVariableDrag(12, { ...body, dragCoefficient: (re) => 0.95 * standardSphereDragCoefficient(re) }).time_s;
-    expect(predicted.time_standard_uncertainty_s).toBeCloseTo((up - down) / 2, 9);
+    // (The prediction goes through the air along the fall; uniform air at the reading differs by about 1e-5 of the time.)
+    expect(Math.abs(predicted.time_standard_uncertainty_s / ((up - down) / 2) - 1)).toBeLessThan(2e-3);
     // About 1.5 ms on a 1.6 s fall: 5 % of C_d moves a 12 m ball drop by a few thousandths of its time.
     expect(predicted.time_standard_uncertainty_s).toBeGreaterThan(0.001);
     expect(up).toBeGreaterThan(predicted.time_s);
