@@ -126,6 +126,15 @@ describe('the CSV tables', () => {
     'warnings',
     'error_code',
     'error_message',
+    // Drops with marks and clips: a count, a fitted value, and the clip's summary named clip_… in the drops table.
+    'mark_count',
+    'release_shift_s',
+    'clip_codec',
+    'clip_frame_rate_hz',
+    'clip_release_s',
+    'u_clip_release_s',
+    'clip_impact_s',
+    'u_clip_impact_s',
   ]);
   const stored = new Set(RECORD_KINDS.flatMap((kind) => Object.keys(FIELDS[kind]).map((p) => p.split('.').pop()!)));
 
