@@ -63,14 +63,16 @@ const TARGET_PERCENT = { ...LIMITS.target_relative_uncertainty, max: LIMITS.targ
  * they may be stored (each typed, rising from gate to gate, none beyond the release height).
  */
 function gateDistancesProblem(gates: readonly FieldState[], height: number | null, format: (v: number, kind: 'length') => string): string | null {
-  const missing = gates.findIndex((g) => !fieldsValid(g));
-  if (missing >= 0) return `Gate ${missing + 1} needs its distance fallen from the release point.`;
+  // What is typed wrong comes first; what is not typed yet last.
   for (let i = 0; i < gates.length; i++) {
+    if (!fieldsValid(gates[i])) continue;
     const value = gates[i]!.value!;
-    if (i > 0 && value <= gates[i - 1]!.value!) return `Gate ${i + 1} at ${format(value, 'length')} must be further down than gate ${i} (${format(gates[i - 1]!.value!, 'length')}).`;
+    const before = i > 0 && fieldsValid(gates[i - 1]) ? gates[i - 1]!.value! : null;
+    if (before !== null && value <= before) return `Gate ${i + 1} at ${format(value, 'length')} must be further down than gate ${i} (${format(before, 'length')}).`;
     if (height !== null && value > height) return `Gate ${i + 1} at ${format(value, 'length')} is below the landing: the release height is ${format(height, 'length')}.`;
   }
-  return null;
+  const missing = gates.findIndex((g) => !fieldsValid(g));
+  return missing >= 0 ? `Gate ${missing + 1} needs its distance fallen from the release point.` : null;
 }
 
 export function SeriesForm({
