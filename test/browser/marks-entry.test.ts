@@ -92,6 +92,9 @@ describe.skipIf(!haveChromium)('a gates series typed on the phone', () => {
       if (k === 1) await page.screenshot({ path: `${SHOTS}/04-two-drops.png` });
     }
     expect(await page.locator('table.drops tbody tr').count()).toBe(5);
+    await expectVisible(page.getByRole('heading', { name: 'Marks along the fall' }));
+    await page.getByRole('heading', { name: 'Marks along the fall' }).scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/05-marks-chart.png` });
     await page.screenshot({ path: `${SHOTS}/05-five-drops.png`, fullPage: true });
   });
 
