@@ -10,3 +10,4 @@ export * from './series-curves';
 export * from './plan-request';
 export * from './series-key';
 export * from './reading-air';
+export * from './marks-drop';

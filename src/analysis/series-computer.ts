@@ -50,6 +50,8 @@ export function seriesResultOf(result: AnalysisResult): SeriesResult {
       impact_speed_m_s: d.impact_speed_m_s,
       impact_energy_J: d.impact_energy_J,
       reynolds_number: d.reynolds_number,
+      ...(d.marks ? { marks: d.marks.map((m) => ({ fitted_time_s: m.fitted_time_s, residual_s: m.residual_s })) } : {}),
+      ...(d.release_shift_s !== undefined ? { release_shift_s: d.release_shift_s } : {}),
     })),
     warnings: result.warnings,
   };

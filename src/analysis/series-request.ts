@@ -1,6 +1,6 @@
 // From the log's records to the physics core's request: the one place a series' request is built, and the one
 // check of what a series still lacks, read alike by the screens, the CSV tables and the office command.
-import type { AnalysisRequest, SpecimenInput, UncertaintyInput } from '../physics';
+import type { AnalysisRequest, DropInput, SpecimenInput, UncertaintyInput } from '../physics';
 import type { DropRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from '../log';
 
 export function specimenInput(specimen: SpecimenRecord): { input: SpecimenInput; uncertainty: UncertaintyInput } {
@@ -90,6 +90,42 @@ export function dropHeight(drop: DropRecord, series: SeriesRecord): number {
   return drop.height_m ?? series.height_m;
 }
 
+/**
+ * A drop as the physics takes it. A drop with marks passes them and whether its release time is known (a clip's is
+ * estimated); its own (height, time) is the landing, the last mark itself when the times agree. In a gates series
+ * the marks' distances are the series' gate distances, typed once, so a corrected gate distance reaches every drop.
+ */
+export function dropInput(drop: DropRecord, series: SeriesRecord): DropInput {
+  const height_m = dropHeight(drop, series);
+  if (!drop.marks) return { id: drop.id, height_m, time_s: drop.time_s };
+  const gates = series.gate_distances_m;
+  const fromGates = gates !== undefined && gates.length === drop.marks.length;
+  const marks = drop.marks.map((m, i) => ({ distance_m: fromGates ? gates[i]! : m.distance_m, time_s: m.time_s }));
+  const last = marks[marks.length - 1]!;
+  const landingIsLastMark = drop.time_s === last.time_s;
+  return {
+    id: drop.id,
+    height_m: landingIsLastMark ? last.distance_m : height_m,
+    time_s: drop.time_s,
+    marks,
+    ...(drop.release_time_known === false ? { release_time_known: false } : {}),
+  };
+}
+
+/**
+ * The distinct distances a fitted timing offset can be told apart at (the physics' rule): every drop's height,
+ * and for a drop with marks whose release is known each mark's distance above zero; a drop whose release is
+ * estimated takes a constant delay into its own release shift and counts for nothing.
+ */
+export function distinctDistances(drops: readonly DropInput[]): number {
+  const distances = new Set<number>();
+  for (const d of drops) {
+    if (d.release_time_known === false) continue;
+    for (const m of d.marks ?? [{ distance_m: d.height_m }]) if (m.distance_m > 0) distances.add(m.distance_m);
+  }
+  return distances.size;
+}
+
 /** The drops a series' fit uses: live and not excluded, in the order given. */
 export function usedDrops(drops: readonly DropRecord[]): DropRecord[] {
   return drops.filter((d) => !d.excluded && !d.deleted);
@@ -119,15 +155,14 @@ export function buildRequest(
 ): AnalysisRequest {
   const sp = specimenInput(specimen);
   const air = airInput(reading);
-  const used = usedDrops(drops);
-  const distinctHeights = new Set(used.map((d) => dropHeight(d, series))).size;
+  // Each drop carries its record's id to its result: rows are joined by it, never by position.
+  const dropInputs = usedDrops(drops).map((d) => dropInput(d, series));
   return {
     site: siteInput(site),
     air: air.air,
     specimen: sp.input,
-    // Each drop carries its record's id to its result: rows are joined by it, never by position.
-    drops: used.map((d) => ({ id: d.id, height_m: dropHeight(d, series), time_s: d.time_s })),
-    timing: timingInput(series, distinctHeights),
+    drops: dropInputs,
+    timing: timingInput(series, distinctDistances(dropInputs)),
     uncertainty: { ...sp.uncertainty, ...air.uncertainty, height_m: series.u_height_m },
     // The reading aloft's uncertainties are taken as those of the ground reading's (the same kind of instruments).
     ...(readingAloft ? { air_aloft: airAloftInput(readingAloft) } : {}),

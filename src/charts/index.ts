@@ -4,3 +4,4 @@ export { niceTicks } from './nice-ticks';
 export { plotGeometry, tickLabel, PLOT_WIDTH, PLOT_HEIGHT, type PlotGeometry, type PlotInput, type PlotLine, type PlotMark, type Tick, type LineStyle, type LineTone } from './plot-geometry';
 export { seriesPlots, METRES, type LengthDisplay, type SeriesPlots } from './series-plots';
 export { budgetBars, barWidths, type Bar } from './budget-bars';
+export { marksPlots, type MarksFit, type MarksPlots } from './marks-plots';

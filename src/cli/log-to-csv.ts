@@ -16,6 +16,8 @@ export { physicsSeriesComputer, seriesComputer, seriesRequest, seriesResultOf } 
 export interface LogCsvSummary {
   drops_csv: string;
   series_csv: string;
+  /** One row per mark of each drop with marks (only its header when none has marks). */
+  marks_csv: string;
   series: number;
   drops: number;
   /** Series that could not be computed: their rows carry error_code and error_message. */
@@ -54,7 +56,7 @@ export function inputKind(json: unknown): { kind: 'log' } | { kind: 'request' } 
 }
 
 /**
- * Writes out/drops.csv and out/series.csv for the log. `logJson` is the file's text (checked, throws
+ * Writes out/drops.csv, out/series.csv and out/marks.csv for the log. `logJson` is the file's text (checked, throws
  * LogFileError naming the field, value and rule) or an already read LogFile.
  */
 export function writeLogCsv(logJson: string | LogFile, outDir: string, computeSeries: ComputeSeries): LogCsvSummary {
@@ -73,10 +75,11 @@ export function writeLogCsv(logJson: string | LogFile, outDir: string, computeSe
   };
   const tables = logCsv(file.records, recording);
   // Never through a symbolic link planted in the folder, and both tables or neither (see write-output.ts).
-  const [drops_csv, series_csv] = writeOutputFiles(outDir, [
+  const [drops_csv, series_csv, marks_csv] = writeOutputFiles(outDir, [
     { name: 'drops.csv', content: tables.drops },
     { name: 'series.csv', content: tables.series },
-  ]) as [string, string];
+    { name: 'marks.csv', content: tables.marks },
+  ]) as [string, string, string];
   const inputs = seriesInputs(file.records);
-  return { drops_csv, series_csv, series: inputs.length, drops: inputs.reduce((n, i) => n + i.allDrops.length, 0), failed };
+  return { drops_csv, series_csv, marks_csv, series: inputs.length, drops: inputs.reduce((n, i) => n + i.allDrops.length, 0), failed };
 }

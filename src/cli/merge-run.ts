@@ -100,6 +100,7 @@ export async function runMerge(args: readonly string[], io: CommandIo, usage: st
       const [drops_csv, series_csv] = writeOutputFiles(resolve(io.cwd, csv), [
         { name: 'drops.csv', content: tables.drops },
         { name: 'series.csv', content: tables.series },
+        { name: 'marks.csv', content: tables.marks },
       ]);
       outputs = { ...outputs, drops_csv: drops_csv!, series_csv: series_csv! };
     }

@@ -40,6 +40,10 @@ export interface DropResult {
   impact_speed_m_s?: number | null;
   impact_energy_J?: number | null;
   reynolds_number?: number | null;
+  /** A drop with marks: each mark's fitted time and measured minus fitted, in the order of the drop's marks. */
+  marks?: readonly { fitted_time_s: number; residual_s: number }[];
+  /** A drop with marks: the fitted shift of its estimated release, s; null when the release time is known. */
+  release_shift_s?: number | null;
 }
 
 export interface SeriesResult {
@@ -92,6 +96,30 @@ export const DROP_COLUMNS = [
   'impact_speed_m_s',
   'impact_energy_J',
   'reynolds_number',
+  // Drops with marks (their rows are in the marks table) and drops timed from a clip: the clip's summary.
+  'mark_count',
+  'release_time_known',
+  'release_shift_s',
+  'clip_codec',
+  'clip_frame_rate_hz',
+  'clip_release_s',
+  'u_clip_release_s',
+  'clip_impact_s',
+  'u_clip_impact_s',
+] as const;
+
+/** One row per mark of every drop with marks: where the drop is, the mark, and its fit when computed. */
+export const MARK_COLUMNS = [
+  'day_date',
+  'series_id',
+  'drop_id',
+  'seq',
+  'excluded',
+  'mark_index',
+  'distance_m',
+  'time_s',
+  'fitted_time_s',
+  'residual_s',
 ] as const;
 
 export const SERIES_COLUMNS = [
@@ -113,6 +141,7 @@ export const SERIES_COLUMNS = [
   'timing_offset',
   'timing_delay_s',
   'u_timing_delay_s',
+  'gate_distances_m',
   'drops_total',
   'drops_used',
   'reading_id',
@@ -221,16 +250,22 @@ function humidityCells(reading: ReadingRecord | null): [CsvValue, CsvValue] {
   return reading.humidity.kind === 'relative' ? [reading.humidity.relative_humidity_pct, null] : [null, reading.humidity.dew_point_C];
 }
 
+/** A drop's result (joined by id, else by position among the used drops) and whether the drop was in the fit. */
+function resultOf(input: SeriesInput, result: SeriesResult, drop: DropRecord): { r: DropResult; used: boolean } {
+  const byId = (result.drops ?? []).some((r) => r.drop_id !== undefined);
+  const index = input.drops.indexOf(drop);
+  const r: DropResult = byId ? ((result.drops ?? []).find((x) => x.drop_id === drop.id) ?? {}) : index >= 0 ? (result.drops?.[index] ?? {}) : {};
+  return { r, used: index >= 0 && !result.error };
+}
+
 function dropRows(rows: Row[]): CsvValue[][] {
   const out: CsvValue[][] = [];
   for (const { input, allDrops, result } of rows) {
     const { series, day, site, specimen, reading } = input;
     const [rh, dew] = humidityCells(reading);
-    const byId = new Map((result.drops ?? []).filter((r) => r.drop_id !== undefined).map((r) => [r.drop_id, r]));
     for (const drop of allDrops) {
-      const index = input.drops.indexOf(drop);
-      const r: DropResult = byId.size > 0 ? (byId.get(drop.id) ?? {}) : index >= 0 ? (result.drops?.[index] ?? {}) : {};
-      const used = index >= 0 && !result.error;
+      const { r, used } = resultOf(input, result, drop);
+      const clip = drop.clip;
       out.push([
         day?.date,
         site?.name,
@@ -265,7 +300,42 @@ function dropRows(rows: Row[]): CsvValue[][] {
         used ? sig(r.impact_speed_m_s, 4) : null,
         used ? sig(r.impact_energy_J, 4) : null,
         used ? sig(r.reynolds_number, 3) : null,
+        drop.marks?.length ?? null,
+        drop.marks || clip ? drop.release_time_known !== false : null,
+        used ? micro(r.release_shift_s) : null,
+        clip?.codec,
+        clip?.frame_rate_hz,
+        micro(clip?.release_s),
+        micro(clip?.u_release_s),
+        micro(clip?.impact_s),
+        micro(clip?.u_impact_s),
       ]);
+    }
+  }
+  return out;
+}
+
+function markRows(rows: Row[]): CsvValue[][] {
+  const out: CsvValue[][] = [];
+  for (const { input, allDrops, result } of rows) {
+    for (const drop of allDrops) {
+      if (!drop.marks) continue;
+      const { r, used } = resultOf(input, result, drop);
+      drop.marks.forEach((mark, i) => {
+        const fit = used ? r.marks?.[i] : undefined;
+        out.push([
+          input.day?.date,
+          input.series.id,
+          drop.id,
+          drop.seq,
+          drop.excluded,
+          i + 1,
+          mark.distance_m,
+          micro(mark.time_s),
+          micro(fit?.fitted_time_s),
+          micro(fit?.residual_s),
+        ]);
+      });
     }
   }
   return out;
@@ -301,6 +371,7 @@ function seriesRows(rows: Row[]): CsvValue[][] {
       series.timing_offset,
       series.timing_delay_s,
       series.u_timing_delay_s,
+      series.gate_distances_m?.join(' '),
       allDrops.length,
       input.drops.length,
       reading?.id,
@@ -338,10 +409,16 @@ export interface LogCsv {
   drops: string;
   /** One row per series. */
   series: string;
+  /** One row per mark of each drop with marks (only the header when no drop has marks). */
+  marks: string;
 }
 
-/** Both tables, computing each series once. */
+/** The three tables, computing each series once. */
 export function logCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): LogCsv {
   const rows = computeAll(records, compute);
-  return { drops: toCsv(DROP_COLUMNS, dropRows(rows), options), series: toCsv(SERIES_COLUMNS, seriesRows(rows), options) };
+  return {
+    drops: toCsv(DROP_COLUMNS, dropRows(rows), options),
+    series: toCsv(SERIES_COLUMNS, seriesRows(rows), options),
+    marks: toCsv(MARK_COLUMNS, markRows(rows), options),
+  };
 }

@@ -4,7 +4,7 @@
  * credentials can reach a file because none are handed in.
  *
  * Format 2 (schema: public/schema/plummet-log-2.schema.json; format 1 files are upgraded on import):
- *   { "app_version", "device", "format": "plummet-log", "format_version": 3,
+ *   { "app_version", "device", "format": "plummet-log", "format_version": 4,
  *     "records": [every record with its envelope, history and tombstone flag],
  *     "selection": null | { "day_ids", "kinds", "site_ids", "specimen_ids" } }
  */

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeSeriesRecords, buildRequest, MISSING_PART_MESSAGES, seriesParts } from '../../src/analysis';
+import { validateAnalysisRequest } from '../../src/physics';
 import { excludedCopy, revise, testDay, DEVICE, HEIGHTS } from './day-records';
 
 describe('a series request built from the records', () => {
@@ -52,6 +53,45 @@ describe('a series request built from the records', () => {
     const day = testDay();
     const plain = revise(day.drops[0]!, { height_m: null }, Date.UTC(2026, 6, 3, 12), DEVICE);
     expect(buildRequest(day.site, day.reading, day.specimen, day.series, [plain]).drops[0]!.height_m).toBe(day.series.height_m);
+  });
+});
+
+describe('drops with marks in the request', () => {
+  // Invented gate times, a vacuum fall t = √(2d/g) (g = 9.81 m/s²) plus a little: demo values, not measurements.
+  const gates = [0.5, 1, 1.5];
+  const gateTimes = (k: number) => gates.map((d) => Number((Math.sqrt((2 * d) / 9.81) + 0.002 * k).toFixed(6)));
+
+  it('passes a gates series’ distances through each drop’s marks, the landing being the last gate', () => {
+    const day = testDay();
+    const series = { ...day.series, timing_method: 'gates' as const, gate_distances_m: gates };
+    const drops = day.drops.map((d, k) => {
+      const times = gateTimes(k);
+      return { ...d, marks: gates.map((g, i) => ({ distance_m: g, time_s: times[i]! })), release_time_known: true, time_s: times[2]!, height_m: 1.5 };
+    });
+    const request = buildRequest(day.site, day.reading, day.specimen, series, drops);
+    expect(request.drops[1]).toEqual({
+      id: drops[1]!.id,
+      height_m: 1.5,
+      time_s: gateTimes(1)[2],
+      marks: gates.map((g, i) => ({ distance_m: g, time_s: gateTimes(1)[i] })),
+    });
+    // Three distinct distances from a known release: the offset can be fitted.
+    expect(request.timing.offset).toBe('fit');
+    // A gate distance corrected on the series reaches every drop's marks and its landing.
+    const moved = buildRequest(day.site, day.reading, day.specimen, { ...series, gate_distances_m: [0.5, 1, 1.52] }, drops);
+    expect(moved.drops.map((d) => [d.marks![2]!.distance_m, d.height_m])).toEqual(drops.map(() => [1.52, 1.52]));
+    // The physics' own validation takes the request as built.
+    expect(() => validateAnalysisRequest(request)).not.toThrow();
+  });
+
+  it('passes a clip’s marks with its release time unknown, and its landing after the last mark', () => {
+    const day = testDay();
+    const drops = day.drops.map((d) => ({ ...d, marks: [{ distance_m: 0.2, time_s: 0.202 }, { distance_m: 0.6, time_s: 0.35 }], release_time_known: false }));
+    const request = buildRequest(day.site, day.reading, day.specimen, day.series, drops);
+    expect(request.drops[0]).toEqual({ id: drops[0]!.id, height_m: HEIGHTS[0], time_s: drops[0]!.time_s, marks: drops[0]!.marks, release_time_known: false });
+    // No known release anywhere: a constant delay cannot be told from the release shifts.
+    expect(request.timing.offset).toBe('none');
+    expect(() => validateAnalysisRequest(request)).not.toThrow();
   });
 });
 

@@ -10,6 +10,7 @@ import { LogFileError } from '../../src/log/export-parse';
 import { analyzeSeries, validateAnalysisRequest } from '../../src/physics/index';
 import { byKind, revise, sampleLog } from '../sync/sample-log';
 import { parseCsv } from './csv-reader';
+import { logWithMarks } from './marks-demo';
 
 const dirs: string[] = [];
 afterEach(() => dirs.splice(0).forEach((d) => rmSync(d, { recursive: true, force: true })));
@@ -22,6 +23,20 @@ const table = (path: string) => {
   const [header, ...rows] = parseCsv(readFileSync(path, 'utf8').replace(/^\ufeff/, ''));
   return rows.map((r) => Object.fromEntries(header!.map((h, i) => [h, r[i]!])));
 };
+
+describe('writing the marks table of an exported log', () => {
+  it('writes marks.csv beside the others: one row per mark of every drop with marks (demo gates and clips)', () => {
+    const records = logWithMarks();
+    const dir = outDir();
+    const summary = writeLogCsv(exportLog(records, { device: 'phoneA', app_version: '0.5.0' }), dir, physicsSeriesComputer());
+    expect(summary.marks_csv).toBe(join(dir, 'marks.csv'));
+    const rows = table(summary.marks_csv);
+    expect(rows).toHaveLength(30);
+    expect(rows.filter((r) => r.mark_index === '1')).toHaveLength(10);
+    expect(new Set(rows.map((r) => r.distance_m))).toEqual(new Set(['0.5', '1', '1.5', '0.2', '0.6']));
+    expect(table(summary.drops_csv).filter((r) => r.clip_codec === 'avc1.64001f')).toHaveLength(5);
+  });
+});
 
 describe('writing the CSV tables of an exported log', () => {
   const log = sampleLog({ days: 1, seriesPerDay: 2, dropsPerSeries: 3 });

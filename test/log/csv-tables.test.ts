@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { DROP_COLUMNS, SERIES_COLUMNS, logCsv, readingForSeries, roundWithUncertainty, type ComputeSeries, type SeriesInput } from '../../src/log/csv-tables';
+import { DROP_COLUMNS, MARK_COLUMNS, SERIES_COLUMNS, logCsv, readingForSeries, roundWithUncertainty, type ComputeSeries, type SeriesInput } from '../../src/log/csv-tables';
 import { byKind, idMaker, revise, sampleLog, tombstone } from '../sync/sample-log';
 import { parseCsv } from './csv-reader';
-import type { ReadingRecord } from '../../src/log/types';
+import type { DropRecord, ReadingRecord } from '../../src/log/types';
+import { logWithMarks } from './marks-demo';
 
 const T = Date.UTC(2026, 6, 1);
 
@@ -24,8 +25,8 @@ function table(text: string): Record<string, string>[] {
 }
 
 // Columns that are numbers without a unit: counts, ordinals and ratios.
-const DIMENSIONLESS = new Set(['seq', 'drag_coefficient', 'u_drag_coefficient', 'U_drag_coefficient_k2', 'drag_coefficient_95_low', 'drag_coefficient_95_high', 'reynolds_number', 'drops_total', 'drops_used']);
-const UNIT = /_(m|s|kg|C|Pa|pct|deg|m_s|m_s2|kg_m3|J|Hz)$/;
+const DIMENSIONLESS = new Set(['mark_count', 'mark_index', 'release_time_known', 'clip_codec', 'seq', 'drag_coefficient', 'u_drag_coefficient', 'U_drag_coefficient_k2', 'drag_coefficient_95_low', 'drag_coefficient_95_high', 'reynolds_number', 'drops_total', 'drops_used']);
+const UNIT = /_(m|s|kg|C|Pa|pct|deg|m_s|m_s2|kg_m3|J|Hz|hz)$/;
 
 describe('the drops and series tables', () => {
   const log = sampleLog({ days: 1, seriesPerDay: 2, dropsPerSeries: 3 });
@@ -175,5 +176,52 @@ describe('the digits of the tables', () => {
     const series = table(csv.series)[0]!;
     expect(series).toMatchObject({ drag_coefficient: '0.468', u_drag_coefficient: '0.012', U_drag_coefficient_k2: '0.025', drag_coefficient_95_low: '0.444', drag_coefficient_95_high: '0.493' });
     for (const text of [csv.drops, csv.series]) expect(text).not.toMatch(/\d\.\d*(0{6,}|9{6,})\d/);
+  });
+});
+
+describe('the marks table and the clip columns', () => {
+  // Demo drops with marks (test/log/marks-demo.ts): gates and clips, invented values.
+  const records = logWithMarks();
+  /** A computation that gives every mark a fitted time 1 ms early and a release shift of 2 ms to the clip drops. */
+  const fitted: ComputeSeries = (input) => ({
+    drops: input.drops.map((d) => ({
+      drop_id: d.id,
+      ...(d.marks ? { marks: d.marks.map((m) => ({ fitted_time_s: m.time_s - 0.001, residual_s: 0.001 })) } : {}),
+      release_shift_s: d.release_time_known === false ? 0.002 : null,
+    })),
+  });
+
+  it('lists one row per mark: day, series, drop, mark index from 1, distance, time, and the fit', () => {
+    const rows = table(logCsv(records, fitted).marks);
+    const withMarks = records.filter((r): r is DropRecord => r.kind === 'drop' && r.marks !== undefined);
+    expect(rows).toHaveLength(withMarks.reduce((n, d) => n + d.marks!.length, 0));
+    const drop = withMarks.find((d) => d.clip)!;
+    const own = rows.filter((r) => r['drop_id'] === drop.id);
+    expect(own.map((r) => [r['mark_index'], r['distance_m'], r['time_s']])).toEqual(drop.marks!.map((m, i) => [String(i + 1), String(m.distance_m), String(m.time_s)]));
+    expect(own[0]).toMatchObject({ seq: String(drop.seq), series_id: drop.series_id, excluded: 'false', residual_s: '0.001' });
+    expect(Number(own[0]!['fitted_time_s'])).toBeCloseTo(drop.marks![0]!.time_s - 0.001, 9);
+  });
+
+  it("gives the drops table the clip's summary and the marks' count", () => {
+    const rows = table(logCsv(records, fitted).drops);
+    const drop = records.find((r): r is DropRecord => r.kind === 'drop' && r.clip !== undefined)!;
+    expect(rows.find((r) => r['drop_id'] === drop.id)).toMatchObject({
+      mark_count: '3',
+      release_time_known: 'false',
+      release_shift_s: '0.002',
+      clip_codec: 'avc1.64001f',
+      clip_frame_rate_hz: '240',
+      clip_release_s: String(drop.clip!.release_s),
+      u_clip_release_s: '0.0006',
+      clip_impact_s: String(drop.clip!.impact_s),
+      u_clip_impact_s: '0.0008',
+    });
+    const gates = rows.find((r) => r['mark_count'] === '3' && r['clip_codec'] === '')!;
+    expect(gates).toMatchObject({ release_time_known: 'true', release_shift_s: '' });
+    expect(table(logCsv(records, fitted).series).map((r) => r['gate_distances_m'])).toContain('0.5 1 1.5');
+  });
+
+  it('is only its header for a log without marks', () => {
+    expect(logCsv(sampleLog({ days: 1, seriesPerDay: 1, dropsPerSeries: 2 }), echo).marks.trim()).toBe(MARK_COLUMNS.join(','));
   });
 });

@@ -9,8 +9,9 @@ const help = `plummet analyze - the figures of one series, or of every series in
 usage:
   plummet analyze REQUEST.json          one series request (the shape of examples/*.json): its analysis as JSON
   plummet analyze LOG.json              an exported log: every series' results as JSON
-  plummet analyze LOG.json --csv DIR    an exported log: its two CSV tables written to DIR/drops.csv and
-                                        DIR/series.csv, and what was written as JSON on stdout
+  plummet analyze LOG.json --csv DIR    an exported log: its CSV tables written to DIR/drops.csv,
+                                        DIR/series.csv and DIR/marks.csv (one row per mark of a drop with
+                                        marks), and what was written as JSON on stdout
 
 A file name of - reads standard input. The output is JSON already (--json is accepted and changes nothing).
 For many logs at once, and a summary people can read, use plummet merge.

@@ -14,7 +14,7 @@ named with its record, field, value and rule, and the others are merged all the 
 
 options:
   --out FILE     write the merged log there (- for standard output; the summary then goes to stderr)
-  --csv DIR      write the CSV tables of the merged log: DIR/drops.csv and DIR/series.csv
+  --csv DIR      write the CSV tables of the merged log: DIR/drops.csv, DIR/series.csv, DIR/marks.csv
   --device ID    the device id the merged log is written under (default: office)
   --jobs N       compute the series on at most N threads (default: one per core; the figures are the same)
   --json         the summary as JSON for programs: files, refusals, conflicts, and for every series its C_d,

@@ -91,7 +91,8 @@ export function SendScreen() {
       const files = logCsvFiles(records, tablesFileStem(date, label));
       // Both tables in one share: a phone allows one share sheet per tap, so a second call would fail.
       const outcome = await shareFiles(files, undefined, 'Plummet tables');
-      setMessage(outcomeText(outcome, `two CSV files, one row per drop and one row per series: ${files.map((f) => f.name).join(', ')}`));
+      const what = files.length > 2 ? 'three CSV files, one row per drop, per series and per mark' : 'two CSV files, one row per drop and one row per series';
+      setMessage(outcomeText(outcome, `${what}: ${files.map((f) => f.name).join(', ')}`));
     } catch (e) {
       setMessage({ tone: 'bad', text: describeError(e) });
     } finally {

@@ -1,5 +1,5 @@
 import { useState } from 'preact/hooks';
-import { inputRange, LIMITS, type HeightMethod, type ReadingRecord, type SpecimenRecord, type TimingMethod } from '../../../log';
+import { inputRange, LIMITS, LIST_LIMITS, type HeightMethod, type ReadingRecord, type SpecimenRecord, type TimingMethod } from '../../../log';
 import { useApp } from '../../app-context';
 import { useDraft } from '../../hooks';
 import { Choice, MeasuredField, Notice, QField, SelectField, field, fieldsValid, type FieldState } from '../../forms';
@@ -51,10 +51,29 @@ interface SeriesDraft extends SeriesAirTimingDraft {
   target: FieldState;
   readingId: string;
   fitOffset: boolean;
+  /** A gates series: each gate's distance fallen from the release point, typed once (older drafts lack it). */
+  gates?: FieldState[];
 }
 
 /** The stored fraction's limit, as the percent the crew types. */
 const TARGET_PERCENT = { ...LIMITS.target_relative_uncertainty, max: LIMITS.target_relative_uncertainty.max * 100, unit: '%' };
+
+/**
+ * What is wrong with typed gate distances, in the crew's units, naming the gate, the value and the rule; null when
+ * they may be stored (each typed, rising from gate to gate, none beyond the release height).
+ */
+function gateDistancesProblem(gates: readonly FieldState[], height: number | null, format: (v: number, kind: 'length') => string): string | null {
+  // What is typed wrong comes first; what is not typed yet last.
+  for (let i = 0; i < gates.length; i++) {
+    if (!fieldsValid(gates[i])) continue;
+    const value = gates[i]!.value!;
+    const before = i > 0 && fieldsValid(gates[i - 1]) ? gates[i - 1]!.value! : null;
+    if (before !== null && value <= before) return `Gate ${i + 1} at ${format(value, 'length')} must be further down than gate ${i} (${format(before, 'length')}).`;
+    if (height !== null && value > height) return `Gate ${i + 1} at ${format(value, 'length')} is below the landing: the release height is ${format(height, 'length')}.`;
+  }
+  const missing = gates.findIndex((g) => !fieldsValid(g));
+  return missing >= 0 ? `Gate ${missing + 1} needs its distance fallen from the release point.` : null;
+}
 
 export function SeriesForm({
   dayId,
@@ -85,7 +104,10 @@ export function SeriesForm({
   const [error, setError] = useState<string | null>(null);
   const [addingSpecimen, setAddingSpecimen] = useState(false);
   const specimenOk = specimens.some((s) => s.id === d.specimenId);
-  const valid = specimenOk && fieldsValid(d.height, d.uHeight, d.uTime, d.target) && seriesAirTimingValid(d, d.readingId);
+  const byGates = d.timingMethod === 'gates';
+  const gates = d.gates ?? [field(), field(), field()];
+  const gateProblem = byGates ? gateDistancesProblem(gates, d.height.value, app.format) : null;
+  const valid = specimenOk && fieldsValid(d.height, d.uHeight, d.uTime, d.target) && seriesAirTimingValid(d, d.readingId) && gateProblem === null;
 
   const save = async () => {
     setError(null);
@@ -103,6 +125,7 @@ export function SeriesForm({
           target_relative_uncertainty: d.target.value! / 100,
           reading_id: d.readingId || null,
           timing_offset: d.fitOffset ? 'fit' : 'none',
+          ...(byGates ? { gate_distances_m: gates.map((g) => g.value!) } : {}),
           ...seriesAirTimingBody(d),
           started_at: new Date().toISOString(),
           notes: '',
@@ -169,6 +192,31 @@ export function SeriesForm({
           form.set({ timingMethod: m, uTime: { value: TIMING_DEFAULTS[m].u_s, error: null } });
         }}
       />
+      {byGates ? (
+        <fieldset class="gates" data-testid="gate-distances">
+          <legend>Gates: distance fallen from the release point</legend>
+          {gates.map((g, i) => (
+            <QField
+              key={i}
+              label={`Gate ${i + 1}`}
+              kind="length"
+              compact
+              state={g}
+              {...inputRange(LIMITS.mark_distance_m)}
+              onChange={(next) => form.set({ gates: gates.map((x, k) => (k === i ? next : x)) })}
+            />
+          ))}
+          <div class="btn-row">
+            <button type="button" class="btn btn-quiet btn-small" disabled={gates.length >= LIST_LIMITS.gates_max} onClick={() => form.set({ gates: [...gates, field()] })}>
+              Add a gate
+            </button>
+            <button type="button" class="btn btn-quiet btn-small" disabled={gates.length <= LIST_LIMITS.gates_min} onClick={() => form.set({ gates: gates.slice(0, -1) })}>
+              Remove the last gate
+            </button>
+          </div>
+          {gateProblem && gates.some((g) => g.value !== null) ? <Notice tone="warn">{gateProblem}</Notice> : null}
+        </fieldset>
+      ) : null}
       <QField
         label="Timing std. uncertainty per drop"
         kind="time"

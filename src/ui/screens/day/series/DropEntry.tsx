@@ -11,6 +11,7 @@ import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '
 import { describeError } from '../../../errors';
 import type { TimeCapturedDetail } from '../../../../widgets';
 import { useUndo } from '../../../undo';
+import { MarksEntry } from './MarksEntry';
 
 interface DropDraft {
   time: FieldState;
@@ -54,6 +55,7 @@ export function DropEntry({
   const [error, setError] = useState<string | null>(null);
   const [saving, setSaving] = useState(false);
   const [saved, setSaved] = useState<string | null>(null);
+  const [typedMarks, setTypedMarks] = useState(false);
   const input = useRef<HTMLElement>(null);
   const d = form.value;
   const valid = fieldsValid(d.time) && (!d.otherHeight || fieldsValid(d.height));
@@ -107,6 +109,22 @@ export function DropEntry({
       setSaving(false);
     }
   };
+
+  // Marks along the fall: always for a gates series, on request for any other (typed distance/time pairs).
+  if (series.gate_distances_m || typedMarks) {
+    return (
+      <section class="card entry" aria-labelledby="entry-h">
+        <h3 id="entry-h">Drop {nextSeq}</h3>
+        <MarksEntry series={series} nextSeq={nextSeq} />
+        {series.gate_distances_m ? null : (
+          <label class="check">
+            <input type="checkbox" checked onChange={() => setTypedMarks(false)} />
+            <span>Several marks along the fall</span>
+          </label>
+        )}
+      </section>
+    );
+  }
 
   return (
     <section class="card entry" aria-labelledby="entry-h">
@@ -173,6 +191,10 @@ export function DropEntry({
         {d.otherHeight ? (
           <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
         ) : null}
+        <label class="check">
+          <input type="checkbox" checked={false} onChange={() => setTypedMarks(true)} />
+          <span>Several marks along the fall</span>
+        </label>
         <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
       </form>
     </section>

@@ -3,7 +3,7 @@
 import { useMemo } from 'preact/hooks';
 import type { DropRecord, SeriesRecord } from '../../../../log';
 import type { SeriesOutcome } from '../../../../analysis';
-import { seriesPlots } from '../../../../charts';
+import { marksPlots, seriesPlots } from '../../../../charts';
 import { useApp } from '../../../app-context';
 import type { PlotLine } from '../../../../widgets';
 import { fromSI, unitFor } from '../../../../widgets/units';
@@ -13,10 +13,20 @@ export function SeriesCharts({ outcome, drops, series }: { outcome: Extract<Seri
   const lu = unitFor('length', app.unit('length'));
   const plots = useMemo(() => seriesPlots(outcome, drops, series, { symbol: lu.symbol, fromMetres: (m) => fromSI(m, lu) }), [outcome, drops, series, lu]);
   const { heightTime, residuals } = plots;
+  const marks = useMemo(() => marksPlots(drops, outcome.result.drops, { symbol: lu.symbol, fromMetres: (m) => fromSI(m, lu) }), [outcome, drops, lu]);
   return (
     <section class="card" aria-labelledby="chart-h">
       <h3 id="chart-h">Height against time</h3>
       <pl-plot lines={[...heightTime.lines]} marks={[...heightTime.marks]} xLabel={heightTime.xLabel} yLabel={heightTime.yLabel} summary={heightTime.summary} />
+      {marks ? (
+        <>
+          <h3>Marks along the fall</h3>
+          <pl-plot lines={[...marks.distanceTime.lines]} marks={[...marks.distanceTime.marks]} xLabel={marks.distanceTime.xLabel} yLabel={marks.distanceTime.yLabel} summary={marks.distanceTime.summary} />
+          {marks.residuals ? (
+            <pl-plot lines={[]} zeroLine marks={[...marks.residuals.marks]} xLabel={marks.residuals.xLabel} yLabel={marks.residuals.yLabel} summary={marks.residuals.summary} />
+          ) : null}
+        </>
+      ) : null}
       {new Set(outcome.request.drops.map((d) => d.height_m)).size === 1 ? <DropByDrop outcome={outcome} drops={drops} /> : null}
       {residuals ? (
         <>
