@@ -367,6 +367,9 @@ function* checkLogTextSteps(text: string, options: ReadLogFileOptions, limit: nu
       message: `${at}this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
     })] };
   }
+  // The page gets a turn between the stages that read the whole file (each a second or so on a phone at 100 000
+  // records), so its progress shows and a cancel is seen.
+  yield { phase: 'checking', done: 0, total: 0 };
   const duplicate = findDuplicateKey(text);
   if (duplicate) {
     const parts = [...pointerParts(duplicate.pointer), duplicate.key];
@@ -382,9 +385,11 @@ function* checkLogTextSteps(text: string, options: ReadLogFileOptions, limit: nu
   }
   // What JSON cannot carry and nesting no log has, before anything walks the values (the file and its records
   // are two levels above a record).
+  yield { phase: 'checking', done: 0, total: 0 };
   const structural = checkJsonValue(data, '', RECORD_NESTING_LIMIT + 2, 1);
   if (structural.length > 0) return { errors: [gateError(data, structural[0]!, text, at)] };
   data = upgradeLogFile(data);
+  yield { phase: 'checking', done: 0, total: 0 };
   const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: limit });
   if (problems.length > 0) {
     const parsed = data;

@@ -8,6 +8,9 @@ import type { TransferView } from './use-transfer';
  */
 export function TransferBar({ view }: { view: TransferView }) {
   const bar = useRef<HTMLSpanElement>(null);
+  const frame = useRef<HTMLDivElement>(null);
+  // Brought into view once, when it appears: the crew may be scrolled to the button that started the transfer.
+  useLayoutEffect(() => frame.current?.scrollIntoView?.({ block: 'nearest' }), []);
   const fraction = view.progress ? progressFraction(view.progress) : null;
   const text = view.cancelling ? 'Cancelling: nothing will be changed' : view.progress ? progressText(view.progress) : 'Starting';
   const percent = fraction === null ? null : Math.floor(fraction * 100);
@@ -15,7 +18,7 @@ export function TransferBar({ view }: { view: TransferView }) {
     if (bar.current) bar.current.style.width = fraction === null ? '' : `${(fraction * 100).toFixed(1)}%`;
   }, [fraction]);
   return (
-    <div class="transfer" role="group" aria-label={view.label} data-testid="transfer">
+    <div ref={frame} class="transfer" role="group" aria-label={view.label} data-testid="transfer">
       <p class="transfer-label">
         <strong>{view.label}</strong>
         <br />

@@ -1,3 +1,4 @@
+import type { ComponentChildren } from 'preact';
 import { useEffect, useRef, useState } from 'preact/hooks';
 import { decodeLogBytes, logFileName, recordsFromClockAhead, TransferCancelled, type Conflict, type LogRecord, type LogSelection, type MergePreview } from '../../log';
 import {
@@ -164,11 +165,16 @@ export function SendScreen() {
             Import a log file
           </button>
         </div>
-        {transfer.view ? <TransferBar view={transfer.view} /> : null}
+        {transfer.view && !incoming ? <TransferBar view={transfer.view} /> : null}
         <div ref={messageBox} class="message-slot" role="status" aria-live="polite" data-testid="send-message">
           {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
         </div>
-        {incoming ? <IncomingPreview incoming={incoming} local={incomingLocal} busy={transfer.running} onMerge={confirmImport} onCancel={() => setIncoming(null)} /> : null}
+        {incoming ? (
+          <IncomingPreview incoming={incoming} local={incomingLocal} busy={transfer.running} onMerge={confirmImport} onCancel={() => setIncoming(null)}>
+            {/* Beside the Merge button the crew just tapped, where they are looking. */}
+            {transfer.view ? <TransferBar view={transfer.view} /> : null}
+          </IncomingPreview>
+        ) : null}
       </section>
       <Conflicts />
       <ClockAhead />
@@ -209,7 +215,21 @@ function SentState() {
 }
 
 /** What an incoming file holds, named as the crew knows it: its phone, its days by date and site, its sites. */
-function IncomingPreview({ incoming, local, busy, onMerge, onCancel }: { incoming: ImportPreview; local: readonly LogRecord[]; busy: boolean; onMerge(): void; onCancel(): void }) {
+function IncomingPreview({
+  incoming,
+  local,
+  busy,
+  onMerge,
+  onCancel,
+  children,
+}: {
+  incoming: ImportPreview;
+  local: readonly LogRecord[];
+  busy: boolean;
+  onMerge(): void;
+  onCancel(): void;
+  children?: ComponentChildren;
+}) {
   const days = incomingDays(incoming.file.records, local);
   const sites = incomingSites(incoming.file.records);
   return (
@@ -243,6 +263,7 @@ function IncomingPreview({ incoming, local, busy, onMerge, onCancel }: { incomin
           Cancel
         </button>
       </div>
+      {children}
     </div>
   );
 }
