@@ -7,7 +7,8 @@ import { PlummetError, type PlummetErrorOptions } from '../errors';
 import type { LogFile } from './export';
 import { LOG_FORMAT, LOG_FORMAT_VERSION, LOG_SCHEMA } from './schema';
 import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
-import { checkJsonValue, DUPLICATE_ID_RULE, GATE_PROBLEM_LIMIT, gateRecords, RECORD_NESTING_LIMIT, recordName } from './record-gate';
+import { checkJsonValue, DUPLICATE_ID_RULE, GATE_PROBLEM_LIMIT, gateSteps, RECORD_NESTING_LIMIT, recordName } from './record-gate';
+import type { TransferProgress } from './transfer-progress';
 import type { Problem } from './errors';
 import { findDuplicateKey } from './duplicate-keys';
 import { upgradeLogFile } from './upgrade-export';
@@ -289,6 +290,9 @@ function gateError(data: unknown, problem: Problem, text: string, at: string): L
 export interface ReadLogFileOptions {
   /** The file's name, for the messages: "plummet-log-phoneB.json: records[3] …". */
   name?: string;
+  /** Filled with the records that passed the gate whole, so the rest of an import does not check them again
+   *  (GateOptions.passed). */
+  passed?: WeakSet<object>;
 }
 
 /**
@@ -296,7 +300,19 @@ export interface ReadLogFileOptions {
  * store's gate (record-gate.ts) here, so what this accepts can be written.
  */
 export function readLogFile(text: string, options: ReadLogFileOptions = {}): LogFile {
-  const checked = checkLogText(text, options, 1);
+  const steps = readLogFileSteps(text, options);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * readLogFile in steps, for an import that shows progress and may be cancelled: yields how many records the gate
+ * has checked (phase 'checking') as it goes, and returns the file, or throws as readLogFile does.
+ */
+export function* readLogFileSteps(text: string, options: ReadLogFileOptions = {}): Generator<TransferProgress, LogFile, void> {
+  const checked = yield* checkLogTextSteps(text, options, 1);
   if ('errors' in checked) throw checked.errors[0]!;
   return checked.file;
 }
@@ -307,11 +323,16 @@ export function readLogFile(text: string, options: ReadLogFileOptions = {}): Log
  * (the published schema's and the gate's may be many; the earlier stages have one). Empty: the file is accepted.
  */
 export function logFileProblems(text: string, options: ReadLogFileOptions & { limit?: number } = {}): LogFileError[] {
-  const checked = checkLogText(text, options, Math.max(1, options.limit ?? GATE_PROBLEM_LIMIT));
-  return 'errors' in checked ? checked.errors : [];
+  const steps = checkLogTextSteps(text, options, Math.max(1, options.limit ?? GATE_PROBLEM_LIMIT));
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return 'errors' in step.value ? step.value.errors : [];
+  }
 }
 
-function checkLogText(text: string, options: ReadLogFileOptions, limit: number): { file: LogFile } | { errors: LogFileError[] } {
+type Checked = { file: LogFile } | { errors: LogFileError[] };
+
+function* checkLogTextSteps(text: string, options: ReadLogFileOptions, limit: number): Generator<TransferProgress, Checked, void> {
   const at = options.name ? `${options.name}: ` : '';
   let data: unknown;
   try {
@@ -346,6 +367,9 @@ function checkLogText(text: string, options: ReadLogFileOptions, limit: number):
       message: `${at}this log was written by a newer app (format ${head.format_version}); this app reads format ${LOG_FORMAT_VERSION}: update the app`,
     })] };
   }
+  // The page gets a turn between the stages that read the whole file (each a second or so on a phone at 100 000
+  // records), so its progress shows and a cancel is seen.
+  yield { phase: 'checking', done: 0, total: 0 };
   const duplicate = findDuplicateKey(text);
   if (duplicate) {
     const parts = [...pointerParts(duplicate.pointer), duplicate.key];
@@ -361,9 +385,11 @@ function checkLogText(text: string, options: ReadLogFileOptions, limit: number):
   }
   // What JSON cannot carry and nesting no log has, before anything walks the values (the file and its records
   // are two levels above a record).
+  yield { phase: 'checking', done: 0, total: 0 };
   const structural = checkJsonValue(data, '', RECORD_NESTING_LIMIT + 2, 1);
   if (structural.length > 0) return { errors: [gateError(data, structural[0]!, text, at)] };
   data = upgradeLogFile(data);
+  yield { phase: 'checking', done: 0, total: 0 };
   const problems = checkJsonSchema(LOG_SCHEMA, data, { maxErrors: limit });
   if (problems.length > 0) {
     const parsed = data;
@@ -376,7 +402,20 @@ function checkLogText(text: string, options: ReadLogFileOptions, limit: number):
     };
   }
   const file = data as LogFile;
-  const refused = gateRecords(file.records, { where: (i) => `records[${i}]` });
+  const total = file.records.length;
+  yield { phase: 'checking', done: 0, total };
+  // The structure was checked on the whole file above; an upgraded file is new data of our making, checked again.
+  const upgraded = head.format_version !== LOG_FORMAT_VERSION;
+  const refused = yield* progressOf(gateSteps(file.records, { where: (i) => `records[${i}]`, passed: options.passed, structureChecked: !upgraded }), total);
   if (refused.length > 0) return { errors: refused.slice(0, limit).map((p) => gateError(data, p, text, at)) };
   return { file };
+}
+
+/** The gate's steps as the import's progress. */
+function* progressOf(steps: Generator<number, Problem[], void>, total: number): Generator<TransferProgress, Problem[], void> {
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+    yield { phase: 'checking', done: step.value, total };
+  }
 }

@@ -32,12 +32,14 @@ function refusal(file: LogFile, batch: readonly LogRecord[], p: Problem, name?: 
  * The merge of a file (read and checked by readLogFile) into the local log, through the store's gate: first the
  * file's records against the log (an id the log holds as another kind, a link to the wrong kind), then what the
  * merge would write, as the store will check it. Throws LogFileError ('log-record-invalid') naming the file, the
- * record, the field and the value; the store runs the same gate before its write.
+ * record, the field and the value; the store runs the same gate before its write. `passed`: see GateOptions.
  */
-export function previewGatedMerge(file: LogFile, local: readonly LogRecord[], name?: string): MergePreview {
+export function previewGatedMerge(file: LogFile, local: readonly LogRecord[], name?: string, passed?: WeakSet<object>): MergePreview {
   const known = new Map<string, RecordKind>();
   for (const r of local) if (!known.has(r.id)) known.set(r.id, r.kind);
-  const options = { known: (id: string) => known.get(id) };
+  // With `passed` (the records readLogFile checked whole, in this import), only what the merge made anew is
+  // checked whole here: a record the log lacks is the file's own object, already through the gate.
+  const options = { known: (id: string) => known.get(id), passed };
   const clash = gateAgainstLog(file.records, options);
   if (clash.length > 0) throw refusal(file, file.records, clash[0]!, name);
   const preview = previewMerge(local, file.records);

@@ -22,3 +22,4 @@ export * from './merge';
 export * from './csv';
 export * from './csv-tables';
 export * from './specimen-measures';
+export * from './transfer-progress';

@@ -12,6 +12,7 @@
 import { LogValidationError, type Problem } from './errors';
 import { RECORD_KINDS, type RecordKind } from './types';
 import { loneSurrogateAt, showValue as show, UNICODE_RULE, validateRecord } from './validate';
+import { PROGRESS_STEP } from './transfer-progress';
 
 /**
  * How deep a record's values may nest: the record, its history, a version, its body, a clip's evidence, its list
@@ -116,6 +117,16 @@ export interface GateOptions {
   known?: (id: string) => RecordKind | undefined;
   /** How a record of the batch is named in messages, by its position: "records[3]", "[3]" by default. */
   where?: (index: number) => string;
+  /**
+   * The record objects this gate has already checked whole in the same transfer (an import: the file read, then
+   * the preview, then the store's write). Their own checks are not run again; the batch's are (ids, kinds,
+   * links), as those depend on the log they join. Records that pass whole here are added. The transfer owns
+   * the set and never changes a record it holds: a record is a value, and the gate remembers the object.
+   */
+  passed?: WeakSet<object>;
+  /** Set by the file reader: the whole file was found to be JSON the canonical writer can write (checkJsonValue
+   *  at a record's depth), so that part of each record's own checks is not repeated. */
+  structureChecked?: boolean;
 }
 
 type Loose = { kind?: unknown; id?: unknown; [field: string]: unknown };
@@ -131,7 +142,20 @@ const label = (record: Loose) =>
  * path is the record's position and its field ("[3].history[0].body.name"), its message names the record ("[3] drop 4f0c…: history[0].body.name: …").
  */
 export function gateRecords(records: readonly unknown[], options: GateOptions = {}): Problem[] {
+  const steps = gateSteps(records, options);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * The gate in steps, for a transfer that reports progress and may be cancelled between them: yields the number of
+ * records checked so far every PROGRESS_STEP records, and returns the problems as gateRecords does.
+ */
+export function* gateSteps(records: readonly unknown[], options: GateOptions = {}): Generator<number, Problem[], void> {
   const where = options.where ?? ((i: number) => `[${i}]`);
+  const passed = options.passed;
   const problems: Problem[] = [];
   const push = (i: number, record: Loose, p: Problem) =>
     problems.push({ ...p, path: `${where(i)}.${p.path}`, message: `${where(i)} ${label(record)}: ${p.message}` });
@@ -139,10 +163,15 @@ export function gateRecords(records: readonly unknown[], options: GateOptions = 
   const batch = new Map<string, { kind: RecordKind; index: number }>();
   const good: number[] = [];
   for (let i = 0; i < records.length && problems.length < GATE_PROBLEM_LIMIT; i++) {
+    if (i > 0 && i % PROGRESS_STEP === 0) yield i;
     const record = records[i] as Loose;
-    const own = checkIncomingRecord(record);
-    for (const p of own.slice(0, GATE_PROBLEM_LIMIT - problems.length)) push(i, record, p);
-    if (own.length > 0) continue;
+    const checked = passed !== undefined && typeof record === 'object' && record !== null && passed.has(record);
+    if (!checked) {
+      const own = options.structureChecked ? validateRecord(record) : checkIncomingRecord(record);
+      for (const p of own.slice(0, GATE_PROBLEM_LIMIT - problems.length)) push(i, record, p);
+      if (own.length > 0) continue;
+      if (passed !== undefined) passed.add(record as object);
+    }
     const id = record.id as string;
     const kind = record.kind as RecordKind;
     const earlier = batch.get(id);

@@ -28,7 +28,9 @@ export interface StoreTx {
   getAll<K extends RecordKind>(kind: K): Promise<RecordOf[K][]>;
   /** Records whose indexed field equals `key` (all of them in index order when `key` is undefined). */
   getAllByIndex<K extends IndexedKind>(kind: K, index: IndexName<K>, key?: string): Promise<RecordOf[K][]>;
-  putRecords(records: readonly LogRecord[]): Promise<void>;
+  /** `watch.onStep(n)` is called as the first n records are written, every `watch.every`; when it throws, the
+   *  promise rejects with its error (and the transaction, failing, writes nothing). */
+  putRecords(records: readonly LogRecord[], watch?: PutWatch): Promise<void>;
 
   getSummary(dayId: string): Promise<DaySummary | undefined>;
   getAllSummaries(): Promise<DaySummary[]>;
@@ -42,6 +44,11 @@ export interface StoreTx {
   getDraft(key: string): Promise<DraftEntry | undefined>;
   putDraft(entry: DraftEntry): Promise<void>;
   deleteDraft(key: string): Promise<void>;
+}
+
+export interface PutWatch {
+  every: number;
+  onStep(written: number): void;
 }
 
 export interface WriteTxOptions {

@@ -13,8 +13,8 @@
  * anything, and navigator.storage.estimate() shows pages a made-up quota: test a full disk with a real one.)
  */
 import { unwrap, type IDBPDatabase, type IDBPTransaction, type StoreNames } from 'idb';
-import { LogError, type LogRecord, type RecordKind, type RecordOf } from '../log';
-import type { IndexedKind, IndexName, StoreBackend, StoreTx, WriteTxOptions } from './backend';
+import { LogError, TransferCancelled, type LogRecord, type RecordKind, type RecordOf } from '../log';
+import type { IndexedKind, IndexName, PutWatch, StoreBackend, StoreTx, WriteTxOptions } from './backend';
 import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
 import { DEFAULT_DB_NAME, openLogDatabase, type LogDB, type OpenLogDatabaseOptions } from './database';
 import { StoreError, isQuotaError, storageFull } from './errors';
@@ -63,21 +63,32 @@ class IdbTx implements StoreTx {
     return store.index(index).getAll(key) as Promise<RecordOf[K][]>;
   }
 
-  putRecords(records: readonly LogRecord[]): Promise<void> {
+  putRecords(records: readonly LogRecord[], watch?: PutWatch): Promise<void> {
     // All requests go out at once on the bare transaction, and only the last is awaited: requests of one
     // transaction complete in the order made, and a failed one aborts the transaction, which fails every
     // later request (the last among them). idb's wrapping would make a promise and listeners for every put.
     const tx = unwrap(this.tx as IDBPTransaction<LogDB, Names, 'readwrite'>) as unknown as IDBTransaction;
+    // A watch listens to one request in `every`: the progress of a large write, and its chance to be cancelled.
     const stores = new Map<string, IDBObjectStore>();
-    let last: IDBRequest | undefined;
-    for (const r of records) {
-      let store = stores.get(r.kind);
-      if (!store) stores.set(r.kind, (store = tx.objectStore(r.kind)));
-      last = store.put(r);
-    }
-    if (!last) return Promise.resolve();
-    const request = last;
+    if (records.length === 0) return Promise.resolve();
     return new Promise((resolve, reject) => {
+      let last: IDBRequest | undefined;
+      records.forEach((r, i) => {
+        let store = stores.get(r.kind);
+        if (!store) stores.set(r.kind, (store = tx.objectStore(r.kind)));
+        last = store.put(r);
+        const written = i + 1;
+        if (watch && written % watch.every === 0 && written < records.length) {
+          last.addEventListener('success', () => {
+            try {
+              watch.onStep(written);
+            } catch (error) {
+              reject(error);
+            }
+          });
+        }
+      });
+      const request = last!;
       request.addEventListener('success', () => resolve());
       request.addEventListener('error', () => reject(request.error ?? tx.error));
     });
@@ -123,7 +134,7 @@ class IdbTx implements StoreTx {
 
 /** Our own errors pass through; the platform's become StoreErrors with the original as `cause`. */
 function translate(error: unknown): unknown {
-  if (error instanceof StoreError || error instanceof LogError) return error;
+  if (error instanceof StoreError || error instanceof LogError || error instanceof TransferCancelled) return error;
   if (isQuotaError(error)) return storageFull(error);
   const name = (error as { name?: string } | null)?.name ?? 'Error';
   if (name === 'InvalidStateError') return new StoreError({ code: 'store-closed', field: null, value: name, allowed: null, message: 'the log database connection is closed; reload the app', cause: error });
@@ -192,7 +203,7 @@ class IdbBackend implements StoreBackend {
       await done.catch(() => undefined);
       // When a transaction aborts, each of its pending requests fails with a bare AbortError; the cause
       // (QuotaExceededError, for one) is on the transaction. Our own errors are the cause themselves.
-      const own = error instanceof StoreError || error instanceof LogError;
+      const own = error instanceof StoreError || error instanceof LogError || error instanceof TransferCancelled;
       throw translate(!own && tx.error ? tx.error : error);
     }
     try {

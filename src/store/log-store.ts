@@ -2,7 +2,7 @@
  * The storage interface of the log. The IndexedDB adapter (openLogStore) and the in-memory twin
  * (createMemoryStore) both implement it; test/store/suite.ts holds the one test suite both must pass.
  */
-import type { BodyOf, LogRecord, RecordKind, RecordOf, Revision } from '../log';
+import type { BodyOf, LogRecord, PutRecordsOptions, RecordKind, RecordOf, Revision } from '../log';
 import type {
   DayListItem,
   DayView,
@@ -46,8 +46,9 @@ export interface LogStore {
 
   /** Every record as stored, for export and sync; tombstones included unless asked otherwise. */
   allRecords(options?: { includeDeleted?: boolean }): Promise<LogRecord[]>;
-  /** Already-merged records written as they are, in one transaction (import, merge, sync). */
-  putRecords(records: LogRecord[]): Promise<void>;
+  /** Already-merged records written as they are, in one transaction (import, merge, sync): all or nothing, also
+   *  when cancelled through `options.signal`. */
+  putRecords(records: LogRecord[], options?: PutRecordsOptions): Promise<void>;
 
   getDraft<T = unknown>(key: string): Promise<DraftEntry<T> | undefined>;
   putDraft<T>(key: string, value: T): Promise<void>;

@@ -4,7 +4,7 @@
  * writes a transaction's changes only when it finishes, and can be given a quota to test a full disk.
  */
 import type { LogRecord, RecordKind, RecordOf } from '../log';
-import { INDEX_FIELDS, type IndexedKind, type IndexName, type StoreBackend, type StoreTx } from './backend';
+import { INDEX_FIELDS, type IndexedKind, type IndexName, type PutWatch, type StoreBackend, type StoreTx } from './backend';
 import { createLogStore, type CreateLogStoreOptions } from './create-log-store';
 import { StoreError, storageFull } from './errors';
 import type { LogStore } from './log-store';
@@ -119,8 +119,11 @@ class MemoryTx implements StoreTx {
       .map(({ r }) => structuredClone(r) as unknown as RecordOf[K]);
   }
 
-  async putRecords(records: readonly LogRecord[]): Promise<void> {
-    for (const record of records) this.write(record.kind, record.id, record);
+  async putRecords(records: readonly LogRecord[], watch?: PutWatch): Promise<void> {
+    records.forEach((record, i) => {
+      this.write(record.kind, record.id, record);
+      if (watch && (i + 1) % watch.every === 0 && i + 1 < records.length) watch.onStep(i + 1);
+    });
   }
 
   async getSummary(dayId: string): Promise<DaySummary | undefined> {

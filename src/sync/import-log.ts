@@ -6,31 +6,102 @@
  * not overwritten: merging only ever adds versions, and the newest still wins. Conflicts found are added to
  * the list kept in meta ('log_conflicts') after the records are written; were that second write lost, the
  * losing versions would still be in the records' histories.
+ *
+ * The gate checks each record of the file whole once (readLogFile); what the merge makes anew is checked whole
+ * where it is made, and the store checks the batch against the log it joins inside its write. The records the
+ * gate has passed travel with the import (ImportPreview.passed), so neither the preview nor the store's write
+ * checks them again. Both steps report progress and may be cancelled (TransferOptions); a cancelled import
+ * writes nothing.
  */
-import { LogError, addConflicts, openConflicts, previewGatedMerge, readLogFile, type Conflict, type LogFile, type MergePreview } from '../log';
+import {
+  LogError,
+  addConflicts,
+  openConflicts,
+  previewGatedMerge,
+  readLogFileSteps,
+  throwIfCancelled,
+  type Conflict,
+  type LogFile,
+  type MergePreview,
+  type TransferOptions,
+} from '../log';
 import { SYNC_META, type RecordSource } from './record-source';
+import { yieldToPage } from './yield-to-page';
 
 export interface ImportPreview {
   file: LogFile;
   preview: MergePreview;
+  /** The record objects the gate has checked whole in this import (GateOptions.passed). */
+  passed: WeakSet<object>;
 }
 
 /**
  * Reads and checks the text (throws LogFileError naming the file, the record, the field, the value and the rule),
  * then previews the merge, whose records pass the store's own gate here (log/import-gate.ts): what the preview
- * accepts, the write accepts.
+ * accepts, the write accepts. Reports progress as it checks, and stops with TransferCancelled when asked.
  */
-export async function previewImport(source: RecordSource, text: string, name?: string): Promise<ImportPreview> {
-  const file = readLogFile(text, { name });
-  const local = await source.allRecords({ includeDeleted: true });
-  return { file, preview: previewGatedMerge(file, local, name) };
+export async function previewImport(source: RecordSource, text: string, name?: string, options: TransferOptions = {}): Promise<ImportPreview> {
+  const { onProgress, signal } = options;
+  const passed = new WeakSet<object>();
+  const steps = readLogFileSteps(text, { name, passed });
+  let file: LogFile;
+  for (;;) {
+    throwIfCancelled(signal, 'checking');
+    const step = steps.next();
+    if (step.done) {
+      file = step.value;
+      break;
+    }
+    onProgress?.(step.value);
+    await yieldToPage();
+  }
+  const preview = await mergeWithStore(source, file, name, passed, options);
+  return { file, preview, passed };
 }
 
-/** Merges the file into the store in one transaction; returns what was done. Refused as the preview refuses. */
-export async function applyImport(source: RecordSource, file: LogFile, name?: string): Promise<MergePreview> {
+/** The store's records read, and the file merged into them through the gate. */
+async function mergeWithStore(source: RecordSource, file: LogFile, name: string | undefined, passed: WeakSet<object>, { onProgress, signal }: TransferOptions): Promise<MergePreview> {
+  const total = file.records.length;
+  throwIfCancelled(signal, 'reading');
+  onProgress?.({ phase: 'reading', done: 0, total: 0 });
   const local = await source.allRecords({ includeDeleted: true });
-  const preview = previewGatedMerge(file, local, name);
-  if (preview.changes.length > 0) await source.putRecords(preview.changes);
+  throwIfCancelled(signal, 'merging');
+  onProgress?.({ phase: 'merging', done: 0, total });
+  await yieldToPage();
+  const preview = previewGatedMerge(file, local, name, passed);
+  onProgress?.({ phase: 'merging', done: total, total });
+  return preview;
+}
+
+/**
+ * Merges the file into the store in one transaction; returns what was done. Refused as the preview refuses.
+ * `passed` is the preview's (ImportPreview.passed), so records checked there are not checked again; without it
+ * every record is checked whole. Cancelled (TransferCancelled) before or during the write, nothing is written.
+ */
+export async function applyImport(source: RecordSource, file: LogFile, name?: string, options: TransferOptions & { passed?: WeakSet<object> } = {}): Promise<MergePreview> {
+  const { signal, onProgress } = options;
+  const passed = options.passed ?? new WeakSet<object>();
+  const preview = await mergeWithStore(source, file, name, passed, options);
+  throwIfCancelled(signal, 'writing');
+  if (preview.changes.length > 0) await source.putRecords(preview.changes, { passed, signal, onProgress });
+  if (preview.conflicts.length > 0) {
+    const existing = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];
+    await source.setMeta(SYNC_META.conflicts, addConflicts(existing, preview.conflicts));
+  }
+  return preview;
+}
+
+/**
+ * Writes what a preview (previewImport) found, without reading the store again: each record is merged, inside the
+ * write, with the version stored at that moment (PutRecordsOptions.mergeStored), so an edit made while the preview
+ * was on screen is kept, as applyImport keeps it. The conflicts are those the preview listed (a version an edit
+ * made since crossed is still kept in the record's history). Cancelled before or during the write, nothing is
+ * written. Returns the preview.
+ */
+export async function applyPreviewedImport(source: RecordSource, previewed: ImportPreview, options: TransferOptions = {}): Promise<MergePreview> {
+  const { preview, passed } = previewed;
+  throwIfCancelled(options.signal, 'writing');
+  if (preview.changes.length > 0) await source.putRecords(preview.changes, { passed, mergeStored: true, signal: options.signal, onProgress: options.onProgress });
   if (preview.conflicts.length > 0) {
     const existing = ((await source.getMeta(SYNC_META.conflicts)) as Conflict[] | undefined) ?? [];
     await source.setMeta(SYNC_META.conflicts, addConflicts(existing, preview.conflicts));

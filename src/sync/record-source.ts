@@ -2,13 +2,13 @@
  * What sync and import need from the log's storage. The store (src/store, LogStore) satisfies it; the tests
  * use an in-memory twin. Settings, sync state and the conflict list live in the store's meta entries.
  */
-import type { LogRecord } from '../log';
+import type { LogRecord, PutRecordsOptions } from '../log';
 
 export interface RecordSource {
   /** Every record as stored, tombstones included. */
   allRecords(options: { includeDeleted: true }): Promise<LogRecord[]>;
-  /** Already-merged records, written in one transaction: all or nothing. */
-  putRecords(records: LogRecord[]): Promise<void>;
+  /** Already-merged records, written in one transaction: all or nothing, also when cancelled (options.signal). */
+  putRecords(records: LogRecord[], options?: PutRecordsOptions): Promise<void>;
   getMeta(key: string): Promise<unknown>;
   setMeta(key: string, value: unknown): Promise<void>;
   /** This phone's id; it names the phone's file in the office folder. */

@@ -183,8 +183,9 @@ type MergeOutcome = { ok: true } | { ok: false; problem: FileProblem; weight: 'f
 async function mergeFetched(source: RecordSource, name: string, fetched: FetchedFile, report: SyncReport, read: LogFile | null = null): Promise<MergeOutcome> {
   let file: LogFile | null = read;
   try {
-    file ??= readLogFile(fetched.body);
-    const done = await applyImport(source, file);
+    const passed = new WeakSet<object>();
+    file ??= readLogFile(fetched.body, { passed });
+    const done = await applyImport(source, file, undefined, { passed });
     report.merged.push({ name, added: done.added.length, updated: done.updated.length, unchanged: done.unchanged, conflicts: done.conflicts.length });
     report.conflicts.push(...done.conflicts);
     return { ok: true };
@@ -408,6 +409,8 @@ async function mergeIndexed(
   let complete = true;
   const named = new Set<string>();
   const pending: { path: string; part: FetchedFile; hash: string; file: LogFile }[] = [];
+  // The records the gate checks whole as each part is read, so the merge and the store's write do not again.
+  const passed = new WeakSet<object>();
   for (const entry of index.parts) {
     const path = `${folder}/${partFileName(entry.key)}`;
     named.add(path);
@@ -424,7 +427,7 @@ async function mergeIndexed(
       seen[path] = remoteState(part, partHash);
     } else {
       try {
-        pending.push({ path, part, hash: partHash, file: readLogFile(part.body) });
+        pending.push({ path, part, hash: partHash, file: readLogFile(part.body, { passed }) });
       } catch (error) {
         const problem = fileProblem(error, part.body, null);
         report.problems.push({ name: path, ...problem });
@@ -439,7 +442,7 @@ async function mergeIndexed(
   let together = false;
   if (pending.length > 1) {
     try {
-      const done = await applyImport(source, assembleParts(pending.map((p) => p.file)));
+      const done = await applyImport(source, assembleParts(pending.map((p) => p.file)), undefined, { passed });
       report.merged.push({ name: `${folder}/`, added: done.added.length, updated: done.updated.length, unchanged: done.unchanged, conflicts: done.conflicts.length });
       report.conflicts.push(...done.conflicts);
       for (const p of pending) seen[p.path] = remoteState(p.part, p.hash);

@@ -17,7 +17,7 @@ import { validateAnalysisRequest } from '../../src/physics';
 import * as store from '../../src/store';
 import { createMemoryStore, MemoryDatabase } from '../../src/store';
 import * as sync from '../../src/sync';
-import { checkSyncSettings, parseXml } from '../../src/sync';
+import { checkSyncSettings, parseXml, previewImport } from '../../src/sync';
 import { seriesRequest } from '../../src/analysis';
 import * as timing from '../../src/timing';
 import * as motion from '../../src/motion';
@@ -101,6 +101,10 @@ const THROWN: Record<string, () => unknown | Promise<unknown>> = {
   XmlError: () => catchFrom(() => parseXml('<a>&nope;</a>')),
   SyncError: () => catchFrom(() => checkSyncSettings({ folder_url: 'https://files.example.org/dav/', username: 'crew', password: 'pw', enabled: true, timeout_ms: 5 })),
   SeriesIncomplete: () => catchFrom(() => seriesRequest({ series: { ...demo.series(), id: demo.SERIES_ID }, site: null, specimen: null, reading: null, drops: [] } as never)),
+  TransferCancelled: async () => {
+    const s = await createMemoryStore({ database: new MemoryDatabase(), environment: fakeEnvironment().environment });
+    return rejectionOf(previewImport(s, log.exportLog([], { device: 'dev1', app_version: 'test' }), 'empty.json', { signal: { aborted: true } }));
+  },
   StoreError: async () => {
     const s = await createMemoryStore({ database: new MemoryDatabase(), environment: fakeEnvironment().environment });
     return rejectionOf(s.create('day', demo.day()));

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { canonicalJson } from '../../src/log/canonical';
 import { exportLog } from '../../src/log/export';
 import { LogFileError, readLogFile } from '../../src/log/export-parse';
-import { checkIncomingRecord, gateRecords } from '../../src/log/record-gate';
+import { checkIncomingRecord, DUPLICATE_ID_RULE, gateRecords } from '../../src/log/record-gate';
 import { LogError } from '../../src/log/errors';
 import { HybridLogicalClock } from '../../src/log/hlc';
 import { validateRecord } from '../../src/log/validate';
@@ -219,5 +219,26 @@ describe('anything the gate accepts, the canonical writer and the reader accept'
     );
     // Not vacuous: many of the values fit their field (a text in a text field, an empty notes).
     expect(accepted).toBeGreaterThan(100);
+  });
+});
+
+describe('the records one transfer has passed', () => {
+  const log = sampleLog({ days: 1, seriesPerDay: 1, dropsPerSeries: 2 });
+
+  it('checks a record once whole, and still checks the batch each time', () => {
+    const passed = new WeakSet<object>();
+    expect(gateRecords(log, { passed })).toEqual([]);
+    for (const r of log) expect(passed.has(r)).toBe(true);
+    // The batch's own rule still runs on records passed before: an id twice is refused.
+    const twice = gateRecords([...log, log[0]!], { passed });
+    expect(twice.map((p) => p.rule)).toContain(DUPLICATE_ID_RULE);
+  });
+
+  it('never passes a record it has not checked: a copy is checked whole', () => {
+    const passed = new WeakSet<object>();
+    gateRecords(log, { passed });
+    const broken = { ...log[0]!, created_at: 'yesterday' };
+    expect(gateRecords([broken], { passed }).map((p) => p.path)).toEqual(['[0].created_at']);
+    expect(passed.has(broken)).toBe(false);
   });
 });

@@ -5,7 +5,8 @@ import { canonicalJson } from '../../src/log/canonical';
 import { exportLog } from '../../src/log/export';
 import { LogFileError } from '../../src/log/export-parse';
 import type { DropRecord, LogRecord } from '../../src/log/types';
-import { applyImport, dismissConflict, loadConflicts, previewImport } from '../../src/sync/import-log';
+import type { PutRecordsOptions } from '../../src/log/transfer-progress';
+import { applyImport, applyPreviewedImport, dismissConflict, loadConflicts, previewImport } from '../../src/sync/import-log';
 import type { RecordSource } from '../../src/sync/record-source';
 import { createMemoryStore, type LogStore } from '../../src/store';
 import { MemoryRecordSource } from './memory-record-source';
@@ -13,6 +14,7 @@ import { byKind, revise, sampleLog } from './sample-log';
 
 const T = Date.UTC(2026, 6, 1);
 const META = { device: 'phoneB', app_version: '0.1.0' };
+const sorted = (records: LogRecord[]) => [...records].sort((a, b) => (a.id < b.id ? -1 : 1));
 const text = (records: LogRecord[]) => canonicalJson([...records].sort((a, b) => (a.id < b.id ? -1 : 1)));
 
 it('the log store can be handed to sync and import as their RecordSource', () => {
@@ -35,9 +37,9 @@ const sources: [string, (records: LogRecord[]) => Promise<RecordSource & { putCo
       let puts = 0;
       const putRecords = store.putRecords.bind(store);
       return Object.assign(store, {
-        putRecords: async (r: LogRecord[]) => {
+        putRecords: async (r: LogRecord[], options?: PutRecordsOptions) => {
           puts++;
-          await putRecords(r);
+          await putRecords(r, options);
         },
         putCount: () => puts,
       }) as unknown as RecordSource & { putCount(): number };
@@ -85,6 +87,45 @@ describe.each(sources)('importing a log file into %s', (_name, make) => {
     const after = (await source.allRecords({ includeDeleted: true })).find((r) => r.id === drop.id) as DropRecord;
     expect(after.time_s).toBe(1.7);
     expect(after.history.some((h) => (h.body as { note: string }).note === 'from B')).toBe(true);
+  });
+
+  it('keeps an edit made while the preview was shown when the preview itself is written', async () => {
+    const source = await make(log);
+    const drop = byKind(log, 'drop')[0]!;
+    const incoming = log.map((r) => (r.id === drop.id ? revise(drop, { note: 'from B' }, T, 'phoneB', null) : r));
+    const previewed = await previewImport(source, exportLog(incoming, META));
+    await source.putRecords([revise(drop, { time_s: 1.7 }, T + 5000, 'phoneA', 'retimed')]);
+    await applyPreviewedImport(source, previewed);
+    const after = (await source.allRecords({ includeDeleted: true })).find((r) => r.id === drop.id) as DropRecord;
+    expect(after.time_s).toBe(1.7);
+    expect(after.history.some((h) => (h.body as { note: string }).note === 'from B')).toBe(true);
+  });
+
+  it('writes the same log through the preview as applyImport does', async () => {
+    const a = await make(log.slice(0, 7));
+    const b = await make(log.slice(0, 7));
+    const text = exportLog(log, META);
+    await applyPreviewedImport(a, await previewImport(a, text));
+    await applyImport(b, (await previewImport(b, text)).file);
+    expect(canonicalJson(sorted(await a.allRecords({ includeDeleted: true })))).toBe(canonicalJson(sorted(await b.allRecords({ includeDeleted: true }))));
+  });
+
+  it('stops with transfer-cancelled and writes nothing when cancelled, at any report', async () => {
+    const text = exportLog(log, META);
+    const reports: string[] = [];
+    await previewImport(await make([]), text, 'all.json', { onProgress: (p) => reports.push(p.phase) });
+    expect(reports).toContain('checking');
+    for (let at = 0; at < reports.length; at++) {
+      const source = await make(log.slice(0, 5));
+      const signal = { aborted: false };
+      let seen = 0;
+      const onProgress = () => {
+        if (seen++ === at) signal.aborted = true;
+      };
+      const run = async () => applyPreviewedImport(source, await previewImport(source, text, 'all.json', { onProgress, signal }), { onProgress, signal });
+      await expect(run()).rejects.toMatchObject({ code: 'transfer-cancelled' });
+      expect(source.putCount()).toBe(0);
+    }
   });
 
   it('refuses a broken file before writing anything, naming the field', async () => {

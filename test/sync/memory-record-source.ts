@@ -1,6 +1,8 @@
 // An in-memory RecordSource for the sync tests: copies values in and out, as a real store would, counts
 // writes, and can be told to fail the next write.
 import type { LogRecord } from '../../src/log/types';
+import type { PutRecordsOptions } from '../../src/log/transfer-progress';
+import { mergeRecord } from '../../src/log/merge';
 import type { RecordSource } from '../../src/sync/record-source';
 
 export class MemoryRecordSource implements RecordSource {
@@ -20,14 +22,18 @@ export class MemoryRecordSource implements RecordSource {
     return [...this.records.values()].map((r) => structuredClone(r));
   }
 
-  async putRecords(records: LogRecord[]): Promise<void> {
+  async putRecords(records: LogRecord[], options: PutRecordsOptions = {}): Promise<void> {
     if (this.failNextPut) {
       const error = this.failNextPut;
       this.failNextPut = null;
       throw error;
     }
+    if (options.signal?.aborted) throw new Error('cancelled');
     this.putCalls++;
-    for (const r of records) this.records.set(r.id, structuredClone(r));
+    for (const r of records) {
+      const stored = this.records.get(r.id);
+      this.records.set(r.id, structuredClone(options.mergeStored && stored ? mergeRecord(stored, r) : r));
+    }
   }
 
   async getMeta(key: string): Promise<unknown> {

@@ -1,7 +1,8 @@
+import type { ComponentChildren } from 'preact';
 import { useEffect, useRef, useState } from 'preact/hooks';
-import { decodeLogBytes, logFileName, recordsFromClockAhead, type Conflict, type LogRecord, type LogSelection, type MergePreview } from '../../log';
+import { decodeLogBytes, logFileName, recordsFromClockAhead, TransferCancelled, type Conflict, type LogRecord, type LogSelection, type MergePreview } from '../../log';
 import {
-  applyImport,
+  applyPreviewedImport,
   dismissConflict,
   loadConflicts,
   loadSkippedFiles,
@@ -23,6 +24,8 @@ import { currentSyncService, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
 import { localDate } from '../dates';
 import { exportNaming, incomingDays, incomingSites, tablesFileStem } from '../send-names';
+import { TransferBar } from '../TransferBar';
+import { useTransfer } from '../use-transfer';
 
 /** A message as a sentence: it ends with a full stop before the next one starts. */
 function sentence(text: string): string {
@@ -49,6 +52,7 @@ export function SendScreen() {
   const [incomingLocal, setIncomingLocal] = useState<readonly LogRecord[]>([]);
   const [part, setPart] = useState('all');
   const [busy, setBusy] = useState(false);
+  const transfer = useTransfer();
   const days = useStoreData(() => app.store.listDays(), []);
   const messageBox = useRef<HTMLDivElement>(null);
   // A message appears under the buttons that caused it and is brought into view (the box is a live region too).
@@ -65,18 +69,20 @@ export function SendScreen() {
         part === 'all' ? null : part === 'catalogue' ? { kinds: ['specimen', 'site'] } : { day_ids: [part] };
       const { date, label } = naming();
       let name = '';
-      const outcome = await sendLog(app.store, { appVersion: __APP_VERSION__, selection, now: () => new Date() }, async (log) => {
-        name = logFileName(log.device, date, label);
-        const shared = await shareFile({ name, text: log.text, type: 'application/json' }, undefined, 'Plummet log');
-        // Only the whole log handed to another app counts as sent: a download stays on this phone, and a part
-        // leaves the rest of the changes unsent.
-        return { sent: shared === 'shared' && part === 'all', value: shared };
-      });
+      const outcome = await transfer.run('Writing the log file', (options) =>
+        sendLog(app.store, { appVersion: __APP_VERSION__, selection, now: () => new Date(), transfer: options }, async (log) => {
+          name = logFileName(log.device, date, label);
+          const shared = await shareFile({ name, text: log.text, type: 'application/json' }, undefined, 'Plummet log');
+          // Only the whole log handed to another app counts as sent: a download stays on this phone, and a part
+          // leaves the rest of the changes unsent.
+          return { sent: shared === 'shared' && part === 'all', value: shared };
+        }),
+      );
       if (outcome === 'shared' && part === 'all') await app.refreshStatus();
       if (outcome !== 'cancelled') await app.updateSettings({ lastHandoff: { how: outcome === 'shared' ? 'shared' : 'saved', at: new Date().toISOString() } });
       setMessage(outcomeText(outcome, name));
     } catch (e) {
-      setMessage({ tone: 'bad', text: describeError(e) });
+      setMessage(e instanceof TransferCancelled ? { tone: 'info', text: 'Cancelled: no file was written and nothing left the phone.' } : { tone: 'bad', text: describeError(e) });
     } finally {
       setBusy(false);
     }
@@ -109,23 +115,27 @@ export function SendScreen() {
       // The same decoding as the office command: UTF-8 with or without its mark, UTF-16 with one; malformed bytes
       // refused by offset (file.text() would put U+FFFD in their place). The browser's strict decoder does the work.
       const strictUtf8 = (bytes: Uint8Array) => new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
-      const preview = await previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()), strictUtf8), file.name);
+      const preview = await transfer.run(`Reading ${file.name}`, async (options) =>
+        previewImport(app.store, decodeLogBytes(new Uint8Array(await file.arrayBuffer()), strictUtf8), file.name, options),
+      );
       setIncomingLocal(await app.store.allRecords({ includeDeleted: true }));
       setIncoming(preview);
     } catch (e) {
-      setMessage({ tone: 'bad', text: `This file cannot be imported: ${sentence(describeError(e))} Nothing was changed.` });
+      if (e instanceof TransferCancelled) setMessage({ tone: 'info', text: 'Cancelled: the file was not imported and nothing was changed.' });
+      else setMessage({ tone: 'bad', text: `This file cannot be imported: ${sentence(describeError(e))} Nothing was changed.` });
     }
   };
 
   const confirmImport = async () => {
     if (!incoming) return;
     try {
-      const done: MergePreview = await applyImport(app.store, incoming.file);
+      const done: MergePreview = await transfer.run('Merging into this log', (options) => applyPreviewedImport(app.store, incoming, options));
       setIncoming(null);
       app.notifyChanged();
       setMessage({ tone: 'good', text: `Imported: ${done.added.length} added, ${done.updated.length} updated, ${done.conflicts.length} conflicts kept for review.` });
     } catch (e) {
-      setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${sentence(describeError(e))}` });
+      if (e instanceof TransferCancelled) setMessage({ tone: 'info', text: 'Cancelled: nothing was merged, this log is as it was.' });
+      else setMessage({ tone: 'bad', text: `The import failed and nothing was written: ${sentence(describeError(e))}` });
     }
   };
 
@@ -152,14 +162,20 @@ export function SendScreen() {
           <button type="button" class="btn btn-quiet" onClick={exportCsv} disabled={busy}>
             Tables for a spreadsheet (CSV)
           </button>
-          <button type="button" class="btn btn-quiet" onClick={chooseImport}>
+          <button type="button" class="btn btn-quiet" onClick={chooseImport} disabled={transfer.running}>
             Import a log file
           </button>
         </div>
+        {transfer.view && !incoming ? <TransferBar view={transfer.view} /> : null}
         <div ref={messageBox} class="message-slot" role="status" aria-live="polite" data-testid="send-message">
           {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
         </div>
-        {incoming ? <IncomingPreview incoming={incoming} local={incomingLocal} onMerge={confirmImport} onCancel={() => setIncoming(null)} /> : null}
+        {incoming ? (
+          <IncomingPreview incoming={incoming} local={incomingLocal} busy={transfer.running} onMerge={confirmImport} onCancel={() => setIncoming(null)}>
+            {/* Beside the Merge button the crew just tapped, where they are looking. */}
+            {transfer.view ? <TransferBar view={transfer.view} /> : null}
+          </IncomingPreview>
+        ) : null}
       </section>
       <Conflicts />
       <ClockAhead />
@@ -200,7 +216,21 @@ function SentState() {
 }
 
 /** What an incoming file holds, named as the crew knows it: its phone, its days by date and site, its sites. */
-function IncomingPreview({ incoming, local, onMerge, onCancel }: { incoming: ImportPreview; local: readonly LogRecord[]; onMerge(): void; onCancel(): void }) {
+function IncomingPreview({
+  incoming,
+  local,
+  busy,
+  onMerge,
+  onCancel,
+  children,
+}: {
+  incoming: ImportPreview;
+  local: readonly LogRecord[];
+  busy: boolean;
+  onMerge(): void;
+  onCancel(): void;
+  children?: ComponentChildren;
+}) {
   const days = incomingDays(incoming.file.records, local);
   const sites = incomingSites(incoming.file.records);
   return (
@@ -227,13 +257,14 @@ function IncomingPreview({ incoming, local, onMerge, onCancel }: { incoming: Imp
       )}
       {sites.length ? <p class="hint">Sites: {sites.join(', ')}.</p> : null}
       <div class="btn-row">
-        <button type="button" class="btn" onClick={onMerge}>
+        <button type="button" class="btn" onClick={onMerge} disabled={busy}>
           Merge into this log
         </button>
-        <button type="button" class="btn btn-quiet" onClick={onCancel}>
+        <button type="button" class="btn btn-quiet" onClick={onCancel} disabled={busy}>
           Cancel
         </button>
       </div>
+      {children}
     </div>
   );
 }

@@ -1,0 +1,36 @@
+/**
+ * What a long transfer is doing, in the crew's words: "Checking 12 400 of 100 000 records". Numbers are grouped
+ * by thousands with a no-break space, as the SI brochure writes them (§5.4.4).
+ */
+import type { TransferProgress } from '../log';
+
+const grouped = (n: number) => String(Math.round(n)).replace(/\B(?=(\d{3})+(?!\d))/g, '\u00a0');
+const of = (p: TransferProgress, unit: string, units = `${unit}s`) =>
+  p.total > 0 ? `${grouped(p.done)} of ${grouped(p.total)} ${p.total === 1 ? unit : units}` : '';
+
+export function progressText(p: TransferProgress): string {
+  switch (p.phase) {
+    case 'reading':
+      return p.total > 0 ? `Reading ${of(p, 'record')}` : 'Reading the log on this phone';
+    case 'checking':
+      return `Checking ${of(p, 'record') || 'the file'}`;
+    case 'merging':
+      return p.total > 0 ? `Merging ${grouped(p.total)} record${p.total === 1 ? '' : 's'} with this log` : 'Merging with this log';
+    case 'writing':
+      return `Saving ${of(p, 'record') || 'the records'}`;
+    case 'exporting':
+      return `Writing the file${p.total > 0 ? `: ${of(p, 'record')}` : ''}`;
+    case 'listing':
+      return 'Looking at the office folder';
+    case 'downloading':
+      return `Reading ${of(p, 'file') || 'files'} from the office folder`;
+    case 'uploading':
+      return `Sending ${of(p, 'part') || 'this phone’s log'} to the office folder`;
+  }
+}
+
+/** How far along, 0 to 1; null when the phase has no count (the bar then shows no fraction). */
+export function progressFraction(p: TransferProgress): number | null {
+  if (p.total <= 0) return null;
+  return Math.min(1, Math.max(0, p.done / p.total));
+}
