@@ -8,7 +8,7 @@ import { VideoClipError } from './video-clip-error';
  * - at most 400 MB: a phone's slow-motion clip (1080p at 240 frames/s) runs at roughly 100–160 Mbit/s
  *   (common practice), so 20 s of it is 250–400 MB; the file is read in pieces and never held whole;
  * - at most 8000 frames: every frame's timestamp and tracked row are kept as evidence with the drop;
- * - frame intervals within ±50 % of their median: the refinement of the release and the impact to a fraction
+ * - frame intervals within ±50 % of their mean (less the container's timestamp step): the refinement of the release and the impact to a fraction
  *   of a frame fits the track over neighbouring frames and needs them evenly spaced; a clip that dropped or
  *   doubled frames (a phone short of storage speed) has intervals of 0 % or 200 % of the median.
  */
@@ -17,19 +17,22 @@ export const MAX_CLIP_DURATION_S = 20;
 export const MAX_CLIP_FRAMES = 8000;
 export const FRAME_INTERVAL_SPREAD_LIMIT = 0.5;
 
-/** The median frame interval (s) and the largest relative departure of one interval from it. */
-export function frameIntervals(times_s: readonly number[]): { median_s: number; spread: number } {
+/**
+ * The mean frame interval (s) and the largest relative departure of one interval from it, less the container's
+ * timestamp step `tick_s`: WebM writes times in whole milliseconds, so a steady 240 frames/s clip has intervals of
+ * 4 and 5 ms, which is even timing rounded, not uneven timing.
+ */
+export function frameIntervals(times_s: readonly number[], tick_s = 0): { mean_s: number; spread: number } {
   const sorted = [...times_s].sort((a, b) => a - b);
-  const steps: number[] = [];
-  for (let i = 1; i < sorted.length; i++) steps.push(sorted[i]! - sorted[i - 1]!);
-  if (steps.length === 0) return { median_s: 0, spread: 0 };
-  const ordered = [...steps].sort((a, b) => a - b);
-  const mid = ordered.length >> 1;
-  const median_s = ordered.length % 2 ? ordered[mid]! : (ordered[mid - 1]! + ordered[mid]!) / 2;
-  if (median_s <= 0) return { median_s, spread: Infinity };
+  if (sorted.length < 2) return { mean_s: 0, spread: 0 };
+  const mean_s = (sorted[sorted.length - 1]! - sorted[0]!) / (sorted.length - 1);
+  if (!(mean_s > 0)) return { mean_s, spread: Infinity };
   let spread = 0;
-  for (const step of steps) spread = Math.max(spread, Math.abs(step - median_s) / median_s);
-  return { median_s, spread };
+  for (let i = 1; i < sorted.length; i++) {
+    const departure = Math.max(0, Math.abs(sorted[i]! - sorted[i - 1]! - mean_s) - tick_s);
+    spread = Math.max(spread, departure / mean_s);
+  }
+  return { mean_s, spread };
 }
 
 /** The file's size, checked before the container is read at all. */
@@ -72,8 +75,8 @@ export function checkClipProbe(probe: ClipProbe): void {
       code: 'frame-timing-uneven',
       field: 'clip.interval_spread',
       value: `${percent} %`,
-      allowed: `every frame interval within ±${FRAME_INTERVAL_SPREAD_LIMIT * 100} % of the median`,
-      message: `The clip's frame timing is uneven: one frame interval departs ${percent} % from the median (${probe.frame_rate_hz.toFixed(1)} frames/s); allowed: every frame interval within ±${FRAME_INTERVAL_SPREAD_LIMIT * 100} % of the median. Film with a fixed frame rate (the camera's slow-motion or a "constant frame rate" setting) and with room on the phone's storage.`,
+      allowed: `every frame interval within ±${FRAME_INTERVAL_SPREAD_LIMIT * 100} % of the mean`,
+      message: `The clip's frame timing is uneven: one frame interval departs ${percent} % from the mean (${probe.frame_rate_hz.toFixed(1)} frames/s); allowed: every frame interval within ±${FRAME_INTERVAL_SPREAD_LIMIT * 100} % of the mean. Film with a fixed frame rate (the camera's slow-motion or a "constant frame rate" setting) and with room on the phone's storage.`,
     });
   }
 }

@@ -8,7 +8,7 @@
  */
 import type { ClipProbe, GreyClip } from '../motion';
 import type { FromWorker, ToWorker } from './decode-protocol';
-import { bandShape, clampBand, stepWithinBudget, type BandRequest, type ClipRotation } from './grey-band';
+import { bandWithinBudget, clampBand, type BandRequest, type ClipRotation } from './grey-band';
 import { clipErrorWire, VideoClipError } from './video-clip-error';
 
 /**
@@ -123,10 +123,8 @@ export async function openClip(file: Blob, options: { signal?: AbortSignal } = {
     },
     async greyBand(band, o = {}) {
       const id = nextId++;
-      const clamped = clampBand(band, probe.width_px, probe.height_px);
-      const step_px = stepWithinBudget(clamped, probe.frame_count, GREY_BUDGET_BYTES);
-      const asked = { ...clamped, step_px };
-      const { width, height } = bandShape(asked);
+      const asked = bandWithinBudget(clampBand(band, probe.width_px, probe.height_px), probe.frame_count, GREY_BUDGET_BYTES);
+      const { width, height, step_px } = asked;
       const times_s: number[] = [];
       const frames: Uint8Array[] = [];
       await request(

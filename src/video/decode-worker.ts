@@ -19,7 +19,7 @@ import { PlummetError } from '../errors';
 import type { ClipProbe } from '../motion';
 import { checkClipProbe, checkClipSize, codecRefusal, frameIntervals, MAX_CLIP_DURATION_S, MAX_CLIP_FRAMES } from './clip-limits';
 import type { FromWorker, ToWorker } from './decode-protocol';
-import { bandShape, codedRectOf, greyBandFromPlane, lumaOfRgb, type BandRequest, type ClipRotation } from './grey-band';
+import { codedRectOf, greyBandFromPlane, lumaOfRgb, type BandRequest, type ClipRotation } from './grey-band';
 import { clipErrorWire, VideoClipError } from './video-clip-error';
 
 declare const self: DedicatedWorkerGlobalScope;
@@ -102,7 +102,8 @@ async function open(file: Blob): Promise<void> {
     if (times.length > MAX_CLIP_FRAMES) break;
   }
   if (times.length === 0) throw notVideo('its video track has no frames');
-  const { median_s, spread } = frameIntervals(times);
+  const resolution = await track.getTimeResolution().catch(() => 0);
+  const { mean_s, spread } = frameIntervals(times, resolution > 0 ? 1 / resolution : 0);
   const first = Math.min(...times);
   const last = Math.max(...times);
   const probe: ClipProbe = {
@@ -110,9 +111,9 @@ async function open(file: Blob): Promise<void> {
     container,
     width_px,
     height_px,
-    duration_s: last - first + median_s,
+    duration_s: last - first + mean_s,
     frame_count: times.length,
-    frame_rate_hz: median_s > 0 ? 1 / median_s : 0,
+    frame_rate_hz: mean_s > 0 ? 1 / mean_s : 0,
     interval_spread: spread,
     size_bytes,
   };
@@ -136,7 +137,7 @@ async function still(id: number, time_s: number, width_px: number): Promise<void
 /** Every frame decoded, each reduced to the grey band at once. */
 async function band(id: number, request: BandRequest): Promise<void> {
   if (!track || !opened) throw new Error('band before open'); // the page opens first (clip-reader.ts)
-  const { width, height } = bandShape(request);
+  const { width, height } = request;
   const total = opened.probe.frame_count;
   const rotation = opened.rotation;
   let times: number[] = [];

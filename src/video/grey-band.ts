@@ -5,12 +5,16 @@
  * of every YUV format a decoder outputs (I420, NV12, I422, I444, I420A), computed for the RGB ones.
  */
 
-/** The rectangle of the displayed frame to hand over, in full-frame display pixels (x1, y1 excluded). */
+/**
+ * The rectangle of the displayed frame to hand over: `width` × `height` grey pixels, each the average of a
+ * step × step block, the first block's corner at full-frame display pixel (x0_px, y0_px). The same shape as
+ * motion's `clipBand` and as a GreyClip's geometry.
+ */
 export interface BandRequest {
   x0_px: number;
   y0_px: number;
-  x1_px: number;
-  y1_px: number;
+  width: number;
+  height: number;
   step_px: number;
 }
 
@@ -25,33 +29,28 @@ export interface CodedRect {
   height: number;
 }
 
-/** The band's size in grey pixels. */
-export function bandShape(band: BandRequest): { width: number; height: number } {
-  return {
-    width: Math.max(0, Math.floor((band.x1_px - band.x0_px) / band.step_px)),
-    height: Math.max(0, Math.floor((band.y1_px - band.y0_px) / band.step_px)),
-  };
-}
-
-/** The band clipped to the displayed frame, its corners on whole pixels. */
+/** The band on whole pixels and inside the displayed frame (fewer grey pixels where it would run off). */
 export function clampBand(band: BandRequest, displayWidth: number, displayHeight: number): BandRequest {
   const step_px = Math.max(1, Math.round(band.step_px));
-  const x0_px = clamp(Math.floor(Math.min(band.x0_px, band.x1_px)), 0, displayWidth);
-  const y0_px = clamp(Math.floor(Math.min(band.y0_px, band.y1_px)), 0, displayHeight);
-  const x1_px = clamp(Math.ceil(Math.max(band.x0_px, band.x1_px)), x0_px, displayWidth);
-  const y1_px = clamp(Math.ceil(Math.max(band.y0_px, band.y1_px)), y0_px, displayHeight);
-  return { x0_px, y0_px, x1_px, y1_px, step_px };
+  const x0_px = clamp(Math.round(band.x0_px), 0, displayWidth);
+  const y0_px = clamp(Math.round(band.y0_px), 0, displayHeight);
+  const width = clamp(Math.floor(band.width), 0, Math.floor((displayWidth - x0_px) / step_px));
+  const height = clamp(Math.floor(band.height), 0, Math.floor((displayHeight - y0_px) / step_px));
+  return { x0_px, y0_px, width, height, step_px };
 }
 
 /**
- * The coarsest step needed to keep every frame's band within `budgetBytes` together: a clip of 4800 frames and a
- * band of 200 × 720 pixels would otherwise hold 690 MB on the phone.
+ * The band over the same span of the frame with a step wide enough that every frame's band together stays within
+ * `budgetBytes`: a clip of 4800 frames and a band of 200 × 720 pixels would otherwise hold 690 MB on the phone.
  */
-export function stepWithinBudget(band: BandRequest, frameCount: number, budgetBytes: number): number {
+export function bandWithinBudget(band: BandRequest, frameCount: number, budgetBytes: number): BandRequest {
+  const spanX = band.width * band.step_px;
+  const spanY = band.height * band.step_px;
   let step = Math.max(1, Math.round(band.step_px));
   for (;;) {
-    const { width, height } = bandShape({ ...band, step_px: step });
-    if (width * height * frameCount <= budgetBytes || (width <= 1 && height <= 1)) return step;
+    const width = Math.floor(spanX / step);
+    const height = Math.floor(spanY / step);
+    if (width * height * frameCount <= budgetBytes || (width <= 1 && height <= 1)) return { ...band, width, height, step_px: step };
     step++;
   }
 }
@@ -75,9 +74,8 @@ export function codedPixel(dx: number, dy: number, rotation: ClipRotation, coded
  * rectangle that cuts a 2 × 2 chroma block of a 4:2:0 frame).
  */
 export function codedRectOf(band: BandRequest, rotation: ClipRotation, codedWidth: number, codedHeight: number): CodedRect {
-  const { width, height } = bandShape(band);
-  const dx1 = band.x0_px + width * band.step_px - 1;
-  const dy1 = band.y0_px + height * band.step_px - 1;
+  const dx1 = band.x0_px + band.width * band.step_px - 1;
+  const dy1 = band.y0_px + band.height * band.step_px - 1;
   const a = codedPixel(band.x0_px, band.y0_px, rotation, codedWidth, codedHeight);
   const b = codedPixel(dx1, dy1, rotation, codedWidth, codedHeight);
   const x0 = Math.min(a[0], b[0]) & ~1;
@@ -102,7 +100,7 @@ export function greyBandFromPlane(
   codedHeight: number,
   out: Uint8Array,
 ): void {
-  const { width, height } = bandShape(band);
+  const { width, height } = band;
   const step = band.step_px;
   const area = step * step;
   const { offset, stride, pixelBytes } = layout;

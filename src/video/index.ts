@@ -17,4 +17,4 @@ export {
   codecRefusal,
   frameIntervals,
 } from './clip-limits';
-export { bandShape, clampBand, stepWithinBudget, codedPixel, codedRectOf, greyBandFromPlane, lumaOfRgb, type BandRequest, type ClipRotation, type CodedRect } from './grey-band';
+export { clampBand, bandWithinBudget, codedPixel, codedRectOf, greyBandFromPlane, lumaOfRgb, type BandRequest, type ClipRotation, type CodedRect } from './grey-band';

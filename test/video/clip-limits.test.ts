@@ -49,12 +49,22 @@ describe('clip limits', () => {
   });
 
   it('measures frame intervals from timestamps in any order', () => {
-    // 240 frames/s with one frame missing: that interval is 200 % of the median (a departure of 100 %).
-    const times = Array.from({ length: 20 }, (_, i) => i / 240).filter((_, i) => i !== 7).reverse();
-    const { median_s, spread } = frameIntervals(times);
-    expect(median_s).toBeCloseTo(1 / 240, 12);
-    expect(spread).toBeCloseTo(1, 9);
+    // 240 frames/s over 1 s with one frame missing: that interval is twice the others.
+    const times = Array.from({ length: 241 }, (_, i) => i / 240).filter((_, i) => i !== 7).reverse();
+    const { mean_s, spread } = frameIntervals(times);
+    expect(mean_s).toBeCloseTo(1 / 239, 12);
+    expect(spread).toBeCloseTo((2 / 240 - 1 / 239) * 239, 9);
+    expect(spread).toBeGreaterThan(0.5);
     expect(frameIntervals([0, 1 / 30, 2 / 30]).spread).toBeCloseTo(0, 12);
+  });
+
+  it('reads steady frames on a millisecond timeline (WebM) as steady', () => {
+    // 240 frames/s written in whole milliseconds: intervals of 4 and 5 ms.
+    const times = Array.from({ length: 720 }, (_, i) => Math.round((i / 240) * 1000) / 1000);
+    expect(frameIntervals(times).spread).toBeGreaterThan(0.15);
+    const { mean_s, spread } = frameIntervals(times, 0.001);
+    expect(1 / mean_s).toBeCloseTo(240, 0);
+    expect(spread).toBeLessThan(0.01);
   });
 
   it('names HEVC and tells the crew to set the camera to its most compatible format', () => {
