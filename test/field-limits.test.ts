@@ -18,6 +18,7 @@ import '../src/widgets/quantity-input';
 import type { QuantityInput } from '../src/widgets/quantity-input';
 import { UNITS, type QuantityKind } from '../src/widgets/units';
 import * as demo from './log/demo-bodies';
+import { demoClip } from './log/marks-demo';
 
 type Json = Record<string, any>;
 
@@ -79,7 +80,22 @@ const travel = (d_r: number, d_i: number, c: number, temperature_C: number | nul
 });
 const sound = (t: Json) => drop({ raw: { kind: 'sound', onsets_s: [1, 2.1], sample_rate_Hz: 44_100, sound_travel: t } });
 
+/** A drop timed from a clip (test/log/marks-demo.ts) with `change` made to its clip; the drop's time follows it. */
+const clipped = (change: Json) => {
+  const clip = { ...demoClip(1.2), ...change };
+  return drop({ clip, time_s: clip.impact_s - clip.release_s, raw: { kind: 'frames', frames: [120, 408], frame_rate_Hz: 240 } });
+};
+const line = (key: string, v: number) => clipped({ fall_line: { x0_px: 360, y0_px: 100, x1_px: 362, y1_px: 1190, [key]: v } });
+
 const CASES: Case[] = [
+  // A clip's evidence: made by motion/ from the frames, never typed, read by no physics.
+  { kind: 'drop', path: 'clip.width_px', body: (v) => clipped({ width_px: v }) },
+  { kind: 'drop', path: 'clip.height_px', body: (v) => clipped({ height_px: v }) },
+  { kind: 'drop', path: 'clip.frame_rate_hz', body: (v) => clipped({ frame_rate_hz: v }) },
+  { kind: 'drop', path: 'clip.u_release_s', body: (v) => clipped({ u_release_s: v }) },
+  { kind: 'drop', path: 'clip.u_impact_s', body: (v) => clipped({ u_impact_s: v }) },
+  { kind: 'drop', path: 'clip.landing_y_px', body: (v) => clipped({ landing_y_px: v }) },
+  ...['x0_px', 'y0_px', 'x1_px', 'y1_px'].map((key): Case => ({ kind: 'drop', path: `clip.fall_line.${key}`, body: (v) => line(key, v) })),
   { kind: 'site', path: 'latitude_deg', body: (v) => site({ latitude_deg: v }), form: 'angle', downstream: (v) => analyse((r) => (r.site.latitude_deg = v)) },
   { kind: 'site', path: 'longitude_deg', body: (v) => site({ longitude_deg: v }), form: 'angle' },
   { kind: 'site', path: 'elevation_m', body: (v) => site({ elevation_m: v }), form: 'length', downstream: (v) => analyse((r) => (r.site.elevation_m = v)) },
@@ -309,8 +325,12 @@ const CASES: Case[] = [
   },
 ];
 
-/** Uncertainties of a box's width and height: the same limit and the same check as u_length_m, tried above. */
-const SAME_CHECK_AS_ANOTHER = ['specimen.shape.u_width_m', 'specimen.shape.u_height_m'];
+/**
+ * Uncertainties of a box's width and height: the same limit and the same check as u_length_m, tried above. A clip's
+ * release and impact can only be judged together (the impact after the release, the drop's time their difference):
+ * their edges are tried in test/log/drop-marks.test.ts.
+ */
+const SAME_CHECK_AS_ANOTHER = ['specimen.shape.u_width_m', 'specimen.shape.u_height_m', 'drop.clip.release_s', 'drop.clip.impact_s'];
 
 /** The values tried for a limit: [value, whether the limit itself allows it]. */
 function edges(limit: Limit): [number, boolean][] {

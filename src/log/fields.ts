@@ -95,6 +95,20 @@ export const LIMITS = {
   speed_of_sound_m_s: atLeast(SPEED_OF_SOUND_MIN_M_S, 420, 'm/s'),
   // (d_r − d_i) / c can never be larger than the longest distance over the slowest sound.
   sound_travel_correction_s: atLeast(-SOUND_DISTANCE_MAX_M / SPEED_OF_SOUND_MIN_M_S, SOUND_DISTANCE_MAX_M / SPEED_OF_SOUND_MIN_M_S, 's'),
+  // A mark along the fall, and a gate: from the release point (0) down to the highest release.
+  mark_distance_m: atLeast(0, 10_000, 'm'),
+  // A mark's time from the release: ten minutes covers a slow body from a tall release; the landing is time_s.
+  mark_time_s: atLeast(0, 600, 's'),
+  // A clip's frame in pixels: 16 384 is WebCodecs' and phones' largest frame side by far (8K is 7680).
+  clip_size_px: atLeast(1, 16_384, 'px'),
+  // A position on the frame; a body's centre may lie a little outside it (half in view): a frame's size either side.
+  clip_position_px: atLeast(-16_384, 32_768, 'px'),
+  // A clip's own timeline; clips longer than an hour are refused before decoding (video/).
+  clip_time_s: atLeast(0, 3600, 's'),
+  // A found instant's doubt: a second is thirty frames of the slowest clip, beyond it nothing was found.
+  u_clip_time_s: atLeast(0, 1, 's'),
+  // A scale mark's height above the landing surface.
+  scale_height_m: atLeast(0, 10_000, 'm'),
 } as const satisfies Record<string, Limit>;
 
 export type LimitName = keyof typeof LIMITS;
@@ -120,7 +134,40 @@ export const TEXT_LIMITS = {
   typed: 100,
   crew: 50,
   capture: 10_000,
+  /** A clip's codec string ("avc1.64001f") and container name ("mp4"). */
+  codec: 100,
 } as const;
+
+/**
+ * How many entries the lists of marks, gates and clips hold, and the size of a clip's key frames. A clip is kept
+ * as evidence, not as video: its timestamps and track (8000 frames is 33 s at 240 frames/s, beyond the longest clip
+ * video/ takes) and a few small key frames keep a drop record within a few hundred kilobytes.
+ */
+export const LIST_LIMITS = {
+  /** A drop's marks: at least two points (a fall with one point is its single time), at most 64. */
+  marks_min: 2,
+  marks_max: 64,
+  /** A gates series' gates: the same bounds as the marks they give. */
+  gates_min: 2,
+  gates_max: 64,
+  clip_frames_max: 8000,
+  key_frames_max: 6,
+  /** Bytes of one key frame's image, decoded from its base64. */
+  key_frame_bytes_max: 16_384,
+  /** A clip's scale marks: none (times only), two (a scale) or three (a scale and the perspective). */
+  scale_counts: [0, 2, 3],
+} as const;
+
+/** The image types a key frame may be, as its data URL names them, with the bytes each file starts with. */
+export const KEY_FRAME_TYPES = {
+  'image/png': [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a],
+  'image/jpeg': [0xff, 0xd8, 0xff],
+  // "RIFF", then the size (any four bytes), then "WEBP": the check reads the first four here, the rest in validate.ts.
+  'image/webp': [0x52, 0x49, 0x46, 0x46],
+} as const;
+
+/** How a stored drop time may differ from clip.impact_s − clip.release_s: a microsecond, the CSV's digits. */
+export const CLIP_TIME_TOLERANCE_S = 1e-6;
 
 /** Dew point may read a little above the air temperature through instrument error, never much. */
 export const DEW_POINT_MARGIN_C = 1;
@@ -236,6 +283,8 @@ export const FIELDS = {
     reading_id: other,
     reading_aloft_id: other,
     timing_offset: oneOf('timing_offset'),
+    // A list of distances, each in LIMITS.mark_distance_m, LIST_LIMITS.gates_min to gates_max of them.
+    gate_distances_m: other,
     timing_delay_s: num('timing_delay_s', true),
     u_timing_delay_s: num('u_timing_delay_s', true),
     started_at: other,
@@ -259,6 +308,22 @@ export const FIELDS = {
     exclusion_reason: other,
     note: other,
     captured_at: other,
+    // A list of { distance_m (LIMITS.mark_distance_m), time_s (LIMITS.mark_time_s) }, LIST_LIMITS.marks_min to marks_max.
+    marks: other,
+    release_time_known: other,
+    clip: other,
+    'clip.width_px': num('clip_size_px'),
+    'clip.height_px': num('clip_size_px'),
+    'clip.frame_rate_hz': num('frame_rate_Hz'),
+    'clip.release_s': num('clip_time_s'),
+    'clip.u_release_s': num('u_clip_time_s'),
+    'clip.impact_s': num('clip_time_s'),
+    'clip.u_impact_s': num('u_clip_time_s'),
+    'clip.fall_line.x0_px': num('clip_position_px'),
+    'clip.fall_line.y0_px': num('clip_position_px'),
+    'clip.fall_line.x1_px': num('clip_position_px'),
+    'clip.fall_line.y1_px': num('clip_position_px'),
+    'clip.landing_y_px': num('clip_position_px'),
   },
 } as const satisfies { [K in RecordKind]: { [P in BodyPath<BodyOf[K]>]?: FieldSpec } };
 

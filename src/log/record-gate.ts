@@ -14,8 +14,8 @@ import { RECORD_KINDS, type RecordKind } from './types';
 import { loneSurrogateAt, showValue as show, UNICODE_RULE, validateRecord } from './validate';
 
 /**
- * How deep a record's values may nest: the record, its history, a version, its body, a raw capture, its
- * sound-travel correction, and room for one more. Deeper is not a record, and is refused before any code
+ * How deep a record's values may nest: the record, its history, a version, its body, a clip's evidence, its list
+ * of key frames or scale marks, one of them, and room for one more. Deeper is not a record, and is refused before any code
  * that recurses (a writer, a comparison) meets it.
  */
 export const RECORD_NESTING_LIMIT = 8;

@@ -58,7 +58,8 @@ export const REASON_REQUIRED_FIELDS: { readonly [K in RecordKind]: readonly (key
 export function bodyOf<R extends LogRecord>(record: R): BodyOf[R['kind']] {
   const body: Record<string, unknown> = {};
   const source = record as unknown as Record<string, unknown>;
-  for (const key of BODY_FIELDS[record.kind]) body[key] = copy(source[key]);
+  // An optional field a record does not carry stays absent (undefined has no JSON form).
+  for (const key of BODY_FIELDS[record.kind]) if (source[key] !== undefined) body[key] = copy(source[key]);
   return body as unknown as BodyOf[R['kind']];
 }
 
@@ -67,7 +68,8 @@ function copy<T>(value: T): T {
   if (Array.isArray(value)) return value.map(copy) as T;
   if (value !== null && typeof value === 'object') {
     const out: Record<string, unknown> = {};
-    for (const [k, v] of Object.entries(value)) out[k] = copy(v);
+    // A field set to undefined is a field left out, as JSON has it (an optional field such as a drop's marks).
+    for (const [k, v] of Object.entries(value)) if (v !== undefined) out[k] = copy(v);
     return out as T;
   }
   return value;

@@ -1,23 +1,24 @@
 /**
- * The JSON Schema (draft 2020-12) of the log file, format version 2.
+ * The JSON Schema (draft 2020-12) of the log file, format version 4.
  *
- * This object is the one source: public/schema/plummet-log-3.schema.json is written from it (regenerate with
- * `npm run schema`; a test fails while it is stale). The format 1 and 2 files stay published, frozen, for readers of
- * old files; import upgrades a format 1 or 2 file (upgrade-export.ts) before checking it against this schema. Import checks files against it with
+ * This object is the one source: public/schema/plummet-log-4.schema.json is written from it (regenerate with
+ * `npm run schema`; a test fails while it is stale). The format 1, 2 and 3 files stay published, frozen, for readers
+ * of old files; import upgrades an older file (upgrade-export.ts) before checking it against this schema. Import checks files against it with
  * json-schema-check.ts, a small checker of exactly the keywords used here (no code compiled at run time, so a
  * strict Content-Security-Policy is fine, and 3 KB instead of an ajv bundle); the tests compare it with ajv.
  *
  * The ranges and choices are the field catalogue's (fields.ts), so a file is never refused for a value the
  * app would have stored. What a schema cannot say (an uncertainty no larger than its quantity, a dew point not
- * above the air temperature) validate.ts checks after the schema, on import.
+ * above the air temperature) validate.ts checks after the schema, on import; so does what the checker has no keyword
+ * for (the most marks or key frames in a list, the size of a key frame, values rising through a list).
  */
-import { ENUMS, LIMITS, SHAPE_DIMENSIONS, type Limit } from './fields';
+import { ENUMS, LIMITS, LIST_LIMITS, SHAPE_DIMENSIONS, type Limit } from './fields';
 import { RECORD_KINDS, type RecordKind } from './types';
 
 export const LOG_FORMAT = 'plummet-log';
-export const LOG_FORMAT_VERSION = 3;
+export const LOG_FORMAT_VERSION = 4;
 /** Every format version this app reads (older ones are upgraded on import). */
-export const LOG_FORMAT_VERSIONS_READ = [1, 2, 3] as const;
+export const LOG_FORMAT_VERSIONS_READ = [1, 2, 3, 4] as const;
 /** Where the app serves the schema (the file lives in public/schema/). */
 export const LOG_SCHEMA_PATH = `/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
 export const LOG_SCHEMA_ID = `https://plummet.invalid/schema/plummet-log-${LOG_FORMAT_VERSION}.schema.json`;
@@ -35,15 +36,21 @@ const ref = (name: string): Schema => ({ $ref: `#/$defs/${name}` });
 const nullable = (schema: Schema): Schema => ({ anyOf: [schema, { type: 'null' }] });
 const oneOfStrings = (values: readonly string[]): Schema => ({ type: 'string', enum: [...values] });
 
-function object(properties: Record<string, Schema>, description?: string): Schema {
+function object(properties: Record<string, Schema>, description?: string, optional: readonly string[] = []): Schema {
   return {
     type: 'object',
     ...(description ? { description } : {}),
-    required: Object.keys(properties),
+    required: Object.keys(properties).filter((key) => !optional.includes(key)),
     properties,
     additionalProperties: false,
   };
 }
+
+/** Fields a record may leave out (added in format 4; absent means what older records meant). */
+const OPTIONAL_FIELDS: { readonly [K in RecordKind]?: readonly string[] } = {
+  series: ['gate_distances_m'],
+  drop: ['marks', 'release_time_known', 'clip'],
+};
 
 /** A tagged union on `kind`: if/then keeps ajv's error about the branch that was meant, not about every branch. */
 function tagged(variants: Record<string, Record<string, Schema>>, description: string): Schema {
@@ -60,6 +67,42 @@ function tagged(variants: Record<string, Record<string, Schema>>, description: s
 }
 
 const nonNegative: Schema = { type: 'number', minimum: 0 };
+const position = range(LIMITS.clip_position_px);
+const clipTime = range(LIMITS.clip_time_s);
+const listOf = (items: Schema, min: number, description: string): Schema => ({ type: 'array', minItems: min, items, description });
+
+const CLIP_SCHEMA = object(
+  {
+    codec: text,
+    container: text,
+    width_px: range(LIMITS.clip_size_px),
+    height_px: range(LIMITS.clip_size_px),
+    frame_rate_hz: range(LIMITS.frame_rate_Hz),
+    frame_times_s: listOf(clipTime, 2, `Every decoded frame's presentation timestamp, strictly increasing, at most ${LIST_LIMITS.clip_frames_max}.`),
+    track_y_px: {
+      type: 'array',
+      items: nullable(position),
+      description: "The body's centre row in each frame, one per timestamp; null where it was not found.",
+    },
+    release_s: clipTime,
+    u_release_s: range(LIMITS.u_clip_time_s),
+    impact_s: clipTime,
+    u_impact_s: range(LIMITS.u_clip_time_s),
+    fall_line: object({ x0_px: position, y0_px: position, x1_px: position, y1_px: position }, 'The line the body falls along.'),
+    landing_y_px: position,
+    scale: {
+      type: 'array',
+      items: object({ x_px: position, y_px: position, height_m: range(LIMITS.scale_height_m) }),
+      description: 'Marks of known height above the landing surface: none, 2 or 3.',
+    },
+    key_frames: {
+      type: 'array',
+      items: object({ time_s: clipTime, image: { type: 'string', pattern: '^data:image/(png|jpeg|webp);base64,[A-Za-z0-9+/]*={0,2}$' } }),
+      description: `At most ${LIST_LIMITS.key_frames_max} small grey frames, each at most ${LIST_LIMITS.key_frame_bytes_max} bytes.`,
+    },
+  },
+  "What a clip gave, kept instead of the clip: positions in full-frame pixels, times on the clip's own timeline (s); time_s = impact_s − release_s.",
+);
 const length = range(LIMITS.length_m);
 const uLength = range(LIMITS.u_length_m);
 
@@ -137,6 +180,11 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
     reading_id: nullable(ref('id')),
     reading_aloft_id: nullable(ref('id')),
     timing_offset: oneOfStrings(ENUMS.timing_offset),
+    gate_distances_m: listOf(
+      range(LIMITS.mark_distance_m),
+      LIST_LIMITS.gates_min,
+      `A gates series: each gate's distance fallen from the release point, strictly increasing, at most ${LIST_LIMITS.gates_max}.`,
+    ),
     timing_delay_s: nullable(range(LIMITS.timing_delay_s, 'Constant start/stop delay, measured minus true; null: the timing method default.')),
     u_timing_delay_s: nullable(range(LIMITS.u_timing_delay_s, 'Its standard uncertainty; null: the timing method default.')),
     started_at: ref('instant'),
@@ -181,6 +229,13 @@ const BODY_PROPERTIES: { [K in RecordKind]: Record<string, Schema> } = {
     exclusion_reason: nullable(text),
     note: text,
     captured_at: ref('instant'),
+    marks: listOf(
+      object({ distance_m: range(LIMITS.mark_distance_m), time_s: range(LIMITS.mark_time_s) }),
+      LIST_LIMITS.marks_min,
+      `Points along the fall, distance from the release point against time from the release, strictly increasing in both, at most ${LIST_LIMITS.marks_max}; time_s and height_m are then the landing.`,
+    ),
+    release_time_known: { type: 'boolean', description: 'false: the zero of the times is itself an estimate (a clip). Absent: true.' },
+    clip: CLIP_SCHEMA,
   },
 };
 
@@ -204,7 +259,7 @@ function recordSchema(kind: RecordKind): Schema {
     deleted: { type: 'boolean', description: 'A deleted record stays as a tombstone so the deletion travels.' },
     history: { type: 'array', items: ref('revision'), description: 'Earlier versions, oldest first.' },
     ...BODY_PROPERTIES[kind],
-  });
+  }, undefined, OPTIONAL_FIELDS[kind]);
   return kind === 'reading' ? { ...schema, ...pressureRule() } : schema;
 }
 

@@ -146,6 +146,11 @@ export interface SeriesBody {
   /** Fit a constant start/stop delay together with C_d (needs at least three distinct heights). */
   timing_offset: 'none' | 'fit';
   /**
+   * A series timed by several gates: each gate's distance fallen from the release point, m, strictly increasing,
+   * typed once; each drop's marks pair them with that drop's gate times. Absent: not a gates series.
+   */
+  gate_distances_m?: number[];
+  /**
    * The constant start/stop delay of the timing, measured minus true, the same in every drop; null: the timing
    * method's default (physics/timingMethodDefaults.ts).
    */
@@ -183,6 +188,40 @@ export type RawCapture =
   /** Video frame numbers of release and impact. */
   | { kind: 'frames'; frames: number[]; frame_rate_Hz: number };
 
+/** One point of a drop's fall: the distance fallen from the release point, m, at a time from the release, s. */
+export interface DropMark {
+  distance_m: number;
+  time_s: number;
+}
+
+/**
+ * What a clip gave for a drop, kept as evidence instead of the clip itself (clips are large): every decoded frame's
+ * own timestamp, the body's tracked row in each, the found release and impact with their uncertainties, what the
+ * crew set on a still frame, and a few small grey key frames. Plain data; motion/ builds it. Positions are full-frame
+ * pixels of the clip as displayed (x to the right, y downward); times are on the clip's own timeline, s.
+ */
+export interface ClipEvidence {
+  codec: string;
+  container: string;
+  width_px: number;
+  height_px: number;
+  frame_rate_hz: number;
+  /** Every decoded frame's presentation timestamp, s, in order (at most 8000). */
+  frame_times_s: number[];
+  /** The body's centre row in each frame (same length as frame_times_s); null: not found in that frame. */
+  track_y_px: (number | null)[];
+  release_s: number;
+  u_release_s: number;
+  impact_s: number;
+  u_impact_s: number;
+  fall_line: { x0_px: number; y0_px: number; x1_px: number; y1_px: number };
+  landing_y_px: number;
+  /** Marks of known height tapped on a still frame: none, 2 or 3. */
+  scale: { x_px: number; y_px: number; height_m: number }[];
+  /** At most 6 small grey images as data URLs (PNG, JPEG or WebP, base64), each at most 16 KB. */
+  key_frames: { time_s: number; image: string }[];
+}
+
 export interface DropBody {
   series_id: string;
   /** 1, 2, 3… in the order the drops were made. */
@@ -196,6 +235,15 @@ export interface DropBody {
   exclusion_reason: string | null;
   note: string;
   captured_at: IsoInstant;
+  /**
+   * Points along the fall (2 to 64, strictly increasing in distance and time): from a clip with scale marks,
+   * from gates, or typed. `time_s` and `height_m` are then the landing, one more point at or after the last mark.
+   */
+  marks?: DropMark[];
+  /** false: the zero of the marks' times is itself an estimate (a clip), fitted per drop. Absent: true. */
+  release_time_known?: boolean;
+  /** The evidence of a drop timed from a clip: time_s = clip.impact_s − clip.release_s. */
+  clip?: ClipEvidence;
 }
 
 export type SiteRecord = Envelope<'site', SiteBody> & SiteBody;

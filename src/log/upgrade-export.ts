@@ -69,8 +69,17 @@ function upgradeToV3(file: Json): Json {
   return { ...file, format_version: 3, records };
 }
 
+/**
+ * Format 3 → 4: drops may carry marks along the fall, whether their release time is known and a clip's evidence,
+ * and series the distances of their gates. All four are optional and absent means what format 3 meant (one time
+ * per drop, its release known, no clip, no gates), so a format 3 file's records are format 4 records as they are.
+ */
+function upgradeToV4(file: Json): Json {
+  return { ...file, format_version: 4 };
+}
+
 /** LOG_FILE_UPGRADES[n − 1] takes a file from format n to n + 1. */
-const LOG_FILE_UPGRADES: readonly ((file: Json) => Json)[] = [upgradeToV2, upgradeToV3];
+const LOG_FILE_UPGRADES: readonly ((file: Json) => Json)[] = [upgradeToV2, upgradeToV3, upgradeToV4];
 
 /**
  * The file in the current format: older formats are upgraded step by step; anything else (the current format,

@@ -10,7 +10,18 @@ import { deletionReasonProblems } from './deletion-reason';
 import { historyOrderProblems } from './version-order';
 import { isRecordId, isUuid } from './uuid';
 import { RECORD_KINDS, type BodyOf, type RecordKind } from './types';
-import { DEW_POINT_MARGIN_C, ENUMS, LIMITS, SHAPE_DIMENSIONS, SOUND_TRAVEL_TOLERANCE_S, TEXT_LIMITS, type Limit } from './fields';
+import {
+  CLIP_TIME_TOLERANCE_S,
+  DEW_POINT_MARGIN_C,
+  ENUMS,
+  KEY_FRAME_TYPES,
+  LIMITS,
+  LIST_LIMITS,
+  SHAPE_DIMENSIONS,
+  SOUND_TRAVEL_TOLERANCE_S,
+  TEXT_LIMITS,
+  type Limit,
+} from './fields';
 
 /** The catalogue's limits, also reachable from here where they were first defined. */
 export { LIMITS, type Limit } from './fields';
@@ -55,12 +66,26 @@ export const BODY_FIELDS: { readonly [K in RecordKind]: readonly (keyof BodyOf[K
     'reading_id',
     'reading_aloft_id',
     'timing_offset',
+    'gate_distances_m',
     'timing_delay_s',
     'u_timing_delay_s',
     'started_at',
     'notes',
   ],
-  drop: ['series_id', 'seq', 'raw', 'time_s', 'height_m', 'excluded', 'exclusion_reason', 'note', 'captured_at'],
+  drop: [
+    'series_id',
+    'seq',
+    'raw',
+    'time_s',
+    'height_m',
+    'excluded',
+    'exclusion_reason',
+    'note',
+    'captured_at',
+    'marks',
+    'release_time_known',
+    'clip',
+  ],
 };
 
 export const ENVELOPE_FIELDS = ['id', 'kind', 'created_at', 'updated_at', 'rev', 'device', 'deleted', 'history'] as const;
@@ -366,6 +391,209 @@ function checkRaw(c: Checker, raw: unknown): void {
   }
 }
 
+/**
+ * A list of min to max entries, each checked by `check`; false (with the problem added) when it is not a list of
+ * that length, without looking at the entries (a hostile list of a million is refused by its length).
+ */
+function checkListLength(c: Checker, path: string, value: unknown, min: number, max: number, what: string): value is unknown[] {
+  const rule = min === max ? `must be a list of ${min} ${what}` : `must be a list of ${min} to ${max} ${what}`;
+  if (!Array.isArray(value)) return c.add(path, value, rule, 'is not a list');
+  if (value.length < min || value.length > max) {
+    return c.add(path, value, rule, value.length < min ? 'is too short' : 'is too long', `a list of ${value.length}`);
+  }
+  return true;
+}
+
+/** Each entry after the first must be above the one before it (only checked between entries that passed). */
+function strictlyIncreasing(c: Checker, path: (i: number) => string, values: readonly unknown[], ok: readonly boolean[], unit: string): boolean {
+  let good = true;
+  for (let i = 1; i < values.length; i++) {
+    if (!ok[i] || !ok[i - 1]) continue;
+    const [before, now] = [values[i - 1] as number, values[i] as number];
+    if (now <= before) good = c.add(path(i), now, `must be above ${path(i - 1)} (${before}${unit}): strictly increasing`, 'is out of order');
+  }
+  return good;
+}
+
+/** A drop's marks: 2 to 64 points, distance and time each in range and strictly increasing. */
+function checkMarks(c: Checker, marks: unknown): marks is { distance_m: number; time_s: number }[] {
+  if (!checkListLength(c, 'marks', marks, LIST_LIMITS.marks_min, LIST_LIMITS.marks_max, 'marks (distance_m, time_s)')) return false;
+  const distanceOk: boolean[] = [];
+  const timeOk: boolean[] = [];
+  marks.forEach((mark, i) => {
+    const at = `marks[${i}]`;
+    if (!c.object(at, mark, 'a mark')) {
+      distanceOk.push(false);
+      timeOk.push(false);
+      return;
+    }
+    distanceOk.push(c.number(`${at}.distance_m`, mark.distance_m, LIMITS.mark_distance_m));
+    timeOk.push(c.number(`${at}.time_s`, mark.time_s, LIMITS.mark_time_s));
+    c.onlyFields(at, mark, ['distance_m', 'time_s'], 'a mark');
+  });
+  const distances = marks.map((m) => (isObject(m) ? m.distance_m : undefined));
+  const times = marks.map((m) => (isObject(m) ? m.time_s : undefined));
+  const inOrder = strictlyIncreasing(c, (i) => `marks[${i}].distance_m`, distances, distanceOk, ' m');
+  const timesInOrder = strictlyIncreasing(c, (i) => `marks[${i}].time_s`, times, timeOk, ' s');
+  return inOrder && timesInOrder && distanceOk.every(Boolean) && timeOk.every(Boolean);
+}
+
+/**
+ * A drop with marks: its own time_s (and height_m when it overrides the series') is the landing, at or after the
+ * last mark and never contradicting the marks' order. The series' height is checked by the analysis, which sees it.
+ */
+function checkLandingAfterMarks(c: Checker, marks: readonly { distance_m: number; time_s: number }[], time: unknown, height: unknown): void {
+  const last = marks[marks.length - 1]!;
+  const n = marks.length - 1;
+  const timeKnown = isFiniteNumber(time) && within(time, LIMITS.time_s);
+  const heightKnown = isFiniteNumber(height) && within(height, LIMITS.height_m);
+  if (timeKnown && time < last.time_s) {
+    c.add('time_s', time, `must not be before the last mark, marks[${n}].time_s (${last.time_s} s): the landing comes last`, 'is out of order');
+  }
+  if (heightKnown && height < last.distance_m) {
+    c.add('height_m', height, `must not be below the last mark, marks[${n}].distance_m (${last.distance_m} m): the landing comes last`, 'is out of order');
+  }
+  if (timeKnown && heightKnown && (time === last.time_s) !== (height === last.distance_m)) {
+    const rule = `the landing (height_m ${height} m at time_s ${time} s) must be the last mark (${last.distance_m} m at ${last.time_s} s) or beyond it in both`;
+    c.add('time_s', time, rule, 'contradicts the marks');
+  }
+}
+
+/** A series' gate distances: 2 to 64, each in range, strictly increasing. */
+function checkGates(c: Checker, gates: unknown): void {
+  if (!checkListLength(c, 'gate_distances_m', gates, LIST_LIMITS.gates_min, LIST_LIMITS.gates_max, 'gate distances')) return;
+  const ok = gates.map((d, i) => c.number(`gate_distances_m[${i}]`, d, LIMITS.mark_distance_m));
+  strictlyIncreasing(c, (i) => `gate_distances_m[${i}]`, gates, ok, ' m');
+}
+
+const BASE64_DIGITS = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/';
+const KEY_FRAME_PREFIX = /^data:(image\/(?:png|jpeg|webp));base64,/;
+const BASE64_BODY = /^[A-Za-z0-9+/]*={0,2}$/;
+/** The longest data URL of an allowed image: the prefix and the base64 of the largest image allowed. */
+const KEY_FRAME_CHARS_MAX = 'data:image/jpeg;base64,'.length + Math.ceil(LIST_LIMITS.key_frame_bytes_max / 3) * 4;
+
+/** The first `count` bytes of a base64 text (whole groups of four characters only). */
+function firstBytes(base64: string, count: number): number[] {
+  const bytes: number[] = [];
+  for (let i = 0; i + 4 <= base64.length && bytes.length < count; i += 4) {
+    const group = [...base64.slice(i, i + 4)].map((ch) => BASE64_DIGITS.indexOf(ch));
+    const bits = ((group[0]! << 18) | (group[1]! << 12) | (Math.max(group[2]!, 0) << 6) | Math.max(group[3]!, 0)) >>> 0;
+    bytes.push((bits >> 16) & 0xff, (bits >> 8) & 0xff, bits & 0xff);
+  }
+  return bytes.slice(0, count);
+}
+
+/**
+ * A key frame's image: a data URL of a PNG, JPEG or WebP in base64, decoding to at most 16 KB, whose bytes begin
+ * as that type's files do. The length is checked before anything reads the text.
+ */
+function checkKeyFrameImage(c: Checker, path: string, image: unknown): void {
+  const allowed = Object.keys(KEY_FRAME_TYPES).join(', ');
+  const rule = `must be a data URL "data:<type>;base64,…" of ${allowed}, at most ${LIST_LIMITS.key_frame_bytes_max} bytes`;
+  if (typeof image !== 'string') {
+    c.add(path, image, rule, image === undefined ? '' : 'is not text');
+    return;
+  }
+  if (image.length > KEY_FRAME_CHARS_MAX) {
+    c.add(path, image, rule, 'is too large', `${show(image.slice(0, 30))}… (${image.length} characters)`);
+    return;
+  }
+  const prefix = KEY_FRAME_PREFIX.exec(image);
+  if (!prefix) {
+    c.add(path, image, rule, 'is not a data URL of an allowed image');
+    return;
+  }
+  const body = image.slice(prefix[0].length);
+  if (body.length % 4 !== 0 || !BASE64_BODY.test(body)) {
+    c.add(path, image, rule, 'is not base64');
+    return;
+  }
+  const padding = body.endsWith('==') ? 2 : body.endsWith('=') ? 1 : 0;
+  const bytes = (body.length / 4) * 3 - padding;
+  if (bytes > LIST_LIMITS.key_frame_bytes_max) {
+    c.add(path, image, rule, 'is too large', `${show(image.slice(0, 30))}… (${bytes} bytes)`);
+    return;
+  }
+  const type = prefix[1] as keyof typeof KEY_FRAME_TYPES;
+  const magic = KEY_FRAME_TYPES[type];
+  const head = firstBytes(body, 12);
+  const isWebp = type !== 'image/webp' || String.fromCharCode(...head.slice(8, 12)) === 'WEBP';
+  if (head.length < magic.length || magic.some((b, i) => head[i] !== b) || !isWebp) {
+    c.add(path, image, `its bytes must begin as a ${type.slice(6).toUpperCase()} file does`, `is not ${article(type.slice(6).toUpperCase())} image`);
+  }
+}
+
+/**
+ * A clip's evidence: every field in range, timestamps strictly increasing with one tracked row per frame, the
+ * release before the impact, 0, 2 or 3 scale marks, at most 6 small key frames; and the drop's time is the
+ * impact minus the release.
+ */
+function checkClip(c: Checker, clip: unknown, time: unknown): void {
+  if (!c.object('clip', clip, 'the evidence of a clip')) return;
+  c.text('clip.codec', clip.codec, TEXT_LIMITS.codec, true);
+  c.text('clip.container', clip.container, TEXT_LIMITS.codec, true);
+  c.number('clip.width_px', clip.width_px, LIMITS.clip_size_px);
+  c.number('clip.height_px', clip.height_px, LIMITS.clip_size_px);
+  c.number('clip.frame_rate_hz', clip.frame_rate_hz, LIMITS.frame_rate_Hz);
+  const frames = LIST_LIMITS.clip_frames_max;
+  if (checkListLength(c, 'clip.frame_times_s', clip.frame_times_s, 2, frames, 'frame timestamps')) {
+    const times = clip.frame_times_s;
+    const ok = times.map((t, i) => c.number(`clip.frame_times_s[${i}]`, t, LIMITS.clip_time_s));
+    strictlyIncreasing(c, (i) => `clip.frame_times_s[${i}]`, times, ok, ' s');
+    if (checkListLength(c, 'clip.track_y_px', clip.track_y_px, times.length, times.length, 'rows, one per frame timestamp (or null)')) {
+      clip.track_y_px.forEach((y, i) => c.nullableNumber(`clip.track_y_px[${i}]`, y, LIMITS.clip_position_px));
+    }
+  } else if (!Array.isArray(clip.track_y_px)) {
+    c.add('clip.track_y_px', clip.track_y_px, 'must be a list of rows, one per frame timestamp (or null)', 'is not a list');
+  }
+  const release = c.number('clip.release_s', clip.release_s, LIMITS.clip_time_s);
+  c.number('clip.u_release_s', clip.u_release_s, LIMITS.u_clip_time_s);
+  const impact = c.number('clip.impact_s', clip.impact_s, LIMITS.clip_time_s);
+  c.number('clip.u_impact_s', clip.u_impact_s, LIMITS.u_clip_time_s);
+  if (release && impact) {
+    const [r, i] = [clip.release_s as number, clip.impact_s as number];
+    if (i <= r) c.add('clip.impact_s', i, `must be after clip.release_s (${r} s)`, 'is out of order');
+    else if (isFiniteNumber(time) && Math.abs(time - (i - r)) > CLIP_TIME_TOLERANCE_S) {
+      c.add('time_s', time, `must equal clip.impact_s − clip.release_s (${i - r} s)`, 'does not match the clip');
+    }
+  }
+  if (c.object('clip.fall_line', clip.fall_line, 'a line on the frame')) {
+    const line = clip.fall_line;
+    for (const key of ['x0_px', 'y0_px', 'x1_px', 'y1_px']) c.number(`clip.fall_line.${key}`, line[key], LIMITS.clip_position_px);
+    c.onlyFields('clip.fall_line', line, ['x0_px', 'y0_px', 'x1_px', 'y1_px'], 'a line on the frame');
+  }
+  c.number('clip.landing_y_px', clip.landing_y_px, LIMITS.clip_position_px);
+  const counts: readonly number[] = LIST_LIMITS.scale_counts;
+  const scaleRule = `must be a list of ${counts.join(', ')} scale marks (x_px, y_px, height_m)`;
+  if (!Array.isArray(clip.scale)) c.add('clip.scale', clip.scale, scaleRule, 'is not a list');
+  else if (!counts.includes(clip.scale.length)) c.add('clip.scale', clip.scale, scaleRule, 'has a wrong count', `a list of ${clip.scale.length}`);
+  else {
+    clip.scale.forEach((mark, i) => {
+      const at = `clip.scale[${i}]`;
+      if (!c.object(at, mark, 'a scale mark')) return;
+      c.number(`${at}.x_px`, mark.x_px, LIMITS.clip_position_px);
+      c.number(`${at}.y_px`, mark.y_px, LIMITS.clip_position_px);
+      c.number(`${at}.height_m`, mark.height_m, LIMITS.scale_height_m);
+      c.onlyFields(at, mark, ['x_px', 'y_px', 'height_m'], 'a scale mark');
+    });
+  }
+  if (checkListLength(c, 'clip.key_frames', clip.key_frames, 0, LIST_LIMITS.key_frames_max, 'key frames')) {
+    clip.key_frames.forEach((frame, i) => {
+      const at = `clip.key_frames[${i}]`;
+      if (!c.object(at, frame, 'a key frame')) return;
+      c.number(`${at}.time_s`, frame.time_s, LIMITS.clip_time_s);
+      checkKeyFrameImage(c, `${at}.image`, frame.image);
+      c.onlyFields(at, frame, ['time_s', 'image'], 'a key frame');
+    });
+  }
+  c.onlyFields(
+    'clip',
+    clip,
+    ['codec', 'container', 'width_px', 'height_px', 'frame_rate_hz', 'frame_times_s', 'track_y_px', 'release_s', 'u_release_s', 'impact_s', 'u_impact_s', 'fall_line', 'landing_y_px', 'scale', 'key_frames'],
+    'the evidence of a clip',
+  );
+}
+
 function checkCrew(c: Checker, crew: unknown): void {
   if (!Array.isArray(crew)) {
     c.add('crew', crew, 'must be a list of names', 'is not a list');
@@ -428,6 +656,7 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     c.id('reading_id', b.reading_id, true);
     c.id('reading_aloft_id', b.reading_aloft_id, true);
     c.oneOf('timing_offset', b.timing_offset, ENUMS.timing_offset);
+    if (b.gate_distances_m !== undefined) checkGates(c, b.gate_distances_m);
     c.nullableNumber('timing_delay_s', b.timing_delay_s, LIMITS.timing_delay_s);
     c.nullableNumber('u_timing_delay_s', b.u_timing_delay_s, LIMITS.u_timing_delay_s);
     c.instant('started_at', b.started_at);
@@ -450,6 +679,9 @@ const CHECKS: { [K in RecordKind]: (c: Checker, b: Record<string, unknown>) => v
     }
     c.text('note', b.note, NOTES_MAX, false);
     c.instant('captured_at', b.captured_at);
+    if (b.marks !== undefined && checkMarks(c, b.marks)) checkLandingAfterMarks(c, b.marks, b.time_s, b.height_m);
+    if (b.release_time_known !== undefined) c.boolean('release_time_known', b.release_time_known);
+    if (b.clip !== undefined) checkClip(c, b.clip, b.time_s);
   },
 };
 

@@ -10,13 +10,34 @@ import type { PhysicsWarning } from './physicsWarning';
 import type { SpecimenInput } from './specimenGeometry';
 import type { TimingMethod } from './timingMethodDefaults';
 
+/** One point of a drop's fall: the distance fallen from the release point against the time from the release. */
+export interface DropMark {
+  /** Distance fallen from the release point, m (≥ 0, at most the drop's height). */
+  distance_m: number;
+  /** Time from the release, s (with an unknown release: from its estimate, so it may be slightly negative). */
+  time_s: number;
+}
+
 export interface DropInput {
   /** The caller's own name for the drop (the log's drop id); carried to its result so rows join by it, never by position. */
   id?: string;
-  /** Release height above the point where the time stops, m. */
+  /**
+   * Release height above the point where the time stops, m. With marks a JSON request may leave it (and time_s)
+   * out; the validated request always has them: the landing when given (then also the last mark), else the last mark.
+   */
   height_m: number;
   /** Measured fall time from release, s. */
   time_s: number;
+  /**
+   * Several points of the fall (video, light gates, typed): 2 to 64, strictly increasing in distance and time.
+   * In the validated request the landing (height_m, time_s), when given apart, is the last mark.
+   */
+  marks?: DropMark[];
+  /**
+   * Default true. False: the zero of this drop's times is itself an estimate (video), and the fit estimates the
+   * drop's own release time shift.
+   */
+  release_time_known?: boolean;
 }
 
 export interface TimingInput {
@@ -36,6 +57,12 @@ export interface TimingInput {
   offset_s?: number;
   /** Standard uncertainty of the declared delay, s: one error shared by every drop of the series. */
   offset_standard_uncertainty_s?: number;
+  /**
+   * Drops with marks and a known release: the standard uncertainty of the release instant itself, s, one error
+   * shared by every mark of the drop (each mark's own reading has standard_uncertainty_s). Default: the method's
+   * (timingMethodDefaults.ts), else 0.
+   */
+  release_standard_uncertainty_s?: number;
 }
 
 /** Standard uncertainties of the inputs, in the inputs' own units. Missing ones count as zero (with a warning). */
@@ -65,6 +92,16 @@ export interface UncertaintyInput {
   vertical_wind_m_s?: number;
   /** Of the horizontal wind speed, m/s; default from the recorded wind. */
   wind_speed_m_s?: number;
+  /**
+   * Marks only: the random error of each mark's distance, m (a video detector's position noise on the scale),
+   * independent from mark to mark; it enters each mark's time as that error over the speed there (effective variance).
+   */
+  mark_distance_m?: number;
+  /**
+   * Marks only: the relative standard uncertainty of each drop's distance scale (a clip's scale marks), independent
+   * between drops, dimensionless. The distances' own tape errors are height_m, one per distinct distance.
+   */
+  mark_scale_relative?: number;
 }
 
 /**
@@ -131,6 +168,10 @@ export interface DropResult {
   fitted_time_s: number;
   /** Measured minus fitted. */
   residual_s: number;
+  /** Only for a drop with marks: each mark with the fitted model's time (release shift and offset included) and measured minus fitted. */
+  marks?: { distance_m: number; time_s: number; fitted_time_s: number; residual_s: number }[];
+  /** Only for a drop with marks: the fitted release time shift on the drop's own times, s; null when the release time is known. */
+  release_shift_s?: number | null;
   /** From the fitted model. */
   impact_speed_m_s: number;
   impact_energy_J: number;

@@ -5,7 +5,7 @@
  * unit-less name ("temperature" for "temperature_C") would otherwise be silently ignored.
  */
 import { airProperties, type AirInput } from './airProperties';
-import type { AirAloftInput, AnalysisOptions, AnalysisRequest, DropInput, TimingInput, UncertaintyInput } from './analysisTypes';
+import type { AirAloftInput, AnalysisOptions, AnalysisRequest, DropInput, DropMark, TimingInput, UncertaintyInput } from './analysisTypes';
 import { checkNumber, checkOptionalNumber } from './checkNumber';
 import { localGravity, type SiteInput } from './normalGravity';
 import { PhysicsInputError } from './physicsInputError';
@@ -26,10 +26,23 @@ export const DROP_LIMITS = {
   standard_uncertainty_s: { min: 0, minExclusive: true, max: 10, text: 'above 0 and at most 10 s' },
 } as const;
 
+/**
+ * A drop's marks (distance fallen against time from the release): at least two to say anything a single time does
+ * not, at most 64 (a 240 frames/s clip of a 1 m fall holds about 110 frames; a few dozen evenly spread say as much).
+ */
+export const MARK_LIMITS = {
+  count: { min: 2, max: 64, text: '2 to 64 marks' },
+  distance_m: { min: 0, max: 10_000, text: '0 to 10 000 m fallen from the release point' },
+  time_s: { min: 0, max: 3600, text: '0 to 3600 s from the release' },
+  // A video's release is estimated: its marks' zero may sit a little after the body left rest.
+  estimatedTime_s: { min: -1, max: 3600, text: '-1 to 3600 s from the estimated release' },
+} as const;
+
 /** A declared start/stop delay: hand timing is off by a few tenths of a second at worst (see timingMethodDefaults.ts). */
 export const TIMING_OFFSET_LIMITS = {
   offset_s: { min: -2, max: 2, text: '-2 to 2 s' },
   offset_standard_uncertainty_s: { min: 0, max: 2, text: '0 to 2 s' },
+  release_standard_uncertainty_s: { min: 0, max: 2, text: '0 to 2 s' },
 } as const;
 
 /** The air along the fall and its motion (airColumn.ts). */
@@ -71,7 +84,66 @@ const UNCERTAINTY_LIMITS: Record<keyof UncertaintyInput, { max: number; text: st
   lapse_rate_K_per_m: { max: 0.01, text: '0 to 0.01 K/m' },
   vertical_wind_m_s: { max: 10, text: '0 to 10 m/s' },
   wind_speed_m_s: { max: 30, text: '0 to 30 m/s' },
+  mark_distance_m: { max: 1, text: '0 to 1 m' },
+  mark_scale_relative: { max: 0.2, text: '0 to 0.2 (a fifth of the distances)' },
 };
+
+/**
+ * A drop's marks, strictly increasing in distance and time, and its landing (height_m, time_s) when given: the
+ * last mark itself, or one more mark after it. Returns the marks with the landing last.
+ */
+function checkMarks(drop: Record<string, unknown>, field: string, releaseKnown: boolean): { marks: DropMark[]; height_m: number; time_s: number } {
+  const value = drop['marks'];
+  if (!Array.isArray(value)) {
+    throw new PhysicsInputError({ code: 'wrong-type', field: `${field}.marks`, value, allowed: `an array of { "distance_m", "time_s" }, ${MARK_LIMITS.count.text}` });
+  }
+  if (value.length < MARK_LIMITS.count.min || value.length > MARK_LIMITS.count.max) {
+    throw new PhysicsInputError({ code: 'out-of-range', field: `${field}.marks`, value: `${value.length} marks`, allowed: MARK_LIMITS.count.text });
+  }
+  const timeRange = releaseKnown ? MARK_LIMITS.time_s : MARK_LIMITS.estimatedTime_s;
+  const marks: DropMark[] = value.map((m, k) => {
+    const markField = `${field}.marks[${k}]`;
+    const mark = asObject(m, markField);
+    rejectUnknown(mark, markField, ['distance_m', 'time_s']);
+    return {
+      distance_m: checkNumber(`${markField}.distance_m`, mark['distance_m'], MARK_LIMITS.distance_m),
+      time_s: checkNumber(`${markField}.time_s`, mark['time_s'], timeRange),
+    };
+  });
+  for (let k = 1; k < marks.length; k++) {
+    const before = marks[k - 1]!;
+    const mark = marks[k]!;
+    if (!(mark.distance_m > before.distance_m)) {
+      throw new PhysicsInputError({ code: 'out-of-range', field: `${field}.marks[${k}].distance_m`, value: mark.distance_m, allowed: `more than the mark before (${before.distance_m} m): marks strictly increasing in distance` });
+    }
+    if (!(mark.time_s > before.time_s)) {
+      throw new PhysicsInputError({ code: 'out-of-range', field: `${field}.marks[${k}].time_s`, value: mark.time_s, allowed: `more than the mark before (${before.time_s} s): marks strictly increasing in time` });
+    }
+  }
+  const last = marks[marks.length - 1]!;
+  const hasHeight = drop['height_m'] !== undefined;
+  const hasTime = drop['time_s'] !== undefined;
+  if (hasHeight !== hasTime) {
+    const missing = hasHeight ? 'time_s' : 'height_m';
+    throw new PhysicsInputError({ code: 'missing-field', field: `${field}.${missing}`, value: undefined, allowed: 'both height_m and time_s (the landing, one more mark) or neither with marks' });
+  }
+  if (!hasHeight) {
+    checkNumber(`${field}.marks[${marks.length - 1}].time_s`, last.time_s, DROP_LIMITS.time_s);
+    checkNumber(`${field}.marks[${marks.length - 1}].distance_m`, last.distance_m, DROP_LIMITS.height_m);
+    return { marks, height_m: last.distance_m, time_s: last.time_s };
+  }
+  const height = checkNumber(`${field}.height_m`, drop['height_m'], DROP_LIMITS.height_m);
+  const time = checkNumber(`${field}.time_s`, drop['time_s'], DROP_LIMITS.time_s);
+  // The landing repeated as the last mark (a validated request read again) is the same mark.
+  if (height === last.distance_m && time === last.time_s) return { marks, height_m: height, time_s: time };
+  if (!(height > last.distance_m)) {
+    throw new PhysicsInputError({ code: 'out-of-range', field: `${field}.height_m`, value: height, allowed: `more than the last mark's distance (${last.distance_m} m): the landing is the last point of the fall` });
+  }
+  if (!(time > last.time_s)) {
+    throw new PhysicsInputError({ code: 'out-of-range', field: `${field}.time_s`, value: time, allowed: `more than the last mark's time (${last.time_s} s): the landing is the last point of the fall` });
+  }
+  return { marks: [...marks, { distance_m: height, time_s: time }], height_m: height, time_s: time };
+}
 
 const AIR_READING_FIELDS = ['temperature_C', 'pressure_Pa', 'pressure_reference', 'relative_humidity_pct', 'dew_point_C'] as const;
 const AIR_MOTION_FIELDS = ['height_m', 'vertical_wind_m_s', 'wind_speed_m_s'] as const;
@@ -175,18 +247,36 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   const drops: DropInput[] = dropsValue.map((d, i) => {
     const field = `drops[${i}]`;
     const drop = asObject(d, field);
-    rejectUnknown(drop, field, ['id', 'height_m', 'time_s']);
+    rejectUnknown(drop, field, ['id', 'height_m', 'time_s', 'marks', 'release_time_known']);
     const id = drop['id'];
     if (id !== undefined && typeof id !== 'string') throw new PhysicsInputError({ code: 'wrong-type', field: `${field}.id`, value: id, allowed: 'a string (the drop\'s own name)' });
+    const known = drop['release_time_known'];
+    if (known !== undefined && typeof known !== 'boolean') {
+      throw new PhysicsInputError({ code: 'wrong-type', field: `${field}.release_time_known`, value: known, allowed: 'true or false' });
+    }
+    if (drop['marks'] === undefined) {
+      if (known === false) {
+        throw new PhysicsInputError({ code: 'conflicting-fields', field: `${field}.release_time_known`, value: known, allowed: 'true, or false only with marks (a single time needs its release)' });
+      }
+      return {
+        ...(id !== undefined ? { id } : {}),
+        height_m: checkNumber(`${field}.height_m`, drop['height_m'], DROP_LIMITS.height_m),
+        time_s: checkNumber(`${field}.time_s`, drop['time_s'], DROP_LIMITS.time_s),
+        ...(known !== undefined ? { release_time_known: known } : {}),
+      };
+    }
+    const checked = checkMarks(drop, field, known !== false);
     return {
       ...(id !== undefined ? { id } : {}),
-      height_m: checkNumber(`${field}.height_m`, drop['height_m'], DROP_LIMITS.height_m),
-      time_s: checkNumber(`${field}.time_s`, drop['time_s'], DROP_LIMITS.time_s),
+      height_m: checked.height_m,
+      time_s: checked.time_s,
+      marks: checked.marks,
+      ...(known !== undefined ? { release_time_known: known } : {}),
     };
   });
 
   const timingObject = asObject(root['timing'], 'timing');
-  rejectUnknown(timingObject, 'timing', ['standard_uncertainty_s', 'offset', 'method', 'offset_s', 'offset_standard_uncertainty_s']);
+  rejectUnknown(timingObject, 'timing', ['standard_uncertainty_s', 'offset', 'method', 'offset_s', 'offset_standard_uncertainty_s', 'release_standard_uncertainty_s']);
   const methodValue = timingObject['method'];
   if (methodValue !== undefined && !TIMING_METHODS.includes(methodValue as TimingMethod)) {
     throw new PhysicsInputError({ code: 'out-of-range', field: 'timing.method', value: methodValue, allowed: TIMING_METHODS.map((m) => `"${m}"`).join(', ') });
@@ -204,13 +294,31 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
   if (offsetS !== undefined) timing.offset_s = offsetS;
   const offsetU = checkOptionalNumber('timing.offset_standard_uncertainty_s', timingObject['offset_standard_uncertainty_s'], TIMING_OFFSET_LIMITS.offset_standard_uncertainty_s);
   if (offsetU !== undefined) timing.offset_standard_uncertainty_s = offsetU;
+  const releaseU = checkOptionalNumber('timing.release_standard_uncertainty_s', timingObject['release_standard_uncertainty_s'], TIMING_OFFSET_LIMITS.release_standard_uncertainty_s);
+  if (releaseU !== undefined) timing.release_standard_uncertainty_s = releaseU;
   const offset = timingObject['offset'];
   if (offset !== undefined) {
     if (offset !== 'none' && offset !== 'fit') {
       throw new PhysicsInputError({ code: 'out-of-range', field: 'timing.offset', value: offset, allowed: '"none" or "fit"' });
     }
     timing.offset = offset;
-    if (offset === 'fit') {
+    if (offset === 'fit' && drops.some((d) => d.marks !== undefined)) {
+      // Only times from a known release see the offset: a drop whose release is estimated takes any constant
+      // delay into its own release shift.
+      const distances = new Set<number>();
+      for (const d of drops) {
+        if (d.release_time_known === false) continue;
+        for (const m of d.marks ?? [{ distance_m: d.height_m }]) if (m.distance_m > 0) distances.add(m.distance_m);
+      }
+      if (distances.size < 3) {
+        throw new PhysicsInputError({
+          code: 'offset-needs-three-heights',
+          field: 'timing.offset',
+          value: offset,
+          allowed: `"none", or "fit" with times from a known release at 3 or more distinct distances (these drops have ${distances.size}; a drop with an estimated release cannot tell an offset from its own release shift)`,
+        });
+      }
+    } else if (offset === 'fit') {
       const distinct = new Set(drops.map((d) => d.height_m)).size;
       if (distinct < 3) {
         throw new PhysicsInputError({
@@ -234,7 +342,7 @@ export function validateAnalysisRequest(json: unknown): AnalysisRequest {
     if (air.pressure_Pa !== undefined) allowed.push('pressure_Pa');
     if (air.relative_humidity_pct !== undefined) allowed.push('relative_humidity_pct');
     if (air.dew_point_C !== undefined) allowed.push('dew_point_C');
-    allowed.push('gravity_m_s2', 'added_mass_coefficient', 'lapse_rate_K_per_m', 'vertical_wind_m_s', 'wind_speed_m_s');
+    allowed.push('gravity_m_s2', 'added_mass_coefficient', 'lapse_rate_K_per_m', 'vertical_wind_m_s', 'wind_speed_m_s', 'mark_distance_m', 'mark_scale_relative');
     rejectUnknown(u, 'uncertainty', allowed);
     const uncertainty: UncertaintyInput = {};
     for (const key of Object.keys(u) as (keyof UncertaintyInput)[]) {

@@ -9,6 +9,8 @@ export const SCHEMA_FILE = `public/schema/plummet-log-${LOG_FORMAT_VERSION}.sche
 export const SCHEMA_FILE_V1 = 'public/schema/plummet-log-1.schema.json';
 /** Format 2's schema: frozen likewise since format 3. */
 export const SCHEMA_FILE_V2 = 'public/schema/plummet-log-2.schema.json';
+/** Format 3's schema: frozen likewise since format 4. */
+export const SCHEMA_FILE_V3 = 'public/schema/plummet-log-3.schema.json';
 
 /** ajv, the reference validator the tests compare the app's own checker with. */
 export function makeAjv(source: boolean): Ajv2020 {

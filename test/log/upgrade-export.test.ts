@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { exportLog, LOG_FORMAT_VERSION, readLogFile, upgradeLogFile, validateRecord, type DropRecord, type LogRecord } from '../../src/log';
-import { makeAjv, SCHEMA_FILE_V1, SCHEMA_FILE_V2 } from './schema-files';
+import { makeAjv, SCHEMA_FILE_V1, SCHEMA_FILE_V2, SCHEMA_FILE_V3 } from './schema-files';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 /**
@@ -114,7 +114,40 @@ describe('reading a format 2 file', () => {
   });
 });
 
+/**
+ * A real format 3 file: the format 2 file above as the format 3 exporter wrote it (commit 1f3b4bc, the last before
+ * format 4). Invented values, not measurements.
+ */
+const V3_TEXT = readFileSync(`${root}test/log/fixtures/plummet-log-v3.json`, 'utf8');
+const v3 = JSON.parse(V3_TEXT) as { format_version: number; records: Record<string, any>[] };
+
+describe('reading a format 3 file', () => {
+  it('is a real format 3 file: the published format 3 schema accepts it', () => {
+    const validate = makeAjv(false).compile(JSON.parse(readFileSync(root + SCHEMA_FILE_V3, 'utf8')));
+    expect(validate(v3), JSON.stringify(validate.errors)).toBe(true);
+    expect(v3.format_version).toBe(3);
+    expect(V3_TEXT).not.toContain('marks');
+  });
+
+  it('is read as format 4 with every record as it was: marks, gates and clips are optional, absent meaning what format 3 meant', () => {
+    const file = readLogFile(V3_TEXT);
+    expect(file.format_version).toBe(LOG_FORMAT_VERSION);
+    expect(file.records).toEqual(v3.records);
+    for (const r of file.records) expect(validateRecord(r)).toEqual([]);
+    // Exported again, only the format number changes.
+    const again = exportLog(file.records, { device: 'phoneA', app_version: '0.4.0' });
+    expect(again).toBe(V3_TEXT.replace('"format_version":3', `"format_version":${LOG_FORMAT_VERSION}`));
+  });
+});
+
 describe('the published schema files', () => {
+  it('keeps format 3 published as format 3 wrote it', () => {
+    const text = readFileSync(root + SCHEMA_FILE_V3, 'utf8');
+    // The digest of the file as format 3 published it (commit 1f3b4bc); nothing writes it any more.
+    expect(createHash('sha256').update(text).digest('hex')).toBe('779b1258dcc29e1d3d0d40e62e0dfd9f8e25bb0cb23a7224523abaac02f9fc7e');
+    expect(JSON.parse(text).properties.format_version).toEqual({ const: 3 });
+  });
+
   it('keeps format 1 published byte for byte, for readers of old files', () => {
     const text = readFileSync(root + SCHEMA_FILE_V1, 'utf8');
     // The digest of the file as format 1 published it (commit 27f3a74); nothing writes it any more.
