@@ -60,7 +60,8 @@ export interface ClipSetup {
 /**
  * The frames the decoder hands over: a band around the fall line, downscaled and grey, one byte per pixel.
  * `frames[i]` is `width × height` bytes row by row; `times_s[i]` is its presentation timestamp. Pixel (u, v) of the
- * band is full-frame pixel (x0_px + u·step_px, y0_px + v·step_px).
+ * band is full-frame pixel (x0_px + u·step_px, y0_px + v·step_px): with step_px > 1, the mean of the step × step
+ * block starting there, so its centre is at (x0_px + u·step_px + (step_px − 1)/2, y0_px + v·step_px + (step_px − 1)/2).
  */
 export interface GreyClip {
   width: number;
@@ -115,4 +116,35 @@ export interface ClipDrop {
   marks: { distance_m: number; time_s: number }[];
   release: FoundInstant;
   impact: FoundInstant;
+  /** With scale marks: each mark's standard uncertainty of distance (track and scale together), m. */
+  marks_u_distance_m: number[];
+  /** With scale marks: the budget of the worst mark's distance, m. */
+  marks_budget: { source: string; u_m: number; basis: string }[];
+}
+
+/**
+ * What a drop keeps from its clip (not the clip itself): plain data, stored with the drop record. The log's own
+ * declaration (src/log/types.ts) has the same shape.
+ */
+export interface ClipEvidence {
+  codec: string;
+  container: string;
+  width_px: number;
+  height_px: number;
+  frame_rate_hz: number;
+  /** Every decoded frame's presentation timestamp, s (at most 8000). */
+  frame_times_s: number[];
+  /** The body's centre row in each frame, full-frame px; null = not found. */
+  track_y_px: (number | null)[];
+  /** On the clip's timeline. */
+  release_s: number;
+  u_release_s: number;
+  impact_s: number;
+  u_impact_s: number;
+  fall_line: { x0_px: number; y0_px: number; x1_px: number; y1_px: number };
+  landing_y_px: number;
+  /** 0, 2 or 3 marks. */
+  scale: { x_px: number; y_px: number; height_m: number }[];
+  /** At most 6 small grey images, "data:image/png;base64,…" or jpeg/webp, each at most 16 KB. */
+  key_frames: { time_s: number; image: string }[];
 }

@@ -20,6 +20,7 @@ import * as sync from '../../src/sync';
 import { checkSyncSettings, parseXml } from '../../src/sync';
 import { seriesRequest } from '../../src/analysis';
 import * as timing from '../../src/timing';
+import * as motion from '../../src/motion';
 import { checkFallTime } from '../../src/timing';
 import * as video from '../../src/video';
 import * as demo from '../log/demo-bodies';
@@ -54,7 +55,7 @@ function errorClassesInSource(): Map<string, { base: string; file: string }> {
 }
 
 /** Error classes exported by each folder's public face. */
-const FACES: Record<string, Record<string, unknown>> = { errors, physics, log, timing, sync, store, analysis, video };
+const FACES: Record<string, Record<string, unknown>> = { errors, physics, log, timing, motion, sync, store, analysis, video };
 
 function catchFrom(run: () => unknown): unknown {
   try {
@@ -91,6 +92,7 @@ const THROWN: Record<string, () => unknown | Promise<unknown>> = {
   PhysicsInputError: () => catchFrom(() => validateAnalysisRequest(validRequest([{ height_m: 12, time_s: -1 }]))),
   TimingError: () => catchFrom(() => checkFallTime(-1)),
   SoundCaptureError: () => new timing.SoundCaptureError({ code: 'microphone-refused', field: 'microphone', value: 'NotAllowedError', allowed: null, message: 'refused' }),
+  MotionError: () => catchFrom(() => motion.heightOfRow([{ x_px: 10, y_px: 100, height_m: 1 }], 50)),
   HlcError: () => catchFrom(() => parseHlc('yesterday')),
   JsonSchemaError: () => catchFrom(() => checkJsonSchema({ $schema: 'https://json-schema.org/draft/2020-12/schema', format: 'email' }, 'x')),
   CanonicalJsonError: () => catchFrom(() => log.canonicalJson({ t: Infinity })),

@@ -382,12 +382,12 @@ function FoundStrip({
   return (
     <div class="video-found" data-testid="clip-found">
       <p>
-        Release at <strong data-testid="found-release">{release.time_s.toFixed(4)} s</strong> (frame {release.frame}
-        {release.by === 'moved' ? ', moved by hand' : ''}), impact at <strong data-testid="found-impact">{impact.time_s.toFixed(4)} s</strong> (frame {impact.frame}
+        Release at <strong data-testid="found-release" data-time-s={release.time_s} data-u-s={release.u_time_s}>{release.time_s.toFixed(4)} s</strong> (frame {release.frame}
+        {release.by === 'moved' ? ', moved by hand' : ''}), impact at <strong data-testid="found-impact" data-time-s={impact.time_s} data-u-s={impact.u_time_s}>{impact.time_s.toFixed(4)} s</strong> (frame {impact.frame}
         {impact.by === 'moved' ? ', moved by hand' : ''}).
       </p>
       <p>
-        Fall time <strong data-testid="found-time">{app.format(time_s, 'time')}</strong> ± {app.format(fallTimeUncertainty(release, impact), 'time')} (standard uncertainty)
+        Fall time <strong data-testid="found-time" data-time-s={time_s} data-u-s={fallTimeUncertainty(release, impact)}>{app.format(time_s, 'time')}</strong> ± {app.format(fallTimeUncertainty(release, impact), 'time')} (standard uncertainty)
       </p>
       {(['release', 'impact'] as const).map((which) => (
         <Strip
