@@ -85,7 +85,7 @@ export function checkClipProbe(probe: ClipProbe): void {
 export function codecFamily(codec: string): string {
   const tag = codec.split('.')[0]!.toLowerCase();
   if (tag === 'avc1' || tag === 'avc3') return 'H.264';
-  if (tag === 'hvc1' || tag === 'hev1') return 'HEVC (H.265)';
+  if (tag === 'hvc1' || tag === 'hev1') return 'HEVC';
   if (tag === 'vp09' || tag === 'vp9') return 'VP9';
   if (tag === 'vp8') return 'VP8';
   if (tag === 'av01') return 'AV1';

@@ -121,6 +121,11 @@ describe.skipIf(!haveChromium || !haveFfmpeg)('video timing in the series screen
 
   /** Picks a clip, taps the scene's fall line and landing line, reads every frame; the found strip or a refusal. */
   async function timeClip(made: MadeClip, shot?: string): Promise<void> {
+    // A case that failed may have left a clip open: start again from the pick buttons.
+    for (const name of ['Pick another clip', 'Discard this clip']) {
+      const back = page.getByRole('button', { name });
+      if (await back.count()) await back.click();
+    }
     await page.getByTestId('clip-pick').setInputFiles(made.file);
     const still = page.getByTestId('clip-still');
     await expectVisible(still);
@@ -130,10 +135,13 @@ describe.skipIf(!haveChromium || !haveFfmpeg)('video timing in the series screen
     if (!frame) throw new Error('no still frame on screen');
     const at = (x: number, y: number) => page.mouse.click(frame.x + (x / made.scene.width) * frame.width, frame.y + (y / made.scene.height) * frame.height);
     const { fall_line, landing_y_px } = made.scene.setup;
+    const step = page.getByTestId('tap-step');
     await at(fall_line.x0_px, fall_line.y0_px);
+    await page.getByText('Tap the bottom of the fall line').waitFor();
     await at(fall_line.x1_px, fall_line.y1_px);
+    await page.getByText('Tap the landing line').waitFor();
     await at(fall_line.x1_px, landing_y_px);
-    expect(await page.getByTestId('tap-step').innerText()).toContain('Ready');
+    await step.getByText('Ready').waitFor();
     if (shot) await page.screenshot({ path: `${SHOTS}/${shot}-setup.png` });
     await page.getByRole('button', { name: 'Read every frame' }).click();
   }

@@ -4,18 +4,17 @@
 // step frame by frame and move either instant by hand (with a reason, kept in the drop's history); then make the
 // drop. Nothing is stored until "Make the drop"; every refusal shows its message and leaves the log as it was.
 import { useEffect, useRef, useState } from 'preact/hooks';
-import type { ClipSetup, FoundInstant, GreyClip, TrackPoint } from '../../../../motion';
+import { clipBand, findFall, moveInstant, type ClipProbe, type ClipSetup, type FallFinding, type GreyClip, type TrackPoint } from '../../../../motion';
 import type { ClipReader, BandProgress } from '../../../../video';
 import { inputRange, LIMITS, type SeriesRecord } from '../../../../log';
 import { useApp } from '../../../app-context';
 import { Notice, QField, TextField, field, fieldsValid, type FieldState } from '../../../forms';
 import { describeError } from '../../../errors';
 import { useUndo } from '../../../undo';
-import { clipDropFields, clipEvidence, fallTimeUncertainty, instantAtFrame, KEY_FRAMES_PER_INSTANT } from './video-drop';
+import { clipDropFields, fallTimeUncertainty } from './video-drop';
 import { keyFrameImage, paintGrey, stripWindow, type StripWindow } from './frame-strip';
-import { loadMotionFinder, type MotionFinding } from './motion-finder';
 
-type Finding = MotionFinding;
+type Finding = FallFinding;
 
 type Stage =
   | { kind: 'pick' }
@@ -143,9 +142,10 @@ export function VideoEntry({ series, nextSeq, releaseHeight }: { series: SeriesR
     if (!c || !probe) return;
     const box = c.getBoundingClientRect();
     const p = { x: ((e.clientX - box.left) / box.width) * probe.width_px, y: ((e.clientY - box.top) / box.height) * probe.height_px };
-    if (taps.length < TAP_STEPS.length) setTaps([...taps, p]);
+    // Functional updates: two quick taps arrive before the panel has drawn the first.
+    if (taps.length < TAP_STEPS.length) setTaps((t) => (t.length < TAP_STEPS.length ? [...t, p] : t));
     else if (addingMark && scale.length < 3) {
-      setScale([...scale, { at: p, height: field() }]);
+      setScale((s) => (s.length < 3 ? [...s, { at: p, height: field() }] : s));
       setAddingMark(false);
     }
   };
@@ -171,10 +171,9 @@ export function VideoEntry({ series, nextSeq, releaseHeight }: { series: SeriesR
     setError(null);
     setStage({ kind: 'running', progress: null });
     try {
-      const motion = await loadMotionFinder();
-      const band = motion.clipBand(setup, r.probe);
+      const band = clipBand(setup, r.probe);
       const clip = await r.greyBand(band, { signal: abort.signal, onProgress: (progress) => setStage({ kind: 'running', progress }) });
-      const finding = motion.findFall(clip, setup);
+      const finding = findFall(clip, setup);
       setStage({ kind: 'found', clip, setup, finding });
     } catch (e) {
       // A cancelled run stopped the worker: the clip is opened again from its still frame on the next pick.
@@ -285,11 +284,13 @@ export function VideoEntry({ series, nextSeq, releaseHeight }: { series: SeriesR
           key={`${stage.finding.release.time_s}`}
           clip={stage.clip}
           finding={stage.finding}
-          onMake={async (release, impact, reasons) => {
+          probe={probe}
+          setup={stage.setup}
+          onMake={async (final, reasons) => {
             try {
-              const keyFrames = keyFramesOf(stage.clip, stage.finding.track, [release, impact]);
-              const evidence = clipEvidence(probe, stage.clip, stage.finding.track, stage.setup, stage.finding.release, stage.finding.impact, keyFrames);
-              const fields = clipDropFields(evidence, stage.finding.release, stage.finding.impact);
+              const found = stage.finding;
+              const keyFrame = (frame: number) => keyFrameImage(stage.clip, frame, windowNear(found.track, frame, stage.clip));
+              const first = clipDropFields(probe, stage.setup, found, keyFrame);
               let drop = await app.store.create('drop', {
                 series_id: series.id,
                 seq: nextSeq,
@@ -298,16 +299,19 @@ export function VideoEntry({ series, nextSeq, releaseHeight }: { series: SeriesR
                 exclusion_reason: null,
                 note: '',
                 captured_at: new Date().toISOString(),
-                ...fields,
+                ...first.fields,
               });
+              let u = first.u_time_s;
               // An instant moved by hand is a correction of the found drop, with the crew's reason in its history.
               if (reasons.length) {
-                const moved = clipEvidence(probe, stage.clip, stage.finding.track, stage.setup, release, impact, keyFrames);
-                drop = await app.store.revise('drop', drop.id, clipDropFields(moved, release, impact), reasons.join('; '), { expectedRev: drop.rev });
+                const moved = clipDropFields(probe, stage.setup, final, keyFrame);
+                drop = await app.store.revise('drop', drop.id, moved.fields, reasons.join('; '), { expectedRev: drop.rev });
+                u = moved.u_time_s;
               }
               offerUndo(`Drop ${drop.seq} added from the clip: ${app.format(drop.time_s, 'time')}`, [drop]);
               app.notifyChanged();
-              setSaved(`Drop ${drop.seq} saved: ${app.format(drop.time_s, 'time')} ± ${app.format(fallTimeUncertainty(release, impact), 'time')} (from the clip)`);
+              const marks = drop.marks?.length ? `, ${drop.marks.length} marks along the fall` : '';
+              setSaved(`Drop ${drop.seq} saved: ${app.format(drop.time_s, 'time')} ± ${app.format(u, 'time')} (from the clip${marks})`);
               reset();
             } catch (e) {
               setError(describeError(e));
@@ -318,20 +322,6 @@ export function VideoEntry({ series, nextSeq, releaseHeight }: { series: SeriesR
       ) : null}
     </div>
   );
-}
-
-/** The frames before, at and after each instant, cropped around the body (at most six). */
-function keyFramesOf(clip: GreyClip, track: TrackPoint[], instants: FoundInstant[]): { time_s: number; image: string }[] {
-  const out: { time_s: number; image: string }[] = [];
-  for (const instant of instants) {
-    const at = windowNear(track, instant.frame, clip);
-    for (let k = -1; k < KEY_FRAMES_PER_INSTANT - 1; k++) {
-      const f = instant.frame + k;
-      if (f < 0 || f >= clip.frames.length) continue;
-      out.push({ time_s: clip.times_s[f]!, image: keyFrameImage(clip, f, at) });
-    }
-  }
-  return out;
 }
 
 /** The strip's square around the tracked body at a frame (or the nearest frame where it was found). */
@@ -354,17 +344,23 @@ function formatRate(hz: number): string {
 function FoundStrip({
   clip,
   finding,
+  probe,
+  setup,
   onMake,
   onDiscard,
 }: {
   clip: GreyClip;
   finding: Finding;
-  onMake(release: FoundInstant, impact: FoundInstant, reasons: string[]): Promise<void>;
+  probe: ClipProbe;
+  setup: ClipSetup;
+  onMake(final: Finding, reasons: string[]): Promise<void>;
   onDiscard(): void;
 }) {
   const app = useApp();
-  const [release, setRelease] = useState(finding.release);
-  const [impact, setImpact] = useState(finding.impact);
+  const [current, setCurrent] = useState(finding);
+  const [moveError, setMoveError] = useState<string | null>(null);
+  const { release, impact } = current;
+  const u = fallTimeUncertainty(probe, setup, current);
   const [cursor, setCursor] = useState<{ which: 'release' | 'impact'; frame: number }>({ which: 'release', frame: finding.release.frame });
   const [reason, setReason] = useState('');
   const [reasons, setReasons] = useState<string[]>([]);
@@ -372,12 +368,17 @@ function FoundStrip({
   const time_s = impact.time_s - release.time_s;
   const instant = cursor.which === 'release' ? release : impact;
   const moveTo = () => {
-    const moved = instantAtFrame(clip, cursor.frame);
-    const from = instant.time_s;
-    if (cursor.which === 'release') setRelease(moved);
-    else setImpact(moved);
-    setReasons([...reasons, `${cursor.which} moved by hand from ${from.toFixed(5)} s to ${moved.time_s.toFixed(5)} s (frame ${moved.frame}): ${reason.trim()}`]);
-    setReason('');
+    try {
+      const from = instant.time_s;
+      const next = moveInstant(current, cursor.which, clip.times_s[cursor.frame]!);
+      const moved = next[cursor.which];
+      setCurrent(next);
+      setMoveError(null);
+      setReasons([...reasons, `${cursor.which} moved by hand from ${from.toFixed(5)} s to ${moved.time_s.toFixed(5)} s (frame ${moved.frame}): ${reason.trim()}`]);
+      setReason('');
+    } catch (e) {
+      setMoveError(describeError(e));
+    }
   };
   return (
     <div class="video-found" data-testid="clip-found">
@@ -387,14 +388,14 @@ function FoundStrip({
         {impact.by === 'moved' ? ', moved by hand' : ''}).
       </p>
       <p>
-        Fall time <strong data-testid="found-time" data-time-s={time_s} data-u-s={fallTimeUncertainty(release, impact)}>{app.format(time_s, 'time')}</strong> ± {app.format(fallTimeUncertainty(release, impact), 'time')} (standard uncertainty)
+        Fall time <strong data-testid="found-time" data-time-s={time_s} data-u-s={u}>{app.format(time_s, 'time')}</strong> ± {app.format(u, 'time')} (standard uncertainty)
       </p>
       {(['release', 'impact'] as const).map((which) => (
         <Strip
           key={which}
           which={which}
           clip={clip}
-          track={finding.track}
+          track={current.track}
           instant={which === 'release' ? release : impact}
           cursor={cursor.which === which ? cursor.frame : null}
           onPick={(frame) => setCursor({ which, frame })}
@@ -417,6 +418,7 @@ function FoundStrip({
           Frame ▶
         </button>
       </div>
+      {moveError ? <Notice tone="bad">{moveError}</Notice> : null}
       {cursor.frame !== instant.frame ? (
         <div class="video-move">
           <TextField id="move-reason" label={`Why the ${cursor.which} is at frame ${cursor.frame}`} value={reason} onInput={setReason} />
@@ -431,7 +433,7 @@ function FoundStrip({
         disabled={busy || !(time_s > 0)}
         onClick={async () => {
           setBusy(true);
-          await onMake(release, impact, reasons);
+          await onMake(current, reasons);
           setBusy(false);
         }}
       >
@@ -455,7 +457,7 @@ function Strip({
   which: 'release' | 'impact';
   clip: GreyClip;
   track: TrackPoint[];
-  instant: FoundInstant;
+  instant: Finding['release'];
   cursor: number | null;
   onPick(frame: number): void;
 }) {
