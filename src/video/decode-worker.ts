@@ -14,7 +14,7 @@
  * - `copyTo` refuses a rectangle that cuts a chroma block: the copy rectangle is widened to even corners.
  * - The frame's visible rectangle may sit inside a larger coded one (1080 rows coded as 1088).
  */
-import { BlobSource, CanvasSink, EncodedPacketSink, Input, MATROSKA, MP4, QTFF, WEBM, type InputVideoTrack } from 'mediabunny';
+import { BlobSource, EncodedPacketSink, Input, MATROSKA, MP4, QTFF, WEBM, type InputVideoTrack } from 'mediabunny';
 import { PlummetError } from '../errors';
 import type { ClipProbe } from '../motion';
 import { checkClipProbe, checkClipSize, codecRefusal, frameIntervals, MAX_CLIP_DURATION_S, MAX_CLIP_FRAMES } from './clip-limits';
@@ -122,16 +122,60 @@ async function open(file: Blob): Promise<void> {
   post({ type: 'opened', probe, rotation: opened.rotation });
 }
 
-/** One frame near `time_s`, scaled to `width_px` and turned upright, for the crew to tap on. */
+/**
+ * One frame near `time_s`, scaled to `width_px` and turned upright, for the crew to tap on: decoded from the key
+ * frame before it (the demuxer's own frame-to-canvas helper would double the worker's size, which is precached).
+ */
 async function still(id: number, time_s: number, width_px: number): Promise<void> {
   if (!track || !opened) throw new Error('still before open'); // the page opens first (clip-reader.ts)
-  const width = Math.max(16, Math.round(width_px));
-  const sink = new CanvasSink(track, { width, poolSize: 0 });
-  const wrapped = (await sink.getCanvas(Math.max(0, time_s))) ?? (await sink.getCanvas(0));
-  if (!wrapped) throw new Error('no frame at that time');
-  const canvas = wrapped.canvas as OffscreenCanvas;
-  const bitmap = canvas.transferToImageBitmap();
-  post({ type: 'still', id, bitmap, time_s: wrapped.timestamp }, [bitmap]);
+  const sink = new EncodedPacketSink(track);
+  const key = (await sink.getKeyPacket(time_s)) ?? (await sink.getFirstPacket());
+  if (!key) throw new Error('no frame in the clip');
+  let best: VideoFrame | null = null;
+  let failure: unknown = null;
+  const distance = (f: VideoFrame) => Math.abs(f.timestamp / 1e6 - time_s);
+  const decoder = new VideoDecoder({
+    output: (frame) => {
+      if (!best || distance(frame) < distance(best)) {
+        best?.close();
+        best = frame;
+      } else frame.close();
+    },
+    error: (error) => {
+      failure ??= error;
+    },
+  });
+  decoder.configure(opened.config);
+  const frame_s = 1 / Math.max(1, opened.probe.frame_rate_hz);
+  for await (const packet of sink.packets(key)) {
+    if (failure) break;
+    decoder.decode(packet.toEncodedVideoChunk());
+    // Frames come out of order with B-frames: go a few frames past the time asked for.
+    if (packet.timestamp > time_s + 4 * frame_s) break;
+  }
+  if (!failure) await decoder.flush().catch((error: unknown) => (failure ??= error));
+  if (decoder.state !== 'closed') decoder.close();
+  const frame = best as VideoFrame | null;
+  if (failure || !frame) {
+    (frame as VideoFrame | null)?.close();
+    throw failure ?? new Error('no frame decoded');
+  }
+  try {
+    const rotation = opened.rotation;
+    const scale = Math.max(16, Math.round(width_px)) / opened.probe.width_px;
+    const canvas = new OffscreenCanvas(Math.round(opened.probe.width_px * scale), Math.round(opened.probe.height_px * scale));
+    const ctx = canvas.getContext('2d');
+    if (!ctx) throw new Error('no 2D canvas in the worker');
+    const w = frame.displayWidth * scale;
+    const h = frame.displayHeight * scale;
+    ctx.translate(canvas.width / 2, canvas.height / 2);
+    ctx.rotate((rotation * Math.PI) / 180);
+    ctx.drawImage(frame, -w / 2, -h / 2, w, h);
+    const bitmap = canvas.transferToImageBitmap();
+    post({ type: 'still', id, bitmap, time_s: frame.timestamp / 1e6 }, [bitmap]);
+  } finally {
+    frame.close();
+  }
 }
 
 /** Every frame decoded, each reduced to the grey band at once. */

@@ -131,9 +131,13 @@ describe.skipIf(!haveChromium || !haveFfmpeg)('video timing in the series screen
     await expectVisible(still);
     const facts = await page.getByTestId('clip-facts').innerText();
     expect(facts).toContain(`${made.scene.width} × ${made.scene.height}`);
-    const frame = await still.boundingBox();
-    if (!frame) throw new Error('no still frame on screen');
-    const at = (x: number, y: number) => page.mouse.click(frame.x + (x / made.scene.width) * frame.width, frame.y + (y / made.scene.height) * frame.height);
+    // A tap on the still frame at a full-frame pixel (scrolled into view first, as a crew would).
+    const at = async (x: number, y: number) => {
+      await still.scrollIntoViewIfNeeded();
+      const frame = await still.boundingBox();
+      if (!frame) throw new Error('no still frame on screen');
+      await still.click({ position: { x: (x / made.scene.width) * frame.width, y: (y / made.scene.height) * frame.height } });
+    };
     const { fall_line, landing_y_px } = made.scene.setup;
     const step = page.getByTestId('tap-step');
     await at(fall_line.x0_px, fall_line.y0_px);
