@@ -169,8 +169,9 @@ describe.skipIf(!haveChromium || !haveFfmpeg)('video timing in the series screen
       expect(Math.abs(time - truth.fall_time_s), `fall time ${time} ± ${u} s, truth ${truth.fall_time_s} s`).toBeLessThanOrEqual(2 * u);
       if (first) await page.screenshot({ path: `${SHOTS}/04-found.png`, fullPage: true });
       await page.getByRole('button', { name: 'Make the drop' }).click();
-      await expectVisible(page.getByTestId('drop-saved'));
-      expect(await page.getByTestId('drop-saved').innerText()).toContain('from the clip');
+      const saved = page.getByTestId('clip-drop-saved');
+      await expectVisible(saved);
+      expect(await saved.innerText()).toContain('from the clip');
     }, 120_000);
   }
 

@@ -209,7 +209,7 @@ export function VideoEntry({ series, nextSeq, releaseHeight }: { series: SeriesR
       {stage.kind === 'opening' ? <p role="status">Reading the clip…</p> : null}
       {error ? <Notice tone="bad">{error}</Notice> : null}
       {saved ? (
-        <p class="entry-saved" role="status" data-testid="drop-saved">
+        <p class="entry-saved" role="status" data-testid="clip-drop-saved">
           ✓ {saved}
         </p>
       ) : null}
