@@ -43,7 +43,8 @@ if (!chromiumPath || !ffmpeg) {
 }
 
 function makeClip(file: string): void {
-  const wall = `nullsrc=s=${W}x${H}:r=${FPS}:d=${DURATION_S},geq=lum='110+30*sin(X/9)*cos(Y/7)+20*sin((X+Y)/23)':cb=128:cr=128,noise=alls=6:allf=t`;
+  // A still texture (fixed noise, softened), then noise that changes from frame to frame.
+  const wall = `color=c=0x6e6e6e:s=${W}x${H}:r=${FPS}:d=${DURATION_S},noise=alls=40:allf=u,gblur=sigma=1.5,noise=alls=5:allf=t`;
   const disc = `color=c=white:s=${2 * R}x${2 * R}:r=${FPS}:d=${DURATION_S},format=yuva420p,geq=lum=235:cb=128:cr=128:a='if(lt(hypot(X-${R},Y-${R}),${R - 1}),255,0)'`;
   const y = `min(${Y1 - R},${Y0 - R}+if(lt(t,${T0}),0,0.5*${A}*(t-${T0})*(t-${T0})))`;
   const graph = `${wall}[w];${disc}[d];[w][d]overlay=x=${X - R}:y='${y}':eval=frame,format=yuv420p`;
