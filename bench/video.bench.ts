@@ -162,9 +162,10 @@ try {
       };
       await at(X, Y0 - 40);
       await page.getByText('Tap the bottom of the fall line').waitFor();
-      await at(X, Y1);
+      // The floor is where the disc's bottom rests: its centre stops at Y1.
+      await at(X, Y1 + R);
       await page.getByText('Tap the landing line').waitFor();
-      await at(X, Y1);
+      await at(X, Y1 + R);
       await page.getByText('Ready').waitFor();
       const t2 = performance.now();
       await page.getByRole('button', { name: 'Read every frame' }).click();
