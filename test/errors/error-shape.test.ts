@@ -22,6 +22,7 @@ import { seriesRequest } from '../../src/analysis';
 import * as timing from '../../src/timing';
 import * as motion from '../../src/motion';
 import { checkFallTime } from '../../src/timing';
+import * as video from '../../src/video';
 import * as demo from '../log/demo-bodies';
 import { AIR, BALL, SITE, UNCERTAINTY } from '../physics/syntheticSeries';
 import { fakeEnvironment } from '../store/fake-environment';
@@ -54,7 +55,7 @@ function errorClassesInSource(): Map<string, { base: string; file: string }> {
 }
 
 /** Error classes exported by each folder's public face. */
-const FACES: Record<string, Record<string, unknown>> = { errors, physics, log, timing, motion, sync, store, analysis };
+const FACES: Record<string, Record<string, unknown>> = { errors, physics, log, timing, motion, sync, store, analysis, video };
 
 function catchFrom(run: () => unknown): unknown {
   try {
@@ -105,6 +106,10 @@ const THROWN: Record<string, () => unknown | Promise<unknown>> = {
     const s = await createMemoryStore({ database: new MemoryDatabase(), environment: fakeEnvironment().environment });
     return rejectionOf(previewImport(s, log.exportLog([], { device: 'dev1', app_version: 'test' }), 'empty.json', { signal: { aborted: true } }));
   },
+  VideoClipError: () =>
+    catchFrom(() =>
+      video.checkClipProbe({ codec: 'avc1.64001f', container: 'MP4', width_px: 1280, height_px: 720, duration_s: 45, frame_count: 1350, frame_rate_hz: 30, interval_spread: 0, size_bytes: 9e6 }),
+    ),
   StoreError: async () => {
     const s = await createMemoryStore({ database: new MemoryDatabase(), environment: fakeEnvironment().environment });
     return rejectionOf(s.create('day', demo.day()));

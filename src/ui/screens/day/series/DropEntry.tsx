@@ -12,6 +12,10 @@ import { describeError } from '../../../errors';
 import type { TimeCapturedDetail } from '../../../../widgets';
 import { useUndo } from '../../../undo';
 import { MarksEntry } from './MarksEntry';
+import { lazyScreen } from '../../../lazy';
+
+// Video timing loads with the first series timed by video: the first screen carries none of it.
+const VideoEntry = lazyScreen(() => import('./VideoEntry').then((m) => m.VideoEntry), 'Loading video timing…');
 
 interface DropDraft {
   time: FieldState;
@@ -129,6 +133,7 @@ export function DropEntry({
   return (
     <section class="card entry" aria-labelledby="entry-h">
       <h3 id="entry-h">Drop {nextSeq}</h3>
+      {series.timing_method === 'video' ? <VideoEntry series={series} nextSeq={nextSeq} releaseHeight={d.otherHeight && d.height.value !== null ? d.height.value : series.height_m} /> : null}
       <form
         onSubmit={(e) => {
           e.preventDefault();
