@@ -93,6 +93,9 @@ export default defineConfig({
             // The error base every layer extends: its own small file, or the bundler would put it in the physics
             // group (which imports it too) and the shell, whose store errors extend it, would load all the physics.
             { name: 'errors', test: /[\\/]src[\\/]errors[\\/]/ },
+            // The catalogue of stored fields and their limits, which every form reads: its own small file, or the
+            // analysis (which imports it too) would carry it into the physics group and every form would load it.
+            { name: 'fields', test: /[\\/]src[\\/]log[\\/]fields\.ts$/ },
             { name: 'physics', test: /[\\/]src[\\/](physics[\\/](?!planDrop)|analysis[\\/](?!series-curves))|[\\/]day-figures\.ts$/ },
           ],
         },

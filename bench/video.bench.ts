@@ -113,11 +113,12 @@ async function setUpSeries(page: Page, base: string): Promise<void> {
   await box(/^Relative humidity/).fill('50');
   await page.getByRole('button', { name: 'Save reading' }).click();
   await page.goto(`${base}/#/specimens/new`);
-  await box('Name').fill('Disc');
+  await box('Name').fill('Bench disc 60 mm');
   await box(/^Mass/).fill('45');
   await box(/^Diameter/).fill('60');
   await page.getByRole('button', { name: 'Add to the catalogue' }).click();
-  await page.getByText('Disc').first().waitFor();
+  // The catalogue lists it once saved (a bare "Disc" would also match the shape's own option).
+  await page.getByText('Bench disc 60 mm').first().waitFor();
   await page.goto(`${base}/#/day`);
   await page.getByRole('button', { name: 'Start a series' }).click();
   await page.getByRole('button', { name: /Understood/ }).click();

@@ -9,9 +9,11 @@
 //     Two first screens: an empty app (the form to start a day) and a day with a few series (the app's own
 //     sample log, loaded through Settings, then the day opened afresh with its C_d figures filled in).
 //   CSS: at most 10 KB gzip
-//   the whole service-worker precache: at most 300 KB gzip, what a phone downloads to install the app (the
+//   the whole service-worker precache: at most 340 KB gzip, what a phone downloads to install the app (the
 //   files as any compressing web server sends them; PNG icons barely compress). The raw size the phone keeps
-//   in its cache is printed beside it.
+//   in its cache is printed beside it. It was 300 KB until video timing came: its demuxer and decoder worker
+//   (about 52 KB gzip) are precached so that a clip can be timed with no signal, and the 40 KB raised is that
+//   worker's share, not room for anything else.
 // Prints a table and exits 1 when any budget is exceeded or a screen cannot be measured. KB = 1000 bytes.
 import { readFileSync, statSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
@@ -19,7 +21,7 @@ import { gzipSync } from 'node:zlib';
 import { startStaticServer } from './static-server.mjs';
 import { CHROMIUM_ARGS } from './chromium-args.mjs';
 
-export const BUDGETS = { firstScreenJs: 45_000, cssGzip: 10_000, precache: 300_000 };
+export const BUDGETS = { firstScreenJs: 45_000, cssGzip: 10_000, precache: 340_000 };
 
 export { CHROMIUM_ARGS };
 

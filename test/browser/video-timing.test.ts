@@ -176,7 +176,9 @@ describe.skipIf(!haveChromium || !haveFfmpeg)('video timing in the series screen
   }
 
   it('says so when nothing falls in the clip, and stores nothing', async () => {
-    const before = await page.getByRole('heading', { name: /^Drop \d+$/ }).innerText();
+    // Each clip above made one drop: the entry waits for the next one (read once the last save has shown).
+    const before = `Drop ${CASES.length + 1}`;
+    await expect.poll(() => page.getByRole('heading', { name: /^Drop \d+$/ }).innerText(), { timeout: 30_000 }).toBe(before);
     const still = await makeStillClip(folder, { ...SCENE, frame_rate_hz: 60 });
     await timeClip(still);
     const notice = page.locator('.video-entry .notice-bad');
