@@ -5,6 +5,7 @@ import { useStoreData } from '../../use-store-data';
 import { Notice } from '../../Notice';
 import { verdictLine } from './series/verdict-text';
 import { routeHref } from '../../router';
+import { DetailsOnDemand } from '../../details-on-demand';
 import { describeError } from '../../errors';
 import { lazyModule, lazyScreen } from '../../lazy';
 import { inputRange, LIMITS, type ReadingRecord } from '../../../log';
@@ -100,17 +101,21 @@ function ReadingList({ view }: { view: DayView }) {
         }
         return (
           <li key={r.id}>
-            <details class="row-details">
-              <summary class="row" aria-label={`Reading of ${clock(r.taken_at)}: correct, history or remove`}>
-                <span class="row-main">
-                  {clock(r.taken_at)} · {format(r.temperature_C, 'temperature')} ·{' '}
-                  {format(r.pressure_Pa, 'pressure')} {r.pressure_reference === 'station' ? 'on site' : 'reported, sea level'} ·{' '}
-                  {r.humidity.kind === 'relative' ? `${r.humidity.relative_humidity_pct} % RH` : `dew point ${format(r.humidity.dew_point_C, 'temperature')}`}
-                </span>
-                <span class="row-side">ρ {density}</span>
-              </summary>
+            <DetailsOnDemand
+              class="row-details"
+              summary={
+                <summary class="row" aria-label={`Reading of ${clock(r.taken_at)}: correct, history or remove`}>
+                  <span class="row-main">
+                    {clock(r.taken_at)} · {format(r.temperature_C, 'temperature')} ·{' '}
+                    {format(r.pressure_Pa, 'pressure')} {r.pressure_reference === 'station' ? 'on site' : 'reported, sea level'} ·{' '}
+                    {r.humidity.kind === 'relative' ? `${r.humidity.relative_humidity_pct} % RH` : `dew point ${format(r.humidity.dew_point_C, 'temperature')}`}
+                  </span>
+                  <span class="row-side">ρ {density}</span>
+                </summary>
+              }
+            >
               <RecordActions key={r.rev} record={r} label={`the reading of ${clock(r.taken_at)}`} fields={readingFields(r)} />
-            </details>
+            </DetailsOnDemand>
           </li>
         );
       })}
@@ -142,8 +147,7 @@ function DayTools({ view }: { view: DayView }) {
   const sites = useStoreData(() => app.store.list('site'), []);
   const siteOptions = (sites.state === 'ready' ? sites.value : view.site ? [view.site] : []).map((s) => ({ value: s.id, label: s.name }));
   return (
-    <details class="card row-details">
-      <summary>Correct the day or the site</summary>
+    <DetailsOnDemand class="card row-details" summary={<summary>Correct the day or the site</summary>}>
       <h3>The day</h3>
       <RecordActions
         key={view.day.rev}
@@ -179,7 +183,7 @@ function DayTools({ view }: { view: DayView }) {
           />
         </>
       ) : null}
-    </details>
+    </DetailsOnDemand>
   );
 }
 
