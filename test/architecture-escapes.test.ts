@@ -60,6 +60,8 @@ beforeAll(() => {
   scratch = mkdtempSync(join(tmpdir(), 'plummet-guards-'));
   for (const part of ['src', 'sw']) cpSync(join(root, part), join(scratch, part), { recursive: true });
   for (const file of ['tsconfig.json', 'tsconfig.core.json']) cpSync(join(root, file), join(scratch, file));
+  // The one list of Chromium flags, which the office command's PDF printer imports from scripts/.
+  for (const file of ['scripts/chromium-args.mjs', 'scripts/chromium-args.d.mts']) cpSync(join(root, file), join(scratch, file), { recursive: true });
   symlinkSync(join(root, 'node_modules'), join(scratch, 'node_modules'), 'dir');
 });
 

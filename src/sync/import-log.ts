@@ -44,6 +44,8 @@ export async function previewImport(source: RecordSource, text: string, name?: s
   const { onProgress, signal } = options;
   const passed = new WeakSet<object>();
   const steps = readLogFileSteps(text, { name, passed });
+  // The page gets a turn between steps only when someone watches or may cancel: a sync or a test does not wait.
+  const watched = onProgress !== undefined || signal !== undefined;
   let file: LogFile;
   for (;;) {
     throwIfCancelled(signal, 'checking');
@@ -53,7 +55,7 @@ export async function previewImport(source: RecordSource, text: string, name?: s
       break;
     }
     onProgress?.(step.value);
-    await yieldToPage();
+    if (watched) await yieldToPage();
   }
   const preview = await mergeWithStore(source, file, name, passed, options);
   return { file, preview, passed };
@@ -67,7 +69,7 @@ async function mergeWithStore(source: RecordSource, file: LogFile, name: string 
   const local = await source.allRecords({ includeDeleted: true });
   throwIfCancelled(signal, 'merging');
   onProgress?.({ phase: 'merging', done: 0, total });
-  await yieldToPage();
+  if (onProgress !== undefined || signal !== undefined) await yieldToPage();
   const preview = previewGatedMerge(file, local, name, passed);
   onProgress?.({ phase: 'merging', done: total, total });
   return preview;
