@@ -130,78 +130,90 @@ export function DropEntry({
     );
   }
 
+  const typedForm = (
+    <form
+      onSubmit={(e) => {
+        e.preventDefault();
+        void save();
+      }}
+    >
+      {padMode ? (
+        <>
+          {padMode === 'listen' ? (
+            <div class="two">
+              <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(releaseDistance) => form.set({ releaseDistance })} />
+              <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(landingDistance) => form.set({ landingDistance })} />
+            </div>
+          ) : null}
+          <pl-timer-pad
+            label={`Drop ${nextSeq} timer`}
+            mode={padMode}
+            releaseHeight={d.otherHeight && d.height.value !== null ? d.height.value : series.height_m}
+            releaseDistance={d.releaseDistance.value ?? undefined}
+            landingDistance={d.landingDistance.value ?? undefined}
+            airTemperature={airTemperature ?? undefined}
+            decimalComma={app.settings.decimalComma}
+            units={app.settings.units}
+            ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
+              // The capture carries its sound-travel correction as data (raw.sound_travel).
+              // Impact adds the drop at once; the undo bar takes it back if the tap was a slip.
+              void save(d.time, { time_s: e.detail.time_s, raw: e.detail.raw });
+            }}
+          />
+        </>
+      ) : null}
+      <div ref={input as never}>
+        <QField
+          label="Fall time"
+          kind="time"
+          state={d.time}
+          {...inputRange(LIMITS.time_s)}
+          enterHint="next"
+          hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
+          onChange={(time) => {
+            form.set({ time, captured: null });
+            if (error) setError(null);
+          }}
+          onEnter={(time) => void save(time)}
+        />
+      </div>
+      <div class="entry-bar">
+        {error ? <Notice tone="bad">{error}</Notice> : null}
+        <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
+          Add drop {nextSeq}
+        </button>
+        <p class="entry-saved" role="status" aria-live="polite" data-testid="drop-saved">
+          {saved ? `✓ ${saved}` : ''}
+        </p>
+      </div>
+      <label class="check">
+        <input type="checkbox" checked={d.otherHeight} onChange={(e) => form.set({ otherHeight: (e.target as HTMLInputElement).checked })} />
+        <span>Dropped from another height</span>
+      </label>
+      {d.otherHeight ? (
+        <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
+      ) : null}
+      <label class="check">
+        <input type="checkbox" checked={false} onChange={() => setTypedMarks(true)} />
+        <span>Several marks along the fall</span>
+      </label>
+      <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
+    </form>
+  );
+
   return (
     <section class="card entry" aria-labelledby="entry-h">
       <h3 id="entry-h">Drop {nextSeq}</h3>
       {series.timing_method === 'video' ? <VideoEntry series={series} nextSeq={nextSeq} releaseHeight={d.otherHeight && d.height.value !== null ? d.height.value : series.height_m} /> : null}
-      <form
-        onSubmit={(e) => {
-          e.preventDefault();
-          void save();
-        }}
-      >
-        {padMode ? (
-          <>
-            {padMode === 'listen' ? (
-              <div class="two">
-                <QField label="Phone to release point" kind="length" compact state={d.releaseDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(releaseDistance) => form.set({ releaseDistance })} />
-                <QField label="Phone to landing point" kind="length" compact state={d.landingDistance} {...inputRange(LIMITS.sound_distance_m)} onChange={(landingDistance) => form.set({ landingDistance })} />
-              </div>
-            ) : null}
-            <pl-timer-pad
-              label={`Drop ${nextSeq} timer`}
-              mode={padMode}
-              releaseHeight={d.otherHeight && d.height.value !== null ? d.height.value : series.height_m}
-              releaseDistance={d.releaseDistance.value ?? undefined}
-              landingDistance={d.landingDistance.value ?? undefined}
-              airTemperature={airTemperature ?? undefined}
-              decimalComma={app.settings.decimalComma}
-              units={app.settings.units}
-              ontime-captured={(e: CustomEvent<TimeCapturedDetail>) => {
-                // The capture carries its sound-travel correction as data (raw.sound_travel).
-                // Impact adds the drop at once; the undo bar takes it back if the tap was a slip.
-                void save(d.time, { time_s: e.detail.time_s, raw: e.detail.raw });
-              }}
-            />
-          </>
-        ) : null}
-        <div ref={input as never}>
-          <QField
-            label="Fall time"
-            kind="time"
-            state={d.time}
-            {...inputRange(LIMITS.time_s)}
-            enterHint="next"
-            hint={d.captured ? `Captured by the phone (${d.captured.kind === 'sound' ? 'sound onsets' : 'taps'}); typing a new value replaces it.` : undefined}
-            onChange={(time) => {
-              form.set({ time, captured: null });
-              if (error) setError(null);
-            }}
-            onEnter={(time) => void save(time)}
-          />
-        </div>
-        <div class="entry-bar">
-          {error ? <Notice tone="bad">{error}</Notice> : null}
-          <button type="submit" class="btn btn-block btn-big" disabled={!valid || saving}>
-            Add drop {nextSeq}
-          </button>
-          <p class="entry-saved" role="status" aria-live="polite" data-testid="drop-saved">
-            {saved ? `✓ ${saved}` : ''}
-          </p>
-        </div>
-        <label class="check">
-          <input type="checkbox" checked={d.otherHeight} onChange={(e) => form.set({ otherHeight: (e.target as HTMLInputElement).checked })} />
-          <span>Dropped from another height</span>
-        </label>
-        {d.otherHeight ? (
-          <QField label="Height of this drop" kind="length" state={d.height} {...inputRange(LIMITS.height_m)} onChange={(height) => form.set({ height })} />
-        ) : null}
-        <label class="check">
-          <input type="checkbox" checked={false} onChange={() => setTypedMarks(true)} />
-          <span>Several marks along the fall</span>
-        </label>
-        <TextField id="drop-note" label="Note (optional)" value={d.note} onInput={(note) => form.set({ note })} />
-      </form>
+      {series.timing_method === 'video' ? (
+        // A video series times its drops from clips; typing stays possible (a clip lost, a time from elsewhere).
+        <details class="row-details typed-fallback">
+          <summary>Type a fall time, or set another release height</summary>
+          {typedForm}
+        </details>
+      ) : (
+        typedForm
+      )}
     </section>
   );
 }
