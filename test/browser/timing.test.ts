@@ -73,7 +73,11 @@ function fakeMicrophone(file: string): Promise<Browser> {
 /** The harness page puts its API on window. */
 type Win = { timing: TimingHarness };
 
-describe.skipIf(!haveChromium)('sound timing in Chromium with a fake microphone', () => {
+// The fake microphone feeds its file in real time from a thread of its own: on a machine whose two cores are busy
+// with other tests it has been seen to deliver two 10 ms buffers more than the file holds between the clicks
+// (an interval 882 samples too long, in one CI run of many). That is the test device's fault, not the capture's,
+// so a run is repeated up to twice; every run must still measure to the exact sample.
+describe.skipIf(!haveChromium)('sound timing in Chromium with a fake microphone', { retry: 2 }, () => {
   let site: TimingPage;
   let dir: string;
   const open: Browser[] = [];
