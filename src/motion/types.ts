@@ -122,29 +122,5 @@ export interface ClipDrop {
   marks_budget: { source: string; u_m: number; basis: string }[];
 }
 
-/**
- * What a drop keeps from its clip (not the clip itself): plain data, stored with the drop record. The log's own
- * declaration (src/log/types.ts) has the same shape.
- */
-export interface ClipEvidence {
-  codec: string;
-  container: string;
-  width_px: number;
-  height_px: number;
-  frame_rate_hz: number;
-  /** Every decoded frame's presentation timestamp, s (at most 8000). */
-  frame_times_s: number[];
-  /** The body's centre row in each frame, full-frame px; null = not found. */
-  track_y_px: (number | null)[];
-  /** On the clip's timeline. */
-  release_s: number;
-  u_release_s: number;
-  impact_s: number;
-  u_impact_s: number;
-  fall_line: { x0_px: number; y0_px: number; x1_px: number; y1_px: number };
-  landing_y_px: number;
-  /** 0, 2 or 3 marks. */
-  scale: { x_px: number; y_px: number; height_m: number }[];
-  /** At most 6 small grey images, "data:image/png;base64,…" or jpeg/webp, each at most 16 KB. */
-  key_frames: { time_s: number; image: string }[];
-}
+/** What a drop keeps from its clip (not the clip itself): the log's own record shape, built by clipEvidence.ts. */
+export type { ClipEvidence } from '../log';
