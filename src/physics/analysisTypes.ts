@@ -309,10 +309,13 @@ export interface AnalysisResult {
     /** 'morrison-sphere-correlation' only in results made before the standard curve replaced it. */
     method: 'reference-drag-coefficient' | 'standard-sphere-drag-curve' | 'morrison-sphere-correlation' | 'none';
     reference_drag_coefficient: number | null;
-    /** Only for the standard sphere curve: its own relative standard uncertainty of C_d (0.05). */
+    /**
+     * Only for the standard sphere curve: its own relative standard uncertainty of C_d at the fastest impact (5 % up
+     * to Re 1e5, growing to 10 % at 2e5 and 50 % in the drag crisis; standardSphereDragRelativeUncertainty).
+     */
     drag_coefficient_relative_standard_uncertainty?: number;
-    /** Only for the standard sphere curve: per height, the predicted time and that uncertainty carried to it. */
-    heights?: { height_m: number; time_s: number; time_standard_uncertainty_s: number }[];
+    /** Only for the standard sphere curve: per height, the predicted time and the curve's uncertainty carried to it. */
+    heights?: { height_m: number; time_s: number; time_standard_uncertainty_s: number; drag_coefficient_relative_standard_uncertainty: number }[];
   };
   model: {
     /** The specimen's mass, kg. */

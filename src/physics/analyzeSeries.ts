@@ -20,11 +20,12 @@ import { DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type Serie
 import { seriesDragLaw } from './seriesDragLaw';
 import { scaledSphereFallTime } from './dragLaw';
 import { seriesStatistics } from './seriesStatistics';
-import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient } from './standardSphereDrag';
+import { STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient, standardSphereDragRelativeUncertainty } from './standardSphereDrag';
+import { dragCrisisWarning } from './dragCrisisWarning';
 import { studentTQuantile } from './studentT';
 import { modelDerivatives, uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
 import { fallThroughColumn } from './fallThroughColumn';
-import { nominalAirColumn, predictedFall } from './predictedFall';
+import { nominalAirColumn, predictedFall, predictedSphereCurveFall } from './predictedFall';
 import { PhysicsInputError } from './physicsInputError';
 import { analyzeMarksSeries, requestHasMarks } from './analyzeMarksSeries';
 
@@ -118,8 +119,6 @@ function airColumnSummary(
 }
 
 export { DEFAULT_MONTE_CARLO_DRAWS };
-/** Reynolds numbers of the drag crisis of smooth spheres (common practice: 2e5 to 5e5). */
-export const DRAG_CRISIS_REYNOLDS: readonly [number, number] = [2e5, 5e5];
 /** Below this the flow is creeping and drag grows linearly with speed, not quadratically. */
 export const CREEPING_FLOW_REYNOLDS = 1;
 
@@ -299,7 +298,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const reference = specimen.reference_drag_coefficient;
   let predictionMethod: AnalysisResult['prediction']['method'] = 'none';
   const predictedByHeight = new Map<number, number>();
-  const predictedUByHeight = new Map<number, number>();
+  const predictedUByHeight = new Map<number, { time: number; cd: number }>();
   // Predicted falls go through the air along the fall, as the planner's do (predictedFall.ts).
   if (reference !== null) {
     predictionMethod = 'reference-drag-coefficient';
@@ -309,22 +308,16 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     predictionMethod = 'standard-sphere-drag-curve';
     let maxRe = 0;
     const column = nominalAirColumn(setup);
-    // 1e-8 for the time: far inside the 5 % the curve itself is uncertain by. The ± 5 % falls give only the time's
-    // uncertainty, a difference of about 1e-3 of the time: 1e-7 keeps it to 1e-4 of itself.
-    const sphereFall = (h: number, scale: number) =>
-      predictedFall(setup, column, h, scale === 1 ? standardSphereDragCoefficient : (re: number) => scale * standardSphereDragCoefficient(re), scale === 1 ? 1e-8 : 1e-7);
     for (const h of groupHeights) {
-      const fall = sphereFall(h, 1);
+      const fall = predictedSphereCurveFall(setup, column, h);
       predictedByHeight.set(h, fall.time_s);
-      // The curve's own standard uncertainty, carried to the time by scaling it up and down (central difference).
-      const u = STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY;
-      predictedUByHeight.set(h, Math.abs(sphereFall(h, 1 + u).time_s - sphereFall(h, 1 - u).time_s) / 2);
+      predictedUByHeight.set(h, { time: fall.time_standard_uncertainty_s, cd: fall.drag_coefficient_relative_standard_uncertainty });
       maxRe = Math.max(maxRe, fall.impact_reynolds_number);
     }
     if (maxRe > STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS) {
       warnings.push({
         code: 'outside-sphere-correlation-range',
-        message: `The predicted fall reaches Re = ${maxRe.toPrecision(3)}, beyond the standard sphere curve's stated accuracy (±5 % up to Re = 2e5); near the drag crisis the prediction may be far off.`,
+        message: `The predicted fall reaches Re = ${maxRe.toPrecision(3)}, where the standard sphere curve is uncertain by ${(100 * standardSphereDragRelativeUncertainty(maxRe)).toPrecision(2)} % (5 % up to Re = 1e5); near the drag crisis the prediction may be far off.`,
       });
     }
   }
@@ -367,14 +360,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const reynolds = drops.map((d) => d.reynolds_number);
   const maxRe = Math.max(...reynolds);
   const minRe = Math.min(...reynolds);
-  // Only a smooth, rounded body has a drag crisis (the boundary layer's separation point moves when it turns
-  // turbulent). A cylinder here falls axis vertical and a disc flat: their sharp edges fix separation, as on a box.
-  if (geometry.shape === 'sphere' && drops.some((d) => d.reynolds_number >= DRAG_CRISIS_REYNOLDS[0] && d.reynolds_number <= DRAG_CRISIS_REYNOLDS[1])) {
-    warnings.push({
-      code: 'near-drag-crisis',
-      message: `The Reynolds number at impact (up to ${maxRe.toPrecision(3)}) lies in the drag crisis (2e5 to 5e5), where C_d can drop sharply with small changes in speed or surface roughness; repeated drops may disagree.`,
-    });
-  }
+  const crisis = dragCrisisWarning(geometry.shape, reynolds);
+  if (crisis) warnings.push(crisis);
   if (minRe < CREEPING_FLOW_REYNOLDS) {
     warnings.push({
       code: 'creeping-flow',
@@ -479,11 +466,13 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       reference_drag_coefficient: reference,
       ...(predictedUByHeight.size > 0
         ? {
-            drag_coefficient_relative_standard_uncertainty: STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY,
+            // The largest over the heights: the curve is least certain at the fastest impact.
+            drag_coefficient_relative_standard_uncertainty: Math.max(...[...predictedUByHeight.values()].map((u) => u.cd)),
             heights: groupHeights.map((h) => ({
               height_m: h,
               time_s: predictedByHeight.get(h)!,
-              time_standard_uncertainty_s: predictedUByHeight.get(h)!,
+              time_standard_uncertainty_s: predictedUByHeight.get(h)!.time,
+              drag_coefficient_relative_standard_uncertainty: predictedUByHeight.get(h)!.cd,
             })),
           }
         : {}),

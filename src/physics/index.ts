@@ -4,7 +4,7 @@
  */
 
 // The analysis of a series: used by the screens and the office command.
-export { analyzeSeries, DEFAULT_MONTE_CARLO_DRAWS, DRAG_CRISIS_REYNOLDS, CREEPING_FLOW_REYNOLDS } from './analyzeSeries';
+export { analyzeSeries, DEFAULT_MONTE_CARLO_DRAWS, CREEPING_FLOW_REYNOLDS } from './analyzeSeries';
 export { validateAnalysisRequest, MARK_LIMITS } from './validateAnalysisRequest';
 // Its named stages (the planner evaluates many drop sets on one setup).
 export { prepareSeries, type PreparedSeries } from './analyzeSeries';
@@ -75,7 +75,10 @@ export {
   standardSphereDragCoefficient,
   STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS,
   STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY,
+  standardSphereDragRelativeUncertainty,
+  DRAG_CRISIS_REYNOLDS,
 } from './standardSphereDrag';
+export { dragCrisisWarning } from './dragCrisisWarning';
 export { TIMING_METHOD_DEFAULTS, TIMING_METHODS, ROLLING_SHUTTER_STANDARD_UNCERTAINTY_S, type TimingMethod, type TimingMethodDefaults } from './timingMethodDefaults';
 export { defaultAddedMassUncertainty, ADDED_MASS_RELATIVE_UNCERTAINTY, CUSTOM_ADDED_MASS_UNCERTAINTY } from './addedMassCoefficient';
 

@@ -14,7 +14,6 @@ import { checkNumber, checkOptionalNumber } from './checkNumber';
 import {
   distanceToTerminalFraction,
   fallParameters,
-  fallSpeedAtHeight,
   fallTime,
   terminalVelocity,
 } from './fallModel';
@@ -22,13 +21,15 @@ import { localGravity, type SiteInput } from './normalGravity';
 import { PhysicsInputError } from './physicsInputError';
 import type { PhysicsWarning } from './physicsWarning';
 import { checkSpecimen, type SpecimenInput } from './specimenGeometry';
-import { morrisonSphereDragCoefficient } from './sphereDragCoefficient';
 import { seriesBudget } from './seriesBudget';
 import { prepareSetup } from './seriesSetup';
 import type { BudgetInputSpec } from './uncertaintyBudget';
 import { DROP_LIMITS } from './validateAnalysisRequest';
 import { fallBodyFor } from './fallBodyFor';
-import { nominalAirColumn, predictedFall } from './predictedFall';
+import { nominalAirColumn, predictedFall, predictedSphereCurveFall } from './predictedFall';
+import { scaledSphereTerminalVelocity } from './dragLaw';
+import { dragCrisisWarning } from './dragCrisisWarning';
+import { standardSphereDragCoefficient, standardSphereDragRelativeUncertainty } from './standardSphereDrag';
 
 export interface DropPlanRequest {
   site: SiteInput;
@@ -37,7 +38,7 @@ export interface DropPlanRequest {
   timing: { standard_uncertainty_s: number };
   uncertainty?: UncertaintyInput;
   options?: { buoyancy?: boolean; added_mass_coefficient?: number };
-  /** Assumed C_d; default: the specimen's reference value, or for a sphere the Morrison correlation. */
+  /** Assumed C_d; default: the specimen's reference value, or for a sphere the standard drag curve (standardSphereDrag.ts). */
   drag_coefficient?: number;
   /** The height the crew has in mind, m. */
   height_m?: number;
@@ -53,6 +54,12 @@ export interface DropAtHeight {
   height_m: number;
   fall_time_s: number;
   vacuum_time_s: number;
+  /**
+   * The fall time's standard uncertainty from the assumed drag, s: for a sphere on the standard curve, the curve's own
+   * (standardSphereDragRelativeUncertainty) carried through the fall as an analysis' prediction does; null for a
+   * given or reference C_d, which come without one.
+   */
+  fall_time_standard_uncertainty_s: number | null;
   /** How much drag lengthens the fall: the signal the measurement rests on. */
   drag_delay_s: number;
   impact_speed_m_s: number;
@@ -66,8 +73,11 @@ export interface DropAtHeight {
 }
 
 export interface DropPlan {
+  /** The assumed C_d; on the standard sphere curve, its value at impact from the planned height (else at terminal velocity). */
   drag_coefficient: number;
-  drag_coefficient_source: 'given' | 'reference' | 'morrison-sphere-correlation';
+  drag_coefficient_source: 'given' | 'reference' | 'standard-sphere-drag-curve';
+  /** On the standard sphere curve, its relative standard uncertainty where drag_coefficient is taken; else null. */
+  drag_coefficient_relative_standard_uncertainty: number | null;
   terminal_velocity_m_s: number;
   distance_to_95pct_terminal_velocity_m: number;
   distance_to_99pct_terminal_velocity_m: number;
@@ -119,27 +129,30 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   const body = fallBodyFor({ mass_kg: specimen.mass_kg, geometry, density_kg_m3: rho, gravity_m_s2: g, buoyancy, added_mass_coefficient: addedMass });
   const reynoldsPerSpeed = (rho * geometry.characteristic_length_m) / air.dynamic_viscosity_Pa_s;
 
+  // The C_d for the closed form's figures (terminal velocity, distance to it, the setup's placeholder drop), and
+  // the drag the planned falls go through: a constant, or the standard sphere curve.
   let cd: number;
+  let drag: number | ((reynolds: number) => number);
   let source: DropPlan['drag_coefficient_source'];
   const given = checkOptionalNumber('drag_coefficient', request.drag_coefficient, { min: 0, minExclusive: true, max: 100, text: 'above 0 and at most 100' });
   if (given !== undefined) {
-    cd = given;
+    cd = drag = given;
     source = 'given';
   } else if (specimen.reference_drag_coefficient !== null) {
-    cd = specimen.reference_drag_coefficient;
+    cd = drag = specimen.reference_drag_coefficient;
     source = 'reference';
   } else if (geometry.shape === 'sphere') {
-    // C_d at the speed that matters: impact at the planned height, else terminal velocity.
-    // A fixed-point iteration; C_d changes slowly with Re, so it settles in a few rounds.
-    cd = 0.47;
-    for (let i = 0; i < 100; i++) {
-      const p = fallParameters({ ...body, drag_coefficient: cd });
-      const v = plannedHeight !== undefined ? fallSpeedAtHeight(plannedHeight, p) : terminalVelocity(p);
-      const next = morrisonSphereDragCoefficient(Math.max(reynoldsPerSpeed * v, 1e-12));
-      if (Math.abs(next - cd) <= 1e-12 * cd) break;
-      cd = 0.5 * (cd + next);
-    }
-    source = 'morrison-sphere-correlation';
+    // The curve an analysis predicts with, so a planned time is the time the analysis will predict. Terminal
+    // velocity is where the curve's drag balances the weight; the closed form's distances to it take the curve's
+    // C_d there (nearly constant in Newton's regime, where balls reach it).
+    const perUnitCd = fallParameters({ ...body, drag_coefficient: 1 });
+    const vT = scaledSphereTerminalVelocity(
+      { effective_gravity_m_s2: perUnitCd.effective_gravity_m_s2, drag_constant_per_unit_cd_per_m: perUnitCd.drag_constant_per_m, reynolds_per_speed_s_m: reynoldsPerSpeed },
+      1,
+    );
+    cd = standardSphereDragCoefficient(reynoldsPerSpeed * vT);
+    drag = standardSphereDragCoefficient;
+    source = 'standard-sphere-drag-curve';
   } else {
     throw new PhysicsInputError({
       code: 'missing-drag-coefficient',
@@ -148,6 +161,7 @@ export function planDrop(request: DropPlanRequest): DropPlan {
       allowed: 'a positive number (or specimen.reference_drag_coefficient): only spheres have a built-in correlation',
     });
   }
+  const onCurve = source === 'standard-sphere-drag-curve';
 
   const params = fallParameters({ ...body, drag_coefficient: cd });
 
@@ -166,7 +180,8 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   // Planned falls go through the air along the fall, as an analysis' predicted falls do (predictedFall.ts): a planned
   // 3000 m drop takes the time the analysis will predict for it, and a short one the closed form's (to 1e-5).
   const column = nominalAirColumn(setup);
-  const plannedFall = (height: number) => predictedFall(setup, column, height, cd);
+  // On the curve the search's many falls take 1e-8 (far inside the curve's own 5 %); the reported one carries u(t).
+  const plannedFall = (height: number) => predictedFall(setup, column, height, drag, onCurve ? 1e-8 : 1e-10, true);
   const timingOnlySpec = (s: BudgetInputSpec): boolean => s.input === 'time_s';
   const relativeUncertainty = (height: number, drops: number, timingOnly = false): number => {
     const time = checkNumber('drops[0].time_s', plannedFall(height).time_s, DROP_LIMITS.time_s);
@@ -181,12 +196,14 @@ export function planDrop(request: DropPlanRequest): DropPlan {
   };
 
   const describe = (height: number): DropAtHeight => {
-    const fall = plannedFall(height);
+    const sphereFall = onCurve ? predictedSphereCurveFall(setup, column, height) : null;
+    const fall = sphereFall ?? predictedFall(setup, column, height, drag);
     const time = fall.time_s;
     const v = fall.impact_speed_m_s;
     return {
       height_m: height,
       fall_time_s: time,
+      fall_time_standard_uncertainty_s: sphereFall ? sphereFall.time_standard_uncertainty_s : null,
       vacuum_time_s: Math.sqrt((2 * height) / g),
       // Against the drag-free fall through the same air (buoyancy and gravity still follow the height).
       drag_delay_s: time - predictedFall(setup, column, height, 0).time_s,
@@ -199,13 +216,20 @@ export function planDrop(request: DropPlanRequest): DropPlan {
     };
   };
 
+  const atHeight = plannedHeight !== undefined ? describe(plannedHeight) : null;
+  if (onCurve && atHeight) cd = standardSphereDragCoefficient(atHeight.reynolds_number);
+  const crisis = dragCrisisWarning(geometry.shape, atHeight ? [atHeight.reynolds_number] : []);
+  if (crisis) warnings.push(crisis);
+  const cdReynolds = atHeight ? atHeight.reynolds_number : reynoldsPerSpeed * terminalVelocity(params);
+
   const plan: DropPlan = {
     drag_coefficient: cd,
     drag_coefficient_source: source,
+    drag_coefficient_relative_standard_uncertainty: onCurve ? standardSphereDragRelativeUncertainty(cdReynolds) : null,
     terminal_velocity_m_s: terminalVelocity(params),
     distance_to_95pct_terminal_velocity_m: distanceToTerminalFraction(0.95, params),
     distance_to_99pct_terminal_velocity_m: distanceToTerminalFraction(0.99, params),
-    at_height: plannedHeight !== undefined ? describe(plannedHeight) : null,
+    at_height: atHeight,
     target: null,
     warnings,
   };

@@ -10,6 +10,7 @@ import { groupDrops } from './dropGroups';
 import { fallThroughColumn, type ColumnFall } from './fallThroughColumn';
 import { seriesModelAt } from './seriesFit';
 import type { SeriesSetup } from './seriesSetup';
+import { standardSphereDragCoefficient, standardSphereDragRelativeUncertainty } from './standardSphereDrag';
 
 /** The air along the fall at the setup's nominal inputs (one reading with its lapse rate, or two). */
 export function nominalAirColumn(setup: SeriesSetup): AirColumn {
@@ -45,4 +46,33 @@ export function predictedFall(
     relativeTolerance,
     timeOnly,
   );
+}
+
+export interface SphereCurveFall extends ColumnFall {
+  /** The time's standard uncertainty from the curve's own (standardSphereDragRelativeUncertainty), s. */
+  time_standard_uncertainty_s: number;
+  /** The curve's relative standard uncertainty at the impact Reynolds number (its largest along the fall). */
+  drag_coefficient_relative_standard_uncertainty: number;
+}
+
+/**
+ * The fall with the standard sphere curve (standardSphereDrag.ts), and its time's standard uncertainty from the
+ * curve's own. The curve's error is systematic over one fall (a standard curve is off by a smooth amount, the same
+ * from one drop to the next), so the whole curve moves at once: C_d(Re)·(1 ± u_r(Re)), and u(t) is half the
+ * difference of the two times (a central difference with the step of one standard uncertainty, which keeps the
+ * fall's curvature in C_d where u_r is large).
+ *
+ * Tolerances: 1e-8 for the time, far inside the curve's own 5 %; the ±u falls differ by about 1e-3 of the time,
+ * so 1e-7 keeps their half-difference to 1e-4 of itself.
+ */
+export function predictedSphereCurveFall(setup: SeriesSetup, column: AirColumn, height_m: number): SphereCurveFall {
+  const fall = predictedFall(setup, column, height_m, standardSphereDragCoefficient, 1e-8);
+  const moved = (sign: 1 | -1) => (re: number) => standardSphereDragCoefficient(re) * (1 + sign * standardSphereDragRelativeUncertainty(re));
+  const up = predictedFall(setup, column, height_m, moved(1), 1e-7, true).time_s;
+  const down = predictedFall(setup, column, height_m, moved(-1), 1e-7, true).time_s;
+  return {
+    ...fall,
+    time_standard_uncertainty_s: Math.abs(up - down) / 2,
+    drag_coefficient_relative_standard_uncertainty: standardSphereDragRelativeUncertainty(fall.impact_reynolds_number),
+  };
 }

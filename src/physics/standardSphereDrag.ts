@@ -17,13 +17,59 @@
  *
  * Accuracy (tested in test/physics/standardSphereDrag.test.ts against tables outside the project): within 4 % of
  * Pruppacher & Klett's Table 10.1 (Re 10–300), within 0.5 % of the Proudman–Pearson expansion (Re 0.1–0.5), within
- * 6 % of the reproduced standard curve for 1 ≤ Re ≤ 6e4; measured curves themselves differ by up to about 10 %
- * between wind tunnels at 2e3–2e5 (Roos & Willmarth 1971 lie above, the reproduced Wieselsberger curve below).
- * Hence the standard uncertainty we state for a prediction from it: 5 % of C_d (common practice reading of that
- * spread) up to Re = 2e5; beyond, the drag crisis makes any smooth-sphere value unreliable.
+ * 6 % of the reproduced standard curve for 1 ≤ Re ≤ 6e4, within 4.8 % of Morsi & Alexander's fit to the standard
+ * table (1972, Re 0.1–5e4). Correlations fitted to compiled data (Clift & Gauvin 1970; Haider & Levenspiel 1989;
+ * Brown & Lawler 2003, 480 points corrected for wall effects) lie within 5.5 % of it up to Re 7e4 but 6–8 % below
+ * it at 1e5–2e5, where Hoerner's chart lies on it. Measured curves differ more among themselves: Roos & Willmarth's
+ * tunnel (1971) reads 9–12 % above the curve at Re 5e3–5e4.
+ *
+ * Its stated relative standard uncertainty, standardSphereDragRelativeUncertainty(Re), continuous in Re:
+ *
+ *   Re ≤ 1e5       5 %. The ±5 % agreement with the tabulated standard values is taken as one standard uncertainty,
+ *                  not as the half-width of a rectangular distribution (GUM 4.3.7 would give 5 %/√3 = 2.9 %): single
+ *                  measured data sets scatter about the standard curve by more than that bound (Roos & Willmarth's
+ *                  122 points: 65 % within ±5 %, 85 % within ±10 %, near the 68 % and 95 % of a normal distribution
+ *                  with σ = 5 %; with 2.9 % only 71 % would lie within ±2 u and 82 % within ±3 u).
+ *   1e5 … 2e5      rising smoothly to 10 % at 2e5: published tables and correlations differ by 8–12 % there (the
+ *                  figures above), and turbulent tunnels begin the drag crisis early; that spread as one u.
+ *   2e5 … 3e5      rising smoothly to 50 % at 3e5 and staying there: the drag crisis (C_d of a smooth sphere falls from
+ *                  about 0.5 to about 0.07–0.1 between 2e5 and 5e5 depending on the free stream's turbulence and the
+ *                  surface; Achenbach 1972, from memory); the curve's value there is a guess.
+ *
+ * Both rises are cubic smoothsteps in log10 Re (continuous with their first derivative). A prediction carries it by
+ * moving the whole curve by ±u(Re) at once (the error of a standard curve is systematic over one fall; predictedFall.ts).
  */
 export const STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS = 2e5;
+/** The curve's relative standard uncertainty up to Re = 1e5 (standardSphereDragRelativeUncertainty). */
 export const STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY = 0.05;
+/** At Re = 2e5, where published tables differ by 8–12 %. */
+const RELATIVE_UNCERTAINTY_AT_2E5 = 0.1;
+/** In the drag crisis and beyond (Re ≥ 3e5): the curve there is a guess. */
+const RELATIVE_UNCERTAINTY_IN_CRISIS = 0.5;
+
+/** Reynolds numbers of the drag crisis of smooth spheres (common practice: 2e5 to 5e5). */
+export const DRAG_CRISIS_REYNOLDS: readonly [number, number] = [2e5, 5e5];
+
+/** 0 below 0, 1 above 1, 3x² − 2x³ between: continuous with its first derivative. */
+function smoothstep(x: number): number {
+  if (x <= 0) return 0;
+  if (x >= 1) return 1;
+  return x * x * (3 - 2 * x);
+}
+
+/** The stated relative standard uncertainty of standardSphereDragCoefficient(Re) (see the table above). */
+export function standardSphereDragRelativeUncertainty(reynolds: number): number {
+  // Contract check, plain on purpose: callers pass Reynolds numbers of validated inputs.
+  if (!(reynolds > 0)) throw new RangeError(`Reynolds number must be positive, got ${reynolds}`);
+  const w = Math.log10(reynolds);
+  const rise1 = smoothstep((w - 5) / Math.log10(2));
+  const rise2 = smoothstep((w - Math.log10(2e5)) / Math.log10(1.5));
+  return (
+    STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY +
+    (RELATIVE_UNCERTAINTY_AT_2E5 - STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY) * rise1 +
+    (RELATIVE_UNCERTAINTY_IN_CRISIS - RELATIVE_UNCERTAINTY_AT_2E5) * rise2
+  );
+}
 
 export function standardSphereDragCoefficient(reynolds: number): number {
   // Contract check, plain on purpose: callers pass Reynolds numbers of validated inputs.

@@ -7,6 +7,8 @@ import { fallParameters, fallTime } from '../../src/physics/fallModel';
 import { nominalAirColumn } from '../../src/physics/predictedFall';
 import { prepareSetup } from '../../src/physics/seriesSetup';
 import { odexSolver } from './odexSolver';
+import { sphereColumnFallTime } from './sphereColumnFall';
+import { standardSphereDragCoefficient, standardSphereDragRelativeUncertainty } from '../../src/physics/standardSphereDrag';
 
 const plan: DropPlanRequest = {
   site: SITE,
@@ -80,12 +82,81 @@ describe('planDrop', () => {
     expect(floor.target!.message).toContain('alone');
   });
 
-  it('uses the Morrison correlation for a sphere when no C_d is given', () => {
+  it('plans a sphere without a C_d on the standard curve: the analysis\' predicted time, with its uncertainty', () => {
     const { drag_coefficient: _, ...withoutCd } = plan;
-    const morrison = planDrop(withoutCd);
-    expect(morrison.drag_coefficient_source).toBe('morrison-sphere-correlation');
-    expect(morrison.drag_coefficient).toBeGreaterThan(0.38);
-    expect(morrison.drag_coefficient).toBeLessThan(0.5);
+    const onCurve = planDrop(withoutCd);
+    expect(onCurve.drag_coefficient_source).toBe('standard-sphere-drag-curve');
+    const at = onCurve.at_height!;
+    // Its C_d is the curve's at the impact Reynolds number, where the curve is stated to 5 % (below Re 1e5).
+    expect(onCurve.drag_coefficient).toBe(standardSphereDragCoefficient(at.reynolds_number));
+    expect(onCurve.drag_coefficient_relative_standard_uncertainty).toBe(0.05);
+    // The analysis of drops from the same height predicts the same time with the same uncertainty.
+    const times = exactTimes({ site: SITE, air: AIR, specimen: BALL }, 0.47, [12, 12]);
+    const analysed = analyzeSeries({
+      site: SITE,
+      air: AIR,
+      specimen: BALL,
+      drops: times.map((t) => ({ height_m: 12, time_s: t })),
+      timing: plan.timing,
+      uncertainty: UNCERTAINTY,
+      options: { monte_carlo_draws: 200 },
+    });
+    const predicted = analysed.prediction.heights![0]!;
+    expect(analysed.prediction.method).toBe('standard-sphere-drag-curve');
+    expect(Math.abs(predicted.time_s / at.fall_time_s - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(predicted.time_standard_uncertainty_s / at.fall_time_standard_uncertainty_s! - 1)).toBeLessThan(1e-9);
+    // A 12 m ball drop: a few milliseconds, far above the planner's integration error.
+    expect(at.fall_time_standard_uncertainty_s!).toBeGreaterThan(1e-3);
+    // Terminal velocity is where the curve's drag balances the weight: the closed form at the curve's C_d there.
+    expect(onCurve.terminal_velocity_m_s).toBeGreaterThan(at.impact_speed_m_s);
+  });
+
+  it('gives no time uncertainty for a given or a reference C_d, which come without one', () => {
+    expect(result.drag_coefficient_source).toBe('given');
+    expect(result.at_height!.fall_time_standard_uncertainty_s).toBeNull();
+    expect(result.drag_coefficient_relative_standard_uncertainty).toBeNull();
+    const { drag_coefficient: _, ...withoutCd } = plan;
+    const reference = planDrop({ ...withoutCd, specimen: { ...BALL, reference_drag_coefficient: 0.47 } });
+    expect(reference.drag_coefficient_source).toBe('reference');
+    expect(reference.at_height!.fall_time_standard_uncertainty_s).toBeNull();
+  });
+
+  it('carries the curve\'s uncertainty to the time as odex integrates the fall with the curve moved by ±u(Re)', () => {
+    // Reference: odex through the same air column (sphereColumnFall.ts) with C_d(Re)·(1 ± u(Re)) (standardSphereDrag.ts).
+    // The central difference of the two times is the uncertainty as the planner states it.
+    const { drag_coefficient: _, ...withoutCd } = plan;
+    const setup = prepareSetup({ site: SITE, air: AIR, specimen: BALL, drops: [{ height_m: 12, time_s: 1.6 }], timing: { standard_uncertainty_s: 0.004 } });
+    const column = nominalAirColumn(setup);
+    const moved = (sign: number) => (re: number) => standardSphereDragCoefficient(re) * (1 + sign * standardSphereDragRelativeUncertainty(re));
+    const timeToFall = (h: number, sign: number) => sphereColumnFallTime(column, 0.21, 0.095, h, moved(sign));
+    for (const h of [3, 12, 40]) {
+      const planned = planDrop({ ...withoutCd, height_m: h, max_height_m: 50 }).at_height!;
+      // The planner's falls on the curve take a 1e-8 step tolerance: a few 1e-7 of the time in all.
+      expect(Math.abs(planned.fall_time_s / timeToFall(h, 0) - 1)).toBeLessThan(1e-6);
+      const reference = Math.abs(timeToFall(h, 1) - timeToFall(h, -1)) / 2;
+      expect(Math.abs(planned.fall_time_standard_uncertainty_s! / reference - 1)).toBeLessThan(2e-3);
+    }
+  });
+
+  it('warns of the drag crisis for a sphere, not for a box or a custom shape at the same Reynolds number', () => {
+    // A 250 mm, 2 kg ball from 30 m reaches about 22 m/s: Re ≈ 3.5e5 (as in the analysis tests).
+    const big = { ...plan, specimen: { shape: 'sphere' as const, mass_kg: 2, diameter_m: 0.25 }, height_m: 30, target_relative_uncertainty: undefined };
+    const { drag_coefficient: _, ...bigOnCurve } = big;
+    const sphere = planDrop(bigOnCurve);
+    expect(sphere.at_height!.reynolds_number).toBeGreaterThan(2e5);
+    expect(sphere.warnings.map((w) => w.code)).toContain('near-drag-crisis');
+    // On the curve there, its stated uncertainty is large, and so is the time's.
+    expect(sphere.drag_coefficient_relative_standard_uncertainty!).toBeGreaterThan(0.3);
+    expect(sphere.at_height!.fall_time_standard_uncertainty_s!).toBeGreaterThan(0.02);
+    // The same ball with a given C_d still meets the crisis: the warning follows the shape, not the C_d's source.
+    expect(planDrop({ ...big, drag_coefficient: 0.3 }).warnings.map((w) => w.code)).toContain('near-drag-crisis');
+    const shapeFree = { height_m: 0.01 };
+    const box = planDrop({ ...big, specimen: { shape: 'box', mass_kg: 3, length_m: 0.25, width_m: 0.25, thickness_m: 0.05 }, drag_coefficient: 1.05, uncertainty: shapeFree });
+    expect(box.at_height!.reynolds_number).toBeGreaterThan(2e5);
+    expect(box.warnings.map((w) => w.code)).not.toContain('near-drag-crisis');
+    const custom = planDrop({ ...big, specimen: { shape: 'custom', mass_kg: 2, area_m2: 0.049, volume_m3: 0.008 }, drag_coefficient: 0.3, uncertainty: shapeFree });
+    expect(custom.at_height!.reynolds_number).toBeGreaterThan(2e5);
+    expect(custom.warnings.map((w) => w.code)).not.toContain('near-drag-crisis');
   });
 
   it('asks for a drag coefficient for other shapes', () => {
