@@ -42,7 +42,7 @@ export interface PlanInputs {
   reading: ReadingRecord | null;
   /** The site to plan at; null for PLAN_DEFAULTS.site. */
   site: SiteRecord | null;
-  /** A C_d measured for this specimen; null for the specimen's reference value or the sphere correlation. */
+  /** A C_d measured for this specimen; null for the specimen's reference value or the standard sphere curve. */
   measuredDragCoefficient: number | null;
   u_time_s: number;
   height_m: number;

@@ -1,5 +1,5 @@
 import { useMemo } from 'preact/hooks';
-import type { DropPlan } from '../../physics';
+import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, type DropPlan } from '../../physics';
 import { inputRange, LIMITS, type TimingMethod } from '../../log';
 import { useApp } from '../app-context';
 import { useDraft, useStoreData } from '../hooks';
@@ -11,6 +11,7 @@ import { TIMING_DEFAULTS, TIMING_OPTIONS } from './day/SeriesForm';
 import { describeError } from '../errors';
 import { useSettled } from '../use-settled';
 import { inChosenUnits, warningText } from '../unit-text';
+import { formatSignificant } from '../../widgets/units';
 
 interface PlanDraft {
   specimenId: string;
@@ -131,7 +132,7 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
             ? 'the specimen’s reference value'
             : plan.drag_coefficient_source === 'given'
               ? 'given'
-              : 'sphere correlation'}
+              : `the standard sphere curve at ${at ? 'impact' : 'terminal velocity'}`}
         ).{sources.site === 'default' ? ` Gravity at ${PLAN_DEFAULTS.site.latitude_deg}° latitude at sea level (no current day with a site).` : ''}
       </p>
       {at ? (
@@ -143,13 +144,28 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
           </p>
           <p class="fall-story">
             However far it fell, still air would hold it below <strong>{app.format(plan.terminal_velocity_m_s, 'speed', 1)}</strong>. It comes
-            within 5 % of that after falling {app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}, within 1 % after{' '}
+            within 5&nbsp;% of that after falling {app.format(plan.distance_to_95pct_terminal_velocity_m, 'length', 1)}, within 1&nbsp;% after{' '}
             {app.format(plan.distance_to_99pct_terminal_velocity_m, 'length', 1)}.
           </p>
           <dl class="readout">
+            {at.fall_time_standard_uncertainty_s !== null ? (
+              <>
+                <dt>Fall time uncertainty</dt>
+                <dd data-testid="plan-time-u">± {formatSignificant(at.fall_time_standard_uncertainty_s * 1000, 2, app.settings.decimalComma)} ms</dd>
+              </>
+            ) : null}
             <dt>C_d uncertainty from one drop</dt>
             <dd>{(at.relative_uncertainty_one_drop * 100).toFixed(1)} %</dd>
           </dl>
+          {at.fall_time_standard_uncertainty_s !== null && plan.drag_coefficient_relative_standard_uncertainty !== null ? (
+            <p class="hint" data-testid="plan-time-u-hint">
+              How far the standard sphere curve’s own uncertainty of C_d moves the predicted time, as one standard uncertainty:{' '}
+              {plan.drag_coefficient_relative_standard_uncertainty <= STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY
+                ? '5\u00a0% of C_d at this speed (more above Re 10⁵, far more near the drag crisis).'
+                : `${formatSignificant(plan.drag_coefficient_relative_standard_uncertainty * 100, 2, app.settings.decimalComma)}\u00a0% of C_d at this speed (5\u00a0% below Re 10⁵; the curve is least certain near the drag crisis).`}{' '}
+              The timing adds its own.
+            </p>
+          ) : null}
         </>
       ) : null}
       {energyWarning ? (
@@ -159,11 +175,14 @@ function PlanResult({ plan, sources }: { plan: DropPlan; sources: PlanSources })
       ) : null}
       {plan.target ? (
         <Notice tone={plan.target.reachable ? 'good' : 'warn'} title={plan.target.reachable ? 'The target can be reached' : 'The target cannot be reached'}>
-          <p>{inChosenUnits(plan.target.message, app.format)}</p>
+          {/* A percentage stays on the line of its number. */}
+          <p>{inChosenUnits(plan.target.message, app.format).replace(/ %/g, '\u00a0%')}</p>
           {plan.target.smallest_height_m !== null ? (
             <p>
-              Lowest height: <strong>{app.format(plan.target.smallest_height_m, 'length', 1)}</strong> with {plan.target.drops_at_smallest_height} drops.
-              {plan.target.drops_at_planned_height !== null ? ` From the planned height: ${plan.target.drops_at_planned_height} drops.` : ''}
+              Lowest height: <strong>{app.format(plan.target.smallest_height_m, 'length', 1)}</strong> with {plan.target.drops_at_smallest_height} drop{plan.target.drops_at_smallest_height === 1 ? '' : 's'}.
+              {plan.target.drops_at_planned_height !== null
+                ? ` From the planned height: ${plan.target.drops_at_planned_height} drop${plan.target.drops_at_planned_height === 1 ? '' : 's'}.`
+                : ''}
             </p>
           ) : null}
         </Notice>
