@@ -14,8 +14,8 @@ export const METHOD_NOTES: readonly MethodNote[] = [
   },
   {
     topic: 'Drag law and fall model',
-    text: 'A body released from rest in still air with quadratic drag: (m + C_a·ρ·V)·dv/dt = (m − ρ·V)·g − ½·ρ·C_d·A·v², solved in closed form (v = v_t·tanh(t/τ), y = ln cosh(t/τ)/k). C_d is the least-squares value over the series\' drops, with an optional constant timing delay fitted with it. Predicted times for a sphere follow the standard sphere drag curve.',
-    source: 'Closed form of the quadratic-drag fall (standard mechanics); R. Clift, J. R. Grace, M. E. Weber, Bubbles, Drops, and Particles (1978), Table 5.2, for the sphere curve.',
+    text: 'A body released from rest in still air with quadratic drag: (m + C_a·ρ·V)·dv/dt = (m − ρ·V)·g − ½·ρ·C_d·A·v², solved in closed form (v = v_t·tanh(t/τ), y = ln cosh(t/τ)/k). C_d is the least-squares value over the series\' drops, with an optional constant timing delay fitted with it. Predicted times for a sphere follow the standard sphere drag curve, with the curve\'s own standard uncertainty of C_d (5 % up to Re 1e5, 10 % at 2e5, 50 % in the drag crisis) carried to each time.',
+    source: 'Closed form of the quadratic-drag fall (standard mechanics); R. Clift, J. R. Grace, M. E. Weber, Bubbles, Drops, and Particles (1978), Table 5.2, for the sphere curve; its uncertainty from the spread of Roos & Willmarth (1971), Morsi & Alexander (1972), Brown & Lawler (2003) and Hoerner (1965).',
   },
   {
     topic: 'Buoyancy and added mass',
