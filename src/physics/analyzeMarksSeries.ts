@@ -25,6 +25,7 @@ import type { SeriesScatter } from './seriesScatter';
 import { prepareSetup, type SeriesSetup } from './seriesSetup';
 import { seriesStatistics } from './seriesStatistics';
 import { standardSphereDragCoefficient } from './standardSphereDrag';
+import { dragCrisisWarning } from './dragCrisisWarning';
 import { studentTQuantile } from './studentT';
 import { ROLLING_SHUTTER_STANDARD_UNCERTAINTY_S, TIMING_METHOD_DEFAULTS } from './timingMethodDefaults';
 import { uncertaintyBudget, type BudgetInputSpec } from './uncertaintyBudget';
@@ -406,6 +407,8 @@ export function analyzeMarksSeries(request: AnalysisRequest): AnalysisResult {
   const nuEff = budget.effective_degrees_of_freedom;
   const coverageFactor = nuEff === null ? 1.959963984540054 : studentTQuantile(0.975, nuEff);
   const impactRe = resultDrops.map((d) => d.reynolds_number);
+  const crisis = dragCrisisWarning(geometry.shape, impactRe);
+  if (crisis) warnings.push(crisis);
   const reRange: [number, number] = [Math.min(...impactRe) / 2, Math.max(...impactRe)];
   const sphereChange = geometry.shape === 'sphere' ? Math.abs(standardSphereDragCoefficient(reRange[0]) / standardSphereDragCoefficient(reRange[1]) - 1) : 0;
   const terminal = kHat > 0 ? Math.sqrt(setup.effectiveGravity_m_s2 / kHat) : null;

@@ -92,4 +92,26 @@ describe('analyzeSeries with marks', () => {
     const flagged = { ...plain, drops: plain.drops.map((d) => ({ ...d, release_time_known: true })) };
     expect(analyzeSeries(flagged)).toEqual(analyzeSeries(plain));
   });
+
+  it('warns of the drag crisis for a sphere, not for a box or a custom shape at the same Reynolds number', () => {
+    // Exact marks every 0.1 s of a 30 m fall, release known, for bodies reaching Re ≈ 3.5e5 (as in the analysis tests).
+    const marksOf = (specimen: AnalysisRequest['specimen'], cd: number): AnalysisRequest => {
+      const fall = trueFall(specimen as typeof BALL, AIR, cd);
+      const marks: { distance_m: number; time_s: number }[] = [];
+      for (let t = 0.1; fallDistance(t, fall) < 30; t += 0.1) marks.push({ distance_m: fallDistance(t, fall), time_s: t });
+      const last = marks[marks.length - 1]!;
+      const drop = () => ({ height_m: last.distance_m, time_s: last.time_s, marks: marks.map((m) => ({ ...m })), release_time_known: true });
+      return { site: SITE, air: AIR, specimen, drops: [drop(), drop(), drop()], timing: { standard_uncertainty_s: 0.001, method: 'video' }, uncertainty: { height_m: 0.01 }, options: { monte_carlo_draws: 200 } };
+    };
+    const codes = (r: ReturnType<typeof analyzeSeries>) => r.warnings.map((w) => w.code);
+    const sphere = analyzeSeries(marksOf({ shape: 'sphere', mass_kg: 2, diameter_m: 0.25 }, 0.3));
+    expect(sphere.drops[0]!.reynolds_number).toBeGreaterThan(2e5);
+    expect(codes(sphere)).toContain('near-drag-crisis');
+    const box = analyzeSeries(marksOf({ shape: 'box', mass_kg: 3, length_m: 0.25, width_m: 0.25, thickness_m: 0.05 }, 1.05));
+    expect(box.drops[0]!.reynolds_number).toBeGreaterThan(2e5);
+    expect(codes(box)).not.toContain('near-drag-crisis');
+    const custom = analyzeSeries(marksOf({ shape: 'custom', mass_kg: 2, area_m2: 0.049, volume_m3: 0.008 }, 0.3));
+    expect(custom.drops[0]!.reynolds_number).toBeGreaterThan(2e5);
+    expect(codes(custom)).not.toContain('near-drag-crisis');
+  });
 });
