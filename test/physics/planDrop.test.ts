@@ -107,8 +107,12 @@ describe('planDrop', () => {
     expect(Math.abs(predicted.time_standard_uncertainty_s / at.fall_time_standard_uncertainty_s! - 1)).toBeLessThan(1e-9);
     // A 12 m ball drop: a few milliseconds, far above the planner's integration error.
     expect(at.fall_time_standard_uncertainty_s!).toBeGreaterThan(1e-3);
-    // Terminal velocity is where the curve's drag balances the weight: the closed form at the curve's C_d there.
-    expect(onCurve.terminal_velocity_m_s).toBeGreaterThan(at.impact_speed_m_s);
+    // Terminal velocity is where the curve's drag balances the weight: ρ·C_d(ρvD/μ)·A·v²/(2m_e) = g_e.
+    const s = prepareSetup({ site: SITE, air: AIR, specimen: BALL, drops: [{ height_m: 12, time_s: 1.6 }], timing: plan.timing });
+    const vT = onCurve.terminal_velocity_m_s;
+    const drag = (s.density_kg_m3 * standardSphereDragCoefficient((s.density_kg_m3 * vT * 0.095) / s.viscosity_Pa_s) * s.geometry.area_m2 * vT * vT) / (2 * s.effectiveMass_kg);
+    expect(Math.abs(drag / s.effectiveGravity_m_s2 - 1)).toBeLessThan(1e-9);
+    expect(vT).toBeGreaterThan(at.impact_speed_m_s);
   });
 
   it('gives no time uncertainty for a given or a reference C_d, which come without one', () => {
