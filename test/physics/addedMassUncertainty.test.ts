@@ -104,5 +104,5 @@ describe('the added-mass coefficient with its uncertainty', () => {
     }
     expect(covered / series).toBeGreaterThanOrEqual(0.93);
     expect(covered / series).toBeLessThanOrEqual(0.97);
-  });
+  }, 300_000);
 });
