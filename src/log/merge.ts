@@ -180,28 +180,43 @@ export function conflictBetween(a: LogRecord, b: LogRecord): Conflict | null {
  * by an edit with no reason" from "never seen".
  */
 export function crossingsInMerge(before: LogRecord, after: LogRecord): Conflict[] {
-  if (before.id !== after.id) return [];
+  // Most records of an import change nothing or only move on: the cheap checks first.
+  if (before.id !== after.id || after === before) return [];
   const held = revisionOf(before);
-  const versions = [...versionsOf(after).values()].sort(compareVersions);
-  const at = versions.findIndex((v) => versionIdentity(v) === versionIdentity(held));
-  if (at < 0) return [];
-  const current = versions[versions.length - 1]!;
-  if (at < versions.length - 1) {
-    const buried = versions[at]!;
-    const next = versions[at + 1]!;
-    if (buried.reason !== null || next.rev === buried.rev || !needsReason(after.kind, differingFields(next, buried, false))) return [];
-    const conflict = crossing(after, current, buried);
+  const heldIdentity = versionIdentity(held);
+  if (after.rev !== before.rev) {
+    const buried = (after.history as unknown as AnyRevision[]).find((h) => h.rev === before.rev && versionIdentity(h) === heldIdentity);
+    if (!buried || buried.reason !== null) return [];
+    const next = successorOf(buried, after);
+    if (next.rev === buried.rev || !needsReason(after.kind, differingFields(next, buried, false))) return [];
+    const conflict = crossing(after, revisionOf(after), buried);
     return conflict ? [conflict] : [];
   }
+  // Nothing came in that this phone lacks, or a body under our own stamp sorts after ours (a same-stamp conflict).
+  if (after.history.length <= before.history.length) return [];
+  const current = revisionOf(after);
+  if (versionIdentity(current) !== heldIdentity) return [];
   // A new body under a stamp this phone holds is a same-stamp conflict (sameStampConflicts), not a crossing.
-  const heldStamps = new Set([...versionsOf(before).values()].map((v) => v.rev));
+  const heldStamps = new Set([held.rev, ...before.history.map((h) => h.rev)]);
   const newestByDevice = new Map<string, AnyRevision>();
-  for (const v of versions) {
-    if (heldStamps.has(v.rev) || compareHlc(v.rev, held.rev) >= 0) continue;
-    // In merge order, so the last one seen from each phone is its newest.
-    newestByDevice.set(v.device, v);
+  for (const v of after.history as unknown as AnyRevision[]) {
+    if (heldStamps.has(v.rev)) continue;
+    const seen = newestByDevice.get(v.device);
+    if (!seen || compareVersions(v, seen) > 0) newestByDevice.set(v.device, v);
   }
-  return [...newestByDevice.values()].map((v) => crossing(after, current, v)).filter((c): c is Conflict => c !== null);
+  return [...newestByDevice.values()]
+    .sort(compareVersions)
+    .map((v) => crossing(after, current, v))
+    .filter((c): c is Conflict => c !== null);
+}
+
+/** The version that follows `version` in merge order among the record's versions (its current one at the latest). */
+function successorOf(version: AnyRevision, record: LogRecord): AnyRevision {
+  let next = revisionOf(record);
+  for (const h of record.history as unknown as AnyRevision[]) {
+    if (compareVersions(h, version) > 0 && compareVersions(h, next) < 0) next = h;
+  }
+  return next;
 }
 
 /** The conflict between the merged record's current version and a version that crossed, or null when they agree. */
