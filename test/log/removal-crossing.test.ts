@@ -233,3 +233,73 @@ describe('any two crossing changes', () => {
     );
   });
 });
+
+// Three phones changing one record and passing copies around in any order, with clocks up to a minute apart: every
+// conflict a phone lists names as the other version one that really crossed another (neither maker held the
+// other's version when making its own; the kept version is the current one, which may have come later, knowing
+// both), and all phones agree once everyone has everyone's copy.
+describe('any history of changes and exchanges between three phones', () => {
+  type Op = { phone: number; to: number; change: 'note' | 'correct' | 'exclude' | 'remove' | 'restore' | 'send'; step: number };
+  const op = fc.record({
+    phone: fc.nat({ max: 2 }),
+    to: fc.nat({ max: 2 }),
+    change: fc.constantFrom<Op['change']>('note', 'correct', 'exclude', 'remove', 'restore', 'send', 'send'),
+    step: fc.integer({ min: 0, max: 60_000 }),
+  });
+  it('lists only crossings that happened', () => {
+    fc.assert(
+      fc.property(fc.array(op, { minLength: 1, maxLength: 25 }), fc.array(fc.integer({ min: -60_000, max: 60_000 }), { minLength: 3, maxLength: 3 }), (ops, skews) => {
+        const original = base();
+        const devices = [ONE, TWO, 'ccccccccccccccc3'];
+        const phones: Phone[] = devices.map((device) => {
+          const clock = new HybridLogicalClock(device);
+          clock.receive(original.rev, T0);
+          return { device, clock, copy: original, conflicts: [] };
+        });
+        // For each version, the versions its maker held when making it.
+        const held = new Map<string, Set<string>>([[original.rev, new Set()]]);
+        const revsOf = (r: DropRecord) => new Set([r.rev, ...r.history.map((h) => h.rev)]);
+        const crossedOne = (rev: string) => [...held.keys()].some((other) => other !== rev && !held.get(other)!.has(rev) && !held.get(rev)!.has(other));
+        let now = T0;
+        let n = 0;
+        for (const o of ops) {
+          now += o.step;
+          const p = phones[o.phone]!;
+          const at = now + skews[o.phone]!;
+          const ctx = { device: p.device, clock: p.clock, now: at };
+          if (o.change === 'send') {
+            const before = p === phones[o.to] ? [] : phones[o.to]!.conflicts;
+            receive(phones[o.to]!, p.copy);
+            for (const c of phones[o.to]!.conflicts.filter((c) => !before.includes(c))) {
+              expect(crossedOne(c.other_rev), `listed ${c.other_rev} (kept ${c.kept_rev}) on ${phones[o.to]!.device}`).toBe(true);
+            }
+            continue;
+          }
+          let next: DropRecord;
+          if (o.change === 'restore') {
+            if (!p.copy.deleted) continue;
+            next = restoreRecord(p.copy, { ...ctx, reason: 'right series after all' });
+          } else {
+            if (p.copy.deleted) continue;
+            n++;
+            if (o.change === 'remove') next = deleteRecord(p.copy, { ...ctx, reason: `removed ${n}` });
+            else if (o.change === 'note') next = reviseRecord(p.copy, { note: `note ${n}` }, ctx);
+            else if (o.change === 'correct') next = reviseRecord(p.copy, { time_s: 1 + n / 1000 }, { ...ctx, reason: `correction ${n}` });
+            else next = reviseRecord(p.copy, { excluded: !p.copy.excluded, exclusion_reason: p.copy.excluded ? null : `excluded ${n}` }, { ...ctx, reason: `exclusion ${n}` });
+          }
+          held.set(next.rev, revsOf(p.copy));
+          p.copy = next;
+        }
+        // Everyone's copy to everyone: all phones hold the same record.
+        for (const from of phones) for (const to of phones) if (from !== to) receive(to, from.copy);
+        for (const from of phones) for (const to of phones) if (from !== to) receive(to, from.copy);
+        expect(phones[1]!.copy).toEqual(phones[0]!.copy);
+        expect(phones[2]!.copy).toEqual(phones[0]!.copy);
+        for (const p of phones) {
+          for (const c of p.conflicts) expect(crossedOne(c.other_rev), `${c.other_rev} (kept ${c.kept_rev}) on ${p.device}`).toBe(true);
+        }
+      }),
+      { seed: 20261203, numRuns: 400 },
+    );
+  });
+});
