@@ -161,26 +161,77 @@ export function conflictBetween(a: LogRecord, b: LogRecord): Conflict | null {
 }
 
 /**
- * A removal and an edit that crossed, seen from the phone whose own version was buried by the merge. Every
- * tombstone this app writes gives the version it replaced a reason, and so does every restore of a tombstone:
- * a version buried under a tombstone, or a tombstone buried under a live version, with no reason in the merged
- * history was never seen by the phone that made the newer version. The phone that received the crossing directly
- * finds it with conflictBetween(); this finds it on the other phone, so neither side loses its action in silence.
+ * Crossings this phone learns of only inside a merged copy: another phone met this phone's version and the
+ * one it crossed, listed the pair, and sent back the merge of both. conflictBetween() sees nothing then, since
+ * each version is in the other's copy; this finds the pair from either side, so neither phone loses an action
+ * in silence, whichever clock was ahead.
+ *
+ * - This phone's version was buried (`before` is no longer current): every change that needs a reason (a
+ *   removal, a restore, a correction of a measured value) leaves that reason on the version it replaces, and a
+ *   merge keeps a copy with a reason over one without. So when the version after ours in the merged history
+ *   makes such a change and ours carries no reason, whoever made that change never saw ours.
+ * - This phone's version stayed current: a version new to this phone with an older stamp was made without
+ *   knowing ours (a version made knowing it has a newer stamp, hlc.ts), and ours was made without knowing it
+ *   (a copy always travels with every version its maker held, and this phone held none of it). One conflict for
+ *   each other phone, against its newest such version (a phone's own versions follow each other knowingly).
+ *
+ * An edit crossing an edit of fields that need no reason (names, notes) is listed on the phone that stays
+ * current, and on the other only when it receives the bare version: nothing in the merged copy tells "replaced
+ * by an edit with no reason" from "never seen".
  */
-export function removalCrossing(before: LogRecord, after: LogRecord): Conflict | null {
-  if (before.id !== after.id || before.rev === after.rev || before.deleted === after.deleted) return null;
+export function crossingsInMerge(before: LogRecord, after: LogRecord): Conflict[] {
+  // Most records of an import change nothing or only move on: the cheap checks first.
+  if (before.id !== after.id || after === before) return [];
   const held = revisionOf(before);
-  const buried = (after.history as unknown as AnyRevision[]).find((h) => h.rev === before.rev && versionIdentity(h) === versionIdentity(held));
-  if (!buried || buried.reason !== null) return null;
+  const heldIdentity = versionIdentity(held);
+  if (after.rev !== before.rev) {
+    const buried = (after.history as unknown as AnyRevision[]).find((h) => h.rev === before.rev && versionIdentity(h) === heldIdentity);
+    if (!buried || buried.reason !== null) return [];
+    const next = successorOf(buried, after);
+    if (next.rev === buried.rev || !needsReason(after.kind, differingFields(next, buried, false))) return [];
+    const conflict = crossing(after, revisionOf(after), buried);
+    return conflict ? [conflict] : [];
+  }
+  // Nothing came in that this phone lacks, or a body under our own stamp sorts after ours (a same-stamp conflict).
+  if (after.history.length <= before.history.length) return [];
+  const current = revisionOf(after);
+  if (versionIdentity(current) !== heldIdentity) return [];
+  // A new body under a stamp this phone holds is a same-stamp conflict (sameStampConflicts), not a crossing.
+  const heldStamps = new Set([held.rev, ...before.history.map((h) => h.rev)]);
+  const newestByDevice = new Map<string, AnyRevision>();
+  for (const v of after.history as unknown as AnyRevision[]) {
+    if (heldStamps.has(v.rev)) continue;
+    const seen = newestByDevice.get(v.device);
+    if (!seen || compareVersions(v, seen) > 0) newestByDevice.set(v.device, v);
+  }
+  return [...newestByDevice.values()]
+    .sort(compareVersions)
+    .map((v) => crossing(after, current, v))
+    .filter((c): c is Conflict => c !== null);
+}
+
+/** The version that follows `version` in merge order among the record's versions (its current one at the latest). */
+function successorOf(version: AnyRevision, record: LogRecord): AnyRevision {
+  let next = revisionOf(record);
+  for (const h of record.history as unknown as AnyRevision[]) {
+    if (compareVersions(h, version) > 0 && compareVersions(h, next) < 0) next = h;
+  }
+  return next;
+}
+
+/** The conflict between the merged record's current version and a version that crossed, or null when they agree. */
+function crossing(record: LogRecord, kept: AnyRevision, other: AnyRevision): Conflict | null {
+  const fields = differingFields(kept, other, false);
+  if (fields.length === 0) return null;
   return {
-    id: after.id,
-    kind: after.kind,
-    kept_rev: after.rev,
-    kept_device: after.device,
-    other_rev: before.rev,
-    other_device: before.device,
-    fields: differingFields(revisionOf(after), held, false),
-    measured: true,
+    id: record.id,
+    kind: record.kind,
+    kept_rev: kept.rev,
+    kept_device: kept.device,
+    other_rev: other.rev,
+    other_device: other.device,
+    fields,
+    measured: isMeasured(record.kind, fields),
   };
 }
 
@@ -196,6 +247,12 @@ function differingFields(a: AnyRevision, b: AnyRevision, envelope: boolean): str
 function isMeasured(kind: RecordKind, fields: readonly string[]): boolean {
   const measuredFields = new Set<string>([...(REASON_REQUIRED_FIELDS[kind] ?? []), 'raw', 'deleted']);
   return fields.some((f) => measuredFields.has(f));
+}
+
+/** Whether a change of these fields needs a reason (records.ts: a removal, a restore, a measured value). */
+function needsReason(kind: RecordKind, fields: readonly string[]): boolean {
+  const reasoned = new Set<string>([...(REASON_REQUIRED_FIELDS[kind] ?? []), 'deleted']);
+  return fields.some((f) => reasoned.has(f));
 }
 
 /** Two versions under one stamp that say different things: `held` was on this phone, `came` arrived. */
@@ -259,8 +316,7 @@ export function previewMerge(local: readonly LogRecord[], incoming: readonly Log
     const found = sameStampConflicts(before, record);
     const conflict = before.rev === record.rev ? null : conflictBetween(before, record);
     if (conflict) found.push(conflict);
-    const crossing = conflict ? null : removalCrossing(before, after);
-    if (crossing) found.push(crossing);
+    if (!conflict) found.push(...crossingsInMerge(before, after));
     preview.conflicts.push(...found);
   }
   preview.changes = [...preview.added, ...preview.updated.map((u) => u.after)];

@@ -73,8 +73,13 @@ export async function removalSet(record: LogRecord, staging: Staging): Promise<L
   }
 }
 
-/** Removed in the same action as `container`: the same phone wrote both tombstones at the same moment, for the same reason. */
-const removalReason = (r: LogRecord) => r.history[r.history.length - 1]?.reason ?? null;
+/**
+ * Removed in the same action as `container`: the same phone wrote both tombstones at the same moment, for the same reason.
+ * A removal leaves its reason on the version it replaced; after a merge with an edit that crossed it (kept in the
+ * history, with no reason, log/merge.ts), that version is no longer the last before the tombstone, so the reason
+ * is the newest one in the history.
+ */
+const removalReason = (r: LogRecord) => r.history.findLast((h) => h.reason !== null)?.reason ?? null;
 const removedWith = (container: LogRecord) => (r: LogRecord) =>
   r.device === container.device && r.updated_at === container.updated_at && removalReason(r) === removalReason(container);
 

@@ -242,6 +242,24 @@ export function runLogStoreTests(name: string, makeStore: MakeStore): void {
         ]);
       });
 
+      it('restores a removed series with a drop whose removal crossed a correction made on another phone', async () => {
+        const { specimen, day } = await seedDay(store);
+        const written = await store.commit(seriesActions(store, day.id, specimen.id, [1.12, 1.13]).actions);
+        const [series, drop] = [written[0]!, written[1]!];
+        // Another phone corrects the drop without knowing of the removal below; its clock is behind, so the
+        // removal stays current and the correction goes into the history with no reason (log/merge.ts).
+        const other = 'bbbbbbbbbbbbbbb2';
+        const corrected = reviseRecord(drop, { time_s: 1.121 } as Partial<DropBody>, { device: other, clock: new HybridLogicalClock(other), now: T0 + 1500, reason: 'typed a wrong digit' });
+        fake.advance(2000);
+        await store.remove('series', series.id, 'wrong specimen');
+        await store.putRecords([corrected], { mergeStored: true });
+        const merged = (await store.get('drop', drop.id))!;
+        expect([merged.deleted, merged.history.at(-1)?.rev, merged.history.at(-1)?.reason]).toEqual([true, corrected.rev, null]);
+        fake.advance(1000);
+        await store.restore('series', series.id, 'it was the right specimen');
+        expect((await store.loadDay(day.id)).drops.map((d) => d.id).sort()).toEqual([drop.id, written[2]!.id].sort());
+      });
+
       it('restores a removed day with everything removed with it', async () => {
         const { specimen, day } = await seedDay(store);
         await store.create('reading', { ...demo.reading(), day_id: day.id });
