@@ -200,10 +200,16 @@ export interface ScaledSphereRow {
   terminalVelocity_m_s: number;
   /** s·C_d,std at the terminal Reynolds number. */
   terminalCd: number;
+  /** With a fitted offset: the scaled law's fitted offset less the constant law's, on the same times; else 0. */
+  offsetShift_s: number;
 }
 
 /** Piecewise-linear interpolation in a table sorted by constantCd, extended linearly beyond both ends. */
-export function interpolateRow(table: readonly ScaledSphereRow[], constantCd: number, key: 'scale' | 'terminalCd' | 'terminalVelocity_m_s'): number {
+export function interpolateRow(
+  table: readonly ScaledSphereRow[],
+  constantCd: number,
+  key: 'scale' | 'terminalCd' | 'terminalVelocity_m_s' | 'offsetShift_s',
+): number {
   let i = 0;
   while (i < table.length - 2 && constantCd > table[i + 1]!.constantCd) i++;
   const a = table[i]!;
