@@ -366,7 +366,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const physicalK = Math.max(kHat, 0);
   const physical: FallParameters = { ...fitted, drag_constant_per_m: physicalK };
   const reynoldsPerSpeed = (rho * geometry.characteristic_length_m) / mu;
-  // Under the scaled law the impact speed is the scaled curve's too (its time is scaledSphereFallTime's, to 1e-6).
+  // Under the scaled law the impact speed is the scaled curve's too (its time is scaledSphereFallTime's, to 1e-9).
   const scaledImpact = new Map<number, number>();
   if (scaledFit !== null) {
     const { body: b, scale } = scaledFit;

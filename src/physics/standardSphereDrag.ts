@@ -23,6 +23,8 @@
  * spread) up to Re = 2e5; beyond, the drag crisis makes any smooth-sphere value unreliable.
  */
 export const STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS = 2e5;
+/** The Reynolds numbers where the pieces below meet (each piece's upper limit, taken in it): the curve jumps or kinks there. */
+export const STANDARD_SPHERE_DRAG_PIECE_LIMITS: readonly number[] = [0.01, 20, 260, 1500, 1.2e4, 4.4e4, 3.38e5, 4e5, 1e6];
 export const STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY = 0.05;
 
 export function standardSphereDragCoefficient(reynolds: number): number {
