@@ -258,8 +258,12 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   if (scaledLaw !== null) {
     const own = dropDragCoefficients(setup, req.drops, scaledLaw.offset_s + setup.subtractedOffset_s, scaledLaw);
     prepared = preparedUnderLaw(setup, groups, fit, own, scaledLaw);
-    budget = uncertaintyBudget(model, x0, prepared.inputs.specs);
-    mc = monteCarlo(prepared);
+    // The inputs differ only in the scatter beyond the declared timing; when that is the same (none, or one height,
+    // where both fits pass through the mean) the budget and the draws are too, and are kept.
+    if (prepared.scatter.excess !== constantLaw.scatter.excess) {
+      budget = uncertaintyBudget(model, x0, prepared.inputs.specs);
+      mc = monteCarlo(prepared);
+    }
   }
   const { dropCd, scatter, warnings } = prepared;
   const { dof, scatter: scatterSd, excess } = scatter;
