@@ -39,10 +39,14 @@ export type SphereScaleBody = Omit<VariableDragBody, 'dragCoefficient'>;
  * itself, for the fit to differentiate, and agrees with odex to about 1e-10 (test/physics/dragLaw.test.ts).
  */
 export function scaledSphereFallTime(height_m: number, body: SphereScaleBody, scale: number): number {
+  return fallTimeAtSettlingSpeed(height_m, body, scale, scaledSphereTerminalVelocity(body, scale));
+}
+
+/** scaledSphereFallTime with the settling speed of this factor already known (a fit needs it once per factor, not per height). */
+function fallTimeAtSettlingSpeed(height_m: number, body: SphereScaleBody, scale: number, vT: number): number {
   const g = body.effective_gravity_m_s2;
   const c = body.drag_constant_per_unit_cd_per_m * scale;
   const rps = body.reynolds_per_speed_s_m;
-  const vT = scaledSphereTerminalVelocity(body, scale);
   const acceleration = (v: number) => (v > 0 ? g - c * standardSphereDragCoefficient(rps * v) * v * v : g);
   // t and y gained over [w0, w1], one panel.
   const panel = (w0: number, w1: number, out: Float64Array): void => {
@@ -154,11 +158,14 @@ export function fitSphereScale(
     let b1 = 0;
     let b2 = 0;
     const ds = 1e-5 * Math.max(Math.abs(s), 1e-3);
+    const vT = scaledSphereTerminalVelocity(body, s);
+    const vUp = scaledSphereTerminalVelocity(body, s + ds);
+    const vDown = scaledSphereTerminalVelocity(body, s - ds);
     for (let j = 0; j < J; j++) {
       const h = heights_m[j]!;
       const n = counts[j]!;
-      const t = scaledSphereFallTime(h, body, s);
-      const derivative = (scaledSphereFallTime(h, body, s + ds) - scaledSphereFallTime(h, body, s - ds)) / (2 * ds);
+      const t = fallTimeAtSettlingSpeed(h, body, s, vT);
+      const derivative = (fallTimeAtSettlingSpeed(h, body, s + ds, vUp) - fallTimeAtSettlingSpeed(h, body, s - ds, vDown)) / (2 * ds);
       const r = meanTimes_s[j]! - (t + offset);
       a11 += n * derivative * derivative;
       a12 += n * derivative;
