@@ -3,7 +3,7 @@ import { analyzeSeries } from '../../src/physics/analyzeSeries';
 import type { AnalysisRequest } from '../../src/physics/analysisTypes';
 import { chooseDragLaw, fitSphereScale, scaledSphereFallTime, scaledSphereTerminalVelocity } from '../../src/physics/dragLaw';
 import { fallWithVariableDrag } from '../../src/physics/fallWithVariableDrag';
-import { standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
+import { STANDARD_SPHERE_DRAG_PIECE_LIMITS, standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
 import { odexSolver } from './odexSolver';
 import { particleBody, particleRequest, PARTICLE } from './particleSeries';
 
@@ -29,6 +29,30 @@ describe('the scaled standard sphere curve', () => {
     const dust = { ...body, drag_constant_per_unit_cd_per_m: 33 * body.drag_constant_per_unit_cd_per_m, reynolds_per_speed_s_m: 0.03 * body.reynolds_per_speed_s_m };
     const settling = fallWithVariableDrag(2, { ...dust, dragCoefficient: standardSphereDragCoefficient }, 1e-12).time_s;
     expect(Math.abs(scaledSphereFallTime(2, dust, 1) / settling - 1)).toBeLessThan(1e-9);
+  });
+
+  it('knows every Reynolds number where the curve changes piece (the fall is integrated piece by piece)', () => {
+    // Between the listed limits the curve is smooth: on a grid of 2e-4 in ln Re its second difference in ln C_d stays
+    // below 1e-5 (curvature alone gives about 1e-7; in the drag crisis, 3.38e5–4e5, where C_d = 29.78 − 5.3·log10 Re
+    // falls to 0.09, about 3e-5, so 1e-4 there); a jump or kink anywhere else (a piece the list misses) shows as
+    // 1e-4 or more, as each listed limit does (checked too, so the check can fail), but the first: at Re 0.01 the
+    // Oseen piece meets the next one smoothly (standardSphereDrag.test.ts), listed all the same.
+    const step = 2e-4;
+    const lnC = (x: number) => Math.log(standardSphereDragCoefficient(Math.exp(x)));
+    const limits = STANDARD_SPHERE_DRAG_PIECE_LIMITS.map(Math.log);
+    const crisis = (x: number) => x > Math.log(3.38e5) && x < Math.log(4e5);
+    let worst = 0;
+    for (let x = Math.log(1e-3); x < Math.log(1e7); x += step) {
+      if (limits.some((l) => Math.abs(l - x) < 2 * step)) continue;
+      worst = Math.max(worst, Math.abs(lnC(x + step) - 2 * lnC(x) + lnC(x - step)) / (crisis(x) ? 10 : 1));
+    }
+    expect(worst).toBeLessThan(1e-5);
+    for (const l of limits.slice(1)) {
+      // The second differences over a grid that straddles the limit: a jump or a kink there shows in them.
+      const [a, b, c, d] = [l - 1.5 * step, l - 0.5 * step, l + 0.5 * step, l + 1.5 * step].map(lnC) as [number, number, number, number];
+      const across = Math.max(Math.abs(a - 2 * b + c), Math.abs(b - 2 * c + d));
+      expect(across, `Re ${Math.exp(l).toPrecision(3)}`).toBeGreaterThan(1e-5);
+    }
   });
 
   it('fits the factor, and a timing offset beside it, back out of exact times', () => {
