@@ -1,5 +1,5 @@
 // The rows of a series' drop table: each drop record beside its result, joined by the drop's id.
-import { fallBodyOf, ownDragCoefficient, type AnalysisResult } from '../physics';
+import { fallBodyOf, ownDragCoefficient, ownScaledSphereDragCoefficient, sphereScaleBodyOf, type AnalysisResult } from '../physics';
 import type { DropRecord, SeriesRecord } from '../log';
 import type { SeriesOutcome } from './series-analysis';
 import { dropHeight } from './series-request';
@@ -19,11 +19,17 @@ export interface DropRow {
 
 /**
  * One drop's own C_d on the series' body and air, for drops the fit leaves out: the same function the analysis
- * uses for the drops in the fit, with the same fitted timing offset taken off the time.
+ * uses for the drops in the fit, in the series' drag law, with the same delay taken off the time (the fitted
+ * offset, or else the declared delay) and, under a constant C_d, the same correction for the air along the fall.
  */
 export function singleDropDragCoefficient(result: AnalysisResult, height_m: number, time_s: number): { value: number | null; message: string | null } {
+  const offset = result.timing_offset_s ?? result.declared_timing_offset?.offset_s ?? 0;
   try {
-    return { value: ownDragCoefficient(fallBodyOf(result), height_m, time_s, result.timing_offset_s ?? 0), message: null };
+    if (result.drag_law === 'scaled_sphere' && result.drag_law_details.scale_factor !== null) {
+      return { value: ownScaledSphereDragCoefficient(sphereScaleBodyOf(result), height_m, time_s, offset, result.drag_law_details.scale_factor), message: null };
+    }
+    const value = ownDragCoefficient(fallBodyOf(result), height_m, time_s, offset);
+    return { value: value === null ? null : value * (result.air_column?.correction_ratio ?? 1), message: null };
   } catch (error) {
     return { value: null, message: error instanceof Error ? error.message : String(error) };
   }

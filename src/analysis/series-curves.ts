@@ -5,6 +5,7 @@ import {
   fallParameters,
   fallWithVariableDrag,
   morrisonSphereDragCoefficient,
+  sphereScaleBodyOf,
   standardSphereDragCoefficient,
   type AnalysisRequest,
   type AnalysisResult,
@@ -56,12 +57,7 @@ export function seriesCurves(request: AnalysisRequest, result: AnalysisResult): 
 }
 
 function variableDragBody(result: AnalysisResult): Omit<VariableDragBody, 'dragCoefficient'> {
-  const rho = result.air.density_kg_m3;
-  return {
-    effective_gravity_m_s2: result.model.effective_gravity_m_s2,
-    drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
-    reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
-  };
+  return sphereScaleBodyOf(result);
 }
 
 /** A speed-dependent fall as (time, height) points up to 5 % past the highest drop. */

@@ -156,8 +156,9 @@ export interface DropResult {
   height_m: number;
   time_s: number;
   /**
-   * This drop's own C_d: the one that makes the model reproduce its time (less the fitted timing
-   * offset, when one is fitted); null when that time is not longer than a drag-free fall.
+   * This drop's own C_d: the one that makes the series' drag law reproduce its time (less the fitted timing
+   * offset, or the declared delay); null when that time is not longer than a drag-free fall. Under scaled_sphere
+   * it is the drop's own factor on the curve, given as the series gives its C_d (at that factor's terminal Re).
    */
   drag_coefficient: number | null;
   /** √(2h/g): no air at all. */
@@ -224,7 +225,10 @@ export interface AnalysisResult {
   drag_resolved: boolean;
   /** Only when drag is not resolved: C_d is below this with 95 % probability. */
   drag_coefficient_upper_bound_95?: number;
-  /** Only when fitted: measured minus true time, s (a timer that stops late reads positive). */
+  /**
+   * Only when fitted: measured minus true time, s (a timer that stops late reads positive), fitted under the drag
+   * law of the result (under scaled_sphere beside the factor, its Monte Carlo draws mapped to that law).
+   */
   timing_offset_s?: number;
   timing_offset_standard_uncertainty_s?: number;
   timing_offset_interval_95_s?: [number, number];
@@ -239,7 +243,9 @@ export interface AnalysisResult {
   /**
    * The drag law the result is given in (options.drag_law, or what "auto" chose) and why; see dragLaw.ts. With
    * scaled_sphere, drag_coefficient (its estimate, standard uncertainty and interval) is C_d at the terminal Reynolds
-   * number; budget, gum and monte_carlo stay those of the constant-C_d fit every draw is mapped from.
+   * number, and the fitted times, residuals, scatter (its Type A row and the Monte Carlo's timing noise), each drop's
+   * C_d, the fitted offset, the budget rows and gum are the scaled law's; monte_carlo stays the summary of the
+   * constant-C_d draws every draw is mapped from.
    */
   drag_law: DragLaw;
   drag_law_details: {

@@ -7,7 +7,7 @@
 import type { AnalysisRequest, AnalysisResult, BudgetRow, DropResult, HeightResult } from './analysisTypes';
 import { defaultAddedMassUncertainty } from './addedMassCoefficient';
 import { budgetInputs, type BudgetInputs } from './budgetInputs';
-import { dropDragCoefficients } from './dropDragCoefficient';
+import { dropDragCoefficients, type DropDragCoefficients, type ScaledSphereLaw } from './dropDragCoefficient';
 import { groupDrops, type DropGroups } from './dropGroups';
 import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from './fallModel';
 import { fallWithVariableDrag } from './fallWithVariableDrag';
@@ -17,8 +17,7 @@ import type { PhysicsWarning } from './physicsWarning';
 import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
 import { DEFAULT_MONTE_CARLO_DRAWS, dragConstantFromCd, prepareSetup, type SeriesSetup } from './seriesSetup';
-import { seriesDragLaw } from './seriesDragLaw';
-import { scaledSphereFallTime } from './dragLaw';
+import { seriesDragLaw, seriesDragLawChoice } from './seriesDragLaw';
 import { seriesStatistics } from './seriesStatistics';
 import { STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS, standardSphereDragCoefficient, standardSphereDragRelativeUncertainty } from './standardSphereDrag';
 import { dragCrisisWarning } from './dragCrisisWarning';
@@ -126,12 +125,15 @@ export const CREEPING_FLOW_REYNOLDS = 1;
  * Everything up to the uncertainty evaluation, as named stages: the setup (validated inputs, air, gravity,
  * the body), the drops grouped by height, the fit of the measurement model at its nominal inputs, each drop's
  * own C_d, the scatter and the list of budget inputs. Warnings come in the order the stages meet them.
+ * prepareSeries gives them under a constant C_d; preparedUnderLaw again under the scaled sphere curve.
  */
 export interface PreparedSeries {
   setup: SeriesSetup;
   groups: DropGroups;
   fit: SeriesFit;
-  /** Each drop's own C_d (less the fitted offset), in the order of the request's drops. */
+  /** The scaled sphere law the stages after the fit follow; null under a constant C_d. */
+  law: ScaledSphereLaw | null;
+  /** Each drop's own C_d under the law (less the fitted offset), in the order of the request's drops. */
   dropCd: (number | null)[];
   scatter: SeriesScatter;
   inputs: BudgetInputs;
@@ -141,31 +143,42 @@ export interface PreparedSeries {
 export function prepareSeries(request: AnalysisRequest): PreparedSeries {
   const setup = prepareSetup(request);
   const drops = setup.request.drops;
-  const warnings: PhysicsWarning[] = [...setup.warnings];
   const groups = groupDrops(drops);
   // Without an offset, single drops are checked first: a wild time gets an error naming that drop.
   let own = setup.fitOffset ? null : dropDragCoefficients(setup, drops, setup.subtractedOffset_s);
   const fit = fitSeries(setup, groups);
   if (setup.fitOffset) own = dropDragCoefficients(setup, drops, fit.offset_s);
-  if (own!.slow.length > 0) {
+  return preparedUnderLaw(setup, groups, fit, own!, null);
+}
+
+/**
+ * The stages after the fit (each drop's own C_d given, the scatter, the budget inputs) about the constant fit, or,
+ * given `law`, about the scaled sphere curve's fit with its own offset: its residuals are the Type A scatter, the
+ * Monte Carlo's timing noise and each height's uncertainty.
+ */
+export function preparedUnderLaw(setup: SeriesSetup, groups: DropGroups, fit: SeriesFit, own: DropDragCoefficients, law: ScaledSphereLaw | null): PreparedSeries {
+  const drops = setup.request.drops;
+  const warnings: PhysicsWarning[] = [...setup.warnings];
+  if (own.slow.length > 0) {
     warnings.push({
       code: 'drop-not-slower-than-free-fall',
-      message: `No drag coefficient of its own for ${own!.slow.join('; ')}: the time is not longer than a drag-free fall, which timing noise explains. The drop stays in the series fit.`,
+      message: `No drag coefficient of its own for ${own.slow.join('; ')}: the time is not longer than a drag-free fall, which timing noise explains. The drop stays in the series fit.`,
     });
   }
-  const scatter = seriesScatter(setup, drops, groups, fit);
+  const scatter = seriesScatter(setup, drops, groups, fit, law);
   warnings.push(...scatter.warnings);
   checkNotFasterThanFreeFall(setup, groups, fit, scatter);
   const inputs = budgetInputs(setup, groups, fit, scatter);
   warnings.push(...inputs.warnings);
-  return { setup, groups, fit, dropCd: own!.values, scatter, inputs, warnings };
+  return { setup, groups, fit, law, dropCd: own.values, scatter, inputs, warnings };
 }
 
 export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   // A series with marks has its own measurement model (every mark, generalised least squares); without marks
   // nothing below changes.
   if (requestHasMarks(request)) return analyzeMarksSeries(request);
-  const { setup, groups, fit, dropCd, scatter, inputs, warnings } = prepareSeries(request);
+  const constantLaw = prepareSeries(request);
+  const { setup, groups, fit } = constantLaw;
   const { site, air, specimen, geometry, fitOffset, timingU, draws, seed, body, noDrag, humidityKind } = setup;
   const req = setup.request;
   const g = setup.gravity_m_s2;
@@ -179,47 +192,80 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const { counts, heights: groupHeights, members: groupDrops, times: groupTimes } = groups;
   const { model, layout: L, x0, estimate, fitted } = fit;
   const kHat = fit.dragConstant_per_m;
-  const offsetHat = fit.offset_s;
-  const { dof, scatter: scatterSd, excess, meanTimeU } = scatter;
-  const { specs, timeIndices } = inputs;
-  const budget = uncertaintyBudget(model, x0, specs);
-  // The Monte Carlo evaluates the air along the fall through its surrogate (columnCorrection.ts).
-  if (model.columnWeight > 0) model.freezeColumn(x0, surrogateInputs(specs));
-
-  // Monte Carlo.
-  const normals: NormalInput[] = [];
-  for (const spec of specs) {
-    if (spec.input === 'time_s' || spec.input === 'scatter_s' || !(spec.standard_uncertainty > 0)) continue;
-    spec.indices.forEach((index, i) => {
-      const input: NormalInput = { index, u: spec.standard_uncertainty * spec.weights[i]! };
-      if (spec.input === 'relative_humidity_pct') {
-        input.min = 0;
-        input.max = 1;
-      }
-      // A drawn C_a below zero has no meaning: clip the change at minus the nominal value.
-      if (spec.input === 'added_mass_coefficient') input.min = -addedMass;
-      normals.push(input);
-    });
-  }
-  const mcSpec: MonteCarloSpec = {
-    draws,
-    seed,
-    normals,
-    times: {
-      indices: timeIndices,
-      counts: Array.from(counts),
-      declared_s: timingU,
-      excess_s: excess,
-      degrees_of_freedom: Math.max(dof, 1),
-    },
-  };
-  if (humidityKind === 'dew-point') mcSpec.dewPoint = { index: L.humidity, temperatureIndex: L.temperature_K };
-  // A request that names its number of draws gets exactly that many; otherwise the draws go on in batches until
-  // the reported values are numerically stable (JCGM 101 §7.9, monteCarloPropagation.ts), up to a cap.
   const adaptive = req.options?.monte_carlo_draws === undefined;
-  const mc = adaptive ? adaptiveMonteCarloPropagation(model, x0, mcSpec, fitOffset) : monteCarloPropagation(model, x0, mcSpec, fitOffset);
+
+  // The Monte Carlo of the constant model, its timing noise set by the scatter about the law's fit.
+  const monteCarlo = (prepared: PreparedSeries) => {
+    const { specs, timeIndices } = prepared.inputs;
+    const { dof, excess } = prepared.scatter;
+    // The Monte Carlo evaluates the air along the fall through its surrogate (columnCorrection.ts).
+    if (model.columnWeight > 0) model.freezeColumn(x0, surrogateInputs(specs));
+    const normals: NormalInput[] = [];
+    for (const spec of specs) {
+      if (spec.input === 'time_s' || spec.input === 'scatter_s' || !(spec.standard_uncertainty > 0)) continue;
+      spec.indices.forEach((index, i) => {
+        const input: NormalInput = { index, u: spec.standard_uncertainty * spec.weights[i]! };
+        if (spec.input === 'relative_humidity_pct') {
+          input.min = 0;
+          input.max = 1;
+        }
+        // A drawn C_a below zero has no meaning: clip the change at minus the nominal value.
+        if (spec.input === 'added_mass_coefficient') input.min = -addedMass;
+        normals.push(input);
+      });
+    }
+    const mcSpec: MonteCarloSpec = {
+      draws,
+      seed,
+      normals,
+      times: {
+        indices: timeIndices,
+        counts: Array.from(counts),
+        declared_s: timingU,
+        excess_s: excess,
+        degrees_of_freedom: Math.max(dof, 1),
+      },
+    };
+    if (humidityKind === 'dew-point') mcSpec.dewPoint = { index: L.humidity, temperatureIndex: L.temperature_K };
+    // A request that names its number of draws gets exactly that many; otherwise the draws go on in batches until
+    // the reported values are numerically stable (JCGM 101 §7.9, monteCarloPropagation.ts), up to a cap.
+    const run = adaptive ? adaptiveMonteCarloPropagation(model, x0, mcSpec, fitOffset) : monteCarloPropagation(model, x0, mcSpec, fitOffset);
+    model.columnSurrogate = null;
+    return run;
+  };
+
+  // First under a constant C_d: whether drag is resolved at all, and the uncertainty `auto` weighs the law by.
+  let prepared = constantLaw;
+  let budget = uncertaintyBudget(model, x0, prepared.inputs.specs);
+  let mc = monteCarlo(prepared);
+  // Is drag resolved at all? (Judged on the constant fit: a delay beyond the noise, whatever law explains it.)
+  let bestDelayRatio = -Infinity;
+  for (let j = 0; j < J; j++) {
+    const h = groupHeights[j]!;
+    const t0 = fallTime(h, noDrag);
+    const uj = constantLaw.scatter.meanTimeU(j);
+    bestDelayRatio = Math.max(bestDelayRatio, (fallTime(h, fitted) - t0) / uj);
+  }
+  const resolved = kHat > 0 && mc.dragCoefficient.interval_95[0] > 0 && bestDelayRatio >= 2;
+
+  // The drag law (dragLaw.ts). Under the scaled sphere curve everything after the fit follows that law: each drop's
+  // own C_d, the scatter about its fit (the budget's Type A row and the Monte Carlo's timing noise, drawn again), and
+  // the fitted offset. The constant fit stays the model every draw is mapped from.
+  const lawChoice = seriesDragLawChoice(setup, groups, fit, budget.combined_standard_uncertainty, resolved);
+  const scaledLaw = lawChoice.scaled;
+  if (scaledLaw !== null) {
+    const own = dropDragCoefficients(setup, req.drops, scaledLaw.offset_s + setup.subtractedOffset_s, scaledLaw);
+    prepared = preparedUnderLaw(setup, groups, fit, own, scaledLaw);
+    // The inputs differ only in the scatter beyond the declared timing; when that is the same (none, or one height,
+    // where both fits pass through the mean) the budget and the draws are too, and are kept.
+    if (prepared.scatter.excess !== constantLaw.scatter.excess) {
+      budget = uncertaintyBudget(model, x0, prepared.inputs.specs);
+      mc = monteCarlo(prepared);
+    }
+  }
+  const { dropCd, scatter, warnings } = prepared;
+  const { dof, scatter: scatterSd, excess } = scatter;
   const adaptiveRun = adaptive ? (mc as AdaptiveMonteCarloResult).adaptive : null;
-  model.columnSurrogate = null;
   const mcCd = mc.dragCoefficient;
   if (mcCd.failed > 0) {
     warnings.push({
@@ -233,16 +279,6 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       message: `The Monte Carlo interval did not settle to its numerical tolerance (${adaptiveRun.tolerance.toPrecision(2)}, a twentieth of its standard deviation) within ${adaptiveRun.max_draws} draws: its ends may move by about ${(adaptiveRun.worst_ratio * adaptiveRun.tolerance).toPrecision(2)} between runs.`,
     });
   }
-
-  // Is drag resolved at all?
-  let bestDelayRatio = -Infinity;
-  for (let j = 0; j < J; j++) {
-    const h = groupHeights[j]!;
-    const t0 = fallTime(h, noDrag);
-    const uj = meanTimeU(j);
-    bestDelayRatio = Math.max(bestDelayRatio, (fallTime(h, fitted) - t0) / uj);
-  }
-  const resolved = kHat > 0 && mcCd.interval_95[0] > 0 && bestDelayRatio >= 2;
   // The one-sided bound is the Monte Carlo's 95th percentile: a floor at the detection limit would make it hold
   // far more often than the 95 % it states (measured: 100 % instead of 95 % on heavy balls, coverageUnresolved.test.ts).
   const upperBound = Math.max(mcCd.upper_bound_95, 0);
@@ -253,22 +289,17 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     });
   }
 
-  // The drag law (dragLaw.ts): reported values in the chosen law, the constant fit kept beside them.
-  const dragLaw = seriesDragLaw(setup, groups, fit, mc, budget.combined_standard_uncertainty, resolved, excess);
+  // Reported values in the chosen law, the constant fit kept beside them.
+  const dragLaw = seriesDragLaw(setup, groups, fit, lawChoice, mc, budget.combined_standard_uncertainty, excess);
   warnings.push(...dragLaw.warnings);
 
   // Under the scaled sphere curve the fit, its times and its budget are the scaled law's: each drop's fitted time
-  // is the scaled curve's fall (plus the fitted offset or declared delay), and each budget row is carried to the
-  // reported C_d by the slope of the map from the constant fit (dragLaw.ts: exact with one height).
+  // is the scaled curve's fall (plus the fitted offset or declared delay; seriesScatter.ts), and each budget row is
+  // carried to the reported C_d by the slope of the map from the constant fit (dragLaw.ts: exact with one height).
   const scaledFit = dragLaw.scaled;
-  let fittedTimes = scatter.fittedTimes;
-  let residuals = scatter.residuals;
-  if (scaledFit !== null) {
-    const delay = scaledFit.offset_s + setup.subtractedOffset_s;
-    const byHeight = new Map(groupHeights.map((h) => [h, scaledSphereFallTime(h, scaledFit.body, scaledFit.scale) + delay]));
-    fittedTimes = req.drops.map((d) => byHeight.get(d.height_m)!);
-    residuals = req.drops.map((d, i) => d.time_s - fittedTimes[i]!);
-  }
+  const { fittedTimes, residuals } = scatter;
+  const offsetHat = scaledFit === null ? fit.offset_s : scaledFit.offset_s;
+  const offsetDraws = scaledFit === null ? mc.offset : dragLaw.offset;
   const budgetSlope = scaledFit === null ? 1 : scaledFit.slope;
 
   // GUM interval (for comparison with the Monte Carlo one).
@@ -331,7 +362,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
   const physicalK = Math.max(kHat, 0);
   const physical: FallParameters = { ...fitted, drag_constant_per_m: physicalK };
   const reynoldsPerSpeed = (rho * geometry.characteristic_length_m) / mu;
-  // Under the scaled law the impact speed is the scaled curve's too (its time is scaledSphereFallTime's, to 1e-6).
+  // Under the scaled law the impact speed is the scaled curve's too (its time is scaledSphereFallTime's, to 1e-9).
   const scaledImpact = new Map<number, number>();
   if (scaledFit !== null) {
     const { body: b, scale } = scaledFit;
@@ -347,7 +378,8 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
       height_m: drop.height_m,
       time_s: drop.time_s,
       // In the air along the fall each drop's own C_d takes the series' correction (columnCorrection.ts).
-      drag_coefficient: dropCd[i] === null ? null : dropCd[i]! * columnFactor,
+      // Under the scaled law it is the drop's own factor's C_d, as the series' (which takes no such correction).
+      drag_coefficient: dropCd[i] === null ? null : scaledFit === null ? dropCd[i]! * columnFactor : dropCd[i]!,
       vacuum_time_s: Math.sqrt((2 * drop.height_m) / g),
       predicted_time_s: predictedByHeight.get(drop.height_m) ?? null,
       fitted_time_s: fittedTimes[i]!,
@@ -497,22 +529,22 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     result.drag_coefficient_upper_bound_95 = upperBound;
     result.terminal_velocity_lower_bound_m_s = Math.sqrt(gEff / dragConstantFromCd(setup, upperBound));
   }
-  if (fitOffset && mc.offset) {
+  if (fitOffset && offsetDraws) {
     result.timing_offset_s = offsetHat;
-    result.timing_offset_standard_uncertainty_s = mc.offset.standard_deviation;
-    result.timing_offset_interval_95_s = mc.offset.interval_95;
+    result.timing_offset_standard_uncertainty_s = offsetDraws.standard_deviation;
+    result.timing_offset_interval_95_s = offsetDraws.interval_95;
   }
   if (setup.declaredOffset !== null) {
     result.declared_timing_offset = { ...setup.declaredOffset };
-    if (fitOffset && mc.offset) {
+    if (fitOffset && offsetDraws) {
       // The declared delay is the prior the fit is checked against: the two disagree when they differ by more than
       // twice the standard uncertainty of their difference (independent estimates, about a 95 % two-sided test).
       const declared = setup.declaredOffset;
-      const uDifference = Math.hypot(mc.offset.standard_deviation, declared.standard_uncertainty_s);
+      const uDifference = Math.hypot(offsetDraws.standard_deviation, declared.standard_uncertainty_s);
       if (Math.abs(offsetHat - declared.offset_s) > 2 * uDifference) {
         warnings.push({
           code: 'timing-offset-disagrees',
-          message: `The fitted timing offset ${(offsetHat * 1000).toFixed(1)} ± ${(mc.offset.standard_deviation * 1000).toFixed(1)} ms differs from the declared ${(declared.offset_s * 1000).toFixed(1)} ± ${(declared.standard_uncertainty_s * 1000).toFixed(1)} ms by more than twice the uncertainty of the difference (${(2 * uDifference * 1000).toFixed(1)} ms): check the timing method, or the drag law (a speed-dependent drag can look like an offset).`,
+          message: `The fitted timing offset ${(offsetHat * 1000).toFixed(1)} ± ${(offsetDraws.standard_deviation * 1000).toFixed(1)} ms differs from the declared ${(declared.offset_s * 1000).toFixed(1)} ± ${(declared.standard_uncertainty_s * 1000).toFixed(1)} ms by more than twice the uncertainty of the difference (${(2 * uDifference * 1000).toFixed(1)} ms): check the timing method, or the drag law (a speed-dependent drag can look like an offset).`,
         });
       }
     }

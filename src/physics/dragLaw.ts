@@ -16,7 +16,7 @@
  * height the map is exact; with several it follows the direction in which timing noise moves the times most.
  */
 import type { VariableDragBody } from './fallWithVariableDrag';
-import { STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, standardSphereDragCoefficient } from './standardSphereDrag';
+import { STANDARD_SPHERE_DRAG_PIECE_LIMITS, STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY, standardSphereDragCoefficient } from './standardSphereDrag';
 
 export type DragLaw = 'constant' | 'scaled_sphere';
 export type DragLawOption = DragLaw | 'auto';
@@ -27,43 +27,108 @@ export type SphereScaleBody = Omit<VariableDragBody, 'dragCoefficient'>;
 /**
  * Fall time from rest through height h with C_d = s·C_d,std(Re), in still uniform air.
  *
- * In the height fallen y the motion is v·dv/dy = g_e − k·s·C_d,std(Re(v))·v² and dt/dy = 1/v. With y = u² the
- * speed grows linearly from the release (v ≈ √(2g_e)·u) and both dv/du = 2u·a(v)/v and dt/du = 2u/v are smooth
- * there, so classical Runge–Kutta on a fixed grid of u in [0, √h] integrates them; a fixed grid makes the time a
- * smooth function of s, which the fit differentiates. The steps follow the stiffness near the settling speed v_T:
- * relaxing over v_T²/(2g_e) of height needs about 3·g_e·h/v_T² steps for stability, and 48 more for accuracy
- * (within 1e-6 of fallWithVariableDrag and odex, test/physics/dragLaw.test.ts).
+ * With the speed as the variable the fall is two quadratures: dt/dv = 1/a(v) and dy/dv = v/a(v), where
+ * a(v) = g_e − k·s·C_d,std(ρLv/μ)·v² vanishes at the settling speed v_T. Substituting w = −ln(1 − v/v_T) removes that
+ * end's singularity (dv = (v_T − v)·dw, and (v_T − v)/a(v) stays finite), so dt/dw = (v_T − v)/a and
+ * dy/dw = v·(v_T − v)/a are smooth within each piece of the standard curve. The curve's pieces meet at fixed Reynolds
+ * numbers with a jump of up to 0.8 % (standardSphereDrag.ts); every piece is integrated on its own, by 8-point
+ * Gauss–Legendre panels (Abramowitz & Stegun, Table 25.4) at most half a unit of w wide, and at most three times as
+ * far from w = 0 as they start, where the pieces' formulas have their singularity (Re = 0). The fall ends at the w
+ * where y = h (Newton within the last panel). Past w = 12 (within 6e-6 of v_T) the rest of the fall follows the
+ * linearised approach to v_T in closed form. No fixed steps and no jumps: the time is as smooth in s as the curve
+ * itself, for the fit to differentiate, and agrees with odex to about 1e-10 (test/physics/dragLaw.test.ts).
  */
 export function scaledSphereFallTime(height_m: number, body: SphereScaleBody, scale: number): number {
+  return fallTimeAtSettlingSpeed(height_m, body, scale, scaledSphereTerminalVelocity(body, scale));
+}
+
+/** scaledSphereFallTime with the settling speed of this factor already known (a fit needs it once per factor, not per height). */
+function fallTimeAtSettlingSpeed(height_m: number, body: SphereScaleBody, scale: number, vT: number): number {
   const g = body.effective_gravity_m_s2;
   const c = body.drag_constant_per_unit_cd_per_m * scale;
   const rps = body.reynolds_per_speed_s_m;
-  const vT = scaledSphereTerminalVelocity(body, scale, 1e-6);
-  const steps = Math.min(20_000, 48 + Math.ceil((3 * g * height_m) / (vT * vT)));
-  const du = Math.sqrt(height_m) / steps;
-  const release = Math.sqrt(2 * g); // dv/du at the release; dt/du there is 2/√(2g)
-  const slopeV = (u: number, v: number) => (v > 0 ? (2 * u * (g - c * standardSphereDragCoefficient(rps * v) * v * v)) / v : release);
-  const slopeT = (u: number, v: number) => (v > 0 ? (2 * u) / v : 2 / release);
-  let v = 0;
-  let t = 0;
-  for (let i = 0; i < steps; i++) {
-    const u = i * du;
-    const k1v = slopeV(u, v);
-    const k1t = slopeT(u, v);
-    const v2 = v + 0.5 * du * k1v;
-    const k2v = slopeV(u + 0.5 * du, v2);
-    const k2t = slopeT(u + 0.5 * du, v2);
-    const v3 = v + 0.5 * du * k2v;
-    const k3v = slopeV(u + 0.5 * du, v3);
-    const k3t = slopeT(u + 0.5 * du, v3);
-    const v4 = v + du * k3v;
-    const k4v = slopeV(u + du, v4);
-    const k4t = slopeT(u + du, v4);
-    v += (du / 6) * (k1v + 2 * k2v + 2 * k3v + k4v);
-    t += (du / 6) * (k1t + 2 * k2t + 2 * k3t + k4t);
+  const acceleration = (v: number) => (v > 0 ? g - c * standardSphereDragCoefficient(rps * v) * v * v : g);
+  // t and y gained over [w0, w1], one panel.
+  const panel = (w0: number, w1: number, out: Float64Array): void => {
+    const half = 0.5 * (w1 - w0);
+    const mid = w0 + half;
+    let t = 0;
+    let y = 0;
+    for (let i = 0; i < GAUSS_NODES.length; i++) {
+      for (const sign of SIGNS) {
+        const w = mid + sign * half * GAUSS_NODES[i]!;
+        const gap = vT * Math.exp(-w);
+        const v = -vT * Math.expm1(-w);
+        const dt = (GAUSS_WEIGHTS[i]! * gap) / acceleration(v);
+        t += dt;
+        y += dt * v;
+      }
+    }
+    out[0] = t * half;
+    out[1] = y * half;
+  };
+  // The pieces in w: from the release to each of the curve's limits below v_T, then on to W_END.
+  const edges = [0];
+  for (const re of STANDARD_SPHERE_DRAG_PIECE_LIMITS) {
+    const v = re / rps;
+    if (v >= vT) break;
+    const w = -Math.log1p(-v / vT);
+    if (w >= W_END) break;
+    edges.push(w);
   }
-  return t;
+  edges.push(W_END);
+  const gained = panelScratch;
+  let t = 0;
+  let y = 0;
+  for (let p = 0; p + 1 < edges.length; p++) {
+    const end = edges[p + 1]!;
+    let w0 = edges[p]!;
+    while (w0 < end) {
+      const w1 = Math.min(end, w0 + PANEL_WIDTH, w0 > 0 && p > 0 ? 3 * w0 : end);
+      panel(w0, w1, gained);
+      if (y + gained[1]! >= height_m) {
+        // The fall ends in this panel: Newton on the end point ω, y(ω) = h, with dy/dω = v(v_T − v)/a at ω.
+        let omega = w0 + ((w1 - w0) * (height_m - y)) / gained[1]!;
+        for (let i = 0; i < 60; i++) {
+          panel(w0, omega, gained);
+          const v = -vT * Math.expm1(-omega);
+          const slope = (v * vT * Math.exp(-omega)) / acceleration(v);
+          const step = (y + gained[1]! - height_m) / slope;
+          omega = Math.min(w1, Math.max(w0, omega - step));
+          if (Math.abs(step) <= 1e-14 * Math.max(omega, 1e-3)) break;
+        }
+        panel(w0, omega, gained);
+        return t + gained[0]!;
+      }
+      t += gained[0]!;
+      y += gained[1]!;
+      w0 = w1;
+    }
+  }
+  // Within 6e-6 of v_T: a(v) ≈ −λ·(v − v_T), so the gap to v_T decays as e^(−λτ) and y grows by
+  // v_T·τ − gap·(1 − e^(−λτ))/λ; solve that for the rest of the height (Newton; dy/dτ is the speed).
+  const gap = vT * Math.exp(-W_END);
+  const lambda = (acceleration(vT * (1 - 1e-7)) - acceleration(vT * (1 + 1e-7))) / (2e-7 * vT);
+  const rest = height_m - y;
+  let tau = rest / vT;
+  for (let i = 0; i < 60; i++) {
+    const decay = Math.exp(-lambda * tau);
+    const step = (vT * tau - (gap * -Math.expm1(-lambda * tau)) / lambda - rest) / (vT - gap * decay);
+    tau -= step;
+    if (Math.abs(step) <= 1e-15 * tau) break;
+  }
+  return t + tau;
 }
+
+/** Abscissae (±) and weights of 8-point Gauss–Legendre quadrature on [−1, 1] (Abramowitz & Stegun, Table 25.4). */
+const GAUSS_NODES = [0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363];
+const GAUSS_WEIGHTS = [0.362683783378362, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763];
+const SIGNS = [-1, 1] as const;
+/** The widest panel in w (a unit of w is one e-fold of the gap to the settling speed). */
+const PANEL_WIDTH = 0.5;
+/** Where the quadrature hands over to the linearised approach: the gap to v_T is then e^−12 ≈ 6e-6 of v_T. */
+const W_END = 12;
+const panelScratch = new Float64Array(2);
 
 export interface SphereScaleFit {
   scale: number;
@@ -93,11 +158,14 @@ export function fitSphereScale(
     let b1 = 0;
     let b2 = 0;
     const ds = 1e-5 * Math.max(Math.abs(s), 1e-3);
+    const vT = scaledSphereTerminalVelocity(body, s);
+    const vUp = scaledSphereTerminalVelocity(body, s + ds);
+    const vDown = scaledSphereTerminalVelocity(body, s - ds);
     for (let j = 0; j < J; j++) {
       const h = heights_m[j]!;
       const n = counts[j]!;
-      const t = scaledSphereFallTime(h, body, s);
-      const derivative = (scaledSphereFallTime(h, body, s + ds) - scaledSphereFallTime(h, body, s - ds)) / (2 * ds);
+      const t = fallTimeAtSettlingSpeed(h, body, s, vT);
+      const derivative = (fallTimeAtSettlingSpeed(h, body, s + ds, vUp) - fallTimeAtSettlingSpeed(h, body, s - ds, vDown)) / (2 * ds);
       const r = meanTimes_s[j]! - (t + offset);
       a11 += n * derivative * derivative;
       a12 += n * derivative;
@@ -200,10 +268,16 @@ export interface ScaledSphereRow {
   terminalVelocity_m_s: number;
   /** s·C_d,std at the terminal Reynolds number. */
   terminalCd: number;
+  /** With a fitted offset: the scaled law's fitted offset less the constant law's, on the same times; else 0. */
+  offsetShift_s: number;
 }
 
 /** Piecewise-linear interpolation in a table sorted by constantCd, extended linearly beyond both ends. */
-export function interpolateRow(table: readonly ScaledSphereRow[], constantCd: number, key: 'scale' | 'terminalCd' | 'terminalVelocity_m_s'): number {
+export function interpolateRow(
+  table: readonly ScaledSphereRow[],
+  constantCd: number,
+  key: 'scale' | 'terminalCd' | 'terminalVelocity_m_s' | 'offsetShift_s',
+): number {
   let i = 0;
   while (i < table.length - 2 && constantCd > table[i + 1]!.constantCd) i++;
   const a = table[i]!;

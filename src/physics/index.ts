@@ -14,8 +14,8 @@ export { fitSeries, type SeriesFit } from './seriesFit';
 export { seriesScatter, checkNotFasterThanFreeFall, type SeriesScatter } from './seriesScatter';
 export { budgetInputs, type BudgetInputs } from './budgetInputs';
 export { seriesBudget, type SeriesBudget } from './seriesBudget';
-export { ownDragCoefficient, dropDragCoefficients, type DropDragCoefficients } from './dropDragCoefficient';
-export { fallBodyOf } from './fallBodyOf';
+export { ownDragCoefficient, ownScaledSphereDragCoefficient, dropDragCoefficients, type DropDragCoefficients, type ScaledSphereLaw } from './dropDragCoefficient';
+export { fallBodyOf, sphereScaleBodyOf } from './fallBodyOf';
 export type {
   AnalysisRequest,
   AnalysisResult,

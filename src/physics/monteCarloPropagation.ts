@@ -58,6 +58,11 @@ export interface MonteCarloResult {
   offset: MonteCarloSummary | null;
   /** The successful draws (partly reordered by the selection). */
   values: Float64Array;
+  /**
+   * With a fitted offset: the successful draws in the order drawn, each C_d beside its offset (copies taken before
+   * the summaries reorder them), for a map that needs both. Null without an offset.
+   */
+  offsetDraws: { values: Float64Array; offsets: Float64Array } | null;
 }
 
 export function monteCarloPropagation(
@@ -265,10 +270,12 @@ class MonteCarloRun {
 
   result(): MonteCarloResult {
     const used = this.values.subarray(0, this.ok);
+    const offsetDraws = this.offsets ? { values: used.slice(), offsets: this.offsets.slice(0, this.ok) } : null;
     return {
       dragCoefficient: summarise(used, this.drawn, this.failed),
       offset: this.offsets ? summarise(this.offsets.subarray(0, this.ok), this.drawn, this.failed) : null,
       values: used,
+      offsetDraws,
     };
   }
 }

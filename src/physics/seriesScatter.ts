@@ -1,9 +1,12 @@
 /**
  * The scatter of a series about its fit (GUM Type A): the residual standard deviation, the part of it the
- * declared timing uncertainty does not explain, and the standard uncertainty of each height's mean time.
+ * declared timing uncertainty does not explain, and the standard uncertainty of each height's mean time. The fit
+ * is the series' drag law: the constant C_d's closed-form fall, or the scaled sphere curve's with its own offset.
  */
 import type { DropInput } from './analysisTypes';
+import type { ScaledSphereLaw } from './dropDragCoefficient';
 import type { DropGroups } from './dropGroups';
+import { scaledSphereFallTime } from './dragLaw';
 import { fallTime } from './fallModel';
 import { PhysicsInputError } from './physicsInputError';
 import type { PhysicsWarning } from './physicsWarning';
@@ -29,12 +32,26 @@ export interface SeriesScatter {
   warnings: PhysicsWarning[];
 }
 
-export function seriesScatter(setup: SeriesSetup, drops: readonly DropInput[], groups: DropGroups, fit: SeriesFit): SeriesScatter {
+export function seriesScatter(
+  setup: SeriesSetup,
+  drops: readonly DropInput[],
+  groups: DropGroups,
+  fit: SeriesFit,
+  law: ScaledSphereLaw | null = null,
+): SeriesScatter {
   const { timingU } = setup;
   const warnings: PhysicsWarning[] = [];
-  // The model's time: the fitted offset, or the declared delay (one of them is 0).
-  const delay = fit.offset_s + setup.subtractedOffset_s;
-  const fittedTimes = drops.map((d) => fallTime(d.height_m, fit.fitted) + delay);
+  let fittedTimes: number[];
+  if (law === null) {
+    // The model's time: the fitted offset, or the declared delay (one of them is 0).
+    const delay = fit.offset_s + setup.subtractedOffset_s;
+    fittedTimes = drops.map((d) => fallTime(d.height_m, fit.fitted) + delay);
+  } else {
+    // The scaled curve's fall, once per height, with the scaled fit's own offset (or the declared delay).
+    const delay = law.offset_s + setup.subtractedOffset_s;
+    const byHeight = new Map(groups.heights.map((h) => [h, scaledSphereFallTime(h, law.body, law.scale) + delay]));
+    fittedTimes = drops.map((d) => byHeight.get(d.height_m)!);
+  }
   const residuals = drops.map((d, i) => d.time_s - fittedTimes[i]!);
   const dof = drops.length - (setup.fitOffset ? 2 : 1);
   const scatter = dof > 0 ? Math.sqrt(residuals.reduce((s, r) => s + r * r, 0) / dof) : null;

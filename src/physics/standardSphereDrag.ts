@@ -40,6 +40,8 @@
  * moving the whole curve by ±u(Re) at once (the error of a standard curve is systematic over one fall; predictedFall.ts).
  */
 export const STANDARD_SPHERE_DRAG_VALID_MAX_REYNOLDS = 2e5;
+/** The Reynolds numbers where the pieces below meet (each piece's upper limit, taken in it): the curve jumps or kinks there. */
+export const STANDARD_SPHERE_DRAG_PIECE_LIMITS: readonly number[] = [0.01, 20, 260, 1500, 1.2e4, 4.4e4, 3.38e5, 4e5, 1e6];
 /** The curve's relative standard uncertainty up to Re = 1e5 (standardSphereDragRelativeUncertainty). */
 export const STANDARD_SPHERE_DRAG_RELATIVE_UNCERTAINTY = 0.05;
 /** At Re = 2e5, where published tables differ by 8–12 %. */

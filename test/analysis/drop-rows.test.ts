@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeSeriesRecords, dropOfResult, seriesDropRows, singleDropDragCoefficient } from '../../src/analysis';
+import { analyzeSeries } from '../../src/physics';
+import { createRandom } from '../../src/physics/createRandom';
+import { particleRequest } from '../physics/particleSeries';
+import { measuredSeries } from '../physics/syntheticSeries';
 import { excludedCopy, revise, testDay, DEVICE } from './day-records';
 
 const DRAWS = { monteCarloDraws: 200 };
@@ -45,6 +49,27 @@ describe('the drop table rows', () => {
     expect(offset).toBeGreaterThan(0);
     expect(raw).toBeGreaterThan(corrected);
     expect(corrected).toBeCloseTo(outcome.result.drops.find((d) => d.id === drop.id)!.drag_coefficient!, 12);
+  });
+
+  it('give a drop left out of a series under the scaled sphere curve the C_d the analysis gives a drop in it', () => {
+    // A 1 mm bead (invented scenario, particleSeries.ts) from four heights with an offset fitted under the scaled law.
+    const request = particleRequest({ scale: 1.1, heights: [0.3, 0.3, 1, 1, 2, 2, 3, 3], drag_law: 'scaled_sphere', random: createRandom(41) });
+    const result = analyzeSeries({ ...request, timing: { ...request.timing, offset: 'fit' } });
+    expect(result.drag_law).toBe('scaled_sphere');
+    expect(result.timing_offset_s).toBeDefined();
+    for (const drop of result.drops) {
+      expect(singleDropDragCoefficient(result, drop.height_m, drop.time_s).value).toBe(drop.drag_coefficient);
+    }
+  });
+
+  it('take a declared delay off a left-out drop’s time, as the analysis does for the drops in the fit', () => {
+    // A ball timed with a declared 20 ± 3 ms delay, no offset fitted (syntheticSeries.ts, seeded).
+    const series = measuredSeries({ cd: 0.47, heights: [8, 8, 8, 12, 12, 12], timingU: 0.004, random: createRandom(13), offset_s: 0.02 });
+    const result = analyzeSeries({ ...series, timing: { standard_uncertainty_s: 0.004, offset_s: 0.02, offset_standard_uncertainty_s: 0.003 } });
+    expect(result.timing_offset_s).toBeUndefined();
+    for (const drop of result.drops) {
+      expect(singleDropDragCoefficient(result, drop.height_m, drop.time_s).value).toBe(drop.drag_coefficient);
+    }
   });
 
   it('join each drop to its own result by id, whatever the order and with deleted drops among them', () => {

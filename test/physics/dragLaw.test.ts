@@ -3,27 +3,56 @@ import { analyzeSeries } from '../../src/physics/analyzeSeries';
 import type { AnalysisRequest } from '../../src/physics/analysisTypes';
 import { chooseDragLaw, fitSphereScale, scaledSphereFallTime, scaledSphereTerminalVelocity } from '../../src/physics/dragLaw';
 import { fallWithVariableDrag } from '../../src/physics/fallWithVariableDrag';
-import { standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
+import { STANDARD_SPHERE_DRAG_PIECE_LIMITS, standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
 import { odexSolver } from './odexSolver';
 import { particleBody, particleRequest, PARTICLE } from './particleSeries';
 
 describe('the scaled standard sphere curve', () => {
-  it('integrates the same fall as odex, a general-purpose integrator, to 1e-6', () => {
+  it('integrates the same fall as odex, a general-purpose integrator, to 1e-9', () => {
     // The 1 mm glass bead from 1 m: Re runs from 0 through the Stokes range to several hundred.
     const body = particleBody();
     const s = 1.15;
     const t = scaledSphereFallTime(1, body, s);
     const drag = (v: number) => (v > 0 ? body.drag_constant_per_unit_cd_per_m * s * standardSphereDragCoefficient(body.reynolds_per_speed_s_m * v) * v * v : 0);
     const reference = odexSolver(2, 1e-12).solve((_t, [, v]) => [v!, body.effective_gravity_m_s2 - drag(v!)], 0, [0, 0], t);
-    expect(Math.abs(reference.y[0]! - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(reference.y[0]! - 1)).toBeLessThan(1e-9);
     // And our adaptive Dormand–Prince, for a near-settling fall of a light bead too (10 m, v close to v_T).
     for (const [h, scale] of [[1, 1.15], [10, 1], [0.2, 0.7]] as const) {
       const own = fallWithVariableDrag(h, { ...body, dragCoefficient: (re) => scale * standardSphereDragCoefficient(re) }, 1e-12).time_s;
-      expect(Math.abs(scaledSphereFallTime(h, body, scale) / own - 1)).toBeLessThan(1e-6);
+      expect(Math.abs(scaledSphereFallTime(h, body, scale) / own - 1)).toBeLessThan(1e-9);
     }
     const light = { ...body, drag_constant_per_unit_cd_per_m: 30 * body.drag_constant_per_unit_cd_per_m };
     const own = fallWithVariableDrag(5, { ...light, dragCoefficient: standardSphereDragCoefficient }, 1e-12).time_s;
-    expect(Math.abs(scaledSphereFallTime(5, light, 1) / own - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(scaledSphereFallTime(5, light, 1) / own - 1)).toBeLessThan(1e-9);
+    // A fall long past settling (a 30 µm bead settles within millimetres): the time is the settling speed's, plus
+    // the lag of the start, to the same 1e-9.
+    const dust = { ...body, drag_constant_per_unit_cd_per_m: 33 * body.drag_constant_per_unit_cd_per_m, reynolds_per_speed_s_m: 0.03 * body.reynolds_per_speed_s_m };
+    const settling = fallWithVariableDrag(2, { ...dust, dragCoefficient: standardSphereDragCoefficient }, 1e-12).time_s;
+    expect(Math.abs(scaledSphereFallTime(2, dust, 1) / settling - 1)).toBeLessThan(1e-9);
+  });
+
+  it('knows every Reynolds number where the curve changes piece (the fall is integrated piece by piece)', () => {
+    // Between the listed limits the curve is smooth: on a grid of 2e-4 in ln Re its second difference in ln C_d stays
+    // below 1e-5 (curvature alone gives about 1e-7; in the drag crisis, 3.38e5–4e5, where C_d = 29.78 − 5.3·log10 Re
+    // falls to 0.09, about 3e-5, so 1e-4 there); a jump or kink anywhere else (a piece the list misses) shows as
+    // 1e-4 or more, as each listed limit does (checked too, so the check can fail), but the first: at Re 0.01 the
+    // Oseen piece meets the next one smoothly (standardSphereDrag.test.ts), listed all the same.
+    const step = 2e-4;
+    const lnC = (x: number) => Math.log(standardSphereDragCoefficient(Math.exp(x)));
+    const limits = STANDARD_SPHERE_DRAG_PIECE_LIMITS.map(Math.log);
+    const crisis = (x: number) => x > Math.log(3.38e5) && x < Math.log(4e5);
+    let worst = 0;
+    for (let x = Math.log(1e-3); x < Math.log(1e7); x += step) {
+      if (limits.some((l) => Math.abs(l - x) < 2 * step)) continue;
+      worst = Math.max(worst, Math.abs(lnC(x + step) - 2 * lnC(x) + lnC(x - step)) / (crisis(x) ? 10 : 1));
+    }
+    expect(worst).toBeLessThan(1e-5);
+    for (const l of limits.slice(1)) {
+      // The second differences over a grid that straddles the limit: a jump or a kink there shows in them.
+      const [a, b, c, d] = [l - 1.5 * step, l - 0.5 * step, l + 0.5 * step, l + 1.5 * step].map(lnC) as [number, number, number, number];
+      const across = Math.max(Math.abs(a - 2 * b + c), Math.abs(b - 2 * c + d));
+      expect(across, `Re ${Math.exp(l).toPrecision(3)}`).toBeGreaterThan(1e-5);
+    }
   });
 
   it('fits the factor, and a timing offset beside it, back out of exact times', () => {
