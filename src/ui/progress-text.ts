@@ -1,5 +1,6 @@
 /**
- * What a long transfer is doing, in the crew's words: "Checking 12 400 of 100 000 records". Numbers are grouped
+ * What a long transfer is doing, in the crew's words: "Checking 12 400 of 100 000 records", "Uploading 3 of 12
+ * parts to the office folder". Numbers are grouped
  * by thousands with a no-break space, as the SI brochure writes them (§5.4.4).
  */
 import type { TransferProgress } from '../log';
@@ -25,7 +26,11 @@ export function progressText(p: TransferProgress): string {
     case 'downloading':
       return `Reading ${of(p, 'file') || 'files'} from the office folder`;
     case 'uploading':
-      return `Sending ${of(p, 'part') || 'this phone’s log'} to the office folder`;
+      return `Uploading ${of(p, 'part') || 'this phone’s log'} to the office folder`;
+    case 'indexing':
+      return 'Writing the list of this phone’s parts in the office folder';
+    case 'computing':
+      return `Computing ${of(p, 'series', 'series') || 'the tables'}`;
   }
 }
 
