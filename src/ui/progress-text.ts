@@ -39,3 +39,9 @@ export function progressFraction(p: TransferProgress): number | null {
   if (p.total <= 0) return null;
   return Math.min(1, Math.max(0, p.done / p.total));
 }
+
+/** Said while a sync stops: at its next request or write; what it has done stays done. */
+export const SYNC_CANCELLING_TEXT = 'Cancelling… stopping at the next safe point';
+/** Said once a sync has stopped: the log on the phone is whole either way, and what is unsent goes next time. */
+export const SYNC_CANCELLED_TEXT =
+  'Sync cancelled. The log on this phone is whole: what was read from the folder was merged completely or not at all. Whatever was not sent yet goes at the next sync.';

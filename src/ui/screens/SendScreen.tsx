@@ -24,14 +24,9 @@ import { currentSyncService, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
 import { localDate } from '../dates';
 import { exportNaming, incomingDays, incomingSites, tablesFileStem } from '../send-names';
+import { SYNC_CANCELLED_TEXT, SYNC_CANCELLING_TEXT } from '../progress-text';
 import { TransferBar } from '../TransferBar';
 import { useTransfer, type Transfer } from '../use-transfer';
-
-/** Said while a sync stops: it stops at the next request or write; what it has done stays done. */
-export const SYNC_CANCELLING_TEXT = 'Cancelling… stopping at the next safe point';
-/** Said once a sync has stopped: the log on the phone is whole either way, and what is unsent goes next time. */
-export const SYNC_CANCELLED_TEXT =
-  'Sync cancelled. This log is whole: what was read from the folder was merged completely or not at all, and whatever was not sent yet goes at the next sync.';
 
 /** A message as a sentence: it ends with a full stop before the next one starts. */
 function sentence(text: string): string {
