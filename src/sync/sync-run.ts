@@ -11,11 +11,13 @@
  *
  *  1. List the folder (PROPFIND, Depth 1): one entry per phone's index, whatever the size of its log.
  *  2. For every other .json file and every other phone's index that changed since last time (GET): a log file is
- *     merged; an index is checked and each part whose hash differs from the part last read is read and merged.
- *     A file, index or part that cannot be merged (not a log, a newer format, truncated, a record refused) is
- *     skipped and named with the reason, kept in the sync state for the Send screen; the run goes on, so one bad
- *     file never keeps this phone's own upload from happening.
- *  3. Split this phone's log into its parts, write those whose hash differs from the part last uploaded (PUT), then
+ *     read and checked; an index is checked and each part whose hash differs from the part last read is read and
+ *     checked. A file, index or part that cannot be merged (not a log, a newer format, truncated, a record
+ *     refused) is skipped and named with the reason, kept in the sync state for the Send screen; the run goes on,
+ *     so one bad file never keeps this phone's own upload from happening.
+ *  3. Everything read is merged into the store at once: one reading of the store, one transaction (mergeIncoming),
+ *     so a run stopped at any point leaves the store as it was or with all of it merged.
+ *  4. Split this phone's log into its parts, write those whose hash differs from the part last uploaded (PUT), then
  *     the index. After every PUT the file is read back and compared with what was sent (content hash): only then
  *     does it count, and only when all is written is the log marked sent, so an upload the server acknowledged but
  *     did not keep is sent again, never taken as done. Parts are written before the index that names them, so an
@@ -28,8 +30,11 @@
  *
  * Nothing is lost or duplicated whatever fails when: records are merged by id and version (merging twice is
  * merging once), the local store is only ever written by merges, a PUT replaces a whole file or nothing, and
- * the progress made (files merged, parts uploaded) is saved in the sync state as it happens. The run itself
- * never throws: the report carries the error, and the state remembers it for the screens and the back-off.
+ * the progress made (files merged, parts uploaded) is saved in the sync state once it is made. A run cut while
+ * reading the folder reads it again next time. The run itself never throws for a failure: the report carries the
+ * error, and the state remembers it for the screens and the back-off. It reports its phases (SyncOptions.
+ * onProgress) and stops on its caller's Cancel (SyncOptions.signal, handed to every request) with
+ * TransferCancelled: see syncFolder for what a cancelled run leaves.
  */
 import {
   assembleParts,
