@@ -8,6 +8,7 @@
  */
 import { toCsv, type CsvOptions, type CsvValue } from './csv';
 import { readingForSeries, readingAloftForSeries } from './reading-for-series';
+import type { TransferProgress } from './transfer-progress';
 
 export { readingForSeries, readingAloftForSeries, seriesReadingChoice, type SeriesReadingChoice } from './reading-for-series';
 import type { DayRecord, DropRecord, LogRecord, ReadingRecord, SeriesRecord, SiteRecord, SpecimenRecord } from './types';
@@ -212,17 +213,15 @@ export function seriesInputs(records: readonly LogRecord[]): (SeriesInput & { al
   return inputs.sort((a, b) => (key(a) < key(b) ? -1 : 1));
 }
 
-function computeAll(records: readonly LogRecord[], compute: ComputeSeries): Row[] {
-  return seriesInputs(records).map(({ allDrops, ...input }) => {
-    let result: SeriesResult;
-    try {
-      result = compute(input);
-    } catch (error) {
-      const e = error as { code?: unknown; message?: unknown };
-      result = { error: { code: typeof e.code === 'string' ? e.code : 'compute-failed', message: String(e.message ?? error) } };
-    }
-    return { input, allDrops, result };
-  });
+function computeRow({ allDrops, ...input }: SeriesInput & { allDrops: DropRecord[] }, compute: ComputeSeries): Row {
+  let result: SeriesResult;
+  try {
+    result = compute(input);
+  } catch (error) {
+    const e = error as { code?: unknown; message?: unknown };
+    result = { error: { code: typeof e.code === 'string' ? e.code : 'compute-failed', message: String(e.message ?? error) } };
+  }
+  return { input, allDrops, result };
 }
 
 /** A time to the microsecond (the tables' resolution for every time; a phone's clock resolves far less). */
@@ -415,7 +414,27 @@ export interface LogCsv {
 
 /** The three tables, computing each series once. */
 export function logCsv(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): LogCsv {
-  const rows = computeAll(records, compute);
+  const steps = logCsvSteps(records, compute, options);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+  }
+}
+
+/**
+ * The three tables in steps: one series computed per step (a series' analysis, with its Monte Carlo, is the long
+ * part), each step yielding how many series are done, so a caller can show progress and stop between two series
+ * (sync/csv-export.ts). The first report (0 of n) comes before any series is computed; the tables are returned.
+ */
+export function* logCsvSteps(records: readonly LogRecord[], compute: ComputeSeries, options: CsvOptions = {}): Generator<TransferProgress, LogCsv, void> {
+  const inputs = seriesInputs(records);
+  const total = inputs.length;
+  const rows: Row[] = [];
+  yield { phase: 'computing', done: 0, total };
+  for (const input of inputs) {
+    rows.push(computeRow(input, compute));
+    yield { phase: 'computing', done: rows.length, total };
+  }
   return {
     drops: toCsv(DROP_COLUMNS, dropRows(rows), options),
     series: toCsv(SERIES_COLUMNS, seriesRows(rows), options),

@@ -6,8 +6,22 @@
  */
 import { PlummetError } from '../errors';
 
-/** What a transfer is doing: each is worded for people on the screens (ui/progress-text.ts). */
-export type TransferPhase = 'reading' | 'checking' | 'merging' | 'writing' | 'exporting' | 'listing' | 'downloading' | 'uploading';
+/**
+ * What a transfer is doing: each is worded for people on the screens (ui/progress-text.ts). An import goes
+ * checking, reading, merging, writing; a sync run listing, downloading, checking, reading, merging, writing,
+ * uploading, indexing (writing the phone's part index); the CSV tables computing.
+ */
+export type TransferPhase =
+  | 'reading'
+  | 'checking'
+  | 'merging'
+  | 'writing'
+  | 'exporting'
+  | 'listing'
+  | 'downloading'
+  | 'uploading'
+  | 'indexing'
+  | 'computing';
 
 export interface TransferProgress {
   phase: TransferPhase;

@@ -3,6 +3,7 @@
  * again after a failure with back-off; Background Sync registered after a failure where the browser has it (the
  * service worker then syncs when the connection returns, with the page closed); and what to show.
  */
+import type { TransferOptions } from '../log';
 import { SyncError } from './errors';
 import { SYNC_META, type RecordSource } from './record-source';
 import { loadSyncSettings } from './settings';
@@ -54,8 +55,9 @@ export interface AutoSyncOptions {
 
 export interface AutoSync {
   scheduler: SyncScheduler;
-  /** A sync now (or right after the one running), e.g. from a "Sync now" button or after a change. */
-  syncNow(reason?: SyncReason): Promise<SyncReport>;
+  /** A sync now (or right after the one running), e.g. from a "Sync now" button or after a change; with the
+   *  caller's progress listener and Cancel (a cancelled run rejects with TransferCancelled). */
+  syncNow(reason?: SyncReason, transfer?: TransferOptions): Promise<SyncReport>;
   stop(): void;
 }
 
@@ -64,13 +66,13 @@ export function startAutoSync(options: AutoSyncOptions): AutoSync {
   const locks =
     options.locks !== undefined ? options.locks : typeof navigator !== 'undefined' && navigator.locks ? (navigator.locks as unknown as LockManagerLike) : null;
   const scheduler = new SyncScheduler({
-    async run(reason) {
+    async run(reason, transfer) {
       const settings = await loadSyncSettings(options.source);
       if (settings && !settings.enabled && reason !== 'manual') {
         const device = await options.source.deviceId();
         return refusedReport(device, new SyncError({ code: 'sync-disabled', field: null, value: null, allowed: null, message: 'automatic sync is switched off in the settings' }), new Date().toISOString());
       }
-      return syncFolder({ source: options.source, appVersion: options.appVersion, locks, ...(settings ? { settings } : {}) });
+      return syncFolder({ source: options.source, appVersion: options.appVersion, locks, ...(settings ? { settings } : {}), ...transfer });
     },
     baseDelayMs: options.baseDelayMs,
     maxDelayMs: options.maxDelayMs,
@@ -80,7 +82,7 @@ export function startAutoSync(options: AutoSyncOptions): AutoSync {
   const disconnect = connectSyncTriggers(scheduler, env);
   return {
     scheduler,
-    syncNow: (reason = 'manual') => scheduler.request(reason),
+    syncNow: (reason = 'manual', transfer) => scheduler.request(reason, transfer),
     stop() {
       disconnect();
       scheduler.stop();

@@ -5,14 +5,19 @@
  * folder set up) is not retried by itself: it waits for the next start, online event or request.
  *
  * One run at a time: a request during a run queues one more run after it, however many requests come.
+ *
+ * A run may carry its caller's progress listener and Cancel (a "Sync now" on the Send screen). A cancelled run
+ * rejects with TransferCancelled: that is no failure, so it neither counts towards the back-off nor schedules a
+ * retry, and a retry already waiting keeps waiting.
  */
+import type { TransferOptions } from '../log';
 import { SyncError } from './errors';
 import type { SyncReport } from './sync-run';
 
 export type SyncReason = 'start' | 'online' | 'change' | 'manual' | 'retry' | 'background';
 
 export interface SchedulerOptions {
-  run: (reason: SyncReason) => Promise<SyncReport>;
+  run: (reason: SyncReason, transfer?: TransferOptions) => Promise<SyncReport>;
   /** First retry after this long (default 5 s), doubling up to maxDelayMs (default 15 min). */
   baseDelayMs?: number;
   maxDelayMs?: number;
@@ -34,6 +39,8 @@ export function backoffDelay(failures: number, baseMs: number, maxMs: number, ra
 export class SyncScheduler {
   private current: Promise<SyncReport> | null = null;
   private queued: Promise<SyncReport> | null = null;
+  /** The progress listener and Cancel of the latest request waiting in the queue. */
+  private queuedTransfer: TransferOptions | undefined;
   private retryTimer: unknown = null;
   private failures = 0;
   private stopped = false;
@@ -47,16 +54,19 @@ export class SyncScheduler {
     return this.current !== null;
   }
 
-  /** Sync now, or right after the run in progress. */
-  request(reason: SyncReason): Promise<SyncReport> {
+  /** Sync now, or right after the run in progress; `transfer` follows that run (its progress, its Cancel). */
+  request(reason: SyncReason, transfer?: TransferOptions): Promise<SyncReport> {
     if (this.stopped) return Promise.reject(new SyncError({ code: 'sync-stopped', field: null, value: null, allowed: null, message: 'the sync scheduler is stopped' }));
     if (reason !== 'retry') this.cancelRetry();
-    if (!this.current) return this.start(reason);
+    if (!this.current) return this.start(reason, transfer);
+    if (transfer) this.queuedTransfer = transfer;
     if (!this.queued) {
-      this.queued = this.current.then(
-        () => this.start(reason),
-        () => this.start(reason),
-      );
+      const next = () => {
+        const waiting = this.queuedTransfer;
+        this.queuedTransfer = undefined;
+        return this.start(reason, waiting);
+      };
+      this.queued = this.current.then(next, next);
       this.queued.finally(() => (this.queued = null)).catch(() => undefined);
     }
     return this.queued;
@@ -73,8 +83,10 @@ export class SyncScheduler {
     this.nextRetryMs = null;
   }
 
-  private start(reason: SyncReason): Promise<SyncReport> {
-    const run = this.options.run(reason).then((report) => {
+  private start(reason: SyncReason, transfer?: TransferOptions): Promise<SyncReport> {
+    // A run rejects only when its caller cancelled it (TransferCancelled): not a failure, so `after` does not
+    // count it and no retry is scheduled; the caller gets the rejection.
+    const run = this.options.run(reason, transfer).then((report) => {
       this.after(report);
       return report;
     });

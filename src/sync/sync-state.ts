@@ -50,6 +50,9 @@ export interface SyncState {
   uploaded_index_hash?: string | null;
   /** This phone's parts in the folder, by key: the contentHash of each as uploaded and read back. */
   own_parts?: Record<string, string>;
+  /** contentHash of the part index this phone was writing when its run was cancelled (or cut): found in the
+   *  folder next time, it is this phone's own, not one written by someone else. */
+  pending_index_hash?: string | null;
 }
 
 export function emptySyncState(folderUrl: string): SyncState {

@@ -10,6 +10,7 @@
  * HTTP-network-or-cache fetch: the prompt needs credentials included), which in a headless or installed app
  * could wait forever. `cache: 'no-store'` because a cached GET could hand back an old file.
  */
+import { TransferCancelled, type CancelSignal } from '../log';
 import { basicAuthorization } from './basic-auth';
 import { SyncError } from './errors';
 import { parseFolderUrl } from './folder-url';
@@ -24,6 +25,11 @@ export interface WebDavClientOptions {
   fetch?: typeof fetch;
   setTimeout?: (fn: () => void, ms: number) => unknown;
   clearTimeout?: (handle: unknown) => void;
+  /**
+   * The caller's Cancel (a sync run's signal): checked before every request, and, when it is an AbortSignal,
+   * handed to fetch so a request on its way is dropped at once. A request stopped so throws TransferCancelled.
+   */
+  signal?: CancelSignal;
 }
 
 /** What a GET or HEAD says about a file. */
@@ -107,14 +113,22 @@ export class WebDavClient {
   private readonly fetchFn: typeof fetch;
   private readonly setTimer: (fn: () => void, ms: number) => unknown;
   private readonly clearTimer: (handle: unknown) => void;
+  private readonly signal: CancelSignal | undefined;
 
-  constructor(options: WebDavClientOptions) {
+  constructor(private readonly options: WebDavClientOptions) {
+    this.signal = options.signal;
     this.folderUrl = parseFolderUrl(options.folderUrl);
     this.authorization = basicAuthorization(options.username, options.password);
     this.timeoutMs = options.timeoutMs ?? 20_000;
     this.fetchFn = options.fetch ?? ((input, init) => globalThis.fetch(input, init));
     this.setTimer = options.setTimeout ?? ((fn, ms) => globalThis.setTimeout(fn, ms));
     this.clearTimer = options.clearTimeout ?? ((h) => globalThis.clearTimeout(h as ReturnType<typeof setTimeout>));
+  }
+
+  /** The same folder without the caller's signal: for requests that must finish once begun (tidying up after
+   *  the index is written). */
+  detached(): WebDavClient {
+    return new WebDavClient({ ...this.options, signal: undefined });
   }
 
   /** The URL of a file in the folder, or of one in a sub-folder when given as a path of names. */
@@ -219,12 +233,16 @@ export class WebDavClient {
     url: string,
     init: { headers?: Record<string, string>; body?: string; what: string },
   ): Promise<Answer> {
+    if (this.signal?.aborted) throw new TransferCancelled(null);
     const controller = new AbortController();
     let timedOut = false;
     const timer = this.setTimer(() => {
       timedOut = true;
       controller.abort();
     }, this.timeoutMs);
+    const caller = this.signal as Partial<AbortSignal> | undefined;
+    const cancel = () => controller.abort();
+    caller?.addEventListener?.('abort', cancel);
     try {
       const response = await this.fetchFn(url, {
         method,
@@ -247,6 +265,9 @@ export class WebDavClient {
       return { status: response.status, headers: response.headers, text };
     } catch (error) {
       if (error instanceof SyncError) throw error;
+      // Asked to stop: the server may or may not have taken a PUT or DELETE on its way; the run counts it as not
+      // done and the next run writes it again (a PUT replaces a whole file or nothing).
+      if (this.signal?.aborted && !timedOut) throw new TransferCancelled(null);
       if (timedOut) {
         throw new SyncError({ code: 'sync-timeout', field: null, value: this.timeoutMs, allowed: null, message: `no answer within ${this.timeoutMs / 1000} s when trying to ${init.what}; the server may be down or slow` });
       }
@@ -255,6 +276,7 @@ export class WebDavClient {
       throw new SyncError({ code: 'sync-network', field: null, value: url, allowed: null, message: `could not reach the folder to ${init.what} (${detail}); will try again` });
     } finally {
       this.clearTimer(timer);
+      caller?.removeEventListener?.('abort', cancel);
     }
   }
 }

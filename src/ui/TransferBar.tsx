@@ -12,7 +12,7 @@ export function TransferBar({ view }: { view: TransferView }) {
   // Brought into view once, when it appears: the crew may be scrolled to the button that started the transfer.
   useLayoutEffect(() => frame.current?.scrollIntoView?.({ block: 'nearest' }), []);
   const fraction = view.progress ? progressFraction(view.progress) : null;
-  const text = view.cancelling ? 'Cancelling: nothing will be changed' : view.progress ? progressText(view.progress) : 'Starting';
+  const text = view.cancelling ? view.cancellingText : view.progress ? progressText(view.progress) : 'Starting';
   const percent = fraction === null ? null : Math.floor(fraction * 100);
   useLayoutEffect(() => {
     if (bar.current) bar.current.style.width = fraction === null ? '' : `${(fraction * 100).toFixed(1)}%`;
@@ -36,7 +36,7 @@ export function TransferBar({ view }: { view: TransferView }) {
         <span ref={bar} class="transfer-fill" />
       </div>
       <button type="button" class="btn btn-quiet transfer-cancel" onClick={view.cancel} disabled={view.cancelling}>
-        Cancel
+        {view.cancelling ? 'Cancelling…' : 'Cancel'}
       </button>
     </div>
   );

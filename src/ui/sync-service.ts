@@ -4,11 +4,13 @@
 // service worker asks for it.
 import { startAutoSync, type AutoSync, type SyncReport } from '../sync';
 import type { LogStore } from '../store';
+import type { TransferOptions } from '../log';
 import { syncWiring } from './sync-wiring';
 
 export interface SyncService {
-  /** A sync now, or right after the one running. */
-  syncNow(reason?: Parameters<AutoSync['syncNow']>[0]): Promise<SyncReport>;
+  /** A sync now, or right after the one running; with a progress listener and Cancel (rejects with
+   *  TransferCancelled when cancelled). */
+  syncNow(reason?: Parameters<AutoSync['syncNow']>[0], transfer?: TransferOptions): Promise<SyncReport>;
   lastReport: SyncReport | null;
   subscribe(fn: (report: SyncReport) => void): () => void;
 }
@@ -30,7 +32,7 @@ export function startSyncService(store: LogStore, onChanged: () => void): SyncSe
 function createSyncService(store: LogStore, onChanged: () => void): SyncService {
   const listeners = new Set<(r: SyncReport) => void>();
   const service: SyncService = {
-    syncNow: (reason) => auto.syncNow(reason),
+    syncNow: (reason, transfer) => auto.syncNow(reason, transfer),
     lastReport: null,
     subscribe(fn) {
       listeners.add(fn);

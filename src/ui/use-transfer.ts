@@ -15,13 +15,18 @@ export interface TransferView {
   progress: TransferProgress | null;
   cancel(): void;
   cancelling: boolean;
+  /** What the bar says once Cancel is tapped, until the transfer has stopped. */
+  cancellingText: string;
 }
+
+/** Said while an import or an export stops: it writes nothing until its one transaction. */
+export const CANCELLING_TEXT = 'Cancelling… nothing will be changed';
 
 export interface Transfer {
   /** The transfer to show, or null (none running, or running for less than SHOW_AFTER_MS). */
   view: TransferView | null;
   /** Runs `work` with a signal and a progress listener; a second call while one runs is refused by the caller. */
-  run<T>(label: string, work: (options: Required<TransferOptions>) => Promise<T>): Promise<T>;
+  run<T>(label: string, work: (options: Required<TransferOptions>) => Promise<T>, wording?: { cancelling?: string }): Promise<T>;
   running: boolean;
 }
 
@@ -35,7 +40,8 @@ export function useTransfer(): Transfer {
     },
     [],
   );
-  const run = async <T,>(label: string, work: (options: Required<TransferOptions>) => Promise<T>): Promise<T> => {
+  const run = async <T,>(label: string, work: (options: Required<TransferOptions>) => Promise<T>, wording: { cancelling?: string } = {}): Promise<T> => {
+    const cancellingText = wording.cancelling ?? CANCELLING_TEXT;
     const controller = new AbortController();
     let latest: TransferProgress | null = null;
     let shown = false;
@@ -43,7 +49,7 @@ export function useTransfer(): Transfer {
     let frame = 0;
     const draw = () => {
       frame = 0;
-      if (shown && live.current) setView({ label, progress: latest, cancel, cancelling });
+      if (shown && live.current) setView({ label, progress: latest, cancel, cancelling, cancellingText });
     };
     const cancel = () => {
       cancelling = true;

@@ -1,6 +1,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import { backoffDelay, BACKGROUND_SYNC_TAG, connectSyncTriggers, requestBackgroundSync, SyncScheduler } from '../../src/sync/scheduler';
 import type { SyncReport } from '../../src/sync/sync-run';
+import { TransferCancelled, type TransferOptions } from '../../src/log/transfer-progress';
 
 function report(ok: boolean, retryable = true, code = 'sync-network'): SyncReport {
   return {
@@ -138,5 +139,47 @@ describe('the sync triggers', () => {
     expect(await requestBackgroundSync({})).toBe(false);
     const refused = vi.fn(async () => Promise.reject(new Error('NotAllowedError')));
     expect(await requestBackgroundSync({ serviceWorkerReady: Promise.resolve({ sync: { register: refused } }) })).toBe(false);
+  });
+});
+
+describe('a run cancelled by its caller', () => {
+  it('is no failure: no retry is scheduled, the failures in a row stay, and the caller gets TransferCancelled', async () => {
+    const c = clock();
+    const results: (() => Promise<SyncReport>)[] = [async () => report(false), async () => Promise.reject(new TransferCancelled('uploading'))];
+    const run = vi.fn((_reason: string, _transfer?: TransferOptions) => results.shift()!());
+    const scheduler = new SyncScheduler({ run, baseDelayMs: 1000, random: () => 0.9999, setTimeout: c.setTimeout, clearTimeout: c.clearTimeout });
+    await scheduler.request('start');
+    expect(scheduler.nextRetryMs).toBe(1000);
+    const signal = new AbortController().signal;
+    const onProgress = vi.fn();
+    await expect(scheduler.request('manual', { signal, onProgress })).rejects.toBeInstanceOf(TransferCancelled);
+    // The caller's progress and Cancel went to the run.
+    expect(run).toHaveBeenLastCalledWith('manual', { signal, onProgress });
+    // A manual request cleared the waiting retry; the cancel schedules none, and the last report is the failure.
+    expect(c.pending()).toEqual([]);
+    expect(scheduler.nextRetryMs).toBeNull();
+    expect(scheduler.lastReport?.ok).toBe(false);
+    // The next failure counts as the second in a row (delay doubled), not as a first after a cancel.
+    results.push(async () => report(false));
+    await scheduler.request('online');
+    expect(scheduler.nextRetryMs).toBe(2000);
+  });
+
+  it('hands a request made while another run goes on its own progress and Cancel, for the run after it', async () => {
+    let release!: () => void;
+    const run = vi.fn((_reason: string, _transfer?: TransferOptions) => new Promise<SyncReport>((resolve) => (release = () => resolve(report(true)))));
+    const scheduler = new SyncScheduler({ run });
+    const first = scheduler.request('start');
+    const signal = new AbortController().signal;
+    const onProgress = vi.fn();
+    const mine = scheduler.request('manual', { signal, onProgress });
+    expect(run).toHaveBeenCalledTimes(1);
+    expect(run).toHaveBeenLastCalledWith('start', undefined);
+    release();
+    await first;
+    await new Promise((r) => setTimeout(r, 0));
+    expect(run).toHaveBeenLastCalledWith('manual', { signal, onProgress });
+    release();
+    await mine;
   });
 });

@@ -78,4 +78,39 @@ describe('the progress of a transfer', () => {
     expect(container.textContent).toContain('Cancelling');
     t.finish();
   });
+
+  it('words a sync run and the CSV tables in the same way, phase by phase', () => {
+    expect(progressText({ phase: 'listing', done: 0, total: 0 })).toBe('Looking at the office folder');
+    expect(progressText({ phase: 'downloading', done: 5, total: 14 })).toBe('Reading 5 of 14 files from the office folder');
+    expect(progressText({ phase: 'merging', done: 0, total: 1200 })).toBe('Merging 1\u00a0200 records with this log');
+    expect(progressText({ phase: 'writing', done: 0, total: 63 })).toBe('Saving 0 of 63 records');
+    expect(progressText({ phase: 'uploading', done: 3, total: 12 })).toBe('Uploading 3 of 12 parts to the office folder');
+    expect(progressText({ phase: 'uploading', done: 0, total: 1 })).toBe('Uploading 0 of 1 part to the office folder');
+    expect(progressText({ phase: 'indexing', done: 0, total: 1 })).toBe('Writing the list of this phone’s parts in the office folder');
+    expect(progressText({ phase: 'computing', done: 3, total: 12 })).toBe('Computing 3 of 12 series');
+    expect(progressText({ phase: 'computing', done: 0, total: 1 })).toBe('Computing 0 of 1 series');
+  });
+
+  it('says what a sync does once Cancel is tapped, and its button says Cancelling…', async () => {
+    vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'requestAnimationFrame', 'cancelAnimationFrame'] });
+    const { container, getByRole } = render(<Host />);
+    const t = controlled();
+    act(() => {
+      void transfer.run('Syncing with the office folder', t.work, { cancelling: 'Cancelling… stopping at the next safe point' }).catch(() => undefined);
+    });
+    t.options().onProgress({ phase: 'uploading', done: 3, total: 12 });
+    await act(async () => {
+      vi.advanceTimersByTime(SHOW_AFTER_MS + 20);
+    });
+    const bar = container.querySelector('[role="progressbar"]')!;
+    expect(bar.getAttribute('aria-valuetext')).toBe('Uploading 3 of 12 parts to the office folder');
+    expect(bar.getAttribute('aria-valuenow')).toBe('25');
+    expect(container.querySelector('[role="group"]')!.getAttribute('aria-label')).toBe('Syncing with the office folder');
+    await act(async () => getByRole('button', { name: 'Cancel' }).click());
+    expect(t.options().signal.aborted).toBe(true);
+    expect(bar.getAttribute('aria-valuetext')).toBe('Cancelling… stopping at the next safe point');
+    const button = getByRole('button', { name: 'Cancelling…' }) as HTMLButtonElement;
+    expect(button.disabled).toBe(true);
+    t.finish();
+  });
 });

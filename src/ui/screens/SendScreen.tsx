@@ -7,7 +7,7 @@ import {
   loadConflicts,
   loadSkippedFiles,
   loadSyncSettings,
-  logCsvFiles,
+  logCsvFilesInSteps,
   previewImport,
   saveSyncSettings,
   sendLog,
@@ -24,8 +24,9 @@ import { currentSyncService, type SyncService } from '../sync-service';
 import { describeError } from '../errors';
 import { localDate } from '../dates';
 import { exportNaming, incomingDays, incomingSites, tablesFileStem } from '../send-names';
+import { SYNC_CANCELLED_TEXT, SYNC_CANCELLING_TEXT } from '../progress-text';
 import { TransferBar } from '../TransferBar';
-import { useTransfer } from '../use-transfer';
+import { useTransfer, type Transfer } from '../use-transfer';
 
 /** A message as a sentence: it ends with a full stop before the next one starts. */
 function sentence(text: string): string {
@@ -53,6 +54,8 @@ export function SendScreen() {
   const [part, setPart] = useState('all');
   const [busy, setBusy] = useState(false);
   const transfer = useTransfer();
+  // Where the bar of the transfer running is drawn: beside the buttons that started it.
+  const [barAt, setBarAt] = useState<'files' | 'folder'>('files');
   const days = useStoreData(() => app.store.listDays(), []);
   const messageBox = useRef<HTMLDivElement>(null);
   // A message appears under the buttons that caused it and is brought into view (the box is a live region too).
@@ -63,6 +66,7 @@ export function SendScreen() {
 
   const exportJson = async () => {
     setMessage(null);
+    setBarAt('files');
     setBusy(true);
     try {
       const selection: Partial<LogSelection> | null =
@@ -90,17 +94,27 @@ export function SendScreen() {
 
   const exportCsv = async () => {
     setMessage(null);
+    setBarAt('files');
     setBusy(true);
     try {
-      const records = await app.store.allRecords({ includeDeleted: false });
       const { date, label } = exportNaming('all', days.state === 'ready' ? days.value : [], localDate());
-      const files = logCsvFiles(records, tablesFileStem(date, label));
+      // Each series is computed in turn (its analysis and Monte Carlo): long for a season, so it shows the bar
+      // and stops on Cancel before anything is shared.
+      const files = await transfer.run(
+        'Making the tables (CSV)',
+        async (options) => {
+          options.onProgress({ phase: 'reading', done: 0, total: 0 });
+          const records = await app.store.allRecords({ includeDeleted: false });
+          return logCsvFilesInSteps(records, tablesFileStem(date, label), options);
+        },
+        { cancelling: 'Cancelling… no tables will be made' },
+      );
       // Both tables in one share: a phone allows one share sheet per tap, so a second call would fail.
       const outcome = await shareFiles(files, undefined, 'Plummet tables');
       const what = files.length > 2 ? 'three CSV files, one row per drop, per series and per mark' : 'two CSV files, one row per drop and one row per series';
       setMessage(outcomeText(outcome, `${what}: ${files.map((f) => f.name).join(', ')}`));
     } catch (e) {
-      setMessage({ tone: 'bad', text: describeError(e) });
+      setMessage(e instanceof TransferCancelled ? { tone: 'info', text: 'Cancelled: no tables were made and nothing left the phone.' } : { tone: 'bad', text: describeError(e) });
     } finally {
       setBusy(false);
     }
@@ -109,6 +123,7 @@ export function SendScreen() {
   const chooseImport = async () => {
     setMessage(null);
     setIncoming(null);
+    setBarAt('files');
     try {
       const file = await pickFile();
       if (!file) return;
@@ -156,17 +171,17 @@ export function SendScreen() {
           onChange={setPart}
         />
         <div class="btn-col">
-          <button type="button" class="btn" onClick={exportJson} disabled={busy}>
+          <button type="button" class="btn" onClick={exportJson} disabled={busy || transfer.running}>
             Send as a log file (JSON)
           </button>
-          <button type="button" class="btn btn-quiet" onClick={exportCsv} disabled={busy}>
+          <button type="button" class="btn btn-quiet" onClick={exportCsv} disabled={busy || transfer.running}>
             Tables for a spreadsheet (CSV)
           </button>
           <button type="button" class="btn btn-quiet" onClick={chooseImport} disabled={transfer.running}>
             Import a log file
           </button>
         </div>
-        {transfer.view && !incoming ? <TransferBar view={transfer.view} /> : null}
+        {transfer.view && !incoming && barAt === 'files' ? <TransferBar view={transfer.view} /> : null}
         <div ref={messageBox} class="message-slot" role="status" aria-live="polite" data-testid="send-message">
           {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
         </div>
@@ -179,7 +194,7 @@ export function SendScreen() {
       </section>
       <Conflicts />
       <ClockAhead />
-      <FolderSync sync={sync} />
+      <FolderSync sync={sync} transfer={transfer} showBar={barAt === 'folder'} onStart={() => setBarAt('folder')} />
     </div>
   );
 }
@@ -269,7 +284,7 @@ function IncomingPreview({
   );
 }
 
-function FolderSync({ sync }: { sync: SyncService | null }) {
+function FolderSync({ sync, transfer, showBar, onStart }: { sync: SyncService | null; transfer: Transfer; showBar: boolean; onStart(): void }) {
   const app = useApp();
   const source = app.store;
   const saved = useStoreData(() => loadSyncSettings(source).catch(() => null), []);
@@ -280,6 +295,7 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
   const [error, setError] = useState<string | null>(null);
   const [report, setReport] = useState<SyncReport | null>(shown(sync?.lastReport ?? null));
   const [busy, setBusy] = useState(false);
+  const [stopped, setStopped] = useState(false);
   useEffect(() => {
     if (saved.state === 'ready' && saved.value) {
       setUrl(saved.value.folder_url);
@@ -304,13 +320,20 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
   const syncNow = async () => {
     if (!sync) return;
     setBusy(true);
+    setStopped(false);
+    setError(null);
+    onStart();
     try {
-      setReport(await sync.syncNow('manual'));
-      await app.refreshStatus();
+      setReport(shown(await transfer.run('Syncing with the office folder', (options) => sync.syncNow('manual', options), { cancelling: SYNC_CANCELLING_TEXT })));
     } catch (e) {
-      setError(describeError(e));
+      if (e instanceof TransferCancelled) {
+        setStopped(true);
+        // What was merged before the Cancel is in the log: the screens read it again.
+        app.notifyChanged();
+      } else setError(describeError(e));
     } finally {
       setBusy(false);
+      await app.refreshStatus();
     }
   };
 
@@ -333,10 +356,16 @@ function FolderSync({ sync }: { sync: SyncService | null }) {
         <button type="button" class="btn btn-quiet" onClick={save}>
           Save folder
         </button>
-        <button type="button" class="btn" onClick={syncNow} disabled={busy || !sync}>
+        <button type="button" class="btn" onClick={syncNow} disabled={busy || !sync || transfer.running}>
           {busy ? 'Syncing…' : 'Sync now'}
         </button>
       </div>
+      {transfer.view && showBar ? <TransferBar view={transfer.view} /> : null}
+      {stopped ? (
+        <div role="status" data-testid="sync-cancelled">
+          <Notice tone="info">{SYNC_CANCELLED_TEXT}</Notice>
+        </div>
+      ) : null}
       {report ? (
         <div role="status">
           <Notice tone={report.ok ? 'good' : 'bad'} title={report.ok ? 'Last sync succeeded' : 'Last sync failed'}>
