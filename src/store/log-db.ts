@@ -11,10 +11,11 @@ export interface DropPack {
   drops: DropRecord[];
 }
 
-/** The ids of the drops a pack holds. */
+/** Which series' pack holds each drop, for the drop ids that fall in one bucket (drop-packs.ts, whereBucket). */
 export interface DropWhere {
-  series_id: string;
-  drop_ids: string[];
+  bucket: number;
+  /** Drop id → series id. */
+  places: Record<string, string>;
 }
 
 export interface LogDB extends DBSchema {
@@ -28,9 +29,9 @@ export interface LogDB extends DBSchema {
   drop: { key: string; value: DropRecord; indexes: { by_series: string } };
   /** Since version 5: the drops of one series (every version, tombstones too) in one value, sorted by id. */
   drop_pack: { key: string; value: DropPack };
-  /** Since version 5: which drops each pack holds, small, so the ids of the whole log are read in one go and a drop
-   *  is found by its id (by_drop, one entry per drop) without reading the packs. */
-  drop_where: { key: string; value: DropWhere; indexes: { by_drop: string } };
+  /** Since version 5: the series of every drop, in a fixed number of buckets by a hash of the drop id (a drop is
+   *  found with one get, the whole log's ids are read in one go, and no index is kept up to date per drop). */
+  drop_where: { key: number; value: DropWhere };
   /** Unsaved form input, by form key. */
   draft: { key: string; value: DraftEntry };
   /** Device id, clock stamp, persistence answer, storage estimate, last export, unsent count, settings. */

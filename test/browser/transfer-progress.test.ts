@@ -54,8 +54,8 @@ const storedRecords = () =>
         open.onerror = () => reject(open.error);
         open.onsuccess = () => {
           const db = open.result;
-          // Since version 5 the drops of a series are one value of drop_pack; its id list (drop_where) counts them.
-          const kinds = ['site', 'specimen', 'day', 'reading', 'series', 'drop', 'drop_where'].filter((k) => db.objectStoreNames.contains(k));
+          // Since version 5 the drops of a series are one value of drop_pack: its drops are counted.
+          const kinds = ['site', 'specimen', 'day', 'reading', 'series', 'drop', 'drop_pack'].filter((k) => db.objectStoreNames.contains(k));
           const tx = db.transaction(kinds, 'readonly');
           let total = 0;
           let left = kinds.length;
@@ -66,10 +66,10 @@ const storedRecords = () =>
             }
           };
           for (const k of kinds) {
-            if (k === 'drop_where') {
+            if (k === 'drop_pack') {
               const all = tx.objectStore(k).getAll();
               all.onsuccess = () => {
-                for (const w of all.result as { drop_ids: string[] }[]) total += w.drop_ids.length;
+                for (const p of all.result as { drops: unknown[] }[]) total += p.drops.length;
                 done();
               };
               continue;

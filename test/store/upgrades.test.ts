@@ -6,6 +6,7 @@ import { HybridLogicalClock } from '../../src/log/hlc';
 import { createRecord, deleteRecord, reviseRecord } from '../../src/log/records';
 import type { LogRecord } from '../../src/log/types';
 import { DB_VERSION, StoreError, UPGRADES, openLogDatabase, openLogStore, type LogDB, type Upgrade } from '../../src/store';
+import { whereBucketV5 } from '../../src/store/upgrades';
 import * as demo from '../log/demo-bodies';
 import { fakeEnvironment } from './fake-environment';
 
@@ -283,13 +284,14 @@ describe('schema upgrades', () => {
     expect([...db.objectStoreNames]).not.toContain('drop');
     const [packs, wheres] = await Promise.all([db.getAll('drop_pack'), db.getAll('drop_where')]);
     db.close();
-    // One pack per series that has drops, each sorted by id, its id list beside it; every drop in exactly one.
+    // One pack per series that has drops, each sorted by id; every drop in exactly one, and its place in its bucket.
     expect(packs.map((p) => p.series_id).sort()).toEqual([...new Set(drops.map((d) => d.series_id))].sort());
     for (const pack of packs) {
       expect(pack.drops.every((d) => d.series_id === pack.series_id)).toBe(true);
       expect(pack.drops.map((d) => d.id)).toEqual(pack.drops.map((d) => d.id).sort());
     }
-    expect(Object.fromEntries(wheres.map((w) => [w.series_id, w.drop_ids]))).toEqual(Object.fromEntries(packs.map((p) => [p.series_id, p.drops.map((d) => d.id)])));
+    expect(Object.assign({}, ...wheres.map((w) => w.places))).toEqual(Object.fromEntries(drops.map((d) => [d.id, (d as { series_id: string }).series_id])));
+    for (const w of wheres) expect(Object.keys(w.places).every((id) => whereBucketV5(id) === w.bucket)).toBe(true);
     expect(packs.flatMap((p) => p.drops).length).toBe(drops.length);
   });
 });
