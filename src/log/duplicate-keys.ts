@@ -13,43 +13,63 @@ export interface DuplicateKey {
 const QUOTE = 34;
 const BACKSLASH = 92;
 
+/** An open object or array: its names so far (objects), where it sits in its parent, and, in an array, the place
+ *  of the next value. The pointer is written only for the object that holds a duplicate. */
+interface Frame {
+  keys: Set<string> | null;
+  parent: Frame | null;
+  /** The name or position this value has in its parent. */
+  name: string | number;
+  next: number;
+}
+
+const escapeName = (name: string) => name.replace(/~/g, '~0').replace(/\//g, '~1');
+
+function pointerOf(frame: Frame | null): string {
+  let out = '';
+  for (let f = frame; f?.parent; f = f.parent) out = `/${typeof f.name === 'number' ? f.name : escapeName(f.name)}${out}`;
+  return out;
+}
+
+const isSpace = (c: number) => c === 32 || c === 10 || c === 13 || c === 9;
+
 /** The first name that appears twice in one object of `text` (valid JSON), or null. */
 export function findDuplicateKey(text: string): DuplicateKey | null {
-  // One frame per open object or array: its names so far (objects), and its place for the pointer.
-  const frames: { keys: Set<string> | null; at: string; next: number }[] = [];
-  let pendingKey: string | null = null;
-  const place = () => {
-    const top = frames[frames.length - 1];
-    if (!top) return '';
-    if (top.keys) return `${top.at}/${(pendingKey ?? '').replace(/~/g, '~0').replace(/\//g, '~1')}`;
-    return `${top.at}/${top.next}`;
-  };
+  const frames: Frame[] = [];
+  let pendingKey = '';
   for (let i = 0; i < text.length; i++) {
     const c = text.charCodeAt(i);
     if (c === QUOTE) {
-      let j = i + 1;
-      let escaped = false;
-      for (; j < text.length; j++) {
-        const d = text.charCodeAt(j);
-        if (escaped) escaped = false;
-        else if (d === BACKSLASH) escaped = true;
-        else if (d === QUOTE) break;
+      // The closing quote: the next one not escaped by an odd run of backslashes before it (indexOf runs natively).
+      let j = text.indexOf('"', i + 1);
+      for (;;) {
+        if (j < 0) {
+          j = text.length;
+          break;
+        }
+        let slashes = 0;
+        while (text.charCodeAt(j - 1 - slashes) === BACKSLASH) slashes++;
+        if (slashes % 2 === 0) break;
+        j = text.indexOf('"', j + 1);
       }
       const top = frames[frames.length - 1];
       // A name is a string directly in an object that is followed by a colon.
-      let k = j + 1;
-      while (k < text.length && (text[k] === ' ' || text[k] === '\n' || text[k] === '\r' || text[k] === '\t')) k++;
-      if (top?.keys && text[k] === ':') {
-        const raw = text.slice(i, j + 1);
-        const key = raw.includes('\\') ? (JSON.parse(raw) as string) : raw.slice(1, -1);
-        if (top.keys.has(key)) return { pointer: top.at, key };
-        top.keys.add(key);
-        pendingKey = key;
+      if (top?.keys) {
+        let k = j + 1;
+        while (k < text.length && isSpace(text.charCodeAt(k))) k++;
+        if (text.charCodeAt(k) === 58 /* : */) {
+          const raw = text.slice(i + 1, j);
+          const key = raw.includes('\\') ? (JSON.parse(`"${raw}"`) as string) : raw;
+          if (top.keys.has(key)) return { pointer: pointerOf(top), key };
+          top.keys.add(key);
+          pendingKey = key;
+        }
       }
       i = j;
     } else if (c === 123 /* { */ || c === 91 /* [ */) {
-      const at = place();
-      frames.push({ keys: c === 123 ? new Set() : null, at, next: 0 });
+      const top = frames[frames.length - 1] ?? null;
+      const name = top === null ? '' : top.keys ? pendingKey : top.next;
+      frames.push({ keys: c === 123 ? new Set() : null, parent: top, name, next: 0 });
     } else if (c === 125 /* } */ || c === 93 /* ] */) {
       frames.pop();
     } else if (c === 44 /* , */) {

@@ -310,6 +310,12 @@ export function previewMerge(local: readonly LogRecord[], incoming: readonly Log
       preview.added.push(record);
       continue;
     }
+    // A copy equal to the one held (most of a file imported again): its versions are all held, so the merge
+    // changes nothing and no version is new to this phone: no conflict of any kind can come of it.
+    if (sameValue(before, record)) {
+      preview.unchanged++;
+      continue;
+    }
     const after = mergeRecord(before, record);
     if (after === before || sameValue(after, before)) preview.unchanged++;
     else preview.updated.push({ before, after });

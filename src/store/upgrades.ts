@@ -133,4 +133,47 @@ export const upgradeToV4: Upgrade = async (_db, tx) => {
   }
 };
 
-export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3, upgradeToV4];
+/** The bucket of a drop id in drop_where: FNV-1a (32 bits) of its text, modulo 1024. A copy of the rule in
+ *  drop-packs.ts (whereBucket), frozen here as upgrades use no app code; a test compares the two. */
+export function whereBucketV5(id: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < id.length; i++) h = Math.imul(h ^ id.charCodeAt(i), 0x01000193) >>> 0;
+  return h % 1024;
+}
+
+/**
+ * Version 5: the drops of each series in one value (drop_pack, by series id), and the series of every drop in
+ * 1024 values by a hash of its id (drop_where). IndexedDB's cost is mostly per value written: 50 000 drops put
+ * one by one took 3.5 to 4.2 s in Chromium, the same drops in 2 000 values 0.4 to 0.6 s. Every drop is moved as
+ * it was (every version, tombstones too), then the store of one value per drop is removed.
+ */
+export const upgradeToV5: Upgrade = async (db, tx) => {
+  const packs = db.createObjectStore('drop_pack', { keyPath: 'series_id' });
+  const where = db.createObjectStore('drop_where', { keyPath: 'bucket' });
+  const bySeries = new Map<string, Body[]>();
+  const buckets = new Map<number, Record<string, string>>();
+  const drops = tx.objectStore('drop');
+  let after: string | null = null;
+  for (;;) {
+    // In id order, so each pack's drops are sorted by id as they are added.
+    const page = (await drops.getAll(after === null ? null : IDBKeyRange.lowerBound(after, true), PAGE)) as unknown as (Body & { id: string; series_id: string })[];
+    for (const drop of page) {
+      let list = bySeries.get(drop.series_id);
+      if (!list) bySeries.set(drop.series_id, (list = []));
+      list.push(drop);
+      const b = whereBucketV5(drop.id);
+      let places = buckets.get(b);
+      if (!places) buckets.set(b, (places = {}));
+      places[drop.id] = drop.series_id;
+    }
+    if (page.length < PAGE) break;
+    after = page[page.length - 1]!.id;
+  }
+  const writes: Promise<unknown>[] = [];
+  for (const [series_id, list] of bySeries) writes.push(packs.put({ series_id, drops: list } as never));
+  for (const [bucket, places] of buckets) writes.push(where.put({ bucket, places }));
+  await Promise.all(writes);
+  db.deleteObjectStore('drop');
+};
+
+export const UPGRADES: readonly Upgrade[] = [upgradeToV1, upgradeToV2, upgradeToV3, upgradeToV4, upgradeToV5];

@@ -22,6 +22,7 @@ import {
   throwIfCancelled,
   type Conflict,
   type LogFile,
+  type LogRecord,
   type MergePreview,
   type TransferOptions,
 } from '../log';
@@ -43,6 +44,10 @@ export interface ImportPreview {
 export async function previewImport(source: RecordSource, text: string, name?: string, options: TransferOptions = {}): Promise<ImportPreview> {
   const { onProgress, signal } = options;
   const passed = new WeakSet<object>();
+  // The store is read while the file is checked: the engine reads in its own process, so the page's checking and
+  // the reading overlap. A file refused or a cancel leaves the read unused (a read changes nothing).
+  const reading = source.allRecords({ includeDeleted: true });
+  reading.catch(() => undefined);
   const steps = readLogFileSteps(text, { name, passed });
   // The page gets a turn between steps only when someone watches or may cancel: a sync or a test does not wait.
   const watched = onProgress !== undefined || signal !== undefined;
@@ -57,16 +62,23 @@ export async function previewImport(source: RecordSource, text: string, name?: s
     onProgress?.(step.value);
     if (watched) await yieldToPage();
   }
-  const preview = await mergeWithStore(source, file, name, passed, options);
+  const preview = await mergeWithStore(source, file, name, passed, options, reading);
   return { file, preview, passed };
 }
 
-/** The store's records read, and the file merged into them through the gate. */
-async function mergeWithStore(source: RecordSource, file: LogFile, name: string | undefined, passed: WeakSet<object>, { onProgress, signal }: TransferOptions): Promise<MergePreview> {
+/** The store's records read (or their read begun earlier, `reading`), and the file merged into them through the gate. */
+async function mergeWithStore(
+  source: RecordSource,
+  file: LogFile,
+  name: string | undefined,
+  passed: WeakSet<object>,
+  { onProgress, signal }: TransferOptions,
+  reading?: Promise<LogRecord[]>,
+): Promise<MergePreview> {
   const total = file.records.length;
   throwIfCancelled(signal, 'reading');
   onProgress?.({ phase: 'reading', done: 0, total: 0 });
-  const local = await source.allRecords({ includeDeleted: true });
+  const local = await (reading ?? source.allRecords({ includeDeleted: true }));
   throwIfCancelled(signal, 'merging');
   onProgress?.({ phase: 'merging', done: 0, total });
   if (onProgress !== undefined || signal !== undefined) await yieldToPage();

@@ -84,6 +84,23 @@ describe.skipIf(!haveChromium)('the log store in Chromium', () => {
     await page.close();
   });
 
+  it('moves every drop of a database made by version 4 into the packs of version 5, each as it was', async () => {
+    const page = await openPage(freshName());
+    const name = freshName();
+    // 2 600 drops: more than one page (2 000) of the upgrade's reading; some revised, some removed.
+    const r = await ok(page.evaluate((db) => window.store.upgradeFromVersion4(db, 4, 5, 130), name));
+    expect(r.drops).toBe(2600);
+    expect(r.read).toBe(r.written);
+    expect(r.sameAll).toBe(true);
+    expect(r.sameOneByOne).toBe(r.drops);
+    expect(r.shown).toEqual(r.liveDrops);
+    // Per day 5 series of 130 drops, 5 of each removed (every 25th).
+    expect(Object.values(r.liveDrops)).toEqual([625, 625, 625, 625]);
+    expect(r.version).toBe(5);
+    expect(r.stores).toEqual(['day', 'day_summary', 'draft', 'drop_pack', 'drop_where', 'meta', 'reading', 'series', 'site', 'specimen']);
+    await page.close();
+  });
+
   it('keeps the records and the device id when the browser is closed and opened again', async () => {
     const name = freshName();
     const page = await openPage(name);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { assertValidBody, validateBody, validateRecord } from '../../src/log/validate';
+import { assertValidBody, instantMs, isIsoInstant, validateBody, validateRecord } from '../../src/log/validate';
 import { LogValidationError } from '../../src/log/errors';
 import type { BodyOf, RecordKind } from '../../src/log/types';
 import * as demo from './demo-bodies';
@@ -237,5 +237,46 @@ describe('validateRecord', () => {
     expect(validateRecord({ ...envelope, ...demo.site(), history: [old] }).map((p) => p.message)).toEqual([
       'history[0].rev: "bad" is not a clock stamp: must be ms-counter-device',
     ]);
+  });
+});
+
+describe('instantMs', () => {
+  // The reference is the platform's own calendar (ECMAScript Date.parse and toISOString, ECMA-262 §21.4.1): a text
+  // is an instant when Date.parse reads it and writes the same date and time back (no roll-over of 2026-02-30).
+  const reference = (text: string): number => {
+    if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d{1,3})?Z$/.test(text)) return NaN;
+    const ms = Date.parse(text);
+    return Number.isFinite(ms) && new Date(ms).toISOString().slice(0, 19) === text.slice(0, 19) ? ms : NaN;
+  };
+  const pad = (n: number, width: number) => String(n).padStart(width, '0');
+
+  it('reads the time value Date.parse reads, and refuses what the calendar does not hold', () => {
+    const cases = [
+      '2026-06-14T09:12:03.412Z', '2026-06-14T09:12:03Z', '2026-06-14T09:12:03.4Z', '2026-06-14T09:12:03.05Z',
+      '1970-01-01T00:00:00.000Z', '1969-12-31T23:59:59.999Z', '0000-01-01T00:00:00Z', '0000-02-29T12:00:00Z',
+      '9999-12-31T23:59:59.999Z', '2000-02-29T00:00:00Z', '1900-02-29T00:00:00Z', '2024-02-29T00:00:00Z',
+      '2026-02-29T00:00:00Z', '2026-02-30T00:00:00Z', '2026-04-31T00:00:00Z', '2026-13-01T00:00:00Z',
+      '2026-00-10T00:00:00Z', '2026-01-00T00:00:00Z', '2026-01-01T24:00:00Z', '2026-01-01T23:60:00Z',
+      '2026-01-01T23:59:60Z', '2026-01-01T09:12:03.4120Z', '2026-01-01T09:12:03+00:00', '2026-01-01 09:12:03Z', '',
+    ];
+    for (const text of cases) expect([text, instantMs(text)]).toEqual([text, reference(text)]);
+    expect(Number.isNaN(instantMs('2026-02-30T00:00:00Z'))).toBe(true);
+    expect(instantMs('2026-06-14T09:12:03.412Z')).toBe(Date.UTC(2026, 5, 14, 9, 12, 3, 412));
+  });
+
+  it('agrees with Date.parse on drawn dates and times, valid or not', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 9999 }), fc.integer({ min: 0, max: 13 }), fc.integer({ min: 0, max: 32 }),
+        fc.integer({ min: 0, max: 24 }), fc.integer({ min: 0, max: 60 }), fc.integer({ min: 0, max: 60 }),
+        fc.option(fc.stringMatching(/^\d{1,3}$/)),
+        (y, mo, d, h, mi, s, fraction) => {
+          const text = `${pad(y, 4)}-${pad(mo, 2)}-${pad(d, 2)}T${pad(h, 2)}:${pad(mi, 2)}:${pad(s, 2)}${fraction === null ? '' : `.${fraction}`}Z`;
+          expect(instantMs(text)).toEqual(reference(text));
+          expect(isIsoInstant(text)).toBe(!Number.isNaN(reference(text)));
+        },
+      ),
+      { numRuns: 5000, seed: 20261203 },
+    );
   });
 });

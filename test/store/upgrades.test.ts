@@ -6,6 +6,7 @@ import { HybridLogicalClock } from '../../src/log/hlc';
 import { createRecord, deleteRecord, reviseRecord } from '../../src/log/records';
 import type { LogRecord } from '../../src/log/types';
 import { DB_VERSION, StoreError, UPGRADES, openLogDatabase, openLogStore, type LogDB, type Upgrade } from '../../src/store';
+import { whereBucketV5 } from '../../src/store/upgrades';
 import * as demo from '../log/demo-bodies';
 import { fakeEnvironment } from './fake-environment';
 
@@ -97,8 +98,8 @@ const byKindAndId = (a: LogRecord, b: LogRecord) => (a.kind + a.id < b.kind + b.
 
 describe('schema upgrades', () => {
   it('ships one upgrade function per version, and the current version is the last', () => {
-    expect(UPGRADES).toHaveLength(4);
-    expect(DB_VERSION).toBe(4);
+    expect(UPGRADES).toHaveLength(5);
+    expect(DB_VERSION).toBe(5);
   });
 
   it('opens a database filled by version 1 under the current version with every record, draft and meta entry intact', async () => {
@@ -140,7 +141,7 @@ describe('schema upgrades', () => {
     const a = await openLogDatabase(upgraded);
     const b = await openLogDatabase(fresh);
     expect(structureOf(a)).toEqual(structureOf(b));
-    expect(structureOf(b).map((s) => s.name)).toEqual(['day', 'day_summary', 'draft', 'drop', 'meta', 'reading', 'series', 'site', 'specimen']);
+    expect(structureOf(b).map((s) => s.name)).toEqual(['day', 'day_summary', 'draft', 'drop_pack', 'drop_where', 'meta', 'reading', 'series', 'site', 'specimen']);
     a.close();
     b.close();
   });
@@ -211,9 +212,9 @@ describe('schema upgrades', () => {
     await Promise.all([...stored.map((r) => tx.objectStore('drop').put(r as never)), tx.done]);
     old.close();
 
-    const db = await openLogDatabase(name);
-    const after = new Map((await db.getAll('drop')).map((d) => [d.id, d]));
-    db.close();
+    const store = await openLogStore({ name, environment: fakeEnvironment().environment });
+    const after = new Map((await store.list('drop', { includeDeleted: true })).map((d) => [d.id, d]));
+    store.close();
     // The records as log format 2 writes them: exactly what was created, sound_travel null included.
     expect(after.get(heard.id)).toEqual(heard);
     expect(after.get(revised.id)).toEqual(revised);
@@ -248,14 +249,49 @@ describe('schema upgrades', () => {
     await Promise.all([tx.objectStore('reading').put(oldReading as never), tx.objectStore('series').put(oldSeries as never), tx.objectStore('drop').put(oldDrop as never), tx.done]);
     old.close();
 
-    const db = await openLogDatabase(name);
-    const [r, s, d] = await Promise.all([db.get('reading', reading.id), db.get('series', series.id), db.get('drop', drop.id)]);
-    db.close();
+    const store = await openLogStore({ name, environment: fakeEnvironment().environment });
+    const [r, s, d] = await Promise.all([store.get('reading', reading.id), store.get('series', series.id), store.get('drop', drop.id)]);
+    store.close();
     // Demo bodies hold the defaults, so the upgraded records are exactly what was created, rev included.
     expect(demo.reading()).toMatchObject({ height_m: 0, vertical_wind_m_s: null, u_vertical_wind_m_s: null, u_wind_speed_m_s: null });
     expect(demo.series()).toMatchObject({ reading_aloft_id: null, timing_delay_s: null, u_timing_delay_s: null });
     expect(r).toEqual(reading);
     expect(s).toEqual(series);
     expect(d).toEqual(drop);
+  });
+
+  it('moves every drop stored by version 4 into the pack of its series (history and tombstones too), and the store reads them as before', async () => {
+    const name = freshName();
+    const { records } = versionOneLog();
+    const old = await openLogDatabase(name, { version: 4 });
+    const tx = old.transaction(['site', 'specimen', 'day', 'reading', 'series', 'drop'], 'readwrite');
+    await Promise.all([...records.map((r) => (tx.objectStore(r.kind) as unknown as { put(v: unknown): Promise<unknown> }).put(r)), tx.done]);
+    old.close();
+    const drops = records.filter((r) => r.kind === 'drop');
+    expect(drops.length).toBe(2590);
+    expect(drops.some((d) => d.deleted) && drops.some((d) => d.history.length > 0)).toBe(true);
+
+    const store = await openLogStore({ name, environment: fakeEnvironment().environment });
+    expect([...(await store.allRecords())].sort(byKindAndId)).toEqual([...records].sort(byKindAndId));
+    for (const d of drops.filter((_, i) => i % 37 === 0)) expect(await store.get('drop', d.id)).toEqual(d);
+    const day = records.find((r) => r.kind === 'day' && !r.deleted)!;
+    const liveSeries = new Set(records.filter((r) => r.kind === 'series' && r.day_id === day.id && !r.deleted).map((r) => r.id));
+    const view = await store.loadDay(day.id);
+    expect(view.drops.map((d) => d.id).sort()).toEqual(drops.filter((d) => liveSeries.has(d.series_id) && !d.deleted).map((d) => d.id).sort());
+    store.close();
+
+    const db = await openLogDatabase(name);
+    expect([...db.objectStoreNames]).not.toContain('drop');
+    const [packs, wheres] = await Promise.all([db.getAll('drop_pack'), db.getAll('drop_where')]);
+    db.close();
+    // One pack per series that has drops, each sorted by id; every drop in exactly one, and its place in its bucket.
+    expect(packs.map((p) => p.series_id).sort()).toEqual([...new Set(drops.map((d) => d.series_id))].sort());
+    for (const pack of packs) {
+      expect(pack.drops.every((d) => d.series_id === pack.series_id)).toBe(true);
+      expect(pack.drops.map((d) => d.id)).toEqual(pack.drops.map((d) => d.id).sort());
+    }
+    expect(Object.assign({}, ...wheres.map((w) => w.places))).toEqual(Object.fromEntries(drops.map((d) => [d.id, (d as { series_id: string }).series_id])));
+    for (const w of wheres) expect(Object.keys(w.places).every((id) => whereBucketV5(id) === w.bucket)).toBe(true);
+    expect(packs.flatMap((p) => p.drops).length).toBe(drops.length);
   });
 });
