@@ -77,3 +77,45 @@ export function collectErrors(page: Page): string[] {
 export async function expectVisible(locator: Locator, timeout = 20_000): Promise<void> {
   await locator.first().waitFor({ state: 'visible', timeout });
 }
+
+/**
+ * The log's records in the app's database, counted in IndexedDB itself (not through the app): every kind's object
+ * store, and since database version 5 the drops inside each series' value of drop_pack.
+ */
+export const storedRecordCount = (page: Page): Promise<number> =>
+  page.evaluate(
+    () =>
+      new Promise<number>((resolve, reject) => {
+        const open = indexedDB.open('plummet-log');
+        open.onerror = () => reject(open.error);
+        open.onsuccess = () => {
+          const db = open.result;
+          // Since version 5 the drops of a series are one value of drop_pack: its drops are counted.
+          const kinds = ['site', 'specimen', 'day', 'reading', 'series', 'drop', 'drop_pack'].filter((k) => db.objectStoreNames.contains(k));
+          const tx = db.transaction(kinds, 'readonly');
+          let total = 0;
+          let left = kinds.length;
+          const done = () => {
+            if (--left === 0) {
+              db.close();
+              resolve(total);
+            }
+          };
+          for (const k of kinds) {
+            if (k === 'drop_pack') {
+              const all = tx.objectStore(k).getAll();
+              all.onsuccess = () => {
+                for (const p of all.result as { drops: unknown[] }[]) total += p.drops.length;
+                done();
+              };
+              continue;
+            }
+            const count = tx.objectStore(k).count();
+            count.onsuccess = () => {
+              total += count.result;
+              done();
+            };
+          }
+        };
+      }),
+  );

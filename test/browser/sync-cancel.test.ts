@@ -20,7 +20,7 @@ import { sampleLog } from '../sync/sample-log';
 import { putFolderFile, type DavServer } from '../servers/dav-server';
 import { startFaultProxy, type FaultProxy } from '../servers/fault-proxy';
 import { nginxMissing, startNginx } from '../servers/nginx';
-import { PHONE, baseUrl, expectVisible, haveChromium, launchBrowser } from './harness';
+import { PHONE, baseUrl, expectVisible, haveChromium, launchBrowser, storedRecordCount } from './harness';
 
 const SHOTS = 'reports/screens/sync-cancel';
 /** Each read and write of the folder waits this long at the proxy: a slow field connection. */
@@ -42,31 +42,7 @@ let context: BrowserContext;
 let page: Page;
 
 /** Records in the app's database, counted in IndexedDB itself. */
-const storedRecords = () =>
-  page.evaluate(
-    () =>
-      new Promise<number>((resolve, reject) => {
-        const open = indexedDB.open('plummet-log');
-        open.onerror = () => reject(open.error);
-        open.onsuccess = () => {
-          const db = open.result;
-          const kinds = ['site', 'specimen', 'day', 'reading', 'series', 'drop'].filter((k) => db.objectStoreNames.contains(k));
-          const tx = db.transaction(kinds, 'readonly');
-          let total = 0;
-          let left = kinds.length;
-          for (const k of kinds) {
-            const count = tx.objectStore(k).count();
-            count.onsuccess = () => {
-              total += count.result;
-              if (--left === 0) {
-                db.close();
-                resolve(total);
-              }
-            };
-          }
-        };
-      }),
-  );
+const storedRecords = () => storedRecordCount(page);
 
 /** The files of a phone in the folder: its index (or null) and the names in its part folder. */
 async function phoneFiles(device: string): Promise<{ index: string | null; parts: string[] }> {

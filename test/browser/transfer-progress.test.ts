@@ -11,7 +11,7 @@ import type { Browser, Page } from 'playwright-core';
 import { exportLog } from '../../src/log/export';
 import { benchLog } from '../../bench/export-log';
 import { sampleLog } from '../sync/sample-log';
-import { PHONE, baseUrl, expectVisible, haveChromium, launchBrowser } from './harness';
+import { PHONE, baseUrl, expectVisible, haveChromium, launchBrowser, storedRecordCount } from './harness';
 
 const SHOTS = 'reports/screens/progress';
 let browser: Browser;
@@ -45,44 +45,7 @@ async function pick(name: string, buffer: Buffer): Promise<void> {
   await (await chooser).setFiles(path, { timeout: 120_000 });
 }
 
-/** Records in the app's database, counted in IndexedDB itself. */
-const storedRecords = () =>
-  page.evaluate(
-    () =>
-      new Promise<number>((resolve, reject) => {
-        const open = indexedDB.open('plummet-log');
-        open.onerror = () => reject(open.error);
-        open.onsuccess = () => {
-          const db = open.result;
-          // Since version 5 the drops of a series are one value of drop_pack: its drops are counted.
-          const kinds = ['site', 'specimen', 'day', 'reading', 'series', 'drop', 'drop_pack'].filter((k) => db.objectStoreNames.contains(k));
-          const tx = db.transaction(kinds, 'readonly');
-          let total = 0;
-          let left = kinds.length;
-          const done = () => {
-            if (--left === 0) {
-              db.close();
-              resolve(total);
-            }
-          };
-          for (const k of kinds) {
-            if (k === 'drop_pack') {
-              const all = tx.objectStore(k).getAll();
-              all.onsuccess = () => {
-                for (const p of all.result as { drops: unknown[] }[]) total += p.drops.length;
-                done();
-              };
-              continue;
-            }
-            const count = tx.objectStore(k).count();
-            count.onsuccess = () => {
-              total += count.result;
-              done();
-            };
-          }
-        };
-      }),
-  );
+const storedRecords = () => storedRecordCount(page);
 
 describe.skipIf(!haveChromium)('the progress of a long import, and its Cancel', () => {
   it('shows a quick import without any progress bar', async () => {
