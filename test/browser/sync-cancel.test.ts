@@ -225,7 +225,8 @@ describe.skipIf(!haveChromium || nginxMissing() !== null)('Sync now and the CSV 
 
     // Not cancelled, they are made and saved (this headless phone has no share sheet).
     // Slowed to a crawl from the start, so the picture catches the bar however idle this machine is.
-    const download = page.waitForEvent('download');
+    // Its own ceiling: Playwright's 30 s default runs out while the page is slowed a hundredfold on a busy machine.
+    const download = page.waitForEvent('download', { timeout: 170_000 });
     await throttle(100);
     await page.getByRole('button', { name: 'Tables for a spreadsheet (CSV)' }).click();
     await waitForBar(/^Computing [1-9]\d* of 15 series$/, 120_000);
