@@ -10,7 +10,7 @@ import { checkJsonSchema, type JsonSchemaProblem } from './json-schema-check';
 import { checkJsonValue, DUPLICATE_ID_RULE, GATE_PROBLEM_LIMIT, gateSteps, RECORD_NESTING_LIMIT, recordName } from './record-gate';
 import type { TransferProgress } from './transfer-progress';
 import type { Problem } from './errors';
-import { findDuplicateKey } from './duplicate-keys';
+import { countMemberNames, findDuplicateKey } from './duplicate-keys';
 import { upgradeLogFile } from './upgrade-export';
 import type { LogRecord } from './types';
 
@@ -370,7 +370,15 @@ function* checkLogTextSteps(text: string, options: ReadLogFileOptions, limit: nu
   // The page gets a turn between the stages that read the whole file (each a second or so on a phone at 100 000
   // records), so its progress shows and a cancel is seen.
   yield { phase: 'checking', done: 0, total: 0 };
-  const duplicate = findDuplicateKey(text);
+  // What JSON cannot carry and nesting no log has, before anything else walks the values (the file and its records
+  // are two levels above a record). The walk counts the keys of every object on the way.
+  const tally = { keys: 0 };
+  const structural = checkJsonValue(data, '', RECORD_NESTING_LIMIT + 2, 1, tally);
+  yield { phase: 'checking', done: 0, total: 0 };
+  // A name written twice in one object is reported first (before a structural problem, as the text is read before
+  // its values). The keys JSON.parse kept add up to the names the text writes unless some object names a field twice;
+  // only then, or when the walk stopped early, is the duplicate looked for (and named).
+  const duplicate = structural.length > 0 || tally.keys !== countMemberNames(text) ? findDuplicateKey(text) : null;
   if (duplicate) {
     const parts = [...pointerParts(duplicate.pointer), duplicate.key];
     const field = fieldName(parts);
@@ -383,10 +391,6 @@ function* checkLogTextSteps(text: string, options: ReadLogFileOptions, limit: nu
       message: `${at}${field}${recordLabel(data, parts)}: the field ${show(duplicate.key)} appears twice in one object, and which one counts is a guess: ${rule}`,
     })] };
   }
-  // What JSON cannot carry and nesting no log has, before anything walks the values (the file and its records
-  // are two levels above a record).
-  yield { phase: 'checking', done: 0, total: 0 };
-  const structural = checkJsonValue(data, '', RECORD_NESTING_LIMIT + 2, 1);
   if (structural.length > 0) return { errors: [gateError(data, structural[0]!, text, at)] };
   data = upgradeLogFile(data);
   yield { phase: 'checking', done: 0, total: 0 };

@@ -70,10 +70,18 @@ export function parseHlc(text: string): HlcStamp {
  * rule with the allowed range, and what is wrong.
  */
 export function stampProblem(value: unknown): { rule: string; what: string } | null {
-  if (typeof value !== 'string' || !STAMP_PATTERN.test(value)) return { rule: 'must be ms-counter-device', what: 'is not a clock stamp' };
-  const { ms } = parseHlc(value);
-  if (ms < STAMP_MIN_MS || ms > STAMP_MAX_MS) return { rule: `must be a clock stamp with ${STAMP_RANGE}`, what: "is beyond the clock's range" };
-  return null;
+  return readStamp(value).problem;
+}
+
+/** A value read as a stamp: its parts, or null with what is wrong (stampProblem's), in one match of the pattern. */
+export function readStamp(value: unknown): { stamp: HlcStamp; problem: null } | { stamp: null; problem: { rule: string; what: string } } {
+  const m = typeof value === 'string' ? STAMP_PATTERN.exec(value) : null;
+  if (!m) return { stamp: null, problem: { rule: 'must be ms-counter-device', what: 'is not a clock stamp' } };
+  const stamp = { ms: Number(m[1]), counter: Number(m[2]), device: m[3]! };
+  if (stamp.ms < STAMP_MIN_MS || stamp.ms > STAMP_MAX_MS) {
+    return { stamp: null, problem: { rule: `must be a clock stamp with ${STAMP_RANGE}`, what: "is beyond the clock's range" } };
+  }
+  return { stamp, problem: null };
 }
 
 /** Whether a stamp stands further ahead of the wall time `nowMs` than a received stamp may move the clock. */

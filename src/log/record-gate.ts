@@ -48,26 +48,37 @@ const join = (path: string, key: string) => (path ? `${path}.${key}` : key);
  * Problems that would stop the canonical writer (canonical.ts) or that no record can hold: a value JSON cannot
  * carry (undefined, a function), a number that is not finite (1e999999 parses to Infinity), a lone surrogate in
  * a text or a key, an object that is not a plain one (a prototype other than Object's could lend it fields),
- * nesting deeper than `depthLimit`. Own keys only. Stops after `limit` problems.
+ * nesting deeper than `depthLimit`. Own keys only. Stops after `limit` problems. With `tally`, adds the number of
+ * keys of every object walked to tally.keys (the file reader compares it with the names written in the text, to
+ * know there is no duplicate name without collecting them; see duplicate-keys.ts).
  */
-export function checkJsonValue(value: unknown, path = '', depthLimit = RECORD_NESTING_LIMIT, limit = GATE_PROBLEM_LIMIT): Problem[] {
+export function checkJsonValue(value: unknown, path = '', depthLimit = RECORD_NESTING_LIMIT, limit = GATE_PROBLEM_LIMIT, tally?: { keys: number }): Problem[] {
   const problems: Problem[] = [];
+  // Where the walk is, as the keys and places below `path`: written out as a path only for a problem (a file holds
+  // millions of values, and building each one's path took a third of this walk).
+  const trail: (string | number)[] = [];
+  const here = (): string => {
+    let out = path;
+    for (const step of trail) out = typeof step === 'number' ? `${out}[${step}]` : join(out, step);
+    return out;
+  };
   const add = (at: string, v: unknown, rule: string, what: string, shown = show(v)) => {
     const where = at || '(record)';
     problems.push({ path: where, value: v, rule, message: `${where}: ${shown} ${what}: ${rule}` });
   };
-  const walk = (v: unknown, at: string, depth: number): void => {
+  let keys = 0;
+  const walk = (v: unknown, depth: number): void => {
     if (problems.length >= limit) return;
     switch (typeof v) {
       case 'string': {
         const lone = loneSurrogateAt(v);
-        if (lone >= 0) add(at, v, UNICODE_RULE, `holds a lone UTF-16 surrogate at character ${lone + 1}`);
+        if (lone >= 0) add(here(), v, UNICODE_RULE, `holds a lone UTF-16 surrogate at character ${lone + 1}`);
         return;
       }
       case 'number':
         if (!Number.isFinite(v)) {
           const what = Number.isNaN(v) ? 'is not a number' : 'is a number too large for JSON';
-          add(at, v, 'must be a finite number', what, Number.isNaN(v) ? 'NaN' : `${v < 0 ? '-' : ''}a number too large`);
+          add(here(), v, 'must be a finite number', what, Number.isNaN(v) ? 'NaN' : `${v < 0 ? '-' : ''}a number too large`);
         }
         return;
       case 'boolean':
@@ -75,34 +86,43 @@ export function checkJsonValue(value: unknown, path = '', depthLimit = RECORD_NE
       case 'object': {
         if (v === null) return;
         if (depth >= depthLimit) {
-          add(at, v, `a record nests at most ${RECORD_NESTING_LIMIT} levels deep`, 'is nested too deep', Array.isArray(v) ? '[a list]' : '{an object}');
+          add(here(), v, `a record nests at most ${RECORD_NESTING_LIMIT} levels deep`, 'is nested too deep', Array.isArray(v) ? '[a list]' : '{an object}');
           return;
         }
         if (Array.isArray(v)) {
-          for (let i = 0; i < v.length && problems.length < limit; i++) walk(v[i], `${at}[${i}]`, depth + 1);
+          for (let i = 0; i < v.length && problems.length < limit; i++) {
+            trail.push(i);
+            walk(v[i], depth + 1);
+            trail.pop();
+          }
           return;
         }
         const proto = Object.getPrototypeOf(v);
         if (proto !== Object.prototype && proto !== null) {
-          add(at, v, 'must be plain JSON data', 'is not a plain object', '{an object}');
+          add(here(), v, 'must be plain JSON data', 'is not a plain object', '{an object}');
           return;
         }
-        for (const key of Object.keys(v)) {
+        const names = Object.keys(v);
+        keys += names.length;
+        for (const key of names) {
           if (problems.length >= limit) return;
           const lone = loneSurrogateAt(key);
           if (lone >= 0) {
-            add(join(at, show(key)), key, UNICODE_RULE, `(a field name) holds a lone UTF-16 surrogate at character ${lone + 1}`);
+            add(join(here(), show(key)), key, UNICODE_RULE, `(a field name) holds a lone UTF-16 surrogate at character ${lone + 1}`);
             continue;
           }
-          walk((v as Record<string, unknown>)[key], join(at, key), depth + 1);
+          trail.push(key);
+          walk((v as Record<string, unknown>)[key], depth + 1);
+          trail.pop();
         }
         return;
       }
       default:
-        add(at, v, 'must be null, true, false, a number, text, a list or an object', `(a ${typeof v}) has no JSON form`, typeof v === 'undefined' ? 'missing' : `a ${typeof v}`);
+        add(here(), v, 'must be null, true, false, a number, text, a list or an object', `(a ${typeof v}) has no JSON form`, typeof v === 'undefined' ? 'missing' : `a ${typeof v}`);
     }
   };
-  walk(value, path, 0);
+  walk(value, 0);
+  if (tally) tally.keys += keys;
   return problems;
 }
 

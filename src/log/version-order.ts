@@ -52,19 +52,22 @@ function sortsBefore(a: AnyRevision, b: AnyRevision): boolean {
  * which copies met first. Under the same stamp an entry may differ from the current one (a same-stamp
  * conflict kept by the merge) as long as it sorts before it.
  */
-export function historyOrderProblems(record: { rev?: unknown; device?: unknown; updated_at?: unknown; deleted?: unknown; history?: unknown; [key: string]: unknown }, body: Record<string, unknown>): Problem[] {
-  if (!Array.isArray(record.history) || stampProblem(record.rev) !== null) return [];
-  const current = { rev: record.rev, device: record.device, updated_at: record.updated_at, reason: null, deleted: record.deleted, body } as AnyRevision;
+export function historyOrderProblems(record: { rev?: unknown; device?: unknown; updated_at?: unknown; deleted?: unknown; history?: unknown; [key: string]: unknown }, body: () => Record<string, unknown>): Problem[] {
+  if (!Array.isArray(record.history) || record.history.length === 0 || stampProblem(record.rev) !== null) return [];
+  let current: AnyRevision | null = null;
+  /** The current version, its body made only when a history entry shares its stamp. */
+  const currentVersion = () => (current ??= { rev: record.rev, device: record.device, updated_at: record.updated_at, reason: null, deleted: record.deleted, body: body() } as AnyRevision);
   const rule = 'every earlier version must be older than the current one (under the same stamp: sort before it)';
   const problems: Problem[] = [];
   (record.history as unknown[]).forEach((h, i) => {
     const entry = h as AnyRevision | null;
     // A stamp that is no stamp at all is reported by the envelope checks.
     if (entry === null || typeof entry !== 'object' || stampProblem(entry.rev) !== null) return;
-    if (compareHlc(entry.rev, current.rev) < 0) return;
-    if (entry.rev === current.rev && sortsBefore(entry, current)) return;
+    const rev = record.rev as string;
+    if (compareHlc(entry.rev, rev) < 0) return;
+    if (entry.rev === rev && sortsBefore(entry, currentVersion())) return;
     const path = `history[${i}].rev`;
-    problems.push({ path, value: entry.rev, rule, message: `${path}: ${JSON.stringify(entry.rev)} is not older than the current version (rev ${JSON.stringify(current.rev)}): ${rule}` });
+    problems.push({ path, value: entry.rev, rule, message: `${path}: ${JSON.stringify(entry.rev)} is not older than the current version (rev ${JSON.stringify(rev)}): ${rule}` });
   });
   return problems;
 }

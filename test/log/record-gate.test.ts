@@ -161,6 +161,14 @@ describe('the gate refuses, at the preview, what the store would refuse or could
     expect(e.message).toContain(NAME);
   });
 
+  it('a field named twice in an object the structural check stops at (nested too deep): the duplicate is named first', () => {
+    const deep = '{"a":{"a":{"a":{"a":{"a":{"a":{"a":{"a":{"a":{"k":1}}}}}}}}}}';
+    const text = exportLog(log, META).replace('"time_s":', `"time_s":2511,"deep":${deep},"time_s":`);
+    const e = fileError(() => readLogFile(text, { name: NAME }));
+    expect(e.code).toBe('log-duplicate-key');
+    expect(e.field).toMatch(/^records\[\d+\]\.time_s$/);
+  });
+
   it('and what the preview accepts, the write accepts', async () => {
     const store = await createMemoryStore();
     await store.putRecords(log.slice(0, 3));

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { assertValidBody, instantMs, isIsoInstant, validateBody, validateRecord } from '../../src/log/validate';
+import { assertValidBody, instantMs, isIsoInstant, READ_FIELD_NAMES, validateBody, validateRecord } from '../../src/log/validate';
 import { LogValidationError } from '../../src/log/errors';
 import type { BodyOf, RecordKind } from '../../src/log/types';
 import * as demo from './demo-bodies';
@@ -237,6 +237,36 @@ describe('validateRecord', () => {
     expect(validateRecord({ ...envelope, ...demo.site(), history: [old] }).map((p) => p.message)).toEqual([
       'history[0].rev: "bad" is not a clock stamp: must be ms-counter-device',
     ]);
+  });
+
+  // A plain object's fields are read by name, without a copy (an import reads 100 000 records): that reads only its
+  // own fields as long as no name read is a member of Object.prototype.
+  it('reads no field whose name Object.prototype holds, so a plain record is read by its own fields only', () => {
+    expect(READ_FIELD_NAMES.length).toBeGreaterThan(60);
+    expect(READ_FIELD_NAMES.filter((name) => name in Object.prototype)).toEqual([]);
+  });
+
+  it('reads only own fields of a record, a version and a body that are not plain objects', () => {
+    const lent = { ...envelope, ...demo.site() };
+    // Every field lent by a prototype: none of them counts, each is missing.
+    const inherited = validateRecord(Object.create(lent)).map((p) => p.path);
+    expect(inherited).toEqual(['kind']);
+    const body = Object.assign(Object.create({ name: 'Lent' }), { ...demo.site(), name: undefined });
+    delete body.name;
+    const old = { rev: '000000000000001-000000-a1b2c3d4e5f60718', device: 'a1b2c3d4e5f60718', updated_at: envelope.updated_at, reason: null, deleted: false, body };
+    expect(validateRecord({ ...envelope, ...demo.site(), history: [old] }).map((p) => p.path)).toEqual(['history[0].body.name']);
+    const version = Object.assign(Object.create({ deleted: false }), { ...old, body: demo.site() });
+    delete version.deleted;
+    expect(validateRecord({ ...envelope, ...demo.site(), history: [version] }).map((p) => p.path)).toEqual(['history[0].deleted']);
+  });
+
+  it('finds the same in a plain record as in the same fields without a prototype', () => {
+    const bare = (v: object) => Object.assign(Object.create(null), v);
+    const old = { rev: '001781424000000-000000-a1b2c3d4e5f60718', device: 'a1b2c3d4e5f60718', updated_at: envelope.updated_at, reason: null, deleted: false, body: { ...demo.site(), name: 'Other' } };
+    const record = { ...envelope, ...demo.site(), elevation_m: -1e6, extra: 1, history: [old] };
+    const plain = validateRecord(record);
+    expect(plain.map((p) => p.path)).toEqual(['history[0].rev', 'elevation_m', 'extra']);
+    expect(validateRecord(bare({ ...record, history: [bare({ ...old, body: bare(old.body) })] }))).toEqual(plain);
   });
 });
 
