@@ -27,7 +27,7 @@ import {
   type TransferOptions,
 } from '../log';
 import { SYNC_META, type RecordSource } from './record-source';
-import { yieldToPage } from './yield-to-page';
+import { pacedTurns, yieldToPage } from './yield-to-page';
 
 export interface ImportPreview {
   file: LogFile;
@@ -51,6 +51,7 @@ export async function previewImport(source: RecordSource, text: string, name?: s
   const steps = readLogFileSteps(text, { name, passed });
   // The page gets a turn between steps only when someone watches or may cancel: a sync or a test does not wait.
   const watched = onProgress !== undefined || signal !== undefined;
+  const turn = pacedTurns();
   let file: LogFile;
   for (;;) {
     throwIfCancelled(signal, 'checking');
@@ -60,7 +61,7 @@ export async function previewImport(source: RecordSource, text: string, name?: s
       break;
     }
     onProgress?.(step.value);
-    if (watched) await yieldToPage();
+    if (watched) await turn();
   }
   const preview = await mergeWithStore(source, file, name, passed, options, reading);
   return { file, preview, passed };
