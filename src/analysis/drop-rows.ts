@@ -14,7 +14,18 @@ export interface DropRow {
   /** Why there is no own C_d, when a computation refused the drop. */
   ownMessage: string | null;
   predicted_time_s: number | null;
+  /** The predicted time's standard uncertainty from the standard sphere curve's own (null without one). */
+  predicted_time_standard_uncertainty_s: number | null;
   residual_s: number | null;
+}
+
+/**
+ * The standard uncertainty of the time predicted for a drop from `height_m`: the standard sphere curve's own
+ * uncertainty of C_d carried to the time (result.prediction.heights); null when the prediction has none (a
+ * reference C_d, or no prediction).
+ */
+export function predictedTimeUncertainty(result: AnalysisResult, height_m: number): number | null {
+  return result.prediction.heights?.find((h) => h.height_m === height_m)?.time_standard_uncertainty_s ?? null;
 }
 
 /**
@@ -43,11 +54,20 @@ export function seriesDropRows(series: SeriesRecord, drops: readonly DropRecord[
     .filter((d) => !d.deleted)
     .map((drop) => {
       const height_m = dropHeight(drop, series);
-      const none = { drop, height_m, used: false, own_drag_coefficient: null, ownMessage: null, predicted_time_s: null, residual_s: null };
+      const none = { drop, height_m, used: false, own_drag_coefficient: null, ownMessage: null, predicted_time_s: null, predicted_time_standard_uncertainty_s: null, residual_s: null };
       if (!ready) return none;
       const r = results.get(drop.id);
       if (r) {
-        return { drop, height_m, used: true, own_drag_coefficient: r.drag_coefficient, ownMessage: null, predicted_time_s: r.predicted_time_s, residual_s: r.residual_s };
+        return {
+          drop,
+          height_m,
+          used: true,
+          own_drag_coefficient: r.drag_coefficient,
+          ownMessage: null,
+          predicted_time_s: r.predicted_time_s,
+          predicted_time_standard_uncertainty_s: r.predicted_time_s === null ? null : predictedTimeUncertainty(ready.result, r.height_m),
+          residual_s: r.residual_s,
+        };
       }
       const own = singleDropDragCoefficient(ready.result, height_m, drop.time_s);
       return { ...none, own_drag_coefficient: own.value, ownMessage: own.message };

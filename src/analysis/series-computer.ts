@@ -7,6 +7,7 @@ import { PlummetError } from '../errors';
 import type { ComputeSeries, SeriesInput, SeriesResult } from '../log';
 import { analyzeSeries, validateAnalysisRequest, type AnalysisRequest, type AnalysisResult } from '../physics';
 import { buildRequest, seriesParts, type MissingPart } from './series-request';
+import { predictedTimeUncertainty } from './drop-rows';
 
 /** A series the tables cannot compute: its code is the missing part's, the message names the series. */
 export class SeriesIncomplete extends PlummetError<MissingPart> {
@@ -45,6 +46,7 @@ export function seriesResultOf(result: AnalysisResult): SeriesResult {
       ...(d.id !== undefined ? { drop_id: d.id } : {}),
       drag_coefficient: d.drag_coefficient,
       predicted_time_s: d.predicted_time_s,
+      u_predicted_time_s: d.predicted_time_s === null ? null : predictedTimeUncertainty(result, d.height_m),
       residual_s: d.residual_s,
       vacuum_time_s: d.vacuum_time_s,
       impact_speed_m_s: d.impact_speed_m_s,

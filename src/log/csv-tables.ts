@@ -36,6 +36,8 @@ export interface DropResult {
   drop_id?: string;
   drag_coefficient?: number | null;
   predicted_time_s?: number | null;
+  /** The predicted time's standard uncertainty (the standard sphere curve's own, carried to the time). */
+  u_predicted_time_s?: number | null;
   residual_s?: number | null;
   vacuum_time_s?: number | null;
   impact_speed_m_s?: number | null;
@@ -92,6 +94,7 @@ export const DROP_COLUMNS = [
   'gravity_m_s2',
   'drag_coefficient',
   'predicted_time_s',
+  'u_predicted_time_s',
   'residual_s',
   'vacuum_time_s',
   'impact_speed_m_s',
@@ -294,6 +297,7 @@ function dropRows(rows: Row[]): CsvValue[][] {
         used ? sig(result.gravity_m_s2, 7) : null,
         used ? sig(r.drag_coefficient, 4) : null,
         used ? micro(r.predicted_time_s) : null,
+        used ? micro(r.u_predicted_time_s) : null,
         used ? micro(r.residual_s) : null,
         used ? micro(r.vacuum_time_s) : null,
         used ? sig(r.impact_speed_m_s, 4) : null,

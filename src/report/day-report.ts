@@ -146,6 +146,12 @@ function seriesTitle(s: SeriesOfDay, n: number): string {
   return `Series ${n}: ${specimen}, ${s.series.height_m.toFixed(2)} m, ${s.series.timing_method}`;
 }
 
+/** A predicted time with, for the standard sphere curve, its own standard uncertainty: "1.596 s ± 1.5 ms". */
+function predictedCell(time: number | null, u: number | null): Cell {
+  const cell = num(time, 3, 'predicted_time_s', 's');
+  return u === null || time === null ? cell : { ...cell, text: `${cell.text} ± ${(u * 1000).toFixed(1)} ms` };
+}
+
 function seriesSection(s: SeriesOfDay, n: number): SeriesSection {
   const { series, outcome, drops } = s;
   const rows = seriesDropRows(series, drops, outcome);
@@ -159,7 +165,7 @@ function seriesSection(s: SeriesOfDay, n: number): SeriesSection {
       num(r.drop.time_s, 3, 'time_s', 's'),
       txt(r.used ? 'yes' : r.drop.excluded ? 'excluded' : 'no'),
       r.own_drag_coefficient === null ? txt(r.ownMessage ? 'not computable' : '—') : num(r.own_drag_coefficient, 3, 'own_drag_coefficient'),
-      num(r.predicted_time_s, 3, 'predicted_time_s', 's'),
+      predictedCell(r.predicted_time_s, r.predicted_time_standard_uncertainty_s),
       r.residual_s === null ? txt('—') : { text: `${(r.residual_s * 1000).toFixed(1)} ms`, value: r.residual_s, field: 'residual_s' },
       txt([r.drop.excluded ? (r.drop.exclusion_reason ?? 'excluded') : '', r.drop.note].filter(Boolean).join(' · ')),
     ]),

@@ -88,6 +88,26 @@ describe('the drop table rows', () => {
     }
   });
 
+  it('carry the prediction’s own uncertainty for each drop in the fit, from its height’s entry of the result', () => {
+    const { day, copy, drops, outcome } = analysed('none');
+    const heights = outcome.result.prediction.heights!;
+    expect(outcome.result.prediction.method).toBe('standard-sphere-drag-curve');
+    const rows = seriesDropRows(day.series, drops, outcome);
+    for (const row of rows.filter((r) => r.used)) {
+      const entry = heights.find((h) => h.height_m === row.height_m)!;
+      expect(entry.time_standard_uncertainty_s).toBeGreaterThan(0);
+      expect(row.predicted_time_standard_uncertainty_s).toBe(entry.time_standard_uncertainty_s);
+    }
+    expect(rows.find((r) => r.drop.id === copy.id)!.predicted_time_standard_uncertainty_s).toBeNull();
+    // With a reference C_d the prediction carries no curve uncertainty, and the rows say none.
+    const withReference = { ...day.specimen, reference_drag_coefficient: 0.47 };
+    const referenced = analyzeSeriesRecords(day.site, [day.reading], withReference, day.series, drops, DRAWS);
+    if (referenced.kind !== 'ready') throw new Error('not ready');
+    expect(referenced.result.prediction.method).toBe('reference-drag-coefficient');
+    const plain = seriesDropRows(day.series, drops, referenced).filter((r) => r.used);
+    expect(plain.every((r) => r.predicted_time_s !== null && r.predicted_time_standard_uncertainty_s === null)).toBe(true);
+  });
+
   it('name the drop record behind a result index by its id', () => {
     const { day, outcome } = analysed('fit');
     expect(dropOfResult(outcome.result, 3, [...day.drops].reverse())).toBe(day.drops[3]);

@@ -34,6 +34,10 @@ describe('the CSV tables and the screens', () => {
       // The tables round: times to the microsecond, a drop's own C_d to four significant digits.
       expect(Math.abs(Number(row[col('residual_s')]) - result.residual_s)).toBeLessThanOrEqual(0.5e-6 + 1e-15);
       expect(Number(row[col('drag_coefficient')])).toBe(Number(result.drag_coefficient!.toPrecision(4)));
+      // The predicted time's own uncertainty (the standard sphere curve's), as the result gives it for that height.
+      const spread = screen.result.prediction.heights!.find((h) => h.height_m === result.height_m)!.time_standard_uncertainty_s;
+      expect(spread).toBeGreaterThan(0);
+      expect(Math.abs(Number(row[col('u_predicted_time_s')]) - spread)).toBeLessThanOrEqual(0.5e-6 + 1e-15);
     }
   });
 

@@ -57,6 +57,7 @@ describe.skipIf(!haveChromium)('the day report in Chromium', () => {
     expect(days.length).toBe(2);
     expect(await page.locator('section.rp-day').count()).toBe(2);
     let checked = 0;
+    let spreads = 0;
     for (const day of days) {
       for (const s of analyzeDay(dayRecords(records, day), { monteCarloDraws: DRAWS })) {
         const section = page.locator(`section[data-series-id="${s.series.id}"]`);
@@ -88,6 +89,13 @@ describe.skipIf(!haveChromium)('the day report in Chromium', () => {
           expect(Number(cells.find((c) => c.field === 'time_s')!.value)).toBe(row.drop.time_s);
           expect(Number(cells.find((c) => c.field === 'height_m')!.value)).toBe(row.height_m);
           if (row.residual_s !== null) expect(Number(cells.find((c) => c.field === 'residual_s')!.value)).toBe(row.residual_s);
+          const predicted = cells.find((c) => c.field === 'predicted_time_s');
+          if (row.predicted_time_s !== null) expect(Number(predicted!.value)).toBe(row.predicted_time_s);
+          // The standard sphere curve's own uncertainty beside the predicted time, in milliseconds.
+          if (row.predicted_time_standard_uncertainty_s !== null) {
+            expect(predicted!.text).toContain(`± ${(row.predicted_time_standard_uncertainty_s * 1000).toFixed(1)} ms`);
+            spreads++;
+          }
           if (row.drop.excluded) expect(cells[7]!.text).toContain(row.drop.exclusion_reason ?? 'excluded');
         });
 
@@ -107,6 +115,7 @@ describe.skipIf(!haveChromium)('the day report in Chromium', () => {
       }
     }
     expect(checked).toBeGreaterThanOrEqual(4);
+    expect(spreads).toBeGreaterThan(0);
   });
 
   it('states the methods with their sources and the safety caution', async () => {

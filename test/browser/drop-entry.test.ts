@@ -110,6 +110,13 @@ describe.skipIf(!haveChromium)('a drop in one motion', () => {
     await expectVisible(page.getByTestId('verdict-bar').getByText(`C_d ${expected.drag_coefficient!.toFixed(3)}`));
     await expectVisible(page.getByTestId('cd-value').getByText(expected.drag_coefficient!.toFixed(3)));
     await expectVisible(page.getByTestId('cd-meaning'));
+    // Under the drop table: how far the prediction itself may be off (the standard sphere curve's own uncertainty).
+    const spread = expected.prediction.heights![0]!.time_standard_uncertainty_s;
+    const curve = expected.prediction.drag_coefficient_relative_standard_uncertainty!;
+    await expectVisible(page.getByTestId('prediction-spread').getByText(`±${(spread * 1000).toFixed(1)} ms (one standard uncertainty), from the standard sphere curve’s own ±${(curve * 100).toFixed(0)} % in C_d`, { exact: false }));
+    await page.getByTestId('prediction-spread').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: `${SHOTS}/04b-prediction-spread.png` });
+    await page.evaluate(() => window.scrollTo(0, 0));
     await page.screenshot({ path: `${SHOTS}/03-ten-drops-verdict-top.png` });
     await page.screenshot({ path: `${SHOTS}/04-ten-drops-full.png`, fullPage: true });
   });

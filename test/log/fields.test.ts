@@ -114,6 +114,7 @@ describe('the CSV tables', () => {
     'drag_coefficient_95_low',
     'drag_coefficient_95_high',
     'predicted_time_s',
+    'u_predicted_time_s',
     'residual_s',
     'vacuum_time_s',
     'impact_speed_m_s',

@@ -23,9 +23,14 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
     h: r.height_m,
     own: r.own_drag_coefficient,
     predicted: r.predicted_time_s,
+    uPredicted: r.predicted_time_standard_uncertainty_s,
     residual: r.residual_s,
   }));
   if (rows.length === 0) return null;
+  // The prediction's own uncertainty, once per height: the standard sphere curve is known to a few per cent only.
+  const predictionSpread = new Map<number, number>();
+  for (const r of rows) if (r.uPredicted !== null && !predictionSpread.has(r.h)) predictionSpread.set(r.h, r.uPredicted);
+  const curvePercent = outcome.kind === 'ready' ? outcome.result.prediction.drag_coefficient_relative_standard_uncertainty : undefined;
 
   const toggle = async (d: DropRecord) => {
     setError(null);
@@ -148,6 +153,18 @@ export function DropTable({ drops, series, outcome }: { drops: readonly DropReco
             );
           })()
         : null}
+      {predictionSpread.size > 0 ? (
+        <p class="hint" data-testid="prediction-spread">
+          The predicted time is uncertain by{' '}
+          {[...predictionSpread]
+            .sort((a, b) => a[0] - b[0])
+            .map(([h, u]) => `±${ms(u)} ms${predictionSpread.size > 1 ? ` from ${app.format(h, 'length', 2)}` : ''}`)
+            .join(', ')}{' '}
+          (one standard uncertainty)
+          {curvePercent !== undefined ? `, from the standard sphere curve’s own ±${formatNumber(curvePercent * 100, 0, app.settings.decimalComma)} % in C_d` : ''}: a
+          difference up to about twice that is within what the curve can tell.
+        </p>
+      ) : null}
       {rows
         .filter((r) => r.d.excluded)
         .map((r) => (
