@@ -8,7 +8,7 @@
  * says more about luck than about the specimen. From five drops the scatter is known to about a third, which is
  * the least a crew should act on (common practice).
  */
-import { prepareSeries, type PhysicsWarning } from '../physics';
+import { analyzeSeries, prepareSeries, type PhysicsWarning } from '../physics';
 import type { DropRecord, SeriesRecord } from '../log';
 import { relativeUncertainty, type SeriesOutcome, type SetAsideDrop } from './series-analysis';
 import { dropOfResult } from './drop-rows';
@@ -101,10 +101,20 @@ export function dragCoefficientWithoutBuoyancyAndAddedMass(outcome: SeriesOutcom
   if (outcome.kind !== 'ready' || outcome.result.drag_coefficient === null) return null;
   const model = outcome.result.model;
   if (!model.buoyancy && model.added_mass_coefficient === 0) return outcome.result.drag_coefficient;
+  const options = { ...outcome.request.options, buoyancy: false, added_mass_coefficient: 0 };
   try {
-    const prepared = prepareSeries({ ...outcome.request, options: { ...outcome.request.options, buoyancy: false, added_mass_coefficient: 0 } });
+    // Under the scaled sphere curve the series gives C_d at its terminal Reynolds number: the same law, the same
+    // reading (only the estimate is used; the fewest Monte Carlo draws allowed keep it quick).
+    if (outcome.result.drag_law === 'scaled_sphere') {
+      const lumped = analyzeSeries({ ...outcome.request, options: { ...options, drag_law: 'scaled_sphere', monte_carlo_draws: LUMPED_DRAWS } });
+      return lumped.drag_law === 'scaled_sphere' && lumped.drag_coefficient_estimate > 0 ? lumped.drag_coefficient_estimate : null;
+    }
+    const prepared = prepareSeries({ ...outcome.request, options });
     return prepared.fit.estimate > 0 ? prepared.fit.estimate : null;
   } catch {
     return null;
   }
 }
+
+/** The Monte Carlo draws of the analysis above, whose uncertainty is not used: the fewest a request may ask for. */
+const LUMPED_DRAWS = 200;

@@ -9,7 +9,12 @@ import {
   vacuumFallTime,
   type SeriesOutcome,
 } from '../../src/analysis';
-import { planDrop } from '../../src/physics';
+import { analyzeSeries, planDrop } from '../../src/physics';
+import { airProperties } from '../../src/physics/airProperties';
+import { scaledSphereFallTime } from '../../src/physics/dragLaw';
+import { localGravity } from '../../src/physics/normalGravity';
+import { standardSphereDragCoefficient } from '../../src/physics/standardSphereDrag';
+import { PARTICLE, PARTICLE_AIR, PARTICLE_SITE, particleRequest } from '../physics/particleSeries';
 import { seriesPlanRequest } from '../../src/analysis';
 import type { DropRecord } from '../../src/log/types';
 import { revise, testDay, DEVICE } from './day-records';
@@ -158,6 +163,34 @@ describe('what drag alone would read', () => {
     expect(lumped).toBeCloseTo(expected, 6);
     // Buoyancy lightens and added mass slows the body, so the drag term alone must take up less: the modelled C_d is lower.
     expect(outcome.result.drag_coefficient!).toBeLessThan(lumped);
+  });
+
+  it('under the scaled sphere curve, is C_d at the terminal Reynolds number of the same curve without buoyancy and added mass', () => {
+    // A 1 mm bead (our own scenario, particleSeries.ts) whose exact times come from a fall with neither buoyancy nor
+    // added mass, drag on the standard curve scaled by 1.15: drag alone reads exactly that, at its settling speed.
+    const scale = 1.15;
+    const { density_kg_m3: rho, dynamic_viscosity_Pa_s: mu } = airProperties(PARTICLE_AIR, PARTICLE_SITE.elevation_m);
+    const g = localGravity(PARTICLE_SITE).gravity_m_s2;
+    const A = (Math.PI * PARTICLE.diameter_m ** 2) / 4;
+    const bare = { effective_gravity_m_s2: g, drag_constant_per_unit_cd_per_m: (rho * A) / (2 * PARTICLE.mass_kg), reynolds_per_speed_s_m: (rho * PARTICLE.diameter_m) / mu };
+    const exact = particleRequest({ scale, heights: [0.5, 0.5, 1, 1, 2, 2], drag_law: 'scaled_sphere', draws: 200 });
+    const request = { ...exact, drops: exact.drops.map((d) => ({ ...d, time_s: scaledSphereFallTime(d.height_m, bare, scale) })) };
+    const result = analyzeSeries(request);
+    expect(result.drag_law).toBe('scaled_sphere');
+    const outcome = { kind: 'ready', request, result, reading: testDay().reading, setAside: [] } as SeriesOutcome;
+    // The settling speed of the bare body on the scaled curve, by bisection: g = s·C_d,std(Re)·(ρA/2m)·v².
+    let lo = 0;
+    let hi = 100;
+    for (let i = 0; i < 200; i++) {
+      const v = (lo + hi) / 2;
+      const drag = scale * standardSphereDragCoefficient(bare.reynolds_per_speed_s_m * v) * bare.drag_constant_per_unit_cd_per_m * v * v;
+      if (drag < g) lo = v;
+      else hi = v;
+    }
+    const expected = scale * standardSphereDragCoefficient(bare.reynolds_per_speed_s_m * lo);
+    expect(dragCoefficientWithoutBuoyancyAndAddedMass(outcome)).toBeCloseTo(expected, 6);
+    // The modelled C_d differs from it by buoyancy and added mass, not by a change of law.
+    expect(Math.abs(result.drag_coefficient! / expected - 1)).toBeLessThan(0.02);
   });
 });
 
