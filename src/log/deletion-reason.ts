@@ -16,6 +16,8 @@ const hasReason = (entry: unknown) => {
 /** A problem for each deleted version (the current one or an earlier one) that follows no version with a reason. */
 export function deletionReasonProblems(record: { rev?: unknown; deleted?: unknown; history?: unknown }): Problem[] {
   if (!Array.isArray(record.history)) return [];
+  // Nearly every record: live, with no earlier version (nothing to look through).
+  if (record.history.length === 0 && record.deleted !== true) return [];
   const history = record.history as unknown[];
   const reasonedBefore = (rev: unknown) =>
     typeof rev === 'string' && history.some((h) => hasReason(h) && typeof (h as { rev?: unknown }).rev === 'string' && (h as { rev: string }).rev < rev);

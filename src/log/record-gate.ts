@@ -179,8 +179,8 @@ export function* gateSteps(records: readonly unknown[], options: GateOptions = {
   const problems: Problem[] = [];
   const push = (i: number, record: Loose, p: Problem) =>
     problems.push({ ...p, path: `${where(i)}.${p.path}`, message: `${where(i)} ${label(record)}: ${p.message}` });
-  /** The batch's own ids and kinds, from the records that passed on their own. */
-  const batch = new Map<string, { kind: RecordKind; index: number }>();
+  /** The batch's own ids and where each is, from the records that passed on their own. */
+  const batch = new Map<string, number>();
   const good: number[] = [];
   for (let i = 0; i < records.length && problems.length < GATE_PROBLEM_LIMIT; i++) {
     if (i > 0 && i % PROGRESS_STEP === 0) yield i;
@@ -193,17 +193,21 @@ export function* gateSteps(records: readonly unknown[], options: GateOptions = {
       if (passed !== undefined) passed.add(record as object);
     }
     const id = record.id as string;
-    const kind = record.kind as RecordKind;
     const earlier = batch.get(id);
-    if (earlier) {
+    if (earlier !== undefined) {
       const rule = DUPLICATE_ID_RULE;
-      push(i, record, { path: 'id', value: id, rule, message: `id: ${show(id)} is the id of ${where(earlier.index)} (${earlier.kind}) too: ${rule}` });
+      const kind = (records[earlier] as Loose).kind as RecordKind;
+      push(i, record, { path: 'id', value: id, rule, message: `id: ${show(id)} is the id of ${where(earlier)} (${kind}) too: ${rule}` });
       continue;
     }
-    batch.set(id, { kind, index: i });
+    batch.set(id, i);
     good.push(i);
   }
-  problems.push(...kindProblems(records, good, batch, options, GATE_PROBLEM_LIMIT - problems.length));
+  const batchKind = (id: string): RecordKind | undefined => {
+    const at = batch.get(id);
+    return at === undefined ? undefined : ((records[at] as Loose).kind as RecordKind);
+  };
+  problems.push(...kindProblems(records, good, batchKind, options, GATE_PROBLEM_LIMIT - problems.length));
   return problems;
 }
 
@@ -214,7 +218,7 @@ export function* gateSteps(records: readonly unknown[], options: GateOptions = {
 function kindProblems(
   records: readonly unknown[],
   good: readonly number[],
-  batch: ReadonlyMap<string, { kind: RecordKind }>,
+  batchKind: (id: string) => RecordKind | undefined,
   options: GateOptions,
   limit: number,
 ): Problem[] {
@@ -222,7 +226,7 @@ function kindProblems(
   const problems: Problem[] = [];
   const push = (i: number, record: Loose, p: Problem) =>
     problems.push({ ...p, path: `${where(i)}.${p.path}`, message: `${where(i)} ${label(record)}: ${p.message}` });
-  const kindOf = (id: string): RecordKind | undefined => batch.get(id)?.kind ?? options.known?.(id);
+  const kindOf = (id: string): RecordKind | undefined => batchKind(id) ?? options.known?.(id);
   for (const i of good) {
     if (problems.length >= limit) break;
     const record = records[i] as Loose;
@@ -252,9 +256,9 @@ function kindProblems(
  * meaningless.
  */
 export function gateAgainstLog(records: readonly LogRecordLike[], options: GateOptions): Problem[] {
-  const batch = new Map<string, { kind: RecordKind }>();
-  records.forEach((r) => batch.set(r.id, { kind: r.kind }));
-  return kindProblems(records, records.map((_, i) => i), batch, options, GATE_PROBLEM_LIMIT);
+  const batch = new Map<string, RecordKind>();
+  for (const r of records) batch.set(r.id, r.kind);
+  return kindProblems(records, records.map((_, i) => i), (id) => batch.get(id), options, GATE_PROBLEM_LIMIT);
 }
 
 type LogRecordLike = { id: string; kind: RecordKind };

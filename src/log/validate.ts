@@ -886,5 +886,8 @@ export function validateRecord(input: unknown): Problem[] {
   CHECKS[kind](b, record);
   b.onlyFields('', record, RECORD_FIELD_SETS.get(kind)!, article(kind));
   // Same-stamp versions sort by what they say (version-order.ts): no history entry may sort after the current one.
-  return [...c.problems, ...deletionReasonProblems(record), ...historyOrderProblems(record, () => bodyFields(record)), ...b.problems, ...problems];
+  const deletion = deletionReasonProblems(record);
+  const order = historyOrderProblems(record, () => bodyFields(record));
+  if (deletion.length + order.length + b.problems.length + problems.length === 0) return c.problems;
+  return [...c.problems, ...deletion, ...order, ...b.problems, ...problems];
 }
