@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { assertValidBody, instantMs, isIsoInstant, READ_FIELD_NAMES, validateBody, validateRecord } from '../../src/log/validate';
 import { LogValidationError } from '../../src/log/errors';
+import { FIELDS } from '../../src/log/fields';
+import { RECORD_KINDS } from '../../src/log/types';
 import type { BodyOf, RecordKind } from '../../src/log/types';
 import * as demo from './demo-bodies';
 
@@ -244,6 +246,10 @@ describe('validateRecord', () => {
   it('reads no field whose name Object.prototype holds, so a plain record is read by its own fields only', () => {
     expect(READ_FIELD_NAMES.length).toBeGreaterThan(60);
     expect(READ_FIELD_NAMES.filter((name) => name in Object.prototype)).toEqual([]);
+    // Nested values (a shape, a capture, a clip, marks) are read by name too: every part of every catalogued path.
+    const parts = RECORD_KINDS.flatMap((kind) => Object.keys(FIELDS[kind]).flatMap((path) => path.split(/[.[\]]+/).filter(Boolean)));
+    expect(parts.length).toBeGreaterThan(READ_FIELD_NAMES.length);
+    expect(parts.filter((name) => name in Object.prototype)).toEqual([]);
   });
 
   it('reads only own fields of a record, a version and a body that are not plain objects', () => {
