@@ -60,11 +60,18 @@ function variableDragBody(result: AnalysisResult): Omit<VariableDragBody, 'dragC
   return sphereScaleBodyOf(result);
 }
 
-/** A speed-dependent fall as (time, height) points up to 5 % past the highest drop. */
+/** Points of a speed-dependent fall's curve. */
+const HEIGHT_CURVE_POINTS = 24;
+
+/**
+ * A speed-dependent fall as (time, height) points up to 5 % past the highest drop. The heights are spaced as the
+ * square of their index, so the points are about evenly spaced in time: a fall starts as h = g·t²/2, and heights
+ * spaced evenly drew the first stretch as one straight chord, visibly above the curve near the release.
+ */
 function heightCurve(hMax: number, body: VariableDragBody): Curve {
   const curve: Curve = [[0, 0]];
-  for (let i = 1; i <= 16; i++) {
-    const h = (hMax * 1.05 * i) / 16;
+  for (let i = 1; i <= HEIGHT_CURVE_POINTS; i++) {
+    const h = hMax * 1.05 * (i / HEIGHT_CURVE_POINTS) ** 2;
     try {
       curve.push([fallWithVariableDrag(h, body, 1e-8).time_s, h]);
     } catch {
