@@ -16,7 +16,7 @@ import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from
 import { fitDragToMarks, type MarkedDrop } from './fitDragToMarks';
 import { grubbsPerSeries } from './grubbsTest';
 import { MarksModel, type MarksDropSetup } from './marksModel';
-import { adaptiveMonteCarloPropagation, monteCarloPropagation, type AdaptiveMonteCarloResult, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
+import { adaptiveMonteCarloPropagation, monteCarloNormals, monteCarloPropagation, type AdaptiveMonteCarloResult, type MonteCarloSpec } from './monteCarloPropagation';
 import { PhysicsInputError } from './physicsInputError';
 import type { PhysicsWarning } from './physicsWarning';
 import type { SeriesFit } from './seriesFit';
@@ -250,19 +250,7 @@ export function analyzeMarksSeries(request: AnalysisRequest): AnalysisResult {
 
   // Monte Carlo: every input drawn, the marks' times through the same draw as single times (one normal per mark,
   // its variance the declared one, scaled by ν/χ²_ν when the marks scatter more; counts carry the per-mark ratio).
-  const normals: NormalInput[] = [];
-  for (const spec of specs) {
-    if (spec.input === 'time_s' || spec.input === 'scatter_s' || !(spec.standard_uncertainty > 0)) continue;
-    spec.indices.forEach((index, i) => {
-      const input: NormalInput = { index, u: spec.standard_uncertainty * spec.weights[i]! };
-      if (spec.input === 'relative_humidity_pct') {
-        input.min = 0;
-        input.max = 1;
-      }
-      if (spec.input === 'added_mass_coefficient') input.min = -setup.added_mass_coefficient;
-      normals.push(input);
-    });
-  }
+  const normals = monteCarloNormals(specs, setup.added_mass_coefficient);
   const mcSpec: MonteCarloSpec = {
     draws: setup.draws,
     seed,

@@ -12,7 +12,7 @@ import { groupDrops, type DropGroups } from './dropGroups';
 import { fallParameters, fallSpeedAtHeight, fallTime, type FallParameters } from './fallModel';
 import { fallWithVariableDrag } from './fallWithVariableDrag';
 import { grubbsPerSeries } from './grubbsTest';
-import { adaptiveMonteCarloPropagation, monteCarloPropagation, type AdaptiveMonteCarloResult, type MonteCarloSpec, type NormalInput } from './monteCarloPropagation';
+import { adaptiveMonteCarloPropagation, monteCarloNormals, monteCarloPropagation, type AdaptiveMonteCarloResult, type MonteCarloSpec } from './monteCarloPropagation';
 import type { PhysicsWarning } from './physicsWarning';
 import { fitSeries, type SeriesFit } from './seriesFit';
 import { checkNotFasterThanFreeFall, seriesScatter, type SeriesScatter } from './seriesScatter';
@@ -200,20 +200,7 @@ export function analyzeSeries(request: AnalysisRequest): AnalysisResult {
     const { dof, excess } = prepared.scatter;
     // The Monte Carlo evaluates the air along the fall through its surrogate (columnCorrection.ts).
     if (model.columnWeight > 0) model.freezeColumn(x0, surrogateInputs(specs));
-    const normals: NormalInput[] = [];
-    for (const spec of specs) {
-      if (spec.input === 'time_s' || spec.input === 'scatter_s' || !(spec.standard_uncertainty > 0)) continue;
-      spec.indices.forEach((index, i) => {
-        const input: NormalInput = { index, u: spec.standard_uncertainty * spec.weights[i]! };
-        if (spec.input === 'relative_humidity_pct') {
-          input.min = 0;
-          input.max = 1;
-        }
-        // A drawn C_a below zero has no meaning: clip the change at minus the nominal value.
-        if (spec.input === 'added_mass_coefficient') input.min = -addedMass;
-        normals.push(input);
-      });
-    }
+    const normals = monteCarloNormals(specs, addedMass);
     const mcSpec: MonteCarloSpec = {
       draws,
       seed,

@@ -13,7 +13,7 @@
  * enough and the loop stays short.
  */
 import { createRandom, type RandomSource } from './createRandom';
-import type { MeasurementModel } from './uncertaintyBudget';
+import type { BudgetInputSpec, MeasurementModel } from './uncertaintyBudget';
 
 export interface NormalInput {
   index: number;
@@ -21,6 +21,28 @@ export interface NormalInput {
   u: number;
   min?: number;
   max?: number;
+}
+
+/**
+ * The drawn inputs of a budget: one normal per input index, its u weighted as in the budget. The times and the
+ * scatter are drawn apart (MonteCarloSpec.times). A humidity stays within 0–1; a drawn added-mass coefficient
+ * below zero has no meaning, so its change is clipped at minus the nominal value `addedMassCoefficient`.
+ */
+export function monteCarloNormals(specs: readonly BudgetInputSpec[], addedMassCoefficient: number): NormalInput[] {
+  const normals: NormalInput[] = [];
+  for (const spec of specs) {
+    if (spec.input === 'time_s' || spec.input === 'scatter_s' || !(spec.standard_uncertainty > 0)) continue;
+    spec.indices.forEach((index, i) => {
+      const input: NormalInput = { index, u: spec.standard_uncertainty * spec.weights[i]! };
+      if (spec.input === 'relative_humidity_pct') {
+        input.min = 0;
+        input.max = 1;
+      }
+      if (spec.input === 'added_mass_coefficient') input.min = -addedMassCoefficient;
+      normals.push(input);
+    });
+  }
+  return normals;
 }
 
 export interface MonteCarloSpec {
