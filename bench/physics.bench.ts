@@ -14,6 +14,7 @@ import { cpus, loadavg } from 'node:os';
 import { analyzeSeries, createRandom, dragCoefficientFromTime, fallDistance, fallParameters, fallTime, fallWithVariableDrag, validateAnalysisRequest, type AnalysisRequest } from '../src/physics/index';
 import { AirColumn, FREE_AIR_GRAVITY_GRADIENT_PER_S2 } from '../src/physics/airColumn';
 import { fallThroughColumn } from '../src/physics/fallThroughColumn';
+import { TALL_CROSSWIND_SERIES } from '../test/physics/tallCrosswindSeries';
 
 interface OdexSolver {
   absoluteTolerance: number;
@@ -106,15 +107,8 @@ const ownMs = median(() => (sink += fallWithVariableDrag(h, dpBody, 1e-10).time_
 const ownTime = fallWithVariableDrag(h, dpBody, 1e-10).time_s;
 
 // 4. A five-drop 3000 m series through the air column with a 4 m/s crosswind, full budget and 20 000-draw Monte
-// Carlo (invented scenario: a 0.5 kg, 100 mm ball, hand-timed).
-const tall = validateAnalysisRequest({
-  site: { latitude_deg: 46.1, elevation_m: 430 },
-  air: { temperature_C: 17.5, pressure_Pa: 96120, pressure_reference: 'station', relative_humidity_pct: 55, wind_speed_m_s: 4 },
-  specimen: { shape: 'sphere', mass_kg: 0.5, diameter_m: 0.1 },
-  drops: [78.02, 77.95, 78.08, 78.0, 77.97].map((t) => ({ height_m: 3000, time_s: t })),
-  timing: { standard_uncertainty_s: 0.05 },
-  uncertainty: { height_m: 1, mass_kg: 0.001, diameter_m: 0.0003, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3 },
-});
+// Carlo (invented scenario: a 0.5 kg, 100 mm ball, hand-timed; test/physics/tallCrosswindSeries.ts).
+const tall = validateAnalysisRequest(TALL_CROSSWIND_SERIES);
 const tallMs = median(() => (sink += analyzeSeries(tall).drag_coefficient_estimate), 7);
 
 // 5. The stratified fall (still air: the quadrature) against the same fall by odex driving the full equations.

@@ -10,6 +10,7 @@ import { createRandom } from '../../src/physics/createRandom';
 import { validateAnalysisRequest } from '../../src/physics/validateAnalysisRequest';
 import { particleRequest } from './particleSeries';
 import { measuredSeries } from './syntheticSeries';
+import { TALL_CROSSWIND_SERIES } from './tallCrosswindSeries';
 
 const example = (name: string): AnalysisRequest =>
   validateAnalysisRequest(JSON.parse(readFileSync(new URL(`../../examples/${name}`, import.meta.url), 'utf8')));
@@ -39,15 +40,7 @@ export function constantLawRequests(): { name: string; request: AnalysisRequest 
   // A tall fall through the air column with a crosswind.
   list.push({
     name: '3000 m through the air column',
-    request: validateAnalysisRequest({
-      site: { latitude_deg: 46.1, elevation_m: 430 },
-      air: { temperature_C: 17.5, pressure_Pa: 96120, pressure_reference: 'station', relative_humidity_pct: 55, wind_speed_m_s: 4 },
-      specimen: { shape: 'sphere', mass_kg: 0.5, diameter_m: 0.1 },
-      drops: [78.02, 77.95, 78.08, 78.0, 77.97].map((t) => ({ height_m: 3000, time_s: t })),
-      timing: { standard_uncertainty_s: 0.05 },
-      uncertainty: { height_m: 1, mass_kg: 0.001, diameter_m: 0.0003, temperature_C: 0.3, pressure_Pa: 30, relative_humidity_pct: 3 },
-      options: { monte_carlo_draws: 2000 },
-    }),
+    request: validateAnalysisRequest({ ...TALL_CROSSWIND_SERIES, options: { monte_carlo_draws: 2000 } }),
   });
   return list;
 }
