@@ -99,7 +99,8 @@ describe('the drop table rows', () => {
       expect(row.predicted_time_standard_uncertainty_s).toBe(entry.time_standard_uncertainty_s);
     }
     expect(rows.find((r) => r.drop.id === copy.id)!.predicted_time_standard_uncertainty_s).toBeNull();
-    // With a reference C_d the prediction carries no curve uncertainty, and the rows say none.
+    // With a reference C_d (0.47, a smooth sphere's usual value, common practice) the prediction carries no curve
+    // uncertainty, and the rows say none.
     const withReference = { ...day.specimen, reference_drag_coefficient: 0.47 };
     const referenced = analyzeSeriesRecords(day.site, [day.reading], withReference, day.series, drops, DRAWS);
     if (referenced.kind !== 'ready') throw new Error('not ready');

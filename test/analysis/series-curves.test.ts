@@ -4,18 +4,23 @@ import { analyzeSeries } from '../../src/physics/analyzeSeries';
 import { scaledSphereFallTime } from '../../src/physics/dragLaw';
 import { particleRequest } from '../physics/particleSeries';
 
+/** A 1 mm bead, exact times of the standard curve scaled by 1.15 (invented scenario, test/physics/particleSeries.ts),
+ *  analysed under the scaled law: the request, the result, its fitted factor and the body it was fitted on. */
+function fittedBead() {
+  const request = particleRequest({ scale: 1.15, heights: [0.3, 1, 3], drag_law: 'scaled_sphere' });
+  const result = analyzeSeries(request);
+  const rho = result.air.density_kg_m3;
+  const body = {
+    effective_gravity_m_s2: result.model.effective_gravity_m_s2,
+    drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
+    reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
+  };
+  return { request, result, s: result.drag_law_details.scale_factor!, body };
+}
+
 describe('the series chart curves', () => {
   it('draw the fitted fall with the scaled sphere curve when the series was fitted with it', () => {
-    // A 1 mm bead, exact times of the standard curve scaled by 1.15 (invented scenario, test/physics/particleSeries.ts).
-    const request = particleRequest({ scale: 1.15, heights: [0.3, 1, 3], drag_law: 'scaled_sphere' });
-    const result = analyzeSeries(request);
-    const s = result.drag_law_details.scale_factor!;
-    const rho = result.air.density_kg_m3;
-    const body = {
-      effective_gravity_m_s2: result.model.effective_gravity_m_s2,
-      drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
-      reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
-    };
+    const { request, result, s, body } = fittedBead();
     const { fitted } = seriesCurves(request, result);
     expect(fitted!.length).toBeGreaterThan(10);
     for (const [t, h] of fitted!.slice(1)) expect(Math.abs(t / scaledSphereFallTime(h, body, s) - 1)).toBeLessThan(1e-6);
@@ -28,15 +33,7 @@ describe('the series chart curves', () => {
   it('draw the curve with straight pieces that stay within 0.5 % of its height everywhere, the release included', () => {
     // Between two points the chart draws a straight line: at each piece's middle time, the true height (found by
     // bisection on the fall time) and the line's must agree.
-    const request = particleRequest({ scale: 1.15, heights: [0.3, 1, 3], drag_law: 'scaled_sphere' });
-    const result = analyzeSeries(request);
-    const s = result.drag_law_details.scale_factor!;
-    const rho = result.air.density_kg_m3;
-    const body = {
-      effective_gravity_m_s2: result.model.effective_gravity_m_s2,
-      drag_constant_per_unit_cd_per_m: (rho * result.model.area_m2) / (2 * result.model.effective_mass_kg),
-      reynolds_per_speed_s_m: (rho * result.model.characteristic_length_m) / result.air.dynamic_viscosity_Pa_s,
-    };
+    const { request, result, s, body } = fittedBead();
     const heightAt = (t: number) => {
       let lo = 0;
       let hi = 4;
